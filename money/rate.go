@@ -53,8 +53,14 @@ func NominalRate(x float64, m Frequency) Rate {
 }
 
 // PeriodicRate returns the rate x for one period of f (0.0035 per month).
+// Continuous has no period: PeriodicRate(x, Continuous) is not a rate, and
+// [Rate.Check] reports it.
 func PeriodicRate(x float64, f Frequency) Rate {
-	return Rate{form: Periodic, stated: x, freq: f, force: float64(f.PerYear()) * math.Log1p(x)}
+	r := Rate{form: Periodic, stated: x, freq: f, force: math.NaN()}
+	if p := f.PerYear(); p > 0 {
+		r.force = float64(p) * math.Log1p(x)
+	}
+	return r
 }
 
 // ForceRate returns the rate whose force of interest (continuously
@@ -118,8 +124,12 @@ func (r Rate) Compounding() Frequency {
 // nominal rate, the period of a periodic rate, 0 for an effective rate.
 func (r Rate) Freq() Frequency { return r.freq }
 
-// Check reports an error if r is at or below −100% a year or not finite.
+// Check reports an error if r is at or below −100% a year or not finite, or
+// if its stated frequency is not one (a periodic rate per Continuous).
 func (r Rate) Check() error {
+	if (r.form == Periodic || r.form == Nominal && r.freq != Continuous) && r.freq.PerYear() == 0 {
+		return fmt.Errorf("rate %s has no valid frequency", r)
+	}
 	if math.IsNaN(r.force) || math.IsInf(r.force, 0) {
 		return fmt.Errorf("rate %s is at or below -100%% a year", r)
 	}

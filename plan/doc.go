@@ -1,0 +1,90 @@
+// Package plan is cairn's engine: the goals file, an exact ledger of every
+// movement on each goal's account, and solvers for whichever quantity is
+// unknown — time, deposit, rate, starting sum, withdrawal, or how long money
+// lasts. It never reads the clock; callers pass today's month.
+//
+// # Goals file
+//
+// A household writes its goals in one YAML file, format version 1 ("cairn:
+// 1"). [Parse] decodes it through yaml.Node so that every problem carries a
+// file, line and column, and reports all of them at once as an [ErrorList].
+// Unknown keys are errors (with a "did you mean" hint), and so are wrong
+// types, bad dates, dates out of order, ambiguous frequencies, negative
+// deposits and values beyond the limits (see [MaxFileSize], [MaxGoals],
+// [HorizonYears] and the other limits).
+//
+// # Time
+//
+// Time is exact. Every event sits on an integer tick of a year divided into
+// [TicksPerYear] = 113,880 ticks, the least common multiple of the counts a
+// year of every frequency, so 52 weeks and 26 two-week periods are exactly a
+// year, and the ledger agrees with the compound-interest factors. Month m of
+// the plan spans ticks [m·9490, (m+1)·9490). Dates are shown by month; there
+// are no day counts. A deadline "by: 2029-06" is the end of June 2029.
+//
+// A stream every p per year from month M has period k spanning
+// [M + k/p, M + (k+1)/p) years; timing end (the default, an ordinary
+// annuity) puts its amount at the end of the period, timing start (an
+// annuity due) at its beginning. An end-timed monthly stream from January
+// has its first amount at the end of January, one period after its start,
+// and a deadline at the end of a month includes that month's end-timed
+// amount: F falls on the date of the last A. Growth ("grow: 3%") raises the
+// amount once a year on the stream's anniversary; an amount "in today's
+// money" ("250 today") is grown by inflation from the plan's start to the
+// stream's first month, and then rises with inflation each year unless grow
+// says otherwise. Today's money means money at the plan's start.
+//
+// # Interest
+//
+// Interest is credited at the compounding dates of the goal's first rate:
+// every 1/m year for a rate compounded m times a year, each period for a
+// periodic rate, and monthly (at the equivalent monthly rate) for effective
+// and continuously compounded rates. A rate schedule changes the rate from a
+// month on; each interest period uses the rate in force in the month it
+// begins. Each credit is rounded to the cent (the currency's minor unit)
+// with the file's rounding rule; so is each fee and each amount of a growing
+// stream. Fees ("fee: 0.25%", a year) are taken at each month end as a
+// twelfth of the rate times the balance then, after that month's interest.
+//
+// When compounding is more frequent than deposits, balances compound at
+// every interest date between deposits, so results equal the factors at the
+// effective rate per deposit period. When it is less frequent, the goal's
+// between rule decides what money arriving or leaving between two interest
+// dates earns until the next one. With j the rate per interest period and τ
+// the fraction of the period left when the money arrives:
+//
+//   - compound (the default): (1+j)^τ − 1, fractional-period compounding;
+//     this equals compounding at the effective rate per deposit period.
+//   - simple: j·τ, simple interest for the fraction, credited at the date.
+//   - none: nothing for a deposit until the next interest date; money
+//     withdrawn between dates earns nothing for that whole period.
+//
+// A worked example: 4% compounded quarterly (j = 1%) and 1,000 deposited one
+// month into a quarter (τ = 2/3). At the quarter's end, compound credits
+// 1,000 × (1.01^(2/3) − 1) = 6.656… → 6.66; simple credits 1,000 × 0.01 ×
+// 2/3 = 6.666… → 6.67; none credits 0.00. A 1,000 withdrawal from a balance
+// of 5,000 one month into the quarter leaves 4,000 earning, under none,
+// 40.00 for the quarter instead of compound's 5,000 × 0.01 − 6.66 = 43.34.
+//
+// # Ledger
+//
+// The [Ledger] is decimal and records every movement — opening balance,
+// deposits, one-time amounts, withdrawals, interest, fees — with its tick,
+// month, amount and the balance after it. A withdrawal larger than the
+// balance takes what is there and records the shortfall; nothing goes
+// negative silently. [Ledger.Rows] sums it by month or by year, with each
+// closing balance also in today's money.
+//
+// # Solvers
+//
+// [Solve] answers a [Question] with an [Answer]: the answer, the ledger that
+// proves it, and the [Equation] of value — one [Term] per flow with its
+// value at the deadline and, where one chain of factors describes it, the
+// factors, e.g. 250.00 × (F/A, 0.1539%, 65). Searches run in float64 over
+// the same compiled schedule the ledger walks (one model, two number types);
+// every reported answer is then confirmed in decimal: a deposit solved for
+// meets the target and one cent less misses.
+//
+// [Compare] solves one question over a grid of what-if overrides, and
+// [StatusOf] gives every goal at a glance.
+package plan

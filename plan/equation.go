@@ -1,0 +1,166 @@
+package plan
+
+import (
+	"math"
+
+	"github.com/shopspring/decimal"
+
+	"cairn/money"
+)
+
+func decimalInt(c int64) decimal.Decimal { return decimal.NewFromInt(c) }
+
+// A Term is one flow's part of the equation of value: its value at the
+// deadline and, where one chain of factors describes it, the factors.
+type Term struct {
+	Label  string
+	Kind   EntryKind
+	Amount money.Amount // the flow's amount: per period for a stream (its first)
+	Count  int          // how many amounts the term holds
+	// Factors, multiplied together and by Amount, give Value; empty when no
+	// standard factor describes the flow (rate changes, fees, growing
+	// amounts, or money between interest dates under a simple or none rule).
+	Factors []money.Factor
+	Value   money.Amount // at the end of month At, signed
+
+	stream *Stream
+}
+
+// An Equation of value states the balance at the end of month At as the sum
+// of every flow's value then. Sum equals Balance, the ledger's, within the
+// rounding of its postings (a cent or so a posting at most); where a
+// withdrawal could not be paid in full the terms overstate what went out.
+type Equation struct {
+	At      Month
+	Terms   []Term
+	Sum     money.Amount
+	Balance money.Amount
+}
+
+// EquationOf returns the equation of value of goal g at the end of month at.
+func EquationOf(p *Plan, g *Goal, at Month) *Equation { return equation(p, g, at, nil) }
+
+func equation(p *Plan, g *Goal, at Month, pr *params) *Equation {
+	s := compile(p, g, at)
+	if pr == nil {
+		pr = s.defaultParams()
+	} else {
+		pr = &params{rate: pr.rate, amounts: pr.amounts, amountsF: pr.amountsF}
+		if len(pr.amounts) != len(s.sources) { // compiled to another horizon: same sources first
+			pr = s.defaultParams()
+		}
+	}
+	eq := &Equation{At: at}
+	eq.Balance = s.ledger(pr).Closing
+	counts := make([]int, len(s.sources))
+	first := make([]int64, len(s.sources))
+	last := make([]int64, len(s.sources))
+	uniform := make([]bool, len(s.sources))
+	units := make([]float64, len(s.sources))
+	for i := range uniform {
+		uniform[i] = true
+		first[i] = -1
+	}
+	for _, e := range s.events {
+		if e.src < 0 {
+			continue
+		}
+		if first[e.src] < 0 {
+			first[e.src] = e.tick
+			units[e.src] = e.unit
+		}
+		last[e.src] = e.tick
+		if e.unit != units[e.src] {
+			uniform[e.src] = false
+		}
+		counts[e.src]++
+	}
+	counts[0] = 1
+	// One rate over the whole horizon and no fee: factors describe the flows.
+	constRate := g.Fee == 0
+	for _, st := range g.Rates[1:] {
+		if st.From <= at {
+			constRate = false
+		}
+	}
+	rate := g.Rates[0].Rate
+	if pr.rate != nil {
+		rate = *pr.rate
+	}
+	lastCredit := (s.endTick / s.period) * s.period
+	onCredits := func(i int) bool { // every flow of source i lies on an interest date
+		for _, e := range s.events {
+			if e.src == int32(i) && e.tick%s.period != 0 {
+				return false
+			}
+		}
+		return true
+	}
+	for i, src := range s.sources {
+		if i > 0 && counts[i] == 0 {
+			continue
+		}
+		v := s.runFloat(pr, floatOpts{only: int32(i)}).closing
+		amt := pr.amounts[i]
+		if src.out {
+			amt = amt.Abs().Neg()
+		}
+		if src.stream != nil && units[i] != 1 {
+			amt = amt.MulFloat(units[i]).Round(s.places, s.rounding)
+		}
+		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding), stream: src.stream}
+		if t.Label == "" {
+			t.Label = src.kind.String() + "s"
+		}
+		if constRate && uniform[i] && (g.Between == Compound || onCredits(i)) && (i == 0 || last[i] <= lastCredit) {
+			j := rate.PerPeriod(s.comp)
+			switch {
+			case i == 0 || src.stream == nil:
+				from := int64(0)
+				if i > 0 {
+					from = first[i]
+				}
+				if n := float64(lastCredit-from) / float64(s.period); n > 0 {
+					t.Factors = []money.Factor{{Kind: money.FP, I: j, N: n}}
+				}
+			default:
+				P := TicksPerYear / int64(src.stream.Every.PerYear())
+				ip := rate.PerPeriod(src.stream.Every)
+				t.Factors = []money.Factor{{Kind: money.FA, I: ip, N: float64(counts[i])}}
+				if k := float64(lastCredit-last[i]) / float64(P); k > 0 {
+					t.Factors = append(t.Factors, money.Factor{Kind: money.FP, I: ip, N: k})
+				}
+			}
+		}
+		eq.Terms = append(eq.Terms, t)
+		eq.Sum = eq.Sum.Add(t.Value)
+	}
+	return eq
+}
+
+// Product returns the amount times its factors, the check of a term by
+// hand; NaN when the term has no factors.
+func (t Term) Product() float64 {
+	if len(t.Factors) == 0 {
+		return math.NaN()
+	}
+	v := t.Amount.Float()
+	for _, f := range t.Factors {
+		v *= f.Value()
+	}
+	return v
+}
+
+// amountOf returns the first amount of stream st's term, as a positive
+// amount; def when the stream has no term.
+func (eq *Equation) amountOf(st *Stream, def money.Amount) money.Amount {
+	if st == nil {
+		return def
+	}
+	for _, t := range eq.Terms {
+		if t.stream == st {
+			return t.Amount.Abs()
+		}
+	}
+	return def
+}

@@ -1,0 +1,231 @@
+package plan
+
+import (
+	"fmt"
+
+	"cairn/money"
+)
+
+// An EntryKind is the kind of a ledger movement.
+type EntryKind int
+
+const (
+	Opening    EntryKind = iota // the balance already saved at the start
+	Deposit                     // one amount of a deposit stream
+	Withdrawal                  // one amount of a withdrawal stream
+	OneTime                     // a one-time amount, in or out
+	Interest                    // interest credited at an interest date
+	Fee                         // the monthly fee
+)
+
+var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee"}
+
+func (k EntryKind) String() string { return entryNames[k] }
+
+// An Entry is one movement on a goal's account.
+type Entry struct {
+	Tick    int64 // on the grid of [TicksPerYear] a year, from the plan's start
+	Month   Month
+	Kind    EntryKind
+	Source  string       // the stream or one-time amount's name
+	Amount  money.Amount // signed: positive in, negative out
+	Balance money.Amount // after the movement
+	// Short is the part of a withdrawal that could not be paid because the
+	// balance ran out; zero otherwise.
+	Short money.Amount
+}
+
+// A Ledger is every movement on one goal's account, in decimal, from the
+// plan's start through the end of month End.
+type Ledger struct {
+	Plan     *Plan
+	Goal     *Goal
+	Start    Month
+	End      Month
+	Opening  money.Amount
+	Entries  []Entry
+	Closing  money.Amount
+	monthEnd []money.Amount // closing balance of each month
+	short    Month          // first month with a shortfall, 0 if none
+}
+
+// BalanceAt returns the closing balance at the end of month m, which must lie
+// between the ledger's start and end.
+func (l *Ledger) BalanceAt(m Month) money.Amount {
+	if m < l.Start {
+		return l.Opening
+	}
+	if m > l.End {
+		m = l.End
+	}
+	return l.monthEnd[m-l.Start]
+}
+
+// FirstShort returns the first month in which a withdrawal could not be paid
+// in full, and whether there was one.
+func (l *Ledger) FirstShort() (Month, bool) { return l.short, l.short != 0 }
+
+// Project returns the ledger of goal g through the end of month end.
+func Project(p *Plan, g *Goal, end Month) (*Ledger, error) {
+	if end < p.Start {
+		return nil, fmt.Errorf("project %s: end %s is before the start %s", g.Name, end, p.Start)
+	}
+	if end > p.Start.Add(HorizonYears*12-1) {
+		end = p.Start.Add(HorizonYears*12 - 1)
+	}
+	s := compile(p, g, end)
+	return s.ledger(s.defaultParams()), nil
+}
+
+// ledger walks the schedule in decimal, recording every movement.
+func (s *schedule) ledger(pr *params) *Ledger {
+	p, g := s.plan, s.goal
+	js := s.rates(pr)
+	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, Opening: pr.amounts[0]}
+	l.monthEnd = make([]money.Amount, s.end-p.Start+1)
+	l.Entries = make([]Entry, 0, len(s.events))
+	round := func(a money.Amount) money.Amount { return a.Round(s.places, s.rounding) }
+	fee := g.Fee / 12
+	bal := pr.amounts[0]
+	base, acc := bal, money.Zero
+	if !bal.IsZero() {
+		l.Entries = append(l.Entries, Entry{Month: p.Start, Kind: Opening, Source: "opening balance", Amount: bal, Balance: bal})
+	}
+	for i := range s.events {
+		e := &s.events[i]
+		switch e.kind {
+		case evInterest:
+			in := round(base.MulFloat(js[e.step]).Add(acc))
+			bal = bal.Add(in)
+			base, acc = bal, money.Zero
+			if !in.IsZero() {
+				l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: Interest, Amount: in, Balance: bal})
+			}
+		case evFee:
+			if bal.Sign() > 0 {
+				f := round(bal.MulFloat(fee))
+				if f.IsZero() {
+					continue
+				}
+				bal = bal.Sub(f)
+				acc = acc.Sub(f.MulFloat(accrual(g.Between, js[e.step], e.tau, true)))
+				l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: Fee, Amount: f.Neg(), Balance: bal})
+			}
+		case evMark:
+			l.monthEnd[e.month-p.Start] = bal
+		default:
+			src := &s.sources[e.src]
+			x := round(pr.amounts[e.src].MulFloat(e.unit))
+			var short money.Amount
+			if src.out {
+				x = x.Abs().Neg()
+				if x.Neg().Cmp(bal) > 0 {
+					paid := money.Max(bal, money.Zero)
+					short = x.Neg().Sub(paid)
+					x = paid.Neg()
+					if l.short == 0 {
+						l.short = e.month
+					}
+				}
+			}
+			bal = bal.Add(x)
+			acc = acc.Add(x.MulFloat(accrual(g.Between, js[e.step], e.tau, x.Sign() < 0)))
+			l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: src.kind, Source: src.name, Amount: x, Balance: bal, Short: short})
+		}
+	}
+	l.Closing = bal
+	return l
+}
+
+// A Period groups ledger entries into the rows of a projection.
+type Period int
+
+const (
+	ByYear  Period = iota // one row per calendar year
+	ByMonth               // one row per month
+)
+
+// A Row sums a projection period.
+type Row struct {
+	Label        string // "2027" or "2027-03"
+	From, To     Month
+	Opening      money.Amount
+	Deposits     money.Amount // stream deposits and one-time amounts in
+	Withdrawals  money.Amount // stream withdrawals and one-time amounts out, as a positive sum
+	Interest     money.Amount
+	Fees         money.Amount // as a positive sum
+	Closing      money.Amount
+	ClosingToday money.Amount // the closing balance in today's money
+	Short        money.Amount // withdrawals that could not be paid
+}
+
+// Rows sums the ledger by year or by month. The last row is the totals when
+// totals is true (its Opening is the ledger's opening and Closing its
+// closing).
+func (l *Ledger) Rows(by Period, totals bool) []Row {
+	var rows []Row
+	key := func(m Month) Month {
+		if by == ByYear {
+			return MonthOf(m.Year(), 1)
+		}
+		return m
+	}
+	idx := map[Month]int{}
+	for m := l.Start; m <= l.End; m++ {
+		k := key(m)
+		i, ok := idx[k]
+		if !ok {
+			label := m.String()
+			if by == ByYear {
+				label = fmt.Sprint(m.Year())
+			}
+			opening := l.Opening
+			if m > l.Start {
+				opening = l.BalanceAt(m - 1)
+			}
+			rows = append(rows, Row{Label: label, From: m, Opening: opening})
+			i = len(rows) - 1
+			idx[k] = i
+		}
+		rows[i].To = m
+		rows[i].Closing = l.BalanceAt(m)
+	}
+	var tot Row
+	for _, e := range l.Entries {
+		if e.Kind == Opening {
+			continue
+		}
+		i, ok := idx[key(e.Month)]
+		if !ok {
+			continue
+		}
+		r := &rows[i]
+		switch {
+		case e.Kind == Interest:
+			r.Interest = r.Interest.Add(e.Amount)
+		case e.Kind == Fee:
+			r.Fees = r.Fees.Sub(e.Amount)
+		case e.Amount.Sign() >= 0:
+			r.Deposits = r.Deposits.Add(e.Amount)
+		default:
+			r.Withdrawals = r.Withdrawals.Sub(e.Amount)
+		}
+		r.Short = r.Short.Add(e.Short)
+	}
+	for i := range rows {
+		r := &rows[i]
+		r.ClosingToday = l.Plan.Today(r.Closing, r.To)
+		tot.Deposits = tot.Deposits.Add(r.Deposits)
+		tot.Withdrawals = tot.Withdrawals.Add(r.Withdrawals)
+		tot.Interest = tot.Interest.Add(r.Interest)
+		tot.Fees = tot.Fees.Add(r.Fees)
+		tot.Short = tot.Short.Add(r.Short)
+	}
+	if totals && len(rows) > 0 {
+		tot.Label, tot.From, tot.To = "total", l.Start, l.End
+		tot.Opening, tot.Closing = l.Opening, l.Closing
+		tot.ClosingToday = l.Plan.Today(l.Closing, l.End)
+		rows = append(rows, tot)
+	}
+	return rows
+}

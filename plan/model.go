@@ -1,0 +1,202 @@
+package plan
+
+import (
+	"math"
+	"strings"
+
+	"cairn/money"
+)
+
+// A Plan is a household's goals as read from one goals file.
+type Plan struct {
+	File      string         // the file's name, for positions
+	Start     Month          // first month of the plan: t = 0 is the start of this month
+	Currency  money.Currency // for display and the places postings round to
+	Inflation money.Rate     // a year; "today" amounts grow by it
+	Rounding  money.Rounding // rule for every posting
+	Goals     []*Goal
+}
+
+// Goal returns the goal with the given name (case-insensitive), or nil.
+func (p *Plan) Goal(name string) *Goal {
+	for _, g := range p.Goals {
+		if equalFold(g.Name, name) {
+			return g
+		}
+	}
+	return nil
+}
+
+// A Between rule says what money that arrives or leaves between two
+// interest dates earns until the next one.
+type Between int
+
+const (
+	// Compound gives money that arrives mid-period fractional-period compound
+	// interest, (1+j)^τ − 1 for the fraction τ of the period it is in; this
+	// equals compounding at the effective rate per deposit period.
+	Compound Between = iota
+	// Simple gives it simple interest, j·τ, credited at the interest date.
+	Simple
+	// None gives deposits nothing until the next interest date, and money
+	// withdrawn mid-period earns nothing for that period.
+	None
+)
+
+var betweenNames = []string{"compound", "simple", "none"}
+
+func (b Between) String() string { return betweenNames[b] }
+
+// Words describes the rule in a sentence fragment.
+func (b Between) Words() string {
+	switch b {
+	case Simple:
+		return "money arriving between interest dates earns simple interest until the next one"
+	case None:
+		return "money arriving between interest dates earns nothing until the next one; money withdrawn between them earns nothing for that period"
+	}
+	return "money arriving between interest dates earns compound interest for the fraction of the period (the effective rate per deposit period)"
+}
+
+// A Timing places a stream's amount at the start or the end of each of its
+// periods.
+type Timing int
+
+const (
+	End   Timing = iota // at the end of each period (the default; an ordinary annuity)
+	Begin               // at the start of each period (an annuity due)
+)
+
+func (t Timing) String() string {
+	if t == Begin {
+		return "start"
+	}
+	return "end"
+}
+
+// A RateStep is the rate in force from a month on.
+type RateStep struct {
+	From Month
+	Rate money.Rate
+}
+
+// A Goal is one thing the household saves for, and the account it saves in.
+type Goal struct {
+	Name        string
+	Balance     money.Amount // already saved at the plan's start
+	Rates       []RateStep   // at least one; Rates[0].From is the plan's start
+	Between     Between
+	Fee         float64      // a year, as a fraction of the balance, taken monthly
+	Target      money.Amount // zero with HasTarget false when there is none
+	HasTarget   bool
+	TargetToday bool  // Target is in today's money, grown by inflation to the deadline
+	By          Month // deadline: the end of this month
+	HasBy       bool
+	Deposits    []*Stream
+	Withdrawals []*Stream
+	Once        []Once
+	Leave       money.Amount // balance that must remain after the last withdrawal
+
+	pos Position
+}
+
+// Pos returns the position of the goal in its file.
+func (g *Goal) Pos() Position { return g.pos }
+
+// A Stream is a series of equal-period amounts into (deposits) or out of
+// (withdrawals) a goal's account.
+type Stream struct {
+	Name   string
+	Amount money.Amount // per period; in today's money when Today is set
+	Today  bool
+	Every  money.Frequency
+	Timing Timing
+	From   Month // first month with a period
+	Until  Month // last month with an amount; valid when HasUntil
+	// HasUntil is false for an open-ended stream, which runs to the horizon.
+	HasUntil bool
+	// Grow is the yearly rise of the amount, as a fraction; GrowInflation
+	// makes it the plan's inflation.
+	Grow          float64
+	GrowInflation bool
+	Out           bool // a withdrawal
+}
+
+// growth returns the stream's yearly growth rate under inflation pi.
+func (s *Stream) growth(pi money.Rate) float64 {
+	if s.GrowInflation {
+		return pi.Effective()
+	}
+	return s.Grow
+}
+
+// A Once is a one-time amount: positive in, negative out.
+type Once struct {
+	Name   string
+	Amount money.Amount
+	On     Month // at the end of this month
+}
+
+// Clone returns a deep copy of the plan, for what-if changes.
+func (p *Plan) Clone() *Plan {
+	q := *p
+	q.Goals = make([]*Goal, len(p.Goals))
+	for i, g := range p.Goals {
+		q.Goals[i] = g.clone()
+	}
+	return &q
+}
+
+func (g *Goal) clone() *Goal {
+	h := *g
+	h.Rates = append([]RateStep(nil), g.Rates...)
+	h.Once = append([]Once(nil), g.Once...)
+	h.Deposits = cloneStreams(g.Deposits)
+	h.Withdrawals = cloneStreams(g.Withdrawals)
+	return &h
+}
+
+func cloneStreams(ss []*Stream) []*Stream {
+	out := make([]*Stream, len(ss))
+	for i, s := range ss {
+		c := *s
+		out[i] = &c
+	}
+	return out
+}
+
+// Stream returns the goal's stream with the given name (case-insensitive)
+// among its deposits (out false) or withdrawals (out true); an empty name
+// picks the first. It returns nil if there is none.
+func (g *Goal) Stream(name string, out bool) *Stream {
+	ss := g.Deposits
+	if out {
+		ss = g.Withdrawals
+	}
+	for _, s := range ss {
+		if name == "" || equalFold(s.Name, name) {
+			return s
+		}
+	}
+	return nil
+}
+
+// TargetAt returns the goal's target in money of the deadline: the target
+// as written, or for a target in today's money, grown by inflation from the
+// plan's start to the end of the deadline month.
+func (p *Plan) TargetAt(g *Goal) money.Amount {
+	if !g.TargetToday || !g.HasBy {
+		return g.Target
+	}
+	years := float64(g.By-p.Start+1) / 12
+	return g.Target.MulFloat(1 + p.Inflation.Over(years)).Round(p.Currency.Places, p.Rounding)
+}
+
+// Today returns an amount at the end of month m expressed in today's money
+// (money of the plan's start), deflated by the plan's inflation.
+func (p *Plan) Today(a money.Amount, m Month) money.Amount {
+	years := float64(m-p.Start+1) / 12
+	return a.MulFloat(math.Exp(-p.Inflation.Force() * years)).Round(p.Currency.Places, p.Rounding)
+}
+
+func equalFold(a, b string) bool { return strings.EqualFold(a, b) }

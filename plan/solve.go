@@ -1,0 +1,605 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"cairn/money"
+)
+
+// A Quantity is what a solver solves for.
+type Quantity int
+
+const (
+	ForTime       Quantity = iota // the month the target is reached
+	ForDeposit                    // the deposit per period that meets the target by the deadline
+	ForRate                       // the constant effective annual rate that meets it
+	ForStart                      // the opening balance that meets it
+	ForWithdrawal                 // the largest sustainable withdrawal
+	ForLasts                      // the month the money runs out
+)
+
+var quantityNames = []string{"time", "deposit", "rate", "start", "withdrawal", "lasts"}
+
+func (q Quantity) String() string { return quantityNames[q] }
+
+// Quantities lists every quantity by name, for usage messages.
+var Quantities = strings.Join(quantityNames, ", ")
+
+// ParseQuantity parses a quantity name: time, deposit, rate, start,
+// withdrawal or lasts.
+func ParseQuantity(s string) (Quantity, error) {
+	for i, n := range quantityNames {
+		if strings.EqualFold(strings.TrimSpace(s), n) {
+			return Quantity(i), nil
+		}
+	}
+	return 0, fmt.Errorf("unknown quantity %q (want %s)", s, strings.Join(quantityNames, ", "))
+}
+
+// A Question asks a solver for one quantity of one goal. Stream names the
+// deposit (ForDeposit) or withdrawal (ForWithdrawal) stream to solve for; ""
+// means the first.
+type Question struct {
+	For    Quantity
+	Stream string
+}
+
+// An Answer is a solver's answer with the ledger that proves it and the
+// equation of value behind it.
+type Answer struct {
+	Goal *Goal
+	For  Quantity
+
+	// ForTime: the month the target is first reached, and Months from the
+	// plan's start to its end. ForLasts: the month the money runs out, or,
+	// when Lasts is set, the last month of the withdrawals.
+	Month  Month
+	Months int
+	// Periods is the closed-form (fractional) number of periods of Freq to
+	// reach the target, for a goal with one uniform stream; NaN otherwise.
+	Periods float64
+	Freq    money.Frequency
+
+	// ForDeposit, ForStart, ForWithdrawal: the amount (per period for a
+	// stream) and the stream.
+	Amount money.Amount
+	Stream *Stream
+	// FirstAmount is the stream's first amount in money of its date: Amount
+	// itself unless the stream is in today's money.
+	FirstAmount money.Amount
+
+	// ForRate: the lowest effective annual rate that meets the target, and
+	// every other rate that also makes the balance equal it (when the cash
+	// flows change sign more than once).
+	Rate  money.Rate
+	Rates []money.Rate
+
+	// ForLasts and ForWithdrawal: whether the money lasts, and what is left
+	// after the last withdrawal.
+	Lasts bool
+	Left  money.Amount
+
+	Deadline Month        // the month the answer is measured at
+	Target   money.Amount // the target in money of that month
+	Balance  money.Amount // the ledger's balance then
+	Ledger   *Ledger      // the ledger under the answer
+	Equation *Equation    // the equation of value at Deadline under the answer
+	Note     string       // a remark on the answer, in plain words
+}
+
+// horizonEnd is the last month a plan may reach.
+func horizonEnd(p *Plan) Month { return p.Start.Add(HorizonYears*12 - 1) }
+
+// lastWithdrawal returns the last month with a withdrawal, or the horizon.
+func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
+	var m Month
+	for _, s := range g.Withdrawals {
+		if !s.HasUntil {
+			return horizonEnd(p), false
+		}
+		m = max(m, s.Until)
+	}
+	return m, m != 0
+}
+
+// Solve answers q for goal g. It never reads the clock. When the question has
+// no answer it returns a [*SolveError] saying why.
+func Solve(p *Plan, g *Goal, q Question) (*Answer, error) {
+	switch q.For {
+	case ForTime:
+		return solveTime(p, g)
+	case ForDeposit:
+		return solveAmount(p, g, q, false)
+	case ForStart:
+		return solveAmount(p, g, q, true)
+	case ForRate:
+		return solveRate(p, g)
+	case ForWithdrawal:
+		return solveWithdrawal(p, g, q)
+	case ForLasts:
+		return solveLasts(p, g)
+	}
+	return nil, fmt.Errorf("unknown quantity %d", q.For)
+}
+
+func noSolution(g *Goal, format string, args ...any) error {
+	return &SolveError{Goal: g.Name, Reason: fmt.Sprintf(format, args...)}
+}
+
+func needTarget(g *Goal, deadline bool) error {
+	if !g.HasTarget {
+		return noSolution(g, "the goal has no target to solve for (add target:)")
+	}
+	if deadline && !g.HasBy {
+		return noSolution(g, "the goal has no deadline to solve for (add by: YYYY-MM)")
+	}
+	return nil
+}
+
+// targetAtMonth is the target in money of the end of month m.
+func targetAtMonth(p *Plan, g *Goal, m Month) money.Amount {
+	h := *g
+	h.By, h.HasBy = m, true
+	return p.TargetAt(&h)
+}
+
+func solveTime(p *Plan, g *Goal) (*Answer, error) {
+	if err := needTarget(g, false); err != nil {
+		return nil, err
+	}
+	end := horizonEnd(p)
+	s := compile(p, g, end)
+	pr := s.defaultParams()
+	ends := make([]float64, end-p.Start+1)
+	s.runFloat(pr, floatOpts{only: -1, monthEnds: ends})
+	found := Month(0)
+	for i, b := range ends {
+		m := p.Start + Month(i)
+		if b >= targetAtMonth(p, g, m).Float()-0.005 {
+			found = m
+			break
+		}
+	}
+	if found == 0 {
+		return nil, noSolution(g, "%s", unreachableReason(p, g, ends))
+	}
+	// confirm in decimal, moving to the exact first month
+	l := compile(p, g, min(found+12, end)).ledger(pr)
+	meets := func(m Month) bool { return l.BalanceAt(m).Cmp(targetAtMonth(p, g, m)) >= 0 }
+	for found > p.Start && meets(found-1) {
+		found--
+	}
+	for !meets(found) && found < l.End {
+		found++
+	}
+	if !meets(found) {
+		return nil, noSolution(g, "%s", unreachableReason(p, g, ends))
+	}
+	a := &Answer{Goal: g, For: ForTime, Month: found, Months: int(found-p.Start) + 1, Periods: math.NaN()}
+	a.Periods, a.Freq = closedFormPeriods(p, g)
+	a.Deadline = found
+	a.Target = targetAtMonth(p, g, found)
+	a.Ledger, _ = Project(p, g, found)
+	a.Balance = a.Ledger.BalanceAt(found)
+	a.Equation = equation(p, g, found, nil)
+	if found == p.Start && g.Balance.Cmp(a.Target) >= 0 {
+		a.Note = "the balance already meets the target at the start"
+	}
+	return a, nil
+}
+
+// unreachableReason says in plain words why month-end balances ends never
+// reach the target.
+func unreachableReason(p *Plan, g *Goal, ends []float64) string {
+	lastDeposit := Month(0)
+	open := false
+	for _, s := range g.Deposits {
+		if !s.HasUntil {
+			open = true
+		}
+		lastDeposit = max(lastDeposit, s.Until)
+	}
+	netRate := g.Rates[len(g.Rates)-1].Rate.Effective() - g.Fee
+	peak, at := 0, ends[0]
+	for i, b := range ends {
+		if b > at {
+			peak, at = i, b
+		}
+	}
+	switch {
+	case len(g.Withdrawals) > 0 && peak < len(ends)-1:
+		pm := p.Start + Month(peak)
+		l, _ := Project(p, g, pm)
+		return fmt.Sprintf("withdrawals outpace growth: the balance peaks at %s in %s, short of the target, and falls after", l.BalanceAt(pm).Format(p.Currency, false), pm)
+	case len(g.Deposits) > 0 && !open && netRate <= 0:
+		return fmt.Sprintf("deposits stop in %s and interest alone never reaches it (the rate after fees is %s a year)", lastDeposit, money.Percent(netRate, 4))
+	case len(g.Deposits) > 0 && !open:
+		return fmt.Sprintf("deposits stop in %s and interest alone does not reach it within the %d-year horizon", lastDeposit, HorizonYears)
+	case len(g.Deposits) == 0 && netRate <= 0:
+		return fmt.Sprintf("there are no deposits and the rate after fees (%s a year) never grows the balance to the target", money.Percent(netRate, 4))
+	}
+	return fmt.Sprintf("the target is not reached within the %d-year horizon", HorizonYears)
+}
+
+// closedFormPeriods returns the fractional number of periods for a goal whose
+// only flows are the opening balance and one uniform deposit stream from the
+// start at a constant rate, and NaN otherwise.
+func closedFormPeriods(p *Plan, g *Goal) (float64, money.Frequency) {
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.TargetToday || g.Between != Compound {
+		return math.NaN(), 0
+	}
+	s := g.Deposits[0]
+	if s.HasUntil || s.Today || s.Grow != 0 || s.GrowInflation || s.From != p.Start {
+		return math.NaN(), 0
+	}
+	i := g.Rates[0].Rate.PerPeriod(s.Every)
+	A, B, T := s.Amount.Float(), g.Balance.Float(), g.Target.Float()
+	if s.Timing == Begin {
+		A *= 1 + i
+	}
+	var n float64
+	if i == 0 {
+		if A <= 0 {
+			return math.NaN(), 0
+		}
+		n = (T - B) / A
+	} else {
+		// B(1+i)^n + A((1+i)^n − 1)/i = T  ⇒  (1+i)^n = (T + A/i)/(B + A/i)
+		r := (T + A/i) / (B + A/i)
+		if r <= 0 {
+			return math.NaN(), 0
+		}
+		n = math.Log(r) / math.Log1p(i)
+	}
+	if math.IsNaN(n) || math.IsInf(n, 0) || n < 0 {
+		return math.NaN(), 0
+	}
+	return n, s.Every
+}
+
+// sourceIndex returns the schedule's source for stream st.
+func (s *schedule) sourceIndex(st *Stream) int32 {
+	for i, src := range s.sources {
+		if src.stream == st {
+			return int32(i)
+		}
+	}
+	return -1
+}
+
+// searchCents finds the boundary of a monotone predicate over amounts in
+// cents (minor units): with up set, the smallest c ≥ 0 for which ok(c)
+// holds; otherwise the largest. guess seeds the search. It returns false if
+// there is none up to limit.
+func searchCents(ok func(c int64) bool, guess, limit int64, up bool) (int64, bool) {
+	guess = min(max(guess, 0), limit)
+	good := func(c int64) bool { return ok(c) == up }
+	// find lo with !good and hi with good (for up); mirrored for down
+	var lo, hi int64
+	if good(guess) {
+		hi = guess
+		step := int64(1)
+		lo = guess - step
+		for lo >= 0 && good(lo) {
+			hi = lo
+			step *= 2
+			lo = hi - step
+		}
+		if lo < 0 {
+			if good(0) {
+				return 0, up
+			}
+			lo = 0
+		}
+	} else {
+		lo = guess
+		step := int64(1)
+		hi = guess + step
+		for hi <= limit && !good(hi) {
+			lo = hi
+			step *= 2
+			hi = lo + step
+		}
+		if hi > limit {
+			if !good(limit) {
+				if up {
+					return 0, false
+				}
+				return limit, true
+			}
+			hi = limit
+		}
+	}
+	for hi-lo > 1 {
+		mid := lo + (hi-lo)/2
+		if good(mid) {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	if up {
+		return hi, true
+	}
+	return lo, true
+}
+
+// solveAmount solves for the deposit of a stream (start false) or the
+// opening balance (start true).
+func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
+	if err := needTarget(g, true); err != nil {
+		return nil, err
+	}
+	s := compile(p, g, g.By)
+	var st *Stream
+	idx := int32(0)
+	if !start {
+		st = g.Stream(q.Stream, false)
+		if st == nil {
+			if q.Stream != "" {
+				return nil, noSolution(g, "the goal has no deposit stream named %q", q.Stream)
+			}
+			return nil, noSolution(g, "the goal has no deposits to solve for (add deposits:)")
+		}
+		idx = s.sourceIndex(st)
+	}
+	target := p.TargetAt(g)
+	pr := s.defaultParams()
+	scale := math.Pow(10, float64(p.Currency.Places))
+	unit := money.FromDecimal(money.Cents(1).Decimal().Shift(int32(2 - p.Currency.Places)))
+	set := func(c int64) {
+		a := unit.Mul(decimalInt(c))
+		pr.amounts[idx], pr.amountsF[idx] = a, float64(c)/scale
+	}
+	meetsF := func(c int64) bool {
+		set(c)
+		return s.runFloat(pr, floatOpts{only: -1}).closing >= target.Float()-0.5/scale
+	}
+	// linear guess from the value of one unit
+	pr1 := s.defaultParams()
+	pr1.amountsF[idx] = 1
+	per := s.runFloat(pr1, floatOpts{only: idx}).closing
+	set(0)
+	b0 := s.runFloat(pr, floatOpts{only: -1}).closing
+	if per <= 0 {
+		what := "the stream has no deposits on or before the deadline"
+		if start {
+			what = "the opening balance does not grow to the deadline"
+		}
+		if b0 >= target.Float() {
+			return nil, noSolution(g, "the target is met without it (%s)", what)
+		}
+		return nil, noSolution(g, "%s", what)
+	}
+	guess := int64(math.Ceil((target.Float() - b0) / per * scale))
+	limit := int64(MaxAmountUnits) * int64(scale)
+	c, ok := searchCents(meetsF, guess, limit, true)
+	if !ok {
+		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target")
+	}
+	// confirm in decimal: the smallest c that meets, and c−1 misses
+	meetsD := func(c int64) bool {
+		set(c)
+		return s.ledger(pr).Closing.Cmp(target) >= 0
+	}
+	for !meetsD(c) {
+		c++
+	}
+	for c > 0 && meetsD(c-1) {
+		c--
+	}
+	set(c)
+	a := &Answer{Goal: g, For: ForDeposit, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: g.By, Target: target}
+	if start {
+		a.For = ForStart
+	}
+	a.Ledger = s.ledger(pr)
+	a.Balance = a.Ledger.Closing
+	a.Equation = equation(p, g, g.By, pr)
+	a.FirstAmount = a.Equation.amountOf(st, a.Amount)
+	if c == 0 {
+		a.Note = "the target is met without it"
+	}
+	return a, nil
+}
+
+func solveWithdrawal(p *Plan, g *Goal, q Question) (*Answer, error) {
+	st := g.Stream(q.Stream, true)
+	if st == nil {
+		if q.Stream != "" {
+			return nil, noSolution(g, "the goal has no withdrawal stream named %q", q.Stream)
+		}
+		return nil, noSolution(g, "the goal has no withdrawals to solve for (add withdrawals:)")
+	}
+	end, finite := lastWithdrawal(p, g)
+	if !finite {
+		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	}
+	s := compile(p, g, end)
+	idx := s.sourceIndex(st)
+	pr := s.defaultParams()
+	scale := math.Pow(10, float64(p.Currency.Places))
+	unit := money.FromDecimal(money.Cents(1).Decimal().Shift(int32(2 - p.Currency.Places)))
+	set := func(c int64) {
+		pr.amounts[idx], pr.amountsF[idx] = unit.Mul(decimalInt(c)), float64(c)/scale
+	}
+	leave := g.Leave.Float()
+	okF := func(c int64) bool {
+		set(c)
+		r := s.runFloat(pr, floatOpts{only: -1})
+		return r.shortTick < 0 && r.closing >= leave-0.5/scale
+	}
+	// linear guess
+	pr1 := s.defaultParams()
+	pr1.amountsF[idx] = 1
+	per := -s.runFloat(pr1, floatOpts{only: idx}).closing
+	set(0)
+	b0 := s.runFloat(pr, floatOpts{only: -1}).closing
+	if b0 < leave || !okF(0) {
+		return nil, noSolution(g, "even with no withdrawals the balance falls short of leave %s", g.Leave.Format(p.Currency, false))
+	}
+	guess := int64(0)
+	if per > 0 {
+		guess = int64((b0 - leave) / per * scale)
+	}
+	limit := int64(MaxAmountUnits) * int64(scale)
+	c, _ := searchCents(okF, guess, limit, false)
+	okD := func(c int64) bool {
+		set(c)
+		l := s.ledger(pr)
+		_, short := l.FirstShort()
+		return !short && l.Closing.Cmp(g.Leave) >= 0
+	}
+	for c > 0 && !okD(c) {
+		c--
+	}
+	for okD(c + 1) {
+		c++
+	}
+	set(c)
+	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true}
+	a.Ledger = s.ledger(pr)
+	a.Balance, a.Left = a.Ledger.Closing, a.Ledger.Closing
+	a.Target = g.Leave
+	a.Equation = equation(p, g, end, pr)
+	a.FirstAmount = a.Equation.amountOf(st, a.Amount)
+	return a, nil
+}
+
+func solveLasts(p *Plan, g *Goal) (*Answer, error) {
+	if len(g.Withdrawals) == 0 {
+		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
+	}
+	end, _ := lastWithdrawal(p, g)
+	s := compile(p, g, end)
+	pr := s.defaultParams()
+	l := s.ledger(pr)
+	a := &Answer{Goal: g, For: ForLasts, Periods: math.NaN(), Ledger: l}
+	if m, short := l.FirstShort(); short {
+		a.Month, a.Months = m, int(m-p.Start)+1
+		a.Deadline = m
+		a.Balance = l.BalanceAt(m)
+		a.Equation = equation(p, g, m, nil)
+		return a, nil
+	}
+	a.Lasts = true
+	a.Month, a.Months = end, int(end-p.Start)+1
+	a.Deadline = end
+	a.Balance, a.Left = l.Closing, l.Closing
+	a.Equation = equation(p, g, end, nil)
+	if end == horizonEnd(p) {
+		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
+	}
+	return a, nil
+}
+
+// Rate search bounds, effective a year.
+const (
+	minSolveRate = -0.99
+	maxSolveRate = 1.0
+)
+
+func solveRate(p *Plan, g *Goal) (*Answer, error) {
+	if err := needTarget(g, true); err != nil {
+		return nil, err
+	}
+	s := compile(p, g, g.By)
+	target := p.TargetAt(g)
+	pr := s.defaultParams()
+	f := func(delta float64) float64 {
+		r := money.ForceRate(delta)
+		pr.rate = &r
+		return s.runFloat(pr, floatOpts{only: -1}).closing - target.Float()
+	}
+	lo, hi := math.Log1p(minSolveRate), math.Log1p(maxSolveRate)
+	const n = 240
+	var roots []float64
+	prevX, prevF := lo, f(lo)
+	for k := 1; k <= n; k++ {
+		x := lo + (hi-lo)*float64(k)/n
+		fx := f(x)
+		if prevF == 0 {
+			roots = append(roots, prevX)
+		} else if (prevF < 0) != (fx < 0) && fx != 0 {
+			roots = append(roots, brent(f, prevX, x, prevF, fx))
+		}
+		prevX, prevF = x, fx
+	}
+	if prevF == 0 {
+		roots = append(roots, prevX)
+	}
+	if len(roots) == 0 {
+		if f(hi) < 0 {
+			return nil, noSolution(g, "even at %s a year the goal falls short of %s by the deadline", money.Percent(maxSolveRate, 0), target.Format(p.Currency, false))
+		}
+		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
+	}
+	// lowest root first; nudge up until the decimal ledger meets the target
+	delta := roots[0]
+	var l *Ledger
+	for k := 0; k < 60; k++ {
+		r := money.ForceRate(delta)
+		pr.rate = &r
+		l = s.ledger(pr)
+		if l.Closing.Cmp(target) >= 0 {
+			break
+		}
+		delta += 1e-9 * math.Pow(2, float64(k))
+	}
+	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target}
+	for _, r := range roots[1:] {
+		a.Rates = append(a.Rates, money.ForceRate(r))
+	}
+	a.Ledger = l
+	a.Balance = l.Closing
+	a.Equation = equation(p, g, g.By, pr)
+	if len(a.Rates) > 0 {
+		a.Note = fmt.Sprintf("the cash flows change sign, so %d rates make the balance equal the target", len(roots))
+	}
+	return a, nil
+}
+
+// brent finds a root of f in [a, b], where f(a) and f(b) differ in sign, by
+// Brent's method (inverse quadratic interpolation safeguarded by bisection).
+func brent(f func(float64) float64, a, b, fa, fb float64) float64 {
+	if math.Abs(fa) < math.Abs(fb) {
+		a, b, fa, fb = b, a, fb, fa
+	}
+	c, fc := a, fa
+	d := b - a
+	mflag := true
+	for it := 0; it < 200; it++ {
+		if fb == 0 || math.Abs(b-a) < 1e-15 {
+			return b
+		}
+		var s float64
+		if fa != fc && fb != fc {
+			s = a*fb*fc/((fa-fb)*(fa-fc)) + b*fa*fc/((fb-fa)*(fb-fc)) + c*fa*fb/((fc-fa)*(fc-fb))
+		} else {
+			s = b - fb*(b-a)/(fb-fa)
+		}
+		q := (3*a + b) / 4
+		if !((s > q && s < b) || (s < q && s > b)) ||
+			(mflag && math.Abs(s-b) >= math.Abs(b-c)/2) ||
+			(!mflag && math.Abs(s-b) >= math.Abs(c-d)/2) ||
+			(mflag && math.Abs(b-c) < 1e-15) || (!mflag && math.Abs(c-d) < 1e-15) {
+			s = (a + b) / 2
+			mflag = true
+		} else {
+			mflag = false
+		}
+		fs := f(s)
+		d, c, fc = c, b, fb
+		if (fa < 0) != (fs < 0) {
+			b, fb = s, fs
+		} else {
+			a, fa = s, fs
+		}
+		if math.Abs(fa) < math.Abs(fb) {
+			a, b, fa, fb = b, a, fb, fa
+		}
+	}
+	return b
+}
