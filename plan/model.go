@@ -189,14 +189,14 @@ func (p *Plan) TargetAt(g *Goal) money.Amount {
 		return g.Target
 	}
 	years := float64(g.By-p.Start+1) / 12
-	return g.Target.MulFloat(1 + p.Inflation.Over(years)).Round(p.Currency.Places, p.Rounding)
+	return g.Target.MulFloat(1+p.Inflation.Over(years)).Round(p.Currency.Places, p.Rounding)
 }
 
 // Today returns an amount at the end of month m expressed in today's money
 // (money of the plan's start), deflated by the plan's inflation.
 func (p *Plan) Today(a money.Amount, m Month) money.Amount {
 	years := float64(m-p.Start+1) / 12
-	return a.MulFloat(math.Exp(-p.Inflation.Force() * years)).Round(p.Currency.Places, p.Rounding)
+	return a.MulFloat(math.Exp(-p.Inflation.Force()*years)).Round(p.Currency.Places, p.Rounding)
 }
 
 func equalFold(a, b string) bool { return strings.EqualFold(a, b) }

@@ -195,11 +195,11 @@ type Cell struct {
 // A Grid is a side-by-side what-if comparison: the base plan's answer and
 // one cell for every combination of the axes' values.
 type Grid struct {
-	Goal    string
-	For     Quantity
-	Keys    []string
-	Base    Cell
-	Cells   []Cell
+	Goal  string
+	For   Quantity
+	Keys  []string
+	Base  Cell
+	Cells []Cell
 }
 
 // MaxCells is the largest what-if grid Compare builds.
