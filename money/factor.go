@@ -78,9 +78,9 @@ func (f Factor) String() string {
 	n := fmt.Sprintf("%.6g", f.N)
 	name := f.Kind.String()
 	if f.Kind == PGeo || f.Kind == FGeo {
-		return fmt.Sprintf("(%s, %s, %s, %s)", name[:3], Percent(f.G, 4), Percent(f.I, 4), n)
+		return fmt.Sprintf("(%s, %s, %s, %s)", name[:3], RateText(f.G), RateText(f.I), n)
 	}
-	return fmt.Sprintf("(%s, %s, %s)", name, Percent(f.I, 4), n)
+	return fmt.Sprintf("(%s, %s, %s)", name, RateText(f.I), n)
 }
 
 // FutureOfPresent returns (F/P,i,n) = (1+i)^n, the single-payment compound

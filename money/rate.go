@@ -181,6 +181,16 @@ func Percent(x float64, places int) string {
 	return s + "%"
 }
 
+// RateText formats a rate for reading and checking by hand: a percentage
+// with four decimals, or six below 1% so that small periodic rates keep
+// their digits, without trailing zeros: "6.5%", "0.5262%", "0.010959%".
+func RateText(x float64) string {
+	if math.Abs(x) < 0.01 {
+		return Percent(x, 6)
+	}
+	return Percent(x, 4)
+}
+
 // ParseRate parses an annual rate in one of the trade's forms:
 //
 //	4.1%                        effective annual (a bare rate is effective)
@@ -232,7 +242,7 @@ func ParseRate(s string) (Rate, error) {
 		if !ok {
 			return bad(": unknown form " + strconv.Quote(rest))
 		}
-		f, err := ParseFrequency(word)
+		f, err := ParseFrequency(strings.TrimSpace(word))
 		if err != nil {
 			return bad(": " + err.Error())
 		}

@@ -1,0 +1,12 @@
+// Package examples holds cairn's example goals files, embedded so that
+// `cairn init` can write one. Every file here is parsed, projected and solved
+// by the plan package's tests.
+package examples
+
+import _ "embed"
+
+// Household is examples/household.yaml: an invented household with an
+// emergency fund, a home deposit, education savings and retirement.
+//
+//go:embed household.yaml
+var Household []byte
