@@ -2,6 +2,7 @@ package main
 
 import (
 	"errors"
+	"flag"
 	"fmt"
 	"io"
 	"os"
@@ -63,7 +64,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer, now func() ti
 
 // report prints err the way cairn prints errors and returns the exit code.
 func report(w io.Writer, err error) int {
-	if err == nil {
+	if err == nil || errors.Is(err, flag.ErrHelp) {
 		return exitOK
 	}
 	var ue *usageError
@@ -134,9 +135,15 @@ func newApp(e *env) *cli.App {
 		DisableSliceFlagSeparator: true,
 		ExitErrHandler:            func(*cli.Context, error) {},
 		OnUsageError: func(_ *cli.Context, err error, _ bool) error {
+			if errors.Is(err, flag.ErrHelp) {
+				return err
+			}
 			return usagef("run `cairn --help` for usage", "%s", lowerFirst(err.Error()))
 		},
 		CommandNotFound: func(c *cli.Context, name string) {},
+		// our own help command (for `cairn help file`) stops urfave/cli from
+		// adding its help flag, so add it here
+		Flags: []cli.Flag{cli.HelpFlag},
 		Action: func(c *cli.Context) error {
 			if c.NArg() > 0 {
 				return usagef("run `cairn --help` for the commands", "unknown command %q", c.Args().First())
@@ -156,6 +163,7 @@ func newApp(e *env) *cli.App {
 	}
 	for _, c := range app.Commands {
 		c.OnUsageError = app.OnUsageError
+		c.HideHelpCommand = true // `cairn help COMMAND` is the help command's
 	}
 	return app
 }
@@ -195,7 +203,7 @@ func reorder(app *cli.App, args []string) []string {
 			pos = append(pos, rest[i+1:]...)
 			break
 		}
-		if a == "-" || !strings.HasPrefix(a, "-") {
+		if a == "-" || !strings.HasPrefix(a, "-") || negativeNumber(a) {
 			pos = append(pos, a)
 			continue
 		}
@@ -216,6 +224,12 @@ func reorder(app *cli.App, args []string) []string {
 		out = append(out, pos...)
 	}
 	return out
+}
+
+// negativeNumber reports whether a looks like a negative number ("-1.5%"),
+// an argument rather than a flag.
+func negativeNumber(a string) bool {
+	return len(a) > 1 && a[0] == '-' && (a[1] >= '0' && a[1] <= '9' || a[1] == '.')
 }
 
 // readPlan reads and parses the goals file named by the command's argument:

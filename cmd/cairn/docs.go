@@ -55,7 +55,8 @@ func statusDoc(p *plan.Plan, st *plan.Status) *doc {
 	g := &grid{cols: []column{
 		{head: "goal", key: "goal", numeric: false}, {head: "target", key: "target", numeric: true}, {head: "at deadline", key: "target_at_deadline", numeric: true},
 		{head: "deadline", key: "deadline", numeric: false}, {head: "projected", key: "projected", numeric: true}, {head: "reached", key: "reached", numeric: false},
-		{head: "status", key: "status", numeric: false}, {head: "needed", key: "needed", numeric: false},
+		{head: "status", key: "status", numeric: false}, {head: "short by", key: "short_by", numeric: true, hidden: true},
+		{head: "needed", key: "needed", numeric: false}, {head: "every", key: "needed_every", hidden: true},
 	}}
 	var goals []map[string]any
 	for _, gs := range st.Goals {
@@ -118,14 +119,17 @@ func statusDoc(p *plan.Plan, st *plan.Status) *doc {
 			}
 		}
 		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
-		raw := []string{goal.Name, str(jg["target"]), str(jg["target_at_deadline"]), str(jg["deadline"]), str(jg["projected"]), str(jg["reached"]), status, needed}
+		raw := []string{goal.Name, str(jg["target"]), str(jg["target_at_deadline"]), str(jg["deadline"]), str(jg["projected"]), str(jg["reached"]), "", str(jg["short_by"]), "", ""}
+		if goal.HasTarget && goal.HasBy {
+			raw[6] = "on track"
+			if !gs.OnTrack {
+				raw[6] = "short"
+			}
+		}
 		if gs.NeededErr == nil && gs.Needed != nil {
-			raw[7] = jamt(p, gs.Needed.Amount)
+			raw[8], raw[9] = jamt(p, gs.Needed.Amount), gs.Needed.Stream.Every.String()
 		}
-		if !gs.OnTrack && goal.HasTarget && goal.HasBy {
-			raw[6] = "short " + jamt(p, gs.Short)
-		}
-		g.add([]string{goal.Name, target, atDeadline, deadline, projected, reached, status, needed}, raw)
+		g.add([]string{goal.Name, target, atDeadline, deadline, projected, reached, status, "", needed, ""}, raw)
 		goals = append(goals, jg)
 	}
 	d.grids = []*grid{g}
@@ -173,8 +177,8 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 		return s
 	case plan.ForRate:
 		comp := g.Rates[0].Rate.Compounding()
-		return fmt.Sprintf("%s reaches %s by %s at %s a year effective (%s).", g.Name, amt(p, a.Target), a.Deadline,
-			pct(a.Rate.Effective()), a.Rate.AsNominal(comp))
+		return fmt.Sprintf("%s reaches %s by %s at %s a year effective (%s compounded %s).", g.Name, amt(p, a.Target), a.Deadline,
+			pct(a.Rate.Effective()), pct(a.Rate.Nominal(comp)), comp.Adjective())
 	case plan.ForStart:
 		s := fmt.Sprintf("%s needs %s saved at the start of %s to reach %s by %s.", g.Name, amt(p, a.Amount), p.Start, amt(p, a.Target), a.Deadline)
 		if a.Note != "" {
@@ -337,7 +341,7 @@ func equationGrid(p *plan.Plan, eq *plan.Equation) (*grid, []map[string]any) {
 		if len(t.Factors) > 0 {
 			var fo []map[string]any
 			for _, f := range t.Factors {
-				fo = append(fo, map[string]any{"factor": f.Kind.String(), "i": jsonRate(f.I), "n": strconv.FormatFloat(f.N, 'f', -1, 64), "value": strconv.FormatFloat(f.Value(), 'f', 8, 64)})
+				fo = append(fo, map[string]any{"factor": f.Kind.String(), "i": strconv.FormatFloat(f.I*100, 'f', 8, 64), "n": strconv.FormatFloat(f.N, 'f', -1, 64), "value": strconv.FormatFloat(f.Value(), 'f', 8, 64)})
 			}
 			row["factors"] = fo
 		}

@@ -226,7 +226,7 @@ func renderGrid(w io.Writer, g *grid, md bool) error {
 			},
 		})
 	}
-	t := tablewriter.NewTable(&buf,
+	opts := []tablewriter.Option{
 		tablewriter.WithRenderer(r),
 		tablewriter.WithHeaderAutoFormat(tw.Off),
 		tablewriter.WithHeaderAlignmentConfig(tw.CellAlignment{PerColumn: align}),
@@ -234,8 +234,11 @@ func renderGrid(w io.Writer, g *grid, md bool) error {
 		tablewriter.WithFooterAlignmentConfig(tw.CellAlignment{PerColumn: align}),
 		tablewriter.WithRowAutoWrap(tw.WrapNone),
 		tablewriter.WithHeaderAutoWrap(tw.WrapNone),
-		tablewriter.WithPadding(tw.Padding{Left: "", Right: "  ", Overwrite: true}),
-	)
+	}
+	if !md {
+		opts = append(opts, tablewriter.WithPadding(tw.Padding{Left: "", Right: "  ", Overwrite: true}))
+	}
+	t := tablewriter.NewTable(&buf, opts...)
 	t.Header(head)
 	for _, row := range g.rows {
 		if err := t.Append(shown(row)); err != nil {
