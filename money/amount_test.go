@@ -78,6 +78,8 @@ func TestParseAmount_Errors(t *testing.T) {
 		{"trailing letter", "12x", `invalid amount "12x"`},
 		{"short group", "1,50", "separators must group thousands"},
 		{"long group", "1,5000", "separators must group thousands"},
+		{"short middle group", "1,50,000", "separators must group thousands"},
+		{"lakh grouping", "12,34,567", "separators must group thousands"},
 		{"leading comma", ",500", "separators must group thousands"},
 		{"trailing comma", "1,500,", "separators must group thousands"},
 		{"four digits before first comma", "1500,000", "separators must group thousands"},

@@ -79,6 +79,8 @@ func ExampleParseFrequency() {
 }
 
 func ExampleParseRate() {
+	// The effective rates are derived from i_e = (1 + r/m)^m − 1, e^r − 1
+	// for continuous compounding, and (1 + i)^12 − 1 for 0.35% a month.
 	for _, s := range []string{"4.1%", "4.1% apy", "3.9% compounded monthly", "5% compounded continuously", "0.35% per month", "-1.5%", "4.1", "-100%"} {
 		r, err := money.ParseRate(s)
 		if err != nil {
@@ -100,7 +102,8 @@ func ExampleParseRate() {
 
 func ExampleRate_PerPeriod() {
 	// 4.1% a year effective is a smaller rate every 2 weeks than 4.1%/26,
-	// because the 26 fortnightly credits compound.
+	// because the 26 fortnightly credits compound: 1.041^(1/26) − 1,
+	// derived from the formula.
 	apy := money.EffectiveRate(0.041)
 	fmt.Println(money.Percent(apy.PerPeriod(money.EveryTwoWeeks), 6), "per 2 weeks")
 	fmt.Println(money.Percent(0.041/26, 6), "per 2 weeks if divided")
@@ -117,6 +120,8 @@ func ExampleRate_PerPeriod() {
 }
 
 func ExampleRate_Nominal() {
+	// The nominal rates equivalent to 5% effective, m((1.05)^(1/m) − 1) and
+	// ln 1.05 for continuous compounding: derived from the formula.
 	r := money.EffectiveRate(0.05)
 	for _, f := range []money.Frequency{money.Yearly, money.TwiceAYear, money.Quarterly, money.Monthly, money.Daily, money.Continuous} {
 		fmt.Printf("%-13s %s\n", f.Adjective(), money.Percent(r.Nominal(f), 4))
@@ -143,8 +148,7 @@ func ExampleFutureOfSeries() {
 	// $100 at the end of each month for 20 years at 6% compounded monthly:
 	// 100 × (1.005^240 − 1)/0.005 = 46,204.09, derived from the formula
 	// (F/A,i,n) = ((1+i)^n − 1)/i (NCEES FE Reference Handbook, re-post at
-	// https://fdocuments.es/document/fe-formulas.html). Lippman, Math in
-	// Society, "Savings Annuities", prints the same balance (from memory).
+	// https://fdocuments.es/document/fe-formulas.html).
 	i := money.NominalRate(0.06, money.Monthly).PerPeriod(money.Monthly)
 	fv := money.Units(100).MulFloat(money.FutureOfSeries(i, 240)).Round(2, money.HalfEven)
 	fmt.Println(fv.Format(money.USD, true))

@@ -165,9 +165,9 @@ func g1(x float64) float64 {
 	return -math.Expm1(-x) / x
 }
 
-// qx returns (1 − (1+x)e^−x)/x, by its series for small |x|.
+// qx returns (1 − (1+x)e^−x)/x, by its series for |x| < 1.
 func qx(x float64) float64 {
-	if math.Abs(x) >= 0.1 {
+	if math.Abs(x) >= 1 {
 		return (1 - (1+x)*math.Exp(-x)) / x
 	}
 	// Σ_{k≥2} (−1)^k (k−1) x^(k−1)/k!

@@ -101,9 +101,9 @@ var ambiguousWords = map[string]string{
 	"bi-weekly":   `"every 2 weeks" (26 a year) or "twice a month" (24 a year)`,
 	"bimonthly":   `"every 2 months" (6 a year) or "twice a month" (24 a year)`,
 	"bi-monthly":  `"every 2 months" (6 a year) or "twice a month" (24 a year)`,
-	"biannually":  `"twice a year" (2 a year) or "yearly" if you meant every year`,
-	"biannual":    `"twice a year" (2 a year) or "yearly" if you meant every year`,
-	"bi-annually": `"twice a year" (2 a year) or "yearly" if you meant every year`,
+	"biannually":  `"twice a year" (2 a year); every 2 years is not a frequency cairn has`,
+	"biannual":    `"twice a year" (2 a year); every 2 years is not a frequency cairn has`,
+	"bi-annually": `"twice a year" (2 a year); every 2 years is not a frequency cairn has`,
 	"biennially":  `"twice a year" or "yearly"; every 2 years is not a frequency cairn has`,
 }
 

@@ -172,8 +172,8 @@ func TestParseFrequency_Ambiguous(t *testing.T) {
 		{"bimonthly", []money.Frequency{money.EveryTwoMonths, money.TwiceAMonth}},
 		{"bi-monthly", []money.Frequency{money.EveryTwoMonths, money.TwiceAMonth}},
 		{" Bimonthly ", []money.Frequency{money.EveryTwoMonths, money.TwiceAMonth}},
-		{"biannually", []money.Frequency{money.TwiceAYear, money.Yearly}},
-		{"biannual", []money.Frequency{money.TwiceAYear, money.Yearly}},
+		{"biannually", []money.Frequency{money.TwiceAYear}}, // the other meaning, every 2 years, is not a cairn frequency
+		{"biannual", []money.Frequency{money.TwiceAYear}},
 		{"biennially", []money.Frequency{money.TwiceAYear, money.Yearly}},
 	}
 	for _, tt := range tests {
