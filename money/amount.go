@@ -3,6 +3,7 @@ package money
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"github.com/shopspring/decimal"
@@ -121,7 +122,7 @@ func ParseRounding(s string) (Rounding, error) {
 	case "half-up", "halfup", "half_up":
 		return HalfUp, nil
 	}
-	return 0, fmt.Errorf("unknown rounding rule %q (want half-even or half-up)", s)
+	return 0, fmt.Errorf("unknown rounding rule %s (want half-even or half-up)", Quote(s))
 }
 
 // Round rounds a to places decimal places under rule r. It is the one place
@@ -199,7 +200,7 @@ func ParseAmount(s string) (Amount, error) {
 		if why != "" {
 			why = ": " + why
 		}
-		return Zero, fmt.Errorf("invalid amount %q%s (want a number such as 1500, 1,500.00, 1.5k or 1.2M)", s, why)
+		return Zero, fmt.Errorf("invalid amount %s%s (want a number such as 1500, 1,500.00, 1.5k or 1.2M)", Quote(s), why)
 	}
 	t := strings.TrimSpace(s)
 	neg := false
@@ -282,4 +283,15 @@ func ParseAmount(s string) (Amount, error) {
 		d = d.Neg()
 	}
 	return Amount{d}, nil
+}
+
+// Quote returns s quoted for an error message, as %q would, but cut to its
+// first 40 characters so that a pasted page cannot flood the message.
+func Quote(s string) string {
+	const limit = 40
+	r := []rune(s)
+	if len(r) > limit {
+		return strconv.Quote(string(r[:limit])) + "…"
+	}
+	return strconv.Quote(s)
 }

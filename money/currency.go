@@ -49,7 +49,7 @@ var USD = currencies["USD"]
 func LookupCurrency(code string) (Currency, error) {
 	c, ok := currencies[strings.ToUpper(strings.TrimSpace(code))]
 	if !ok {
-		return Currency{}, fmt.Errorf("unknown currency %q (want an ISO 4217 code such as USD, EUR, GBP or JPY)", code)
+		return Currency{}, fmt.Errorf("unknown currency %s (want an ISO 4217 code such as USD, EUR, GBP or JPY)", Quote(code))
 	}
 	return c, nil
 }

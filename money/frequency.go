@@ -119,7 +119,7 @@ func ParseFrequency(s string) (Frequency, error) {
 		return f, nil
 	}
 	if alt, ok := ambiguousWords[key]; ok {
-		return 0, fmt.Errorf("ambiguous frequency %q (it means two different things; write %s)", s, alt)
+		return 0, fmt.Errorf("ambiguous frequency %s (it means two different things; write %s)", Quote(s), alt)
 	}
-	return 0, fmt.Errorf("unknown frequency %q (want daily, weekly, every 2 weeks, twice a month, monthly, every 2 months, quarterly, twice a year or yearly)", s)
+	return 0, fmt.Errorf("unknown frequency %s (want daily, weekly, every 2 weeks, twice a month, monthly, every 2 months, quarterly, twice a year or yearly)", Quote(s))
 }

@@ -204,7 +204,10 @@ func RateText(x float64) string {
 // Rates at or below −100% a year are refused.
 func ParseRate(s string) (Rate, error) {
 	bad := func(why string) (Rate, error) {
-		return Rate{}, fmt.Errorf("invalid rate %q%s (want a percentage such as 4.1%%, 4.1%% apy, 3.9%% compounded monthly or 0.35%% per month)", s, why)
+		if strings.Contains(why, "(") { // the reason says what it wants
+			return Rate{}, fmt.Errorf("invalid rate %s%s", Quote(s), why)
+		}
+		return Rate{}, fmt.Errorf("invalid rate %s%s (want a percentage such as 4.1%%, 4.1%% apy, 3.9%% compounded monthly or 0.35%% per month)", Quote(s), why)
 	}
 	t := strings.Join(strings.Fields(strings.ToLower(s)), " ")
 	numStr, rest, ok := strings.Cut(t, "%")
@@ -240,7 +243,7 @@ func ParseRate(s string) (Rate, error) {
 		c = strings.TrimSpace(strings.TrimPrefix(c, "annual"))
 		word, ok := strings.CutPrefix(c, "compounded")
 		if !ok {
-			return bad(": unknown form " + strconv.Quote(rest))
+			return bad(": unknown form " + Quote(rest))
 		}
 		f, err := ParseFrequency(strings.TrimSpace(word))
 		if err != nil {
@@ -249,7 +252,7 @@ func ParseRate(s string) (Rate, error) {
 		r = NominalRate(x, f)
 	}
 	if err := r.Check(); err != nil {
-		return Rate{}, fmt.Errorf("invalid rate %q: at or below -100%% a year", s)
+		return Rate{}, fmt.Errorf("invalid rate %s: at or below -100%% a year", Quote(s))
 	}
 	return r, nil
 }

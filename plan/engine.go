@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"fmt"
 	"math"
 	"sort"
 
@@ -138,16 +139,18 @@ func compile(p *Plan, g *Goal, end Month) *schedule {
 			ev = append(ev, event{tick: t, kind: kd, src: src, unit: u, month: label})
 		}
 	}
+	// Every one-time amount is a source, even one after end, so that source
+	// indexes (and so params) are the same whatever the horizon compiled.
 	for _, o := range g.Once {
-		if o.On > end {
-			continue
-		}
 		src := int32(len(s.sources))
 		name := o.Name
 		if name == "" {
 			name = "one-time " + o.On.String()
 		}
 		s.sources = append(s.sources, source{kind: OneTime, name: name, base: o.Amount, out: o.Amount.Sign() < 0})
+		if o.On > end {
+			continue
+		}
 		ev = append(ev, event{tick: monthTick(p, o.On+1), kind: evFlowEnd, src: src, unit: 1, month: o.On})
 	}
 	sort.SliceStable(ev, func(i, j int) bool {
@@ -242,6 +245,7 @@ type floatResult struct {
 	shortTick  int64 // first tick with a shortfall, −1 if none
 	shortMonth Month
 	lastOut    float64 // balance after the last withdrawal
+	peak       float64 // largest balance at a month end
 }
 
 // runFloat walks the schedule in float64. It rounds postings like the ledger
@@ -280,6 +284,7 @@ func (s *schedule) runFloat(pr *params, o floatOpts) floatResult {
 				acc -= f * accrual(b, js[e.step], e.tau, true)
 			}
 		case evMark:
+			res.peak = max(res.peak, bal)
 			if o.monthEnds != nil {
 				o.monthEnds[e.month-s.plan.Start] = bal
 			}
@@ -314,4 +319,19 @@ func (s *schedule) runFloat(pr *params, o floatOpts) floatResult {
 	}
 	res.closing = bal
 	return res
+}
+
+// checkBounds reports an error if goal g's target or projected balance
+// would pass [MaxBalanceUnits], beyond which cairn does not promise cents.
+func (p *Plan) checkBounds(g *Goal) error {
+	limit := money.Units(MaxBalanceUnits)
+	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {
+		return fmt.Errorf("goal %s: the target grown to the deadline passes the limit of %s", money.Quote(g.Name), limit.Format(p.Currency, false))
+	}
+	s := compile(p, g, Horizon(p, g))
+	r := s.runFloat(s.defaultParams(), floatOpts{only: -1})
+	if !(r.peak <= MaxBalanceUnits) {
+		return fmt.Errorf("goal %s: the projected balance passes the limit of %s; check its amounts and rates", money.Quote(g.Name), limit.Format(p.Currency, false))
+	}
+	return nil
 }

@@ -22,8 +22,10 @@ const (
 	MaxRateSteps    = 200
 	HorizonYears    = 150 // no date may lie more than this after the start
 	MaxAmountUnits  = 1_000_000_000_000
-	MaxRatePercent  = 100 // effective a year
-	MinRatePercent  = -99 // effective a year
+	MaxBalanceUnits = 10_000_000_000_000 // largest balance or target computed to the cent
+	MaxNameLength   = 100                // characters in a goal's, stream's or one-time amount's name
+	MaxRatePercent  = 100                // effective a year
+	MinRatePercent  = -99                // effective a year
 	MaxFeePercent   = 20
 	MaxInflationPct = 50
 )
@@ -58,6 +60,13 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 		return nil, d.errs
 	}
 	p := d.plan(root.Content[0], asOf)
+	if len(d.errs) == 0 {
+		for _, g := range p.Goals {
+			if err := p.checkBounds(g); err != nil {
+				d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
+			}
+		}
+	}
 	d.errs.Sort()
 	if err := d.errs.Err(); err != nil {
 		return nil, err
@@ -104,14 +113,14 @@ func (d *decoder) fields(n *yaml.Node, path string, known []string, fn func(key 
 		if !contains(known, key) {
 			kp := join(path, key)
 			if s := suggest(key, known); s != "" {
-				d.errorf(k, kp, "unknown key %q (did you mean %q?)", key, s)
+				d.errorf(k, kp, "unknown key %s (did you mean %s?)", money.Quote(key), money.Quote(s))
 			} else {
-				d.errorf(k, kp, "unknown key %q (want one of %s)", key, strings.Join(known, ", "))
+				d.errorf(k, kp, "unknown key %s (want one of %s)", money.Quote(key), strings.Join(known, ", "))
 			}
 			continue
 		}
 		if seen[key] {
-			d.errorf(k, join(path, key), "key %q given twice", key)
+			d.errorf(k, join(path, key), "key %s given twice", money.Quote(key))
 			continue
 		}
 		seen[key] = true
@@ -145,6 +154,20 @@ func describe(n *yaml.Node) string {
 	return "nothing"
 }
 
+// name returns a name from a scalar node, refusing names over the limit.
+func (d *decoder) name(n *yaml.Node, path string) (string, bool) {
+	s, ok := d.scalar(n, path, "a name")
+	if !ok {
+		return "", false
+	}
+	s = strings.TrimSpace(s)
+	if utf8.RuneCountInString(s) > MaxNameLength {
+		d.errorf(n, path, "name %s is longer than %d characters", money.Quote(s), MaxNameLength)
+		return "", false
+	}
+	return s, true
+}
+
 // scalar returns the scalar text of n, reporting an error if it is not one.
 func (d *decoder) scalar(n *yaml.Node, path, want string) (string, bool) {
 	if n.Kind != yaml.ScalarNode || n.Tag == "!!null" {
@@ -175,11 +198,11 @@ func (d *decoder) amount(n *yaml.Node, path string, allowToday, allowNeg bool) (
 		return a, false, false
 	}
 	if a.Sign() < 0 && !allowNeg {
-		d.errorf(n, path, "negative amount %q (want 0 or more)", s)
+		d.errorf(n, path, "negative amount %s (want 0 or more)", money.Quote(s))
 		return a, false, false
 	}
 	if a.Abs().Cmp(money.Units(MaxAmountUnits)) > 0 {
-		d.errorf(n, path, "amount %q is beyond the limit of 1,000,000,000,000", s)
+		d.errorf(n, path, "amount %s is beyond the limit of 1,000,000,000,000", money.Quote(s))
 		return a, false, false
 	}
 	return a, today, true
@@ -196,7 +219,7 @@ func (d *decoder) rate(n *yaml.Node, path string, lo, hi float64) (money.Rate, b
 		return r, false
 	}
 	if e := r.Effective() * 100; e < lo || e > hi {
-		d.errorf(n, path, "rate %q is out of range (want %g%% to %g%% a year effective)", s, lo, hi)
+		d.errorf(n, path, "rate %s is out of range (want %g%% to %g%% a year effective)", money.Quote(s), lo, hi)
 		return r, false
 	}
 	return r, true
@@ -271,8 +294,12 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		d.errorf(n, "", "missing key \"goals\" (want a list of goals)")
 		return p
 	}
-	if goalsNode.Kind != yaml.SequenceNode || len(goalsNode.Content) == 0 {
-		d.errorf(goalsNode, "goals", "want a list of at least one goal, not %s", describe(goalsNode))
+	if goalsNode.Kind != yaml.SequenceNode {
+		d.errorf(goalsNode, "goals", "want a list of goals, not %s", describe(goalsNode))
+		return p
+	}
+	if len(goalsNode.Content) == 0 {
+		d.errorf(goalsNode, "goals", "empty list (want at least one goal)")
 		return p
 	}
 	if len(goalsNode.Content) > MaxGoals {
@@ -286,7 +313,7 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 			continue
 		}
 		if j, dup := names[lower(g.Name)]; dup {
-			d.errorf(gn, fmt.Sprintf("goals[%d].name", i), "duplicate goal name %q (goals[%d] has it too)", g.Name, j)
+			d.errorf(gn, fmt.Sprintf("goals[%d].name", i), "duplicate goal name %s (goals[%d] has it too)", money.Quote(g.Name), j)
 		}
 		names[lower(g.Name)] = i
 		p.Goals = append(p.Goals, g)
@@ -314,12 +341,11 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		kp := join(path, key)
 		switch key {
 		case "name":
-			if s, ok := d.scalar(v, kp, "a name"); ok {
-				g.Name = strings.TrimSpace(s)
-				nameSeen = g.Name != ""
-				if !nameSeen {
+			nameSeen = true // a wrong value is its own error, not a missing name
+			if s, ok := d.name(v, kp); ok {
+				g.Name = s
+				if g.Name == "" {
 					d.errorf(v, kp, "empty goal name")
-					nameSeen = true
 				}
 			}
 		case "balance":
@@ -337,7 +363,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 				case "none":
 					g.Between = None
 				default:
-					d.errorf(v, kp, "unknown rule %q (want compound, simple or none)", s)
+					d.errorf(v, kp, "unknown rule %s (want compound, simple or none)", money.Quote(s))
 				}
 			}
 		case "fee":
@@ -440,13 +466,13 @@ func (d *decoder) rates(p *Plan, v *yaml.Node, path string, checkMonth func(*yam
 		}
 		st := RateStep{From: p.Start}
 		var fromNode *yaml.Node
-		rateOK := false
+		rateOK, fromOK := false, false
 		d.fields(sn, sp, []string{"from", "rate"}, func(key string, fv *yaml.Node) {
 			switch key {
 			case "from":
 				fromNode = fv
 				if m, ok := d.month(fv, sp+".from"); ok && checkMonth(fv, sp+".from", m) {
-					st.From = m
+					st.From, fromOK = m, true
 				}
 			case "rate":
 				st.Rate, rateOK = d.rate(fv, sp+".rate", lo, hi)
@@ -464,6 +490,9 @@ func (d *decoder) rates(p *Plan, v *yaml.Node, path string, checkMonth func(*yam
 		if i > 0 && fromNode == nil {
 			d.errorf(sn, sp, "missing key \"from\" (each later rate needs the month it starts)")
 			continue
+		}
+		if fromNode != nil && !fromOK {
+			continue // from: is already reported; do not compare its default
 		}
 		if len(steps) > 0 && st.From <= steps[len(steps)-1].From {
 			d.errorf(fromNode, sp+".from", "month %s is not after the previous rate's %s (rates must be in date order)", st.From, steps[len(steps)-1].From)
@@ -491,8 +520,8 @@ func (d *decoder) stream(p *Plan, n *yaml.Node, path string, out bool, checkMont
 		kp := join(path, key)
 		switch key {
 		case "name":
-			if t, ok := d.scalar(v, kp, "a name"); ok {
-				s.Name = strings.TrimSpace(t)
+			if t, ok := d.name(v, kp); ok {
+				s.Name = t
 			}
 		case "amount":
 			s.Amount, s.Today, amountOK = d.amount(v, kp, true, false)
@@ -516,7 +545,7 @@ func (d *decoder) stream(p *Plan, n *yaml.Node, path string, out bool, checkMont
 				case "start", "begin", "beginning":
 					s.Timing = Begin
 				default:
-					d.errorf(v, kp, "unknown timing %q (want start or end)", t)
+					d.errorf(v, kp, "unknown timing %s (want start or end)", money.Quote(t))
 				}
 			}
 		case "from":
@@ -545,7 +574,7 @@ func (d *decoder) stream(p *Plan, n *yaml.Node, path string, out bool, checkMont
 				if err != nil {
 					d.errorf(v, kp, "%v", err)
 				} else if m > HorizonYears*12 {
-					d.errorf(v, kp, "length %q is beyond the %d-year horizon", t, HorizonYears)
+					d.errorf(v, kp, "length %s is beyond the %d-year horizon", money.Quote(t), HorizonYears)
 				} else {
 					forMonths = m
 				}
@@ -590,8 +619,8 @@ func (d *decoder) once(n *yaml.Node, path string, checkMonth func(*yaml.Node, st
 		kp := join(path, key)
 		switch key {
 		case "name":
-			if t, ok := d.scalar(v, kp, "a name"); ok {
-				o.Name = strings.TrimSpace(t)
+			if t, ok := d.name(v, kp); ok {
+				o.Name = t
 			}
 		case "amount":
 			o.Amount, _, amountOK = d.amount(v, kp, false, true)
@@ -616,7 +645,7 @@ func (d *decoder) once(n *yaml.Node, path string, checkMonth func(*yaml.Node, st
 // parseLength parses "30 years", "18 months", "1 year".
 func parseLength(s string) (int, error) {
 	f := strings.Fields(strings.ToLower(s))
-	bad := fmt.Errorf("invalid length %q (want a number of years or months, such as 30 years)", s)
+	bad := fmt.Errorf("invalid length %s (want a number of years or months, such as 30 years)", money.Quote(s))
 	if len(f) != 2 {
 		return 0, bad
 	}

@@ -15,6 +15,10 @@ type Plan struct {
 	Inflation money.Rate     // a year; "today" amounts grow by it
 	Rounding  money.Rounding // rule for every posting
 	Goals     []*Goal
+	// InflationVolatility is the yearly volatility of log-inflation for
+	// [Simulate], as a fraction; HasInflationVolatility says the file gave it.
+	InflationVolatility    float64
+	HasInflationVolatility bool
 }
 
 // Goal returns the goal with the given name (case-insensitive), or nil.
@@ -96,6 +100,10 @@ type Goal struct {
 	Withdrawals []*Stream
 	Once        []Once
 	Leave       money.Amount // balance that must remain after the last withdrawal
+	// Volatility is the yearly volatility of log-returns for [Simulate], as
+	// a fraction; HasVolatility says the file gave it.
+	Volatility    float64
+	HasVolatility bool
 
 	pos Position
 }

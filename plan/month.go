@@ -5,6 +5,8 @@ import (
 	"strconv"
 	"strings"
 	"time"
+
+	"cairn/money"
 )
 
 // A Month is a calendar month, counted from January of year 0. Plans are
@@ -19,18 +21,18 @@ func ParseMonth(s string) (Month, error) {
 	t := strings.TrimSpace(s)
 	ys, ms, ok := strings.Cut(t, "-")
 	if !ok || len(ys) != 4 || len(ms) != 2 {
-		return 0, fmt.Errorf("invalid month %q (want YYYY-MM, such as 2027-01)", s)
+		return 0, fmt.Errorf("invalid month %s (want YYYY-MM, such as 2027-01)", money.Quote(s))
 	}
 	y, err1 := strconv.Atoi(ys)
 	m, err2 := strconv.Atoi(ms)
 	if err1 != nil || err2 != nil || ys[0] == '-' || ys[0] == '+' || ms[0] == '-' || ms[0] == '+' {
-		return 0, fmt.Errorf("invalid month %q (want YYYY-MM, such as 2027-01)", s)
+		return 0, fmt.Errorf("invalid month %s (want YYYY-MM, such as 2027-01)", money.Quote(s))
 	}
 	if m < 1 || m > 12 {
-		return 0, fmt.Errorf("invalid month %q: month out of range (want 01 to 12)", s)
+		return 0, fmt.Errorf("invalid month %s: month out of range (want 01 to 12)", money.Quote(s))
 	}
 	if y < 1900 || y > 2999 {
-		return 0, fmt.Errorf("invalid month %q: year out of range (want 1900 to 2999)", s)
+		return 0, fmt.Errorf("invalid month %s: year out of range (want 1900 to 2999)", money.Quote(s))
 	}
 	return MonthOf(y, time.Month(m)), nil
 }

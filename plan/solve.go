@@ -35,7 +35,7 @@ func ParseQuantity(s string) (Quantity, error) {
 			return Quantity(i), nil
 		}
 	}
-	return 0, fmt.Errorf("unknown quantity %q (want %s)", s, strings.Join(quantityNames, ", "))
+	return 0, fmt.Errorf("unknown quantity %s (want %s)", money.Quote(s), strings.Join(quantityNames, ", "))
 }
 
 // A Question asks a solver for one quantity of one goal. Stream names the
@@ -339,7 +339,7 @@ func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
 		st = g.Stream(q.Stream, false)
 		if st == nil {
 			if q.Stream != "" {
-				return nil, noSolution(g, "the goal has no deposit stream named %q", q.Stream)
+				return nil, noSolution(g, "the goal has no deposit stream named %s", money.Quote(q.Stream))
 			}
 			return nil, noSolution(g, "the goal has no deposits to solve for (add deposits:)")
 		}
@@ -384,11 +384,9 @@ func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
 		set(c)
 		return s.ledger(pr).Closing.Cmp(target) >= 0
 	}
-	for !meetsD(c) {
-		c++
-	}
-	for c > 0 && meetsD(c-1) {
-		c--
+	// the float answer seeds a search in decimal, which has the last word
+	if c, ok = searchCents(meetsD, c, limit, true); !ok {
+		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target")
 	}
 	set(c)
 	a := &Answer{Goal: g, For: ForDeposit, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: g.By, Target: target}
@@ -409,7 +407,7 @@ func solveWithdrawal(p *Plan, g *Goal, q Question) (*Answer, error) {
 	st := g.Stream(q.Stream, true)
 	if st == nil {
 		if q.Stream != "" {
-			return nil, noSolution(g, "the goal has no withdrawal stream named %q", q.Stream)
+			return nil, noSolution(g, "the goal has no withdrawal stream named %s", money.Quote(q.Stream))
 		}
 		return nil, noSolution(g, "the goal has no withdrawals to solve for (add withdrawals:)")
 	}
@@ -437,6 +435,11 @@ func solveWithdrawal(p *Plan, g *Goal, q Question) (*Answer, error) {
 	per := -s.runFloat(pr1, floatOpts{only: idx}).closing
 	set(0)
 	b0 := s.runFloat(pr, floatOpts{only: -1}).closing
+	if per <= 0 {
+		// no amount of the stream falls by its end: any amount "lasts", and
+		// the search below would run to the limit
+		return nil, noSolution(g, "the stream has no withdrawals on or before %s", end)
+	}
 	if b0 < leave || !okF(0) {
 		return nil, noSolution(g, "even with no withdrawals the balance falls short of leave %s", g.Leave.Format(p.Currency, false))
 	}
@@ -452,12 +455,8 @@ func solveWithdrawal(p *Plan, g *Goal, q Question) (*Answer, error) {
 		_, short := l.FirstShort()
 		return !short && l.Closing.Cmp(g.Leave) >= 0
 	}
-	for c > 0 && !okD(c) {
-		c--
-	}
-	for okD(c + 1) {
-		c++
-	}
+	// the float answer seeds a search in decimal, which has the last word
+	c, _ = searchCents(okD, c, limit, false)
 	set(c)
 	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true}
 	a.Ledger = s.ledger(pr)

@@ -23,13 +23,13 @@ func ParseOverride(s string) (Override, error) {
 	k, v, ok := strings.Cut(s, "=")
 	k = strings.ToLower(strings.TrimSpace(k))
 	if !ok || k == "" {
-		return Override{}, fmt.Errorf("invalid override %q (want KEY=VALUE, such as rate=5%%)", s)
+		return Override{}, fmt.Errorf("invalid override %s (want KEY=VALUE, such as rate=5%%)", money.Quote(s))
 	}
 	if !contains(OverrideKeys, k) {
 		if sg := suggest(k, OverrideKeys); sg != "" {
-			return Override{}, fmt.Errorf("unknown override key %q (did you mean %q?)", k, sg)
+			return Override{}, fmt.Errorf("unknown override key %s (did you mean %s?)", money.Quote(k), money.Quote(sg))
 		}
-		return Override{}, fmt.Errorf("unknown override key %q (want one of %s)", k, strings.Join(OverrideKeys, ", "))
+		return Override{}, fmt.Errorf("unknown override key %s (want one of %s)", money.Quote(k), strings.Join(OverrideKeys, ", "))
 	}
 	return Override{Key: k, Value: strings.TrimSpace(v)}, nil
 }
@@ -44,12 +44,15 @@ func (p *Plan) With(goal, stream string, ovs []Override) (*Plan, *Goal, error) {
 	q := p.Clone()
 	g := q.Goal(goal)
 	if g == nil {
-		return nil, nil, fmt.Errorf("no goal named %q", goal)
+		return nil, nil, fmt.Errorf("no goal named %s", money.Quote(goal))
 	}
 	for _, o := range ovs {
 		if err := q.apply(g, stream, o); err != nil {
 			return nil, nil, err
 		}
+	}
+	if err := q.checkBounds(g); err != nil {
+		return nil, nil, err
 	}
 	return q, g, nil
 }
@@ -66,9 +69,9 @@ func (p *Plan) apply(g *Goal, stream string, o Override) error {
 				kind = "withdrawal"
 			}
 			if stream != "" {
-				return nil, fmt.Errorf("%s: goal %q has no %s stream named %q", o.Key, g.Name, kind, stream)
+				return nil, fmt.Errorf("%s: goal %s has no %s stream named %s", o.Key, money.Quote(g.Name), kind, money.Quote(stream))
 			}
-			return nil, fmt.Errorf("%s: goal %q has no %s stream", o.Key, g.Name, kind)
+			return nil, fmt.Errorf("%s: goal %s has no %s stream", o.Key, money.Quote(g.Name), kind)
 		}
 		return s, nil
 	}
@@ -144,10 +147,10 @@ func (p *Plan) apply(g *Goal, stream string, o Override) error {
 		case "none":
 			g.Between = None
 		default:
-			return fmt.Errorf("between: unknown rule %q (want compound, simple or none)", o.Value)
+			return fmt.Errorf("between: unknown rule %s (want compound, simple or none)", money.Quote(o.Value))
 		}
 	default:
-		return fmt.Errorf("unknown override key %q", o.Key)
+		return fmt.Errorf("unknown override key %s", money.Quote(o.Key))
 	}
 	if len(d.errs) > 0 {
 		return fmt.Errorf("%s", d.errs[0].Msg)
@@ -179,7 +182,7 @@ func ParseVary(s string) (Vary, error) {
 		}
 	}
 	if len(vals) == 0 {
-		return Vary{}, fmt.Errorf("invalid vary %q (want KEY=V1,V2,…)", s)
+		return Vary{}, fmt.Errorf("invalid vary %s (want KEY=V1,V2,…)", money.Quote(s))
 	}
 	return Vary{Key: o.Key, Values: vals}, nil
 }
@@ -211,7 +214,7 @@ const MaxCells = 100_000
 func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, error) {
 	g := p.Goal(goal)
 	if g == nil {
-		return nil, fmt.Errorf("no goal named %q", goal)
+		return nil, fmt.Errorf("no goal named %s", money.Quote(goal))
 	}
 	total := 1
 	gr := &Grid{Goal: g.Name, For: q.For}

@@ -163,7 +163,7 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 	g := a.Goal
 	switch a.For {
 	case plan.ForTime:
-		s := fmt.Sprintf("%s reaches %s in %s, %d months from %s.", g.Name, amt(p, a.Target), a.Month, a.Months, p.Start)
+		s := fmt.Sprintf("%s reaches %s in %s, %d %s from %s.", g.Name, amt(p, a.Target), a.Month, a.Months, plural(a.Months, "month", "months"), p.Start)
 		if a.Note != "" {
 			s += " (" + a.Note + ".)"
 		}
@@ -196,7 +196,7 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 			}
 			return s
 		}
-		return fmt.Sprintf("%s runs out of money in %s, %d months from %s.", g.Name, a.Month, a.Months, p.Start)
+		return fmt.Sprintf("%s runs out of money in %s, %d %s from %s.", g.Name, a.Month, a.Months, plural(a.Months, "month", "months"), p.Start)
 	}
 	return ""
 }
