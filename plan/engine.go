@@ -18,12 +18,13 @@ const TicksPerYear = 113880
 const TicksPerMonth = TicksPerYear / 12
 
 // The kinds of events, in the order they happen at one tick: interest for
-// the period ending, the month's fee, end-of-period amounts, the month-end
-// mark, start-of-period amounts.
+// the period ending, the month's credit of accrued interest, the month's
+// fee, end-of-period amounts, the month-end mark, start-of-period amounts.
 type eventKind uint8
 
 const (
 	evInterest eventKind = iota
+	evCredit // month end: accrued interest of a more-than-monthly compounding is credited
 	evFee
 	evFlowEnd
 	evMark
@@ -59,8 +60,12 @@ type schedule struct {
 	goal     *Goal
 	end      Month // last month, inclusive
 	endTick  int64
-	comp     money.Frequency // interest credit frequency
-	period   int64           // ticks per interest period
+	comp     money.Frequency // compounding frequency
+	period   int64           // ticks per compounding period
+	// accrue is set when compounding is more frequent than monthly: interest
+	// then accrues at every compounding date (carried to 10 decimals) and is
+	// credited, rounded to the cent, at each month end.
+	accrue bool
 	steps    []money.Rate    // rate per step (from goal.Rates)
 	events   []event
 	sources  []source
@@ -76,6 +81,7 @@ func compile(p *Plan, g *Goal, end Month) *schedule {
 	s.endTick = monthTick(p, end+1)
 	s.comp = g.Rates[0].Rate.Compounding()
 	s.period = TicksPerYear / int64(s.comp.PerYear())
+	s.accrue = s.comp.PerYear() > 12
 	for _, st := range g.Rates {
 		s.steps = append(s.steps, st.Rate)
 	}
@@ -99,6 +105,9 @@ func compile(p *Plan, g *Goal, end Month) *schedule {
 	// month ends: fee and mark
 	for m := p.Start; m <= end; m++ {
 		t := monthTick(p, m+1)
+		if s.accrue {
+			ev = append(ev, event{tick: t, kind: evCredit, src: -1, month: m})
+		}
 		if g.Fee > 0 {
 			ev = append(ev, event{tick: t, kind: evFee, src: -1, month: m})
 		}
@@ -165,7 +174,7 @@ func compile(p *Plan, g *Goal, end Month) *schedule {
 	// fraction of the interest period left, and the step of that period
 	for i := range ev {
 		e := &ev[i]
-		if e.kind == evInterest || e.kind == evMark {
+		if e.kind == evInterest || e.kind == evCredit || e.kind == evMark {
 			continue
 		}
 		next := (e.tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
@@ -268,15 +277,24 @@ func (s *schedule) runFloat(pr *params, o floatOpts) floatResult {
 	if o.only > 0 {
 		bal = 0
 	}
-	base, acc := bal, 0.0
+	base, acc, accrued := bal, 0.0, 0.0
 	res := floatResult{shortTick: -1}
 	for i := range s.events {
 		e := &s.events[i]
 		switch e.kind {
 		case evInterest:
+			if s.accrue {
+				accrued += base*js[e.step] + acc
+				base, acc = bal+accrued, 0
+				continue
+			}
 			in := round(base*js[e.step] + acc)
 			bal += in
 			base, acc = bal, 0
+		case evCredit:
+			in := round(accrued)
+			bal += in
+			accrued -= in
 		case evFee:
 			if bal > 0 || o.only >= 0 {
 				f := round(bal * fee)

@@ -6,6 +6,11 @@ import (
 	"cairn/money"
 )
 
+// accrualPlaces is the decimal places to which interest accrued between
+// monthly credits is carried (Regulation DD's commentary asks for five or
+// more).
+const accrualPlaces = 10
+
 // An EntryKind is the kind of a ledger movement.
 type EntryKind int
 
@@ -87,7 +92,7 @@ func (s *schedule) ledger(pr *params) *Ledger {
 	round := func(a money.Amount) money.Amount { return a.Round(s.places, s.rounding) }
 	fee := g.Fee / 12
 	bal := pr.amounts[0]
-	base, acc := bal, money.Zero
+	base, acc, accrued := bal, money.Zero, money.Zero
 	if !bal.IsZero() {
 		l.Entries = append(l.Entries, Entry{Month: p.Start, Kind: Opening, Source: "opening balance", Amount: bal, Balance: bal})
 	}
@@ -95,9 +100,22 @@ func (s *schedule) ledger(pr *params) *Ledger {
 		e := &s.events[i]
 		switch e.kind {
 		case evInterest:
-			in := round(base.MulFloat(js[e.step]).Add(acc))
+			in := base.MulFloat(js[e.step]).Add(acc)
+			if s.accrue {
+				accrued = accrued.Add(in).Round(accrualPlaces, s.rounding)
+				base, acc = bal.Add(accrued), money.Zero
+				continue
+			}
+			in = round(in)
 			bal = bal.Add(in)
 			base, acc = bal, money.Zero
+			if !in.IsZero() {
+				l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: Interest, Amount: in, Balance: bal})
+			}
+		case evCredit:
+			in := round(accrued)
+			bal = bal.Add(in)
+			accrued = accrued.Sub(in)
 			if !in.IsZero() {
 				l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: Interest, Amount: in, Balance: bal})
 			}

@@ -353,9 +353,10 @@ func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
 		a := unit.Mul(decimalInt(c))
 		pr.amounts[idx], pr.amountsF[idx] = a, float64(c)/scale
 	}
-	meetsF := func(c int64) bool {
+	meetsF := func(c int64) bool { // meets the target with every withdrawal paid
 		set(c)
-		return s.runFloat(pr, floatOpts{only: -1}).closing >= target.Float()-0.5/scale
+		r := s.runFloat(pr, floatOpts{only: -1})
+		return r.shortTick < 0 && r.closing >= target.Float()-0.5/scale
 	}
 	// linear guess from the value of one unit
 	pr1 := s.defaultParams()
@@ -382,7 +383,9 @@ func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
 	// confirm in decimal: the smallest c that meets, and c−1 misses
 	meetsD := func(c int64) bool {
 		set(c)
-		return s.ledger(pr).Closing.Cmp(target) >= 0
+		l := s.ledger(pr)
+		_, short := l.FirstShort()
+		return !short && l.Closing.Cmp(target) >= 0
 	}
 	// the float answer seeds a search in decimal, which has the last word
 	if c, ok = searchCents(meetsD, c, limit, true); !ok {
