@@ -24,7 +24,7 @@ type eventKind uint8
 
 const (
 	evInterest eventKind = iota
-	evCredit // month end: accrued interest of a more-than-monthly compounding is credited
+	evCredit             // month end: accrued interest of a more-than-monthly compounding is credited
 	evFee
 	evFlowEnd
 	evMark
@@ -56,17 +56,17 @@ type source struct {
 // definition of the model, walked by both the decimal ledger and the float
 // evaluator.
 type schedule struct {
-	plan     *Plan
-	goal     *Goal
-	end      Month // last month, inclusive
-	endTick  int64
-	comp     money.Frequency // compounding frequency
-	period   int64           // ticks per compounding period
+	plan    *Plan
+	goal    *Goal
+	end     Month // last month, inclusive
+	endTick int64
+	comp    money.Frequency // compounding frequency
+	period  int64           // ticks per compounding period
 	// accrue is set when compounding is more frequent than monthly: interest
 	// then accrues at every compounding date (carried to 10 decimals) and is
 	// credited, rounded to the cent, at each month end.
-	accrue bool
-	steps    []money.Rate    // rate per step (from goal.Rates)
+	accrue   bool
+	steps    []money.Rate // rate per step (from goal.Rates)
 	events   []event
 	sources  []source
 	places   int
