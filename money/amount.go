@@ -24,6 +24,10 @@ func Cents(n int64) Amount { return Amount{decimal.New(n, -2)} }
 // Units returns the amount of n whole units.
 func Units(n int64) Amount { return Amount{decimal.NewFromInt(n)} }
 
+// Minor returns the amount of n minor units of a currency with the given
+// decimal places: Minor(150, 2) is 1.50.
+func Minor(n int64, places int) Amount { return Amount{decimal.New(n, int32(-places))} }
+
 // FromDecimal returns d as an amount.
 func FromDecimal(d decimal.Decimal) Amount { return Amount{d} }
 

@@ -42,16 +42,17 @@ func EquationOf(p *Plan, g *Goal, at Month) *Equation { return equation(p, g, at
 
 func equation(p *Plan, g *Goal, at Month, pr *params) *Equation {
 	s := compile(p, g, at)
-	if pr == nil {
+	if pr == nil || len(pr.amounts) != len(s.sources) {
 		pr = s.defaultParams()
-	} else {
-		pr = &params{rate: pr.rate, amounts: pr.amounts, amountsF: pr.amountsF}
-		if len(pr.amounts) != len(s.sources) { // compiled to another horizon: same sources first
-			pr = s.defaultParams()
-		}
 	}
-	eq := &Equation{At: at}
-	eq.Balance = s.ledger(pr).Closing
+	return s.equation(pr, s.ledger(pr))
+}
+
+// equation states schedule s's balance at its end, under pr, as the sum of
+// every flow's value then; l is the ledger of s under pr.
+func (s *schedule) equation(pr *params, l *Ledger) *Equation {
+	g, at := s.goal, s.end
+	eq := &Equation{At: at, Balance: l.Closing}
 	counts := make([]int, len(s.sources))
 	first := make([]int64, len(s.sources))
 	last := make([]int64, len(s.sources))
@@ -100,14 +101,23 @@ func equation(p *Plan, g *Goal, at Month, pr *params) *Equation {
 		if i > 0 && counts[i] == 0 {
 			continue
 		}
-		v := s.runFloat(pr, floatOpts{only: int32(i)}).closing
 		amt := pr.amounts[i]
 		if src.out {
 			amt = amt.Abs().Neg()
 		}
+		prv := pr
 		if src.stream != nil && units[i] != 1 {
 			amt = amt.MulFloat(units[i]).Round(s.places, s.rounding)
+			if uniform[i] {
+				// The ledger posts the indexed amount rounded to the cent:
+				// value that amount, so that Amount × Factors is Value.
+				q := *pr
+				q.amountsF = append([]float64(nil), pr.amountsF...)
+				q.amountsF[i] = amt.Abs().Float() / units[i]
+				prv = &q
+			}
 		}
+		v := s.runFloat(prv, floatOpts{only: int32(i)}).closing
 		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding), stream: src.stream}
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"

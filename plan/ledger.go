@@ -6,11 +6,6 @@ import (
 	"cairn/money"
 )
 
-// accrualPlaces is the decimal places to which interest accrued between
-// monthly credits is carried (Regulation DD's commentary asks for five or
-// more).
-const accrualPlaces = 10
-
 // An EntryKind is the kind of a ledger movement.
 type EntryKind int
 
@@ -82,76 +77,20 @@ func Project(p *Plan, g *Goal, end Month) (*Ledger, error) {
 	return s.ledger(s.defaultParams()), nil
 }
 
-// ledger walks the schedule in decimal, recording every movement.
+// ledger walks the schedule, recording every movement.
 func (s *schedule) ledger(pr *params) *Ledger {
 	p, g := s.plan, s.goal
-	js := s.rates(pr)
-	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, Opening: pr.amounts[0]}
+	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, Opening: pr.amounts[0].Round(s.places, s.rounding)}
 	l.monthEnd = make([]money.Amount, s.end-p.Start+1)
-	l.Entries = make([]Entry, 0, len(s.events))
-	round := func(a money.Amount) money.Amount { return a.Round(s.places, s.rounding) }
-	fee := g.Fee / 12
-	bal := pr.amounts[0]
-	base, acc, accrued := bal, money.Zero, money.Zero
-	if !bal.IsZero() {
-		l.Entries = append(l.Entries, Entry{Month: p.Start, Kind: Opening, Source: "opening balance", Amount: bal, Balance: bal})
+	l.Entries = make([]Entry, 0, len(s.events)+1)
+	if !l.Opening.IsZero() {
+		l.Entries = append(l.Entries, Entry{Month: p.Start, Kind: Opening, Source: "opening balance", Amount: l.Opening, Balance: l.Opening})
 	}
-	for i := range s.events {
-		e := &s.events[i]
-		switch e.kind {
-		case evInterest:
-			in := base.MulFloat(js[e.step]).Add(acc)
-			if s.accrue {
-				accrued = accrued.Add(in).Round(accrualPlaces, s.rounding)
-				base, acc = bal.Add(accrued), money.Zero
-				continue
-			}
-			in = round(in)
-			bal = bal.Add(in)
-			base, acc = bal, money.Zero
-			if !in.IsZero() {
-				l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: Interest, Amount: in, Balance: bal})
-			}
-		case evCredit:
-			in := round(accrued)
-			bal = bal.Add(in)
-			accrued = accrued.Sub(in)
-			if !in.IsZero() {
-				l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: Interest, Amount: in, Balance: bal})
-			}
-		case evFee:
-			if bal.Sign() > 0 {
-				f := round(bal.MulFloat(fee))
-				if f.IsZero() {
-					continue
-				}
-				bal = bal.Sub(f)
-				acc = acc.Sub(f.MulFloat(accrual(g.Between, js[e.step], e.tau, true)))
-				l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: Fee, Amount: f.Neg(), Balance: bal})
-			}
-		case evMark:
-			l.monthEnd[e.month-p.Start] = bal
-		default:
-			src := &s.sources[e.src]
-			x := round(pr.amounts[e.src].MulFloat(e.unit))
-			var short money.Amount
-			if src.out {
-				x = x.Abs().Neg()
-				if x.Neg().Cmp(bal) > 0 {
-					paid := money.Max(bal, money.Zero)
-					short = x.Neg().Sub(paid)
-					x = paid.Neg()
-					if l.short == 0 {
-						l.short = e.month
-					}
-				}
-			}
-			bal = bal.Add(x)
-			acc = acc.Add(x.MulFloat(accrual(g.Between, js[e.step], e.tau, x.Sign() < 0)))
-			l.Entries = append(l.Entries, Entry{Tick: e.tick, Month: e.month, Kind: src.kind, Source: src.name, Amount: x, Balance: bal, Short: short})
-		}
+	r := s.walk(pr, s.rates(pr), nil, l)
+	if r.shortTick >= 0 {
+		l.short = r.shortMonth
 	}
-	l.Closing = bal
+	l.Closing = l.monthEnd[len(l.monthEnd)-1]
 	return l
 }
 

@@ -106,20 +106,24 @@ func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
 
 // Solve answers q for goal g. It never reads the clock. When the question has
 // no answer it returns a [*SolveError] saying why.
-func Solve(p *Plan, g *Goal, q Question) (*Answer, error) {
+func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q, true) }
+
+// solve answers q; with full unset it leaves out the answer's Ledger and
+// Equation, which what-if grids and the household status do not show.
+func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	switch q.For {
 	case ForTime:
-		return solveTime(p, g)
+		return solveTime(p, g, full)
 	case ForDeposit:
-		return solveAmount(p, g, q, false)
+		return solveAmount(p, g, q, false, full)
 	case ForStart:
-		return solveAmount(p, g, q, true)
+		return solveAmount(p, g, q, true, full)
 	case ForRate:
-		return solveRate(p, g)
+		return solveRate(p, g, full)
 	case ForWithdrawal:
-		return solveWithdrawal(p, g, q)
+		return solveWithdrawal(p, g, q, full)
 	case ForLasts:
-		return solveLasts(p, g)
+		return solveLasts(p, g, full)
 	}
 	return nil, fmt.Errorf("unknown quantity %d", q.For)
 }
@@ -145,45 +149,56 @@ func targetAtMonth(p *Plan, g *Goal, m Month) money.Amount {
 	return p.TargetAt(&h)
 }
 
-func solveTime(p *Plan, g *Goal) (*Answer, error) {
+func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if err := needTarget(g, false); err != nil {
 		return nil, err
 	}
 	end := horizonEnd(p)
-	s := compile(p, g, end)
-	pr := s.defaultParams()
-	ends := make([]float64, end-p.Start+1)
-	s.runFloat(pr, floatOpts{only: -1, monthEnds: ends})
-	found := Month(0)
-	for i, b := range ends {
-		m := p.Start + Month(i)
-		if b >= targetAtMonth(p, g, m).Float()-0.005 {
-			found = m
+	scale := math.Pow(10, float64(p.Currency.Places))
+	t0, force := g.Target.Float(), 0.0
+	if g.TargetToday {
+		force = p.Inflation.Force()
+	}
+	reach := func(m Month, bal float64) bool {
+		t := t0 * math.Exp(force*float64(m-p.Start+1)/12)
+		if bal < t-1/scale {
+			return false
+		}
+		// near or past the target: decide exactly, in decimal
+		return money.Minor(int64(math.Round(bal*scale)), p.Currency.Places).Cmp(targetAtMonth(p, g, m)) >= 0
+	}
+	// Most goals are reached within decades: walk a short horizon first and
+	// go further only when the target is not met by its end. A schedule
+	// compiled to a nearer end is the prefix of a longer one.
+	var s *schedule
+	var pr *params
+	var r floatResult
+	for _, years := range []int{40, 80, HorizonYears} {
+		h := min(max(p.Start.Add(years*12-1), Horizon(p, g)), end)
+		s = compile(p, g, h)
+		pr = s.defaultParams()
+		if r = s.runFloat(pr, floatOpts{only: -1, reach: reach}); r.reached != 0 || h == end {
 			break
 		}
 	}
+	found := r.reached
 	if found == 0 {
-		return nil, noSolution(g, "%s", unreachableReason(p, g, ends))
-	}
-	// confirm in decimal, moving to the exact first month
-	l := compile(p, g, min(found+12, end)).ledger(pr)
-	meets := func(m Month) bool { return l.BalanceAt(m).Cmp(targetAtMonth(p, g, m)) >= 0 }
-	for found > p.Start && meets(found-1) {
-		found--
-	}
-	for !meets(found) && found < l.End {
-		found++
-	}
-	if !meets(found) {
+		ends := make([]float64, end-p.Start+1)
+		s.runFloat(pr, floatOpts{only: -1, monthEnds: ends})
 		return nil, noSolution(g, "%s", unreachableReason(p, g, ends))
 	}
 	a := &Answer{Goal: g, For: ForTime, Month: found, Months: int(found-p.Start) + 1, Periods: math.NaN()}
 	a.Periods, a.Freq = closedFormPeriods(p, g)
 	a.Deadline = found
 	a.Target = targetAtMonth(p, g, found)
-	a.Ledger, _ = Project(p, g, found)
-	a.Balance = a.Ledger.BalanceAt(found)
-	a.Equation = equation(p, g, found, nil)
+	a.Balance = money.Minor(int64(math.Round(r.closing*scale)), p.Currency.Places)
+	if full {
+		s2 := compile(p, g, found)
+		pr2 := s2.defaultParams()
+		a.Ledger = s2.ledger(pr2)
+		a.Balance = a.Ledger.BalanceAt(found)
+		a.Equation = s2.equation(pr2, a.Ledger)
+	}
 	if found == p.Start && g.Balance.Cmp(a.Target) >= 0 {
 		a.Note = "the balance already meets the target at the start"
 	}
@@ -328,7 +343,7 @@ func searchCents(ok func(c int64) bool, guess, limit int64, up bool) (int64, boo
 
 // solveAmount solves for the deposit of a stream (start false) or the
 // opening balance (start true).
-func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
+func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error) {
 	if err := needTarget(g, true); err != nil {
 		return nil, err
 	}
@@ -347,16 +362,11 @@ func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
 	}
 	target := p.TargetAt(g)
 	pr := s.defaultParams()
-	scale := math.Pow(10, float64(p.Currency.Places))
-	unit := money.FromDecimal(money.Cents(1).Decimal().Shift(int32(2 - p.Currency.Places)))
-	set := func(c int64) {
-		a := unit.Mul(decimalInt(c))
-		pr.amounts[idx], pr.amountsF[idx] = a, float64(c)/scale
-	}
-	meetsF := func(c int64) bool { // meets the target with every withdrawal paid
+	set := s.setter(pr, idx)
+	meets := func(c int64) bool { // meets the target with every withdrawal paid
 		set(c)
-		r := s.runFloat(pr, floatOpts{only: -1})
-		return r.shortTick < 0 && r.closing >= target.Float()-0.5/scale
+		bal, r := s.closing(pr)
+		return r.shortTick < 0 && bal.Cmp(target) >= 0
 	}
 	// linear guess from the value of one unit
 	pr1 := s.defaultParams()
@@ -374,21 +384,10 @@ func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
 		}
 		return nil, noSolution(g, "%s", what)
 	}
+	scale := math.Pow(10, float64(p.Currency.Places))
 	guess := int64(math.Ceil((target.Float() - b0) / per * scale))
-	limit := int64(MaxAmountUnits) * int64(scale)
-	c, ok := searchCents(meetsF, guess, limit, true)
+	c, ok := searchCents(meets, guess, int64(MaxAmountUnits)*int64(scale), true)
 	if !ok {
-		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target")
-	}
-	// confirm in decimal: the smallest c that meets, and c−1 misses
-	meetsD := func(c int64) bool {
-		set(c)
-		l := s.ledger(pr)
-		_, short := l.FirstShort()
-		return !short && l.Closing.Cmp(target) >= 0
-	}
-	// the float answer seeds a search in decimal, which has the last word
-	if c, ok = searchCents(meetsD, c, limit, true); !ok {
 		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target")
 	}
 	set(c)
@@ -396,17 +395,43 @@ func solveAmount(p *Plan, g *Goal, q Question, start bool) (*Answer, error) {
 	if start {
 		a.For = ForStart
 	}
-	a.Ledger = s.ledger(pr)
-	a.Balance = a.Ledger.Closing
-	a.Equation = equation(p, g, g.By, pr)
-	a.FirstAmount = a.Equation.amountOf(st, a.Amount)
+	a.Balance, _ = s.closing(pr)
+	a.FirstAmount = s.firstAmount(pr, idx)
+	s.prove(a, pr, full)
 	if c == 0 {
 		a.Note = "the target is met without it"
 	}
 	return a, nil
 }
 
-func solveWithdrawal(p *Plan, g *Goal, q Question) (*Answer, error) {
+// setter returns a function that sets source idx's amount to c minor units.
+func (s *schedule) setter(pr *params, idx int32) func(c int64) {
+	scale := math.Pow(10, float64(s.places))
+	return func(c int64) {
+		pr.amounts[idx], pr.amountsF[idx] = money.Minor(c, s.places), float64(c)/scale
+	}
+}
+
+// firstAmount is source idx's first amount under pr, in money of its date.
+func (s *schedule) firstAmount(pr *params, idx int32) money.Amount {
+	for _, e := range s.events {
+		if e.src == idx {
+			return pr.amounts[idx].MulFloat(e.unit).Round(s.places, s.rounding).Abs()
+		}
+	}
+	return pr.amounts[idx].Abs()
+}
+
+// prove attaches the ledger and the equation of value under pr to a, when
+// a full answer is wanted.
+func (s *schedule) prove(a *Answer, pr *params, full bool) {
+	if full {
+		a.Ledger = s.ledger(pr)
+		a.Equation = s.equation(pr, a.Ledger)
+	}
+}
+
+func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	st := g.Stream(q.Stream, true)
 	if st == nil {
 		if q.Stream != "" {
@@ -421,16 +446,11 @@ func solveWithdrawal(p *Plan, g *Goal, q Question) (*Answer, error) {
 	s := compile(p, g, end)
 	idx := s.sourceIndex(st)
 	pr := s.defaultParams()
-	scale := math.Pow(10, float64(p.Currency.Places))
-	unit := money.FromDecimal(money.Cents(1).Decimal().Shift(int32(2 - p.Currency.Places)))
-	set := func(c int64) {
-		pr.amounts[idx], pr.amountsF[idx] = unit.Mul(decimalInt(c)), float64(c)/scale
-	}
-	leave := g.Leave.Float()
-	okF := func(c int64) bool {
+	set := s.setter(pr, idx)
+	ok := func(c int64) bool { // every withdrawal paid, and leave left
 		set(c)
-		r := s.runFloat(pr, floatOpts{only: -1})
-		return r.shortTick < 0 && r.closing >= leave-0.5/scale
+		bal, r := s.closing(pr)
+		return r.shortTick < 0 && bal.Cmp(g.Leave) >= 0
 	}
 	// linear guess
 	pr1 := s.defaultParams()
@@ -443,54 +463,46 @@ func solveWithdrawal(p *Plan, g *Goal, q Question) (*Answer, error) {
 		// the search below would run to the limit
 		return nil, noSolution(g, "the stream has no withdrawals on or before %s", end)
 	}
-	if b0 < leave || !okF(0) {
+	if !ok(0) {
 		return nil, noSolution(g, "even with no withdrawals the balance falls short of leave %s", g.Leave.Format(p.Currency, false))
 	}
-	guess := int64(0)
-	if per > 0 {
-		guess = int64((b0 - leave) / per * scale)
-	}
-	limit := int64(MaxAmountUnits) * int64(scale)
-	c, _ := searchCents(okF, guess, limit, false)
-	okD := func(c int64) bool {
-		set(c)
-		l := s.ledger(pr)
-		_, short := l.FirstShort()
-		return !short && l.Closing.Cmp(g.Leave) >= 0
-	}
-	// the float answer seeds a search in decimal, which has the last word
-	c, _ = searchCents(okD, c, limit, false)
+	scale := math.Pow(10, float64(p.Currency.Places))
+	guess := max(int64((b0-g.Leave.Float())/per*scale), 0)
+	c, _ := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), false)
 	set(c)
 	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true}
-	a.Ledger = s.ledger(pr)
-	a.Balance, a.Left = a.Ledger.Closing, a.Ledger.Closing
-	a.Target = g.Leave
-	a.Equation = equation(p, g, end, pr)
-	a.FirstAmount = a.Equation.amountOf(st, a.Amount)
+	a.Balance, _ = s.closing(pr)
+	a.Left, a.Target = a.Balance, g.Leave
+	a.FirstAmount = s.firstAmount(pr, idx)
+	s.prove(a, pr, full)
 	return a, nil
 }
 
-func solveLasts(p *Plan, g *Goal) (*Answer, error) {
+func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if len(g.Withdrawals) == 0 {
 		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
 	}
 	end, _ := lastWithdrawal(p, g)
 	s := compile(p, g, end)
 	pr := s.defaultParams()
-	l := s.ledger(pr)
-	a := &Answer{Goal: g, For: ForLasts, Periods: math.NaN(), Ledger: l}
-	if m, short := l.FirstShort(); short {
-		a.Month, a.Months = m, int(m-p.Start)+1
-		a.Deadline = m
-		a.Balance = l.BalanceAt(m)
-		a.Equation = equation(p, g, m, nil)
+	bal, r := s.closing(pr)
+	a := &Answer{Goal: g, For: ForLasts, Periods: math.NaN()}
+	if r.shortTick >= 0 {
+		m := r.shortMonth
+		a.Month, a.Months, a.Deadline = m, int(m-p.Start)+1, m
+		s2 := compile(p, g, m)
+		pr2 := s2.defaultParams()
+		a.Balance, _ = s2.closing(pr2)
+		s2.prove(a, pr2, full)
+		if full {
+			a.Ledger = s.ledger(pr) // the whole drawdown, to show what went unpaid
+		}
 		return a, nil
 	}
 	a.Lasts = true
-	a.Month, a.Months = end, int(end-p.Start)+1
-	a.Deadline = end
-	a.Balance, a.Left = l.Closing, l.Closing
-	a.Equation = equation(p, g, end, nil)
+	a.Month, a.Months, a.Deadline = end, int(end-p.Start)+1, end
+	a.Balance, a.Left = bal, bal
+	s.prove(a, pr, full)
 	if end == horizonEnd(p) {
 		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
 	}
@@ -503,24 +515,32 @@ const (
 	maxSolveRate = 1.0
 )
 
-func solveRate(p *Plan, g *Goal) (*Answer, error) {
+func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if err := needTarget(g, true); err != nil {
 		return nil, err
 	}
 	s := compile(p, g, g.By)
 	target := p.TargetAt(g)
 	pr := s.defaultParams()
+	// Roots are found on the smooth, unrounded balance; the exact walk then
+	// settles the last cent.
 	f := func(delta float64) float64 {
 		r := money.ForceRate(delta)
 		pr.rate = &r
-		return s.runFloat(pr, floatOpts{only: -1}).closing - target.Float()
+		return s.runFloat(pr, floatOpts{only: allSources}).closing - target.Float()
 	}
 	lo, hi := math.Log1p(minSolveRate), math.Log1p(maxSolveRate)
-	const n = 240
+	// With money only coming in, the balance rises with the rate and there
+	// is at most one root: no scan is needed. Money going out as well can
+	// make several (the cash flows change sign), so scan for brackets.
+	n := 48
+	if len(g.Withdrawals) == 0 && !anyOut(g.Once) {
+		n = 1
+	}
 	var roots []float64
 	prevX, prevF := lo, f(lo)
 	for k := 1; k <= n; k++ {
-		x := lo + (hi-lo)*float64(k)/n
+		x := lo + (hi-lo)*float64(k)/float64(n)
 		fx := f(x)
 		if prevF == 0 {
 			roots = append(roots, prevX)
@@ -538,29 +558,64 @@ func solveRate(p *Plan, g *Goal) (*Answer, error) {
 		}
 		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
 	}
-	// lowest root first; nudge up until the decimal ledger meets the target
-	delta := roots[0]
-	var l *Ledger
-	for k := 0; k < 60; k++ {
+	// The lowest root of the smooth balance is within rounding of the
+	// answer: bracket the lowest rate whose exact balance meets the target
+	// around it, then bisect.
+	meets := func(delta float64) (money.Amount, bool) {
 		r := money.ForceRate(delta)
 		pr.rate = &r
-		l = s.ledger(pr)
-		if l.Closing.Cmp(target) >= 0 {
+		bal, _ := s.closing(pr)
+		return bal, bal.Cmp(target) >= 0
+	}
+	delta := roots[0]
+	bal, ok := meets(delta)
+	lo2, hi2 := delta, delta
+	for step := 1e-10; ; step *= 4 {
+		if ok {
+			lo2 = hi2 - step
+			if _, m := meets(lo2); !m || step > 1 {
+				break
+			}
+			hi2 = lo2
+		} else {
+			hi2 = lo2 + step
+			if bal, ok = meets(hi2); ok || step > 1 {
+				break
+			}
+			lo2 = hi2
+		}
+	}
+	for range 60 {
+		if hi2-lo2 <= 1e-13 {
 			break
 		}
-		delta += 1e-9 * math.Pow(2, float64(k))
+		mid := lo2 + (hi2-lo2)/2
+		if _, m := meets(mid); m {
+			hi2 = mid
+		} else {
+			lo2 = mid
+		}
 	}
-	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target}
+	delta = hi2
+	bal, _ = meets(delta)
+	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: bal}
 	for _, r := range roots[1:] {
 		a.Rates = append(a.Rates, money.ForceRate(r))
 	}
-	a.Ledger = l
-	a.Balance = l.Closing
-	a.Equation = equation(p, g, g.By, pr)
+	s.prove(a, pr, full)
 	if len(a.Rates) > 0 {
 		a.Note = fmt.Sprintf("the cash flows change sign, so %d rates make the balance equal the target", len(roots))
 	}
 	return a, nil
+}
+
+func anyOut(os []Once) bool {
+	for _, o := range os {
+		if o.Amount.Sign() < 0 {
+			return true
+		}
+	}
+	return false
 }
 
 // brent finds a root of f in [a, b], where f(a) and f(b) differ in sign, by
@@ -573,7 +628,7 @@ func brent(f func(float64) float64, a, b, fa, fb float64) float64 {
 	d := b - a
 	mflag := true
 	for it := 0; it < 200; it++ {
-		if fb == 0 || math.Abs(b-a) < 1e-15 {
+		if fb == 0 || math.Abs(b-a) < 1e-13 {
 			return b
 		}
 		var s float64

@@ -52,7 +52,7 @@ func StatusOf(p *Plan) *Status {
 			if !gs.OnTrack {
 				gs.Short = gs.TargetAt.Sub(gs.Projected)
 			}
-			gs.Needed, gs.NeededErr = Solve(p, g, Question{For: ForDeposit})
+			gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
 			if gs.NeededErr == nil {
 				gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
 			}
@@ -60,14 +60,14 @@ func StatusOf(p *Plan) *Status {
 			gs.TargetAt = g.Target
 		}
 		if g.HasTarget {
-			if a, err := Solve(p, g, Question{For: ForTime}); err == nil {
+			if a, err := solve(p, g, Question{For: ForTime}, false); err == nil {
 				gs.Reached = a.Month
 			} else {
 				gs.Reach = err
 			}
 		}
 		if len(g.Withdrawals) > 0 {
-			gs.Lasts, gs.LastsErr = Solve(p, g, Question{For: ForLasts})
+			gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
 		}
 		st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
 		st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNeeded)

@@ -2,7 +2,10 @@ package plan
 
 import (
 	"fmt"
+	"runtime"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"gopkg.in/yaml.v3"
 
@@ -225,26 +228,42 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 			return nil, fmt.Errorf("what-if grid of more than %d cells", MaxCells)
 		}
 	}
-	gr.Base.Answer, gr.Base.Err = Solve(p, g, q)
-	idx := make([]int, len(axes))
-	for c := 0; c < total; c++ {
-		rem := c
-		for i := len(axes) - 1; i >= 0; i-- {
-			idx[i] = rem % len(axes[i].Values)
-			rem /= len(axes[i].Values)
-		}
-		cell := Cell{Values: make([]string, len(axes))}
-		ovs := make([]Override, len(axes))
-		for i, ax := range axes {
-			cell.Values[i] = ax.Values[idx[i]]
-			ovs[i] = Override{Key: ax.Key, Value: cell.Values[i]}
-		}
-		q2, g2, err := p.With(goal, stream, ovs)
+	gr.Base.Answer, gr.Base.Err = solve(p, g, q, false)
+	gr.Cells = make([]Cell, total)
+	errs := make([]error, total)
+	// Cells are independent: solve them on every core, each worker taking
+	// the next cell; the grid's order does not depend on the schedule.
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), total) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for c := int(next.Add(1) - 1); c < total; c = int(next.Add(1) - 1) {
+				rem := c
+				cell := Cell{Values: make([]string, len(axes))}
+				ovs := make([]Override, len(axes))
+				for i := len(axes) - 1; i >= 0; i-- {
+					v := axes[i].Values[rem%len(axes[i].Values)]
+					rem /= len(axes[i].Values)
+					cell.Values[i] = v
+					ovs[i] = Override{Key: axes[i].Key, Value: v}
+				}
+				q2, g2, err := p.With(goal, stream, ovs)
+				if err != nil {
+					errs[c] = err
+					continue
+				}
+				cell.Answer, cell.Err = solve(q2, g2, q, false)
+				gr.Cells[c] = cell
+			}
+		}()
+	}
+	wg.Wait()
+	for _, err := range errs {
 		if err != nil {
 			return nil, err
 		}
-		cell.Answer, cell.Err = Solve(q2, g2, q)
-		gr.Cells = append(gr.Cells, cell)
 	}
 	return gr, nil
 }

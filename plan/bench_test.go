@@ -1,0 +1,119 @@
+package plan_test
+
+import (
+	"fmt"
+	"os"
+	"testing"
+
+	"cairn/plan"
+)
+
+// benchPlan is a 40-year plan with deposits every two weeks rising 3% a
+// year, a rate schedule and a fee, the speed issue's case for the rate
+// solver.
+const benchPlan = `cairn: 1
+start: 2027-01
+inflation: 2.5%
+goals:
+  - name: Retirement
+    balance: 25,000
+    rate:
+      - 6.5%
+      - from: 2047-01
+        rate: 5%
+    fee: 0.2%
+    target: 1.5M
+    by: 2066-12
+    deposits:
+      - amount: 400
+        every: 2 weeks
+        grow: 3%
+        until: 2066-12
+`
+
+// monthlyPlan is a 40-year monthly plan, the what-if grid's case.
+const monthlyPlan = `cairn: 1
+start: 2027-01
+goals:
+  - name: Savings
+    balance: 10,000
+    rate: 6%
+    target: 900k
+    by: 2066-12
+    deposits:
+      - amount: 500
+        every: month
+`
+
+func benchParse(b *testing.B, src string) *plan.Plan {
+	b.Helper()
+	p, err := plan.Parse("bench.yaml", []byte(src), 0)
+	if err != nil {
+		b.Fatal(err)
+	}
+	return p
+}
+
+func BenchmarkSolveRate(b *testing.B) {
+	p := benchParse(b, benchPlan)
+	g := p.Goals[0]
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := plan.Solve(p, g, plan.Question{For: plan.ForRate}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkSolveTime(b *testing.B) {
+	p := benchParse(b, monthlyPlan)
+	g := p.Goals[0]
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := plan.Solve(p, g, plan.Question{For: plan.ForTime}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkCompareGrid solves a 100 × 100 what-if grid for time.
+func BenchmarkCompareGrid(b *testing.B) {
+	p := benchParse(b, monthlyPlan)
+	rates, deps := plan.Vary{Key: "rate"}, plan.Vary{Key: "deposit"}
+	for i := range 100 {
+		rates.Values = append(rates.Values, fmt.Sprintf("%.2f%%", 3+float64(i)*0.05))
+		deps.Values = append(deps.Values, fmt.Sprint(300+i*5))
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := plan.Compare(p, "Savings", "", []plan.Vary{rates, deps}, plan.Question{For: plan.ForTime}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkStatusExample(b *testing.B) {
+	data, err := os.ReadFile("../examples/household.yaml")
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		p, err := plan.Parse("household.yaml", data, 0)
+		if err != nil {
+			b.Fatal(err)
+		}
+		plan.StatusOf(p)
+	}
+}
+
+func BenchmarkProject40Years(b *testing.B) {
+	p := benchParse(b, monthlyPlan)
+	g := p.Goals[0]
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := plan.Project(p, g, g.By); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
