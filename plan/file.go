@@ -242,7 +242,7 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 	p := &Plan{File: d.file, Currency: money.USD, Rounding: money.HalfEven}
 	var goalsNode, startNode *yaml.Node
 	version := false
-	ok := d.fields(n, "", []string{"cairn", "start", "currency", "inflation", "rounding", "goals"}, func(key string, v *yaml.Node) {
+	ok := d.fields(n, "", []string{"cairn", "start", "currency", "inflation", "inflation_volatility", "rounding", "goals"}, func(key string, v *yaml.Node) {
 		switch key {
 		case "cairn":
 			version = true
@@ -274,6 +274,8 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 				}
 				p.Rounding = r
 			}
+		case "inflation_volatility":
+			p.InflationVolatility, p.HasInflationVolatility = d.volatility(v, "inflation_volatility")
 		case "goals":
 			goalsNode = v
 		}
@@ -337,7 +339,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		}
 		return true
 	}
-	ok := d.fields(n, path, []string{"name", "balance", "rate", "between", "fee", "target", "by", "deposits", "withdrawals", "once", "leave"}, func(key string, v *yaml.Node) {
+	ok := d.fields(n, path, []string{"name", "balance", "rate", "between", "fee", "volatility", "target", "by", "deposits", "withdrawals", "once", "leave"}, func(key string, v *yaml.Node) {
 		kp := join(path, key)
 		switch key {
 		case "name":
@@ -413,6 +415,8 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 			}
 		case "leave":
 			g.Leave, _, _ = d.amount(v, kp, false, false)
+		case "volatility":
+			g.Volatility, g.HasVolatility = d.volatility(v, kp)
 		}
 	})
 	if !ok {

@@ -538,7 +538,13 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		n = 1
 	}
 	var roots []float64
-	prevX, prevF := lo, f(lo)
+	if d, ok := s.annuityRoot(target); ok { // a uniform annuity: its closed form
+		roots, n = []float64{d}, 0
+	}
+	prevX, prevF := lo, math.NaN()
+	if n > 0 {
+		prevF = f(lo)
+	}
 	for k := 1; k <= n; k++ {
 		x := lo + (hi-lo)*float64(k)/float64(n)
 		fx := f(x)
@@ -549,7 +555,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 		prevX, prevF = x, fx
 	}
-	if prevF == 0 {
+	if n > 0 && prevF == 0 {
 		roots = append(roots, prevX)
 	}
 	if len(roots) == 0 {
@@ -607,6 +613,40 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		a.Note = fmt.Sprintf("the cash flows change sign, so %d rates make the balance equal the target", len(roots))
 	}
 	return a, nil
+}
+
+// annuityRoot returns the force of interest at which a goal that is one
+// uniform annuity — an opening balance and one level stream from the start
+// to the deadline, at one rate credited on the deadline, with nothing else —
+// meets target, by the closed form (money.AnnuityRate); ok is false for
+// any other goal.
+func (s *schedule) annuityRoot(target money.Amount) (delta float64, ok bool) {
+	g := s.goal
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.Between != Compound {
+		return 0, false
+	}
+	st := g.Deposits[0]
+	if st.Today || st.Grow != 0 || st.GrowInflation || st.From != s.plan.Start || s.endTick%s.period != 0 {
+		return 0, false
+	}
+	P := TicksPerYear / int64(st.Every.PerYear())
+	count, last := 0, int64(0)
+	for _, e := range s.events {
+		if e.src == 1 {
+			count, last = count+1, e.tick
+		}
+	}
+	if st.Timing == Begin {
+		last += P
+	}
+	if count == 0 || last != s.endTick {
+		return 0, false
+	}
+	i, err := money.AnnuityRate(float64(count), -g.Balance.Float(), -st.Amount.Float(), target.Float(), st.Timing == Begin)
+	if err != nil || i <= -1 {
+		return 0, false
+	}
+	return float64(st.Every.PerYear()) * math.Log1p(i), true
 }
 
 func anyOut(os []Once) bool {

@@ -138,6 +138,7 @@ func projectCommand(e *env) *cli.Command {
 		Flags: append(fileFlags(true), goalFlag(true),
 			&cli.StringFlag{Name: "by", Value: "year", Usage: "one row per `PERIOD`: year or month"},
 			&cli.StringFlag{Name: "until", Usage: "last `MONTH` shown (YYYY-MM; default: the goal's horizon)"},
+			&cli.BoolFlag{Name: "chart", Usage: "draw the closing balance as a bar chart under the table (table format only)"},
 		),
 		Action: func(c *cli.Context) error {
 			p, err := readPlan(c, e)
@@ -174,7 +175,7 @@ func projectCommand(e *env) *cli.Command {
 			if err != nil {
 				return err
 			}
-			return out(c, e, projectDoc(p, g, l, by))
+			return outProject(c, e, projectDoc(p, g, l, by), l, by, c.Bool("chart"))
 		},
 	}
 }

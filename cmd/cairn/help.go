@@ -16,6 +16,9 @@ TOP LEVEL
   currency    USD        ISO 4217 code (USD, EUR, GBP, JPY, ...), for display
                          and for the places postings round to (JPY: 0)
   inflation   0%         a year; grows "today" amounts, gives today's-money figures
+  inflation_volatility
+              0%         for cairn simulate: the volatility of inflation a year,
+                         such as 1% (see SIMULATION)
   rounding    half-even  how each interest, fee and growing amount rounds to the
                          cent: half-even or half-up
   goals       required   a list of goals
@@ -45,6 +48,9 @@ EACH GOAL
                            none      nothing for deposits; withdrawals earn
                                      nothing for that period
   fee         0%         a year, taken monthly (a twelfth) from the balance
+  volatility  none       for cairn simulate: the volatility of returns a year,
+                         such as 12%, from 0% to 100% (see SIMULATION); none
+                         means returns are fixed
   target      none       an amount, or "400k today" in today's money (grown by
                          inflation to the deadline; needs by)
   by          none       the deadline: the end of that month
@@ -70,6 +76,29 @@ EACH STREAM (deposits and withdrawals)
   until       none       last month with an amount (none: open-ended)
   for         none       withdrawals only, instead of until: "30 years", "18 months"
   grow        0%         a yearly rise of the amount, or "inflation"
+
+SIMULATION (cairn simulate)
+  cairn simulate runs the plan many times (--paths, default 10,000) with
+  random returns, and otherwise exactly as the ledger: the same streams,
+  growth, fees, between rule, shortfalls and rounding. Each month draws one
+  log-return, normal and independent of every other month, with mean
+  ln(1 + r)/12 - v^2/24 and standard deviation v/sqrt(12), where r is the
+  goal's effective rate a year in force (a rate schedule shifts the mean) and
+  v its volatility. So the expected growth over a year is exactly 1 + r, and
+  the median grows by (1 + r)*e^(-v^2/2) a year. An interest period takes the
+  draws of the months it covers, in proportion to how much of each it covers
+  (a monthly credit one month's, a quarterly credit three months', a daily
+  credit its share of its month): its rate is (1 + j)*e^d - 1, with j its
+  fixed rate and d those draws less ln(1 + r)/12 a month. With volatility 0
+  every path is the ledger.
+  inflation_volatility makes inflation random the same way (mean
+  ln(1 + inflation)/12 - v^2/24 a month, independent of returns). It changes
+  only what follows inflation: a target in today's money, amounts in today's
+  money, and streams that grow with inflation; rates and fixed amounts stay.
+  A path meets the target when its balance at the end of the deadline month is
+  at least its target. Percentile q of N paths is the value of rank ceil(q*N)
+  from the lowest. The same --seed (default 1) and --paths give the same
+  results on every run and on any number of processors.
 
 LIMITS
   a file of at most 1 MiB, 100 goals, 50 streams and 1,000 one-time amounts a

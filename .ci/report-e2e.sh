@@ -1,0 +1,122 @@
+#!/usr/bin/env bash
+# End-to-end check of `cairn report`: print the example household's report
+# to PDF in headless Chromium and check that it has a page for the summary
+# and one for each goal, and the text every report must carry.
+#
+# Installs Debian's chromium and poppler-utils with apt-get when they are
+# missing. Outside CI (CI unset, 0 or false) a machine where they cannot be
+# installed skips the check with a message and exit 0; under CI it fails.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+
+case "${CI:-}" in
+"" | 0 | false) under_ci=false ;;
+*) under_ci=true ;;
+esac
+
+give_up() {
+  if $under_ci; then
+    echo "report-e2e: FAIL: $1" >&2
+    exit 1
+  fi
+  echo "report-e2e: skipped: $1 (run as root on Debian to install them, or set CI=1 to make this an error)"
+  exit 0
+}
+
+missing=()
+command -v chromium >/dev/null 2>&1 || missing+=(chromium)
+if ! { command -v pdfinfo && command -v pdftotext; } >/dev/null 2>&1; then
+  missing+=(poppler-utils)
+fi
+if [ ${#missing[@]} -gt 0 ]; then
+  sudo=()
+  if [ "$(id -u)" -ne 0 ]; then
+    if command -v sudo >/dev/null 2>&1 && sudo -n true 2>/dev/null; then
+      sudo=(sudo -n)
+    else
+      give_up "${missing[*]} not installed and apt-get needs root"
+    fi
+  fi
+  command -v apt-get >/dev/null 2>&1 || give_up "${missing[*]} not installed and there is no apt-get"
+  echo "== installing ${missing[*]} with apt-get"
+  export DEBIAN_FRONTEND=noninteractive
+  if ! "${sudo[@]}" apt-get update -q >/dev/null; then
+    give_up "apt-get update failed"
+  fi
+  if ! "${sudo[@]}" apt-get install -y -q "${missing[@]}" >/dev/null; then
+    give_up "apt-get install ${missing[*]} failed"
+  fi
+fi
+echo "== $(chromium --version 2>/dev/null || echo chromium); $(pdfinfo -v 2>&1 | head -n 1)"
+
+tmp=$(mktemp -d)
+trap 'rm -rf "$tmp"' EXIT
+go build -o "$tmp/cairn" ./cmd/cairn
+"$tmp/cairn" report examples/household.yaml --as-of 2026-12 --out "$tmp/plan.html"
+
+mkdir "$tmp/profile"
+echo "== printing to PDF"
+if ! timeout 180 chromium --headless --no-sandbox --disable-gpu --no-first-run --disable-background-networking \
+  --disable-component-update --disable-sync --disable-quic --user-data-dir="$tmp/profile" \
+  --print-to-pdf="$tmp/plan.pdf" "file://$tmp/plan.html" >"$tmp/chromium.log" 2>&1; then
+  cat "$tmp/chromium.log" >&2
+  echo "report-e2e: FAIL: chromium could not print the report" >&2
+  exit 1
+fi
+[ -s "$tmp/plan.pdf" ] || { cat "$tmp/chromium.log" >&2; echo "report-e2e: FAIL: no PDF written" >&2; exit 1; }
+
+fail=0
+check() { # check DESCRIPTION COMMAND...
+  if "${@:2}"; then echo "ok   $1"; else echo "FAIL $1"; fail=1; fi
+}
+
+# The goals, in file order, from cairn itself (the status table's first column).
+mapfile -t goals < <("$tmp/cairn" status examples/household.yaml --format csv 2>/dev/null | tail -n +2 | cut -d, -f1 | tr -d '"')
+pages=$(pdfinfo "$tmp/plan.pdf" | awk '/^Pages:/ {print $2}')
+echo "== $pages pages, ${#goals[@]} goals: ${goals[*]}"
+check "at least 1 + ${#goals[@]} pages" test "$pages" -ge $((1 + ${#goals[@]}))
+
+# page_text N: the text of page N with all white space squeezed to single spaces.
+page_text() { pdftotext -q -f "$1" -l "$1" "$tmp/plan.pdf" - | tr -s '[:space:]' ' '; }
+all=$(pdftotext -q "$tmp/plan.pdf" - | tr -s '[:space:]' ' ')
+
+check "page 1 is the household summary" grep -qF "The household at a glance" <<<"$(page_text 1)"
+# Each goal starts a new page: "Goal i of n" then its name is on a page of its
+# own, later than the previous goal's.
+last=1
+for i in "${!goals[@]}"; do
+  name=${goals[$i]}
+  kicker="Goal $((i + 1)) of ${#goals[@]}: $name"
+  found=0
+  for ((pg = last + 1; pg <= pages; pg++)); do
+    text=$(page_text "$pg")
+    if grep -qF "$kicker" <<<"$text"; then
+      found=$pg
+      break
+    fi
+  done
+  check "\"$name\" starts page $found, after page $last" test "$found" -gt "$last"
+  if [ "$found" -gt 0 ]; then
+    check "\"$name\" is the first text on page $found" grep -qE "^ ?Goal $((i + 1)) of " <<<"$text"
+    last=$found
+  fi
+done
+
+note="Note: A planning estimate, not financial, tax or investment advice. It assumes the rates and amounts given hold; taxes are not modelled. Consult a licensed professional before acting."
+caution="Caution: Running out of money is the risk that matters once withdrawals begin: review the withdrawals every year."
+check "the note is printed" grep -qF "$note" <<<"$all"
+check "the caution is printed" grep -qF "$caution" <<<"$all"
+check "every goal carries the note (at least $((1 + ${#goals[@]})) times)" \
+  test "$(grep -oF "$note" <<<"$all" | wc -l)" -ge $((1 + ${#goals[@]}))
+check "the yearly tables are printed" grep -qF "Yearly projection" <<<"$all"
+check "the assumptions are printed" grep -qF "Between interest dates" <<<"$all"
+
+if [ -n "${REPORT_E2E_KEEP:-}" ]; then
+  cp "$tmp/plan.pdf" "$tmp/plan.html" "$REPORT_E2E_KEEP"/
+  echo "== kept plan.pdf and plan.html in $REPORT_E2E_KEEP"
+fi
+if [ "$fail" -ne 0 ]; then
+  echo "report-e2e: FAIL" >&2
+  exit 1
+fi
+echo "== report-e2e passed"

@@ -1,0 +1,102 @@
+package money
+
+import (
+	"errors"
+	"math"
+)
+
+// ErrNoRate is returned by [AnnuityRate] when no rate in its range makes the
+// cash flows balance.
+var ErrNoRate = errors.New("no rate balances the cash flows")
+
+// AnnuityRate returns the rate i per period that solves the equation of
+// value of a uniform annuity,
+//
+//	fv + pv·(F/P,i,n) + pmt·(1 + i·w)·(F/A,i,n) = 0,
+//
+// with w = 1 for payments at the start of each period (an annuity due) and
+// 0 at the end. Signs follow the cash: money paid in is negative, money
+// received positive. The root is bracketed before it is refined (Newton's
+// method, falling back to bisection whenever a step would leave the
+// bracket), so it is found wherever one exists with i from −99% to +100% a
+// period; when the cash flows change sign more than once and there are
+// several, the lowest is returned. It returns [ErrNoRate] when there is none.
+func AnnuityRate(n, pv, pmt, fv float64, begin bool) (float64, error) {
+	w := 0.0
+	if begin {
+		w = 1
+	}
+	f := func(i float64) (float64, float64) { // value and derivative
+		x := n * math.Log1p(i)
+		F := math.Exp(x)
+		fa, dfa := FutureOfSeries(i, n), 0.0
+		if math.Abs(i) < 1e-7 {
+			dfa = n * (n - 1) / 2
+		} else {
+			dfa = (n*F/(1+i)*i - math.Expm1(x)) / (i * i)
+		}
+		v := fv + pv*F + pmt*(1+i*w)*fa
+		d := pv*n*F/(1+i) + pmt*(w*fa+(1+i*w)*dfa)
+		return v, d
+	}
+	lo, hi := -0.99, 1.0
+	if lim := math.Expm1(700 / n); lim < hi { // keep (1+i)^n finite
+		hi = lim
+	}
+	flo, _ := f(lo)
+	fhi, _ := f(hi)
+	if flo == 0 {
+		return lo, nil
+	}
+	if (flo < 0) == (fhi < 0) {
+		// No sign change across the whole range: look for a bracket on a
+		// grid in ln(1+i), where several roots may hide.
+		const k = 64
+		a, fa := lo, flo
+		found := false
+		for j := 1; j <= k; j++ {
+			b := math.Expm1(math.Log1p(lo) + (math.Log1p(hi)-math.Log1p(lo))*float64(j)/k)
+			fb, _ := f(b)
+			if fb == 0 {
+				return b, nil
+			}
+			if (fa < 0) != (fb < 0) {
+				hi, fhi, found = b, fb, true
+				break
+			}
+			a, fa = b, fb
+		}
+		if !found {
+			return math.NaN(), ErrNoRate
+		}
+		lo, flo = a, fa
+	}
+	// Newton's method kept inside the bracket: a step that would leave it,
+	// or that does not at least halve the last one, is a bisection instead.
+	if flo > 0 {
+		lo, hi = hi, lo // orient so that f(lo) < 0 < f(hi)
+	}
+	i := lo + (hi-lo)/2
+	dxOld, dx := math.Abs(hi-lo), math.Abs(hi-lo)
+	v, d := f(i)
+	for it := 0; it < 300; it++ {
+		if ((i-hi)*d-v)*((i-lo)*d-v) > 0 || math.Abs(2*v) > math.Abs(dxOld*d) {
+			dxOld, dx = dx, (hi-lo)/2
+			i = lo + dx
+		} else {
+			dxOld, dx = dx, v/d
+			i -= dx
+		}
+		if math.Abs(dx) <= 1e-15*math.Max(1, math.Abs(i)) {
+			return i, nil
+		}
+		if v, d = f(i); v == 0 {
+			return i, nil
+		} else if v < 0 {
+			lo = i
+		} else {
+			hi = i
+		}
+	}
+	return i, nil
+}

@@ -1,0 +1,91 @@
+package money_test
+
+import (
+	"encoding/json"
+	"errors"
+	"math"
+	"os"
+	"testing"
+
+	"cairn/money"
+)
+
+// Check values printed in the npm package financial 0.2.4's docs and tests
+// (check-values.md §5, VERIFIED from its source); same equation and signs.
+func TestAnnuityRate_Published(t *testing.T) {
+	tests := []struct {
+		n, pv, pmt, fv float64
+		begin          bool
+		want           float64
+	}{
+		{10, -3500, 0, 10000, false, 0.1106908}, // rate(10, 0, -3500, 10000)
+		{10, -3500, 0, 10000, true, 0.1106908},  // the same with payments at the start: no payments
+	}
+	for _, tt := range tests {
+		got, err := money.AnnuityRate(tt.n, tt.pv, tt.pmt, tt.fv, tt.begin)
+		// printed to 7 decimals, cut rather than rounded: the root itself is
+		// (10000/3500)^(1/10) − 1 = 0.110690853… (derived)
+		if err != nil || math.Abs(got-tt.want) > 1e-7 || math.Abs(got-(math.Pow(10000.0/3500, 0.1)-1)) > 1e-12 {
+			t.Errorf("AnnuityRate(%v, %v, %v, %v, %v) = %v, %v, want %v", tt.n, tt.pv, tt.pmt, tt.fv, tt.begin, got, err, tt.want)
+		}
+	}
+	// rate(12, 400, 10000, 5000) is NaN in the library: every cash flow is
+	// money received, so no rate balances them.
+	if got, err := money.AnnuityRate(12, 10000, 400, 5000, false); !errors.Is(err, money.ErrNoRate) {
+		t.Errorf("AnnuityRate(12, 10000, 400, 5000) = %v, %v, want ErrNoRate", got, err)
+	}
+}
+
+// TestAnnuityRate_Oracle solves every rate case of the oracle fixture
+// (testdata/oracle/cases.json, the library's own output): where the library
+// converged cairn agrees to 1e-6 a period (the library's tolerance); where it
+// returned NaN, cairn's rate reproduces the case's future value.
+func TestAnnuityRate_Oracle(t *testing.T) {
+	data, err := os.ReadFile("../testdata/oracle/cases.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var file struct {
+		Cases []struct {
+			Fn, When          string
+			Nper, Pv, Pmt, Fv float64
+			Made              float64
+			Result            *float64
+		}
+	}
+	if err := json.Unmarshal(data, &file); err != nil {
+		t.Fatal(err)
+	}
+	n, nan := 0, 0
+	for _, c := range file.Cases {
+		if c.Fn != "rate" {
+			continue
+		}
+		n++
+		begin := c.When == "begin"
+		got, err := money.AnnuityRate(c.Nper, c.Pv, c.Pmt, c.Fv, begin)
+		if err != nil {
+			t.Errorf("AnnuityRate(%v, %v, %v, %v, %v): %v (the case was made at %v)", c.Nper, c.Pv, c.Pmt, c.Fv, begin, err, c.Made)
+			continue
+		}
+		if c.Result == nil {
+			nan++
+			w := 0.0
+			if begin {
+				w = 1
+			}
+			fv := -(c.Pv*money.FutureOfPresent(got, c.Nper) + c.Pmt*(1+got*w)*money.FutureOfSeries(got, c.Nper))
+			if math.Abs(fv-c.Fv) > 1e-6*math.Max(1, math.Abs(c.Fv)) {
+				t.Errorf("AnnuityRate(%v, …) = %v gives fv %v, want %v", c.Nper, got, fv, c.Fv)
+			}
+			continue
+		}
+		if math.Abs(got-*c.Result) > 1e-6 {
+			t.Errorf("AnnuityRate(%v, %v, %v, %v, %v) = %v, library %v", c.Nper, c.Pv, c.Pmt, c.Fv, begin, got, *c.Result)
+		}
+	}
+	if n < 500 {
+		t.Fatalf("only %d rate cases", n)
+	}
+	t.Logf("%d rate cases, %d where the library returned NaN and cairn found the root", n, nan)
+}
