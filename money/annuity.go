@@ -27,13 +27,11 @@ func AnnuityRate(n, pv, pmt, fv float64, begin bool) (float64, error) {
 		w = 1
 	}
 	f := func(i float64) (float64, float64) { // value and derivative
-		x := n * math.Log1p(i)
-		F := math.Exp(x)
-		fa, dfa := FutureOfSeries(i, n), 0.0
-		if math.Abs(i) < 1e-7 {
-			dfa = n * (n - 1) / 2
-		} else {
-			dfa = (n*F/(1+i)*i - math.Expm1(x)) / (i * i)
+		em1 := math.Expm1(n * math.Log1p(i)) // (1+i)^n − 1
+		F := 1 + em1
+		fa, dfa := n, n*(n-1)/2 // (F/A) and its derivative, at i = 0
+		if math.Abs(i) >= 1e-7 {
+			fa, dfa = em1/i, (n*F/(1+i)*i-em1)/(i*i)
 		}
 		v := fv + pv*F + pmt*(1+i*w)*fa
 		d := pv*n*F/(1+i) + pmt*(w*fa+(1+i*w)*dfa)
@@ -76,7 +74,14 @@ func AnnuityRate(n, pv, pmt, fv float64, begin bool) (float64, error) {
 	if flo > 0 {
 		lo, hi = hi, lo // orient so that f(lo) < 0 < f(hi)
 	}
+	// Start from the rate that would grow the money paid in to fv over
+	// half the term, the average time it is invested: usually close.
 	i := lo + (hi-lo)/2
+	if paid := -pv - pmt*n; paid > 0 && fv > 0 {
+		if g := math.Expm1(math.Log(fv/paid) / math.Max(n/2, 1)); g > math.Min(lo, hi) && g < math.Max(lo, hi) {
+			i = g
+		}
+	}
 	dxOld, dx := math.Abs(hi-lo), math.Abs(hi-lo)
 	v, d := f(i)
 	for it := 0; it < 300; it++ {

@@ -467,6 +467,16 @@ func (s *schedule) runFloat(pr *params, o floatOpts) floatResult {
 	return res
 }
 
+// roundMinor rounds x (in minor units) to a whole unit: half away from zero
+// for half-up, half to even otherwise. Called directly, both compile to one
+// instruction.
+func roundMinor(x float64, halfUp bool) float64 {
+	if halfUp {
+		return math.Round(x)
+	}
+	return math.RoundToEven(x)
+}
+
 // walk is the ledger's arithmetic. It keeps every balance and posting as an
 // exact whole number of the currency's minor unit (cents for USD), a
 // fixed-point decimal in an int64; each interest credit, fee and growing
@@ -477,10 +487,8 @@ func (s *schedule) runFloat(pr *params, o floatOpts) floatResult {
 // ledger both walk here, so what a search finds is what the ledger shows.
 func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) floatResult {
 	scale := math.Pow(10, float64(s.places))
-	round := math.RoundToEven
-	if s.rounding == money.HalfUp {
-		round = math.Round // half away from zero
-	}
+	halfUp := s.rounding == money.HalfUp
+	round := func(x float64) float64 { return roundMinor(x, halfUp) }
 	win, wout := s.weights(js)
 	nt := int32(len(s.taus))
 	fee := s.goal.Fee / 12
@@ -489,11 +497,7 @@ func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) flo
 	res := floatResult{shortTick: -1}
 	var peak int64
 	post := func(e *event, kind EntryKind, src string, x, short int64) {
-		en := Entry{Tick: e.tick, Month: e.month, Kind: kind, Source: src, Amount: money.Minor(x, s.places), Balance: money.Minor(bal, s.places)}
-		if short != 0 {
-			en.Short = money.Minor(short, s.places)
-		}
-		rec.Entries = append(rec.Entries, en)
+		rec.raw = append(rec.raw, rawEntry{tick: e.tick, month: e.month, kind: kind, source: src, amount: x, balance: bal, short: short})
 	}
 	for i := range s.events {
 		e := &s.events[i]
@@ -533,7 +537,7 @@ func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) flo
 		case evMark:
 			peak = max(peak, bal)
 			if rec != nil {
-				rec.monthEnd[e.month-s.plan.Start] = money.Minor(bal, s.places)
+				rec.monthEnd[e.month-s.plan.Start] = bal
 			}
 			if o != nil {
 				if o.monthEnds != nil {

@@ -20,7 +20,7 @@ var update = flag.Bool("update", false, "update golden files")
 func dumpLedger(b *bytes.Buffer, l *plan.Ledger) {
 	fmt.Fprintf(b, "# goal %q, %s to %s, opening %s, closing %s\n", l.Goal.Name, l.Start, l.End, l.Opening, l.Closing)
 	fmt.Fprintf(b, "%-7s %8s %-10s %-20s %14s %14s %s\n", "month", "tick", "kind", "source", "amount", "balance", "short")
-	for _, e := range l.Entries {
+	for _, e := range l.Entries() {
 		src := e.Source
 		if src == "" {
 			src = "-"

@@ -2,6 +2,7 @@ package plan
 
 import (
 	"fmt"
+	"sync"
 
 	"cairn/money"
 )
@@ -36,17 +37,52 @@ type Entry struct {
 }
 
 // A Ledger is every movement on one goal's account, in decimal, from the
-// plan's start through the end of month End.
+// plan's start through the end of month End. Its balances and postings are
+// exact whole numbers of the currency's minor unit.
 type Ledger struct {
-	Plan     *Plan
-	Goal     *Goal
-	Start    Month
-	End      Month
-	Opening  money.Amount
-	Entries  []Entry
-	Closing  money.Amount
-	monthEnd []money.Amount // closing balance of each month
-	short    Month          // first month with a shortfall, 0 if none
+	Plan    *Plan
+	Goal    *Goal
+	Start   Month
+	End     Month
+	Opening money.Amount
+	Closing money.Amount
+
+	places   int
+	raw      []rawEntry
+	monthEnd []int64 // closing balance of each month, in minor units
+	short    Month   // first month with a shortfall, 0 if none
+	once     sync.Once
+	entries  []Entry
+}
+
+// A rawEntry is an Entry with its amounts in minor units; the ledger keeps
+// these and makes Entries of them only when they are asked for.
+type rawEntry struct {
+	tick                   int64
+	month                  Month
+	kind                   EntryKind
+	source                 string
+	amount, balance, short int64
+}
+
+// Entries returns every movement, in order: the opening balance (if any),
+// then each deposit, withdrawal, one-time amount, interest credit and fee.
+func (l *Ledger) Entries() []Entry {
+	l.once.Do(func() {
+		l.entries = make([]Entry, 0, len(l.raw)+1)
+		if !l.Opening.IsZero() {
+			l.entries = append(l.entries, Entry{Month: l.Start, Kind: Opening, Source: "opening balance", Amount: l.Opening, Balance: l.Opening})
+		}
+		for _, r := range l.raw {
+			e := Entry{Tick: r.tick, Month: r.month, Kind: r.kind, Source: r.source,
+				Amount: money.Minor(r.amount, l.places), Balance: money.Minor(r.balance, l.places)}
+			if r.short != 0 {
+				e.Short = money.Minor(r.short, l.places)
+			}
+			l.entries = append(l.entries, e)
+		}
+	})
+	return l.entries
 }
 
 // BalanceAt returns the closing balance at the end of month m, which must lie
@@ -58,7 +94,7 @@ func (l *Ledger) BalanceAt(m Month) money.Amount {
 	if m > l.End {
 		m = l.End
 	}
-	return l.monthEnd[m-l.Start]
+	return money.Minor(l.monthEnd[m-l.Start], l.places)
 }
 
 // FirstShort returns the first month in which a withdrawal could not be paid
@@ -80,17 +116,15 @@ func Project(p *Plan, g *Goal, end Month) (*Ledger, error) {
 // ledger walks the schedule, recording every movement.
 func (s *schedule) ledger(pr *params) *Ledger {
 	p, g := s.plan, s.goal
-	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, Opening: pr.amounts[0].Round(s.places, s.rounding)}
-	l.monthEnd = make([]money.Amount, s.end-p.Start+1)
-	l.Entries = make([]Entry, 0, len(s.events)+1)
-	if !l.Opening.IsZero() {
-		l.Entries = append(l.Entries, Entry{Month: p.Start, Kind: Opening, Source: "opening balance", Amount: l.Opening, Balance: l.Opening})
-	}
+	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, places: s.places}
+	l.Opening = pr.amounts[0].Round(s.places, s.rounding)
+	l.monthEnd = make([]int64, s.end-p.Start+1)
+	l.raw = make([]rawEntry, 0, len(s.events))
 	r := s.walk(pr, s.rates(pr), nil, l)
 	if r.shortTick >= 0 {
 		l.short = r.shortMonth
 	}
-	l.Closing = l.monthEnd[len(l.monthEnd)-1]
+	l.Closing = money.Minor(l.monthEnd[len(l.monthEnd)-1], s.places)
 	return l
 }
 
@@ -148,7 +182,7 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		rows[i].Closing = l.BalanceAt(m)
 	}
 	var tot Row
-	for _, e := range l.Entries {
+	for _, e := range l.Entries() {
 		if e.Kind == Opening {
 			continue
 		}

@@ -338,14 +338,14 @@ func TestConventions(t *testing.T) {
 		src, end := seriesFile("0", "1% per month", "100", "month", "end", 12, 1)
 		p := mustParse(t, "t.yaml", src)
 		l := mustProject(t, p, p.Goals[0], end)
-		last := l.Entries[len(l.Entries)-1]
+		last := l.Entries()[len(l.Entries())-1]
 		if last.Kind != plan.Deposit || last.Month != end || last.Tick != 12*plan.TicksPerMonth {
 			t.Errorf("Project(12 monthly deposits) last entry = %+v, want the 12th deposit, %s at tick %d", last, end, 12*plan.TicksPerMonth)
 		}
 		// The month's interest is credited at the same tick, before the
 		// deposit, on the balance without it: 1% of the balance after the
 		// 11th deposit.
-		in := l.Entries[len(l.Entries)-2]
+		in := l.Entries()[len(l.Entries())-2]
 		before := in.Balance.Sub(in.Amount)
 		if in.Kind != plan.Interest || in.Tick != last.Tick || in.Amount.Cmp(before.MulFloat(0.01).Round(2, money.HalfEven)) != 0 ||
 			last.Balance.Cmp(in.Balance.Add(amt(t, "100"))) != 0 {
@@ -378,9 +378,9 @@ func TestConventions(t *testing.T) {
 			p := mustParse(t, "t.yaml", src)
 			l := mustProject(t, p, p.Goals[0], start.Add(36))
 			var first *plan.Entry
-			for i := range l.Entries {
-				if l.Entries[i].Kind == plan.Deposit {
-					first = &l.Entries[i]
+			for i := range l.Entries() {
+				if l.Entries()[i].Kind == plan.Deposit {
+					first = &l.Entries()[i]
 					break
 				}
 			}

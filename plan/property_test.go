@@ -476,9 +476,9 @@ func TestSolve_LastsProperty(t *testing.T) {
 		}
 		l, _ := plan.Project(p, g, plan.Horizon(p, g))
 		var first *plan.Entry
-		for i := range l.Entries {
-			if !l.Entries[i].Short.IsZero() {
-				first = &l.Entries[i]
+		for i := range l.Entries() {
+			if !l.Entries()[i].Short.IsZero() {
+				first = &l.Entries()[i]
 				break
 			}
 		}
@@ -546,7 +546,7 @@ func TestEquationOf_Property(t *testing.T) {
 		if s.fee != "" {
 			postings += at + 1
 		}
-		for _, e := range l.Entries {
+		for _, e := range l.Entries() {
 			if e.Kind != plan.Interest && e.Kind != plan.Fee {
 				postings++
 			}

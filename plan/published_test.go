@@ -552,7 +552,7 @@ func TestPublished_Placement(t *testing.T) {
 		t.Fatal(err)
 	}
 	var deposits []plan.Entry
-	for _, e := range l.Entries {
+	for _, e := range l.Entries() {
 		switch e.Kind {
 		case plan.Opening:
 			if e.Tick != 0 {
@@ -589,7 +589,7 @@ func TestPublished_Placement(t *testing.T) {
 		t.Fatal(err)
 	}
 	deposits = deposits[:0]
-	for _, e := range l.Entries {
+	for _, e := range l.Entries() {
 		if e.Kind == plan.Deposit {
 			deposits = append(deposits, e)
 		}

@@ -540,6 +540,34 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	var roots []float64
 	if d, ok := s.annuityRoot(target); ok { // a uniform annuity: its closed form
 		roots, n = []float64{d}, 0
+	} else if n == 1 {
+		// One root at most: bracket it from the goal's own rate outwards,
+		// which takes a few evaluations instead of Brent's steps across
+		// the whole range.
+		x0 := min(max(g.Rates[0].Rate.Force(), lo), hi)
+		f0 := f(x0)
+		step := 0.01
+		for x1 := x0; ; step *= 2 {
+			if f0 < 0 {
+				x1 = min(x0+step, hi)
+			} else {
+				x1 = max(x0-step, lo)
+			}
+			f1 := f(x1)
+			if f1 == 0 || (f0 < 0) != (f1 < 0) {
+				if f1 == 0 {
+					roots = []float64{x1}
+				} else {
+					roots = []float64{brent(f, x0, x1, f0, f1)}
+				}
+				n = 0
+				break
+			}
+			if x1 == lo || x1 == hi {
+				break // no root: the scan below says why
+			}
+			x0, f0 = x1, f1
+		}
 	}
 	prevX, prevF := lo, math.NaN()
 	if n > 0 {
@@ -575,8 +603,23 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	delta := roots[0]
 	bal, ok := meets(delta)
+	// Usually one step along the smooth balance's slope lands on the
+	// boundary: accept it when it meets and 1e-12 less does not.
+	{
+		h := 1e-7
+		slope := (f(delta+h) - f(delta-h)) / (2 * h)
+		if slope > 0 {
+			d := delta + (target.Float()-bal.Float())/slope + 1e-13
+			if b, m := meets(d); m {
+				if _, m2 := meets(d - 1e-12); !m2 {
+					a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(d), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: b}
+					return finishRate(s, a, pr, roots, full), nil
+				}
+			}
+		}
+	}
 	lo2, hi2 := delta, delta
-	for step := 1e-10; ; step *= 4 {
+	for step := 1e-9; ; step *= 8 {
 		if ok {
 			lo2 = hi2 - step
 			if _, m := meets(lo2); !m || step > 1 {
@@ -592,7 +635,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 	}
 	for range 60 {
-		if hi2-lo2 <= 1e-13 {
+		if hi2-lo2 <= 1e-12 {
 			break
 		}
 		mid := lo2 + (hi2-lo2)/2
@@ -605,14 +648,21 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	delta = hi2
 	bal, _ = meets(delta)
 	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: bal}
+	return finishRate(s, a, pr, roots, full), nil
+}
+
+// finishRate completes a rate answer: the other roots, and the proof at the
+// answer's rate.
+func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) *Answer {
 	for _, r := range roots[1:] {
 		a.Rates = append(a.Rates, money.ForceRate(r))
 	}
+	pr.rate = &a.Rate
 	s.prove(a, pr, full)
 	if len(a.Rates) > 0 {
 		a.Note = fmt.Sprintf("the cash flows change sign, so %d rates make the balance equal the target", len(roots))
 	}
-	return a, nil
+	return a
 }
 
 // annuityRoot returns the force of interest at which a goal that is one
