@@ -325,9 +325,10 @@ func (s *schedule) weights(js []float64) (win, wout []float64) {
 	nt := len(s.taus)
 	win, wout = make([]float64, len(js)*nt), make([]float64, len(js)*nt)
 	for k, j := range js {
+		l := math.Log1p(j)
 		for i, tau := range s.taus {
-			win[k*nt+i] = accrual(s.goal.Between, j, tau, false)
-			wout[k*nt+i] = accrual(s.goal.Between, j, tau, true)
+			win[k*nt+i] = accrual(s.goal.Between, j, l, tau, false)
+			wout[k*nt+i] = accrual(s.goal.Between, j, l, tau, true)
 		}
 	}
 	return win, wout
@@ -335,8 +336,8 @@ func (s *schedule) weights(js []float64) (win, wout []float64) {
 
 // accrual returns what one unit arriving (x > 0) or leaving (x < 0) with a
 // fraction tau of an interest period left earns by the period's credit at
-// periodic rate j, under rule b.
-func accrual(b Between, j, tau float64, out bool) float64 {
+// periodic rate j, whose log l = ln(1 + j) the caller knows, under rule b.
+func accrual(b Between, j, l, tau float64, out bool) float64 {
 	if tau == 1 {
 		return j
 	}
@@ -349,7 +350,7 @@ func accrual(b Between, j, tau float64, out bool) float64 {
 		}
 		return 0
 	}
-	return math.Expm1(tau * math.Log1p(j))
+	return math.Expm1(tau * l)
 }
 
 // params are the quantities a solver varies without recompiling.

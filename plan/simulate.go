@@ -714,7 +714,7 @@ func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, o 
 					bal[l] -= f
 					a := j[l]
 					if e.tau != 1 {
-						a = simAccrual(b, a, lj[l], e.tau, true)
+						a = accrual(b, a, lj[l], e.tau, true)
 					}
 					acc[l] -= f * a
 				}
@@ -750,7 +750,7 @@ func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, o 
 				bal[l] += x
 				a := j[l]
 				if e.tau != 1 {
-					a = simAccrual(b, a, lj[l], e.tau, x < 0)
+					a = accrual(b, a, lj[l], e.tau, x < 0)
 				}
 				acc[l] += x * a
 			}
@@ -784,7 +784,7 @@ func (pg *simProgram) value(w *simWorker, src int32, lane int) float64 {
 		case evFee:
 			f := bal * fee
 			bal -= f
-			acc -= f * simAccrual(b, js[k], ls[k], e.tau, true)
+			acc -= f * accrual(b, js[k], ls[k], e.tau, true)
 		case evMark:
 			if e.deadline {
 				at = bal
@@ -801,7 +801,7 @@ func (pg *simProgram) value(w *simWorker, src int32, lane int) float64 {
 				x = -math.Abs(x)
 			}
 			bal += x
-			acc += x * simAccrual(b, js[k], ls[k], e.tau, x < 0)
+			acc += x * accrual(b, js[k], ls[k], e.tau, x < 0)
 		}
 	}
 	return at
@@ -813,24 +813,6 @@ func roundUnit(x float64, halfUp bool) float64 {
 		return math.Round(x)
 	}
 	return math.RoundToEven(x)
-}
-
-// simAccrual is [accrual] at periodic rate j whose log l = ln(1 + j) is
-// known.
-func simAccrual(b Between, j, l, tau float64, out bool) float64 {
-	if tau == 1 {
-		return j
-	}
-	switch b {
-	case Simple:
-		return j * tau
-	case None:
-		if out {
-			return j
-		}
-		return 0
-	}
-	return math.Expm1(tau * l)
 }
 
 // parallel draws every path, simLanes at a time spread over GOMAXPROCS
