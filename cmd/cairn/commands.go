@@ -94,17 +94,9 @@ func solveCommand(e *env) *cli.Command {
 			&cli.BoolFlag{Name: "explain", Usage: "show the equation of value"},
 		),
 		Action: func(c *cli.Context) error {
-			p, err := readPlan(c, e)
+			p, g, q, err := planGoalQuantity(c, e)
 			if err != nil {
 				return err
-			}
-			g, err := goalOf(c, p)
-			if err != nil {
-				return err
-			}
-			q, err := plan.ParseQuantity(c.String("for"))
-			if err != nil {
-				return usagef("", "--for: %v", err)
 			}
 			if _, err := parseFormat(c); err != nil {
 				return err
@@ -122,6 +114,23 @@ func solveCommand(e *env) *cli.Command {
 			return out(c, e, solveDoc(p, a, c.Bool("explain")))
 		},
 	}
+}
+
+// planGoalQuantity reads the plan and the --goal and --for flags.
+func planGoalQuantity(c *cli.Context, e *env) (*plan.Plan, *plan.Goal, plan.Quantity, error) {
+	p, err := readPlan(c, e)
+	if err != nil {
+		return nil, nil, 0, err
+	}
+	g, err := goalOf(c, p)
+	if err != nil {
+		return nil, nil, 0, err
+	}
+	q, err := plan.ParseQuantity(c.String("for"))
+	if err != nil {
+		return nil, nil, 0, usagef("", "--for: %v", err)
+	}
+	return p, g, q, nil
 }
 
 // --- project
@@ -196,17 +205,9 @@ func compareCommand(e *env) *cli.Command {
 			&cli.StringFlag{Name: "stream", Usage: "the stream to change and solve for, by `NAME`"},
 		),
 		Action: func(c *cli.Context) error {
-			p, err := readPlan(c, e)
+			p, g, q, err := planGoalQuantity(c, e)
 			if err != nil {
 				return err
-			}
-			g, err := goalOf(c, p)
-			if err != nil {
-				return err
-			}
-			q, err := plan.ParseQuantity(c.String("for"))
-			if err != nil {
-				return usagef("", "--for: %v", err)
 			}
 			var axes []plan.Vary
 			for _, s := range c.StringSlice("vary") {
