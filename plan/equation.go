@@ -28,8 +28,9 @@ type Term struct {
 
 // An Equation of value states the balance at the end of month At as the sum
 // of every flow's value then. Sum equals Balance, the ledger's, within the
-// rounding of its postings (a cent or so a posting at most); where a
-// withdrawal could not be paid in full the terms overstate what went out.
+// rounding of its postings: half a cent at most a posting, each grown by
+// interest to At like any other money; where a withdrawal could not be paid
+// in full the terms overstate what went out.
 type Equation struct {
 	At      Month
 	Terms   []Term
@@ -98,8 +99,8 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		return true
 	}
 	for i, src := range s.sources {
-		if i > 0 && counts[i] == 0 {
-			continue
+		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
+			continue // no flow, no term
 		}
 		amt := pr.amounts[i]
 		if src.out {

@@ -326,7 +326,7 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 	g := &Goal{pos: d.pos(n)}
 	var nameSeen, rateSeen bool
-	var byNode *yaml.Node
+	var byNode, targetNode *yaml.Node
 	limit := p.Start.Add(HorizonYears*12 - 1)
 	checkMonth := func(v *yaml.Node, pth string, m Month) bool {
 		if m < p.Start {
@@ -376,6 +376,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 				}
 			}
 		case "target":
+			targetNode = v
 			var ok bool
 			g.Target, g.TargetToday, ok = d.amount(v, kp, true, false)
 			g.HasTarget = ok
@@ -432,7 +433,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		d.errorf(n, path, "%d streams, over the limit of %d a goal", len(g.Deposits)+len(g.Withdrawals), MaxStreams)
 	}
 	if g.TargetToday && !g.HasBy && byNode == nil {
-		d.errorf(n, join(path, "target"), "a target in today's money needs a deadline (want by: YYYY-MM)")
+		d.errorf(targetNode, join(path, "target"), "a target in today's money needs a deadline (want by: YYYY-MM)")
 	}
 	return g
 }
