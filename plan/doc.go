@@ -43,7 +43,10 @@
 // month on; each interest period uses the rate in force in the month it
 // begins. Each credit is rounded to the cent (the currency's minor unit)
 // with the file's rounding rule; so is each fee and each amount of a growing
-// stream. Fees ("fee: 0.25%", a year) are taken at each month end as a
+// stream. When compounding is more frequent than monthly (daily, weekly),
+// interest accrues unrounded at every compounding date, itself earning
+// interest, and is credited at each month end, as banks credit daily
+// interest and as Regulation DD's daily-rate examples assume. Fees ("fee: 0.25%", a year) are taken at each month end as a
 // twelfth of the rate times the balance then, after that month's interest.
 //
 // When compounding is more frequent than deposits, balances compound at
@@ -68,7 +71,9 @@
 //
 // # Ledger
 //
-// The [Ledger] is decimal and records every movement — opening balance,
+// The [Ledger] is exact: every balance and posting is a whole number of the
+// currency's minor unit, reported as a decimal [money.Amount]. It records
+// every movement — opening balance,
 // deposits, one-time amounts, withdrawals, interest, fees — with its tick,
 // month, amount and the balance after it. A withdrawal larger than the
 // balance takes what is there and records the shortfall; nothing goes
@@ -80,10 +85,12 @@
 // [Solve] answers a [Question] with an [Answer]: the answer, the ledger that
 // proves it, and the [Equation] of value — one [Term] per flow with its
 // value at the deadline and, where one chain of factors describes it, the
-// factors, e.g. 250.00 × (F/A, 0.1539%, 65). Searches run in float64 over
-// the same compiled schedule the ledger walks (one model, two number types);
-// every reported answer is then confirmed in decimal: a deposit solved for
-// meets the target and one cent less misses.
+// factors, e.g. 250.00 × (F/A, 0.1539%, 65). Searches walk the same
+// compiled schedule as the ledger, with the same exact arithmetic (the
+// ledger is the walk with its movements recorded), so an answer is what the
+// ledger shows: a deposit solved for meets the target and one cent less
+// misses. Only root finding for a rate uses the smooth, unrounded balance,
+// and the exact walk then settles the last cent.
 //
 // [Compare] solves one question over a grid of what-if overrides, and
 // [StatusOf] gives every goal at a glance.
