@@ -138,6 +138,18 @@ func (a Amount) Round(places int, r Rounding) Amount {
 	return Amount{a.d.RoundBank(int32(places))}
 }
 
+// RoundMinor rounds x, an amount counted in minor units (cents) and held in
+// a float64, to a whole number of them under rule r: the same rule as
+// [Amount.Round], for the engine's walk over whole minor units. Halfway
+// values go half away from zero for HalfUp and to the even neighbour for
+// HalfEven.
+func RoundMinor(x float64, r Rounding) float64 {
+	if r == HalfUp {
+		return math.Round(x)
+	}
+	return math.RoundToEven(x)
+}
+
 // RoundUp returns the smallest multiple of 10^−places that is ≥ a.
 func (a Amount) RoundUp(places int) Amount { return Amount{a.d.RoundCeil(int32(places))} }
 

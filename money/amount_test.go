@@ -478,3 +478,25 @@ func TestLookupCurrency(t *testing.T) {
 		})
 	}
 }
+
+// RoundMinor applies the same rule as Amount.Round: checked on every
+// halfway and near-halfway value of a range of cents (common practice, no
+// source: the definitions of the two rules).
+func TestRoundMinor_AgreesWithRound(t *testing.T) {
+	for _, rule := range []money.Rounding{money.HalfEven, money.HalfUp} {
+		for c := int64(-2000); c <= 2000; c++ {
+			for _, frac := range []int64{0, 1, 4, 5, 6, 9} { // tenths of a cent
+				milli := c*10 + frac
+				if c < 0 {
+					milli = c*10 - frac
+				}
+				a := money.Minor(milli, 3) // the amount in thousandths
+				want := a.Round(2, rule)
+				got := money.RoundMinor(float64(milli)/10, rule)
+				if money.Minor(int64(got), 2).Cmp(want) != 0 {
+					t.Fatalf("RoundMinor(%v, %v) = %v, Round gives %s", float64(milli)/10, rule, got, want)
+				}
+			}
+		}
+	}
+}

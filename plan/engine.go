@@ -468,16 +468,6 @@ func (s *schedule) runFloat(pr *params, o floatOpts) floatResult {
 	return res
 }
 
-// roundMinor rounds x (in minor units) to a whole unit: half away from zero
-// for half-up, half to even otherwise. Called directly, both compile to one
-// instruction.
-func roundMinor(x float64, halfUp bool) float64 {
-	if halfUp {
-		return math.Round(x)
-	}
-	return math.RoundToEven(x)
-}
-
 // walk is the ledger's arithmetic. It keeps every balance and posting as an
 // exact whole number of the currency's minor unit (cents for USD), a
 // fixed-point decimal in an int64; each interest credit, fee and growing
@@ -488,8 +478,8 @@ func roundMinor(x float64, halfUp bool) float64 {
 // ledger both walk here, so what a search finds is what the ledger shows.
 func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) floatResult {
 	scale := math.Pow(10, float64(s.places))
-	halfUp := s.rounding == money.HalfUp
-	round := func(x float64) float64 { return roundMinor(x, halfUp) }
+	rule := s.rounding
+	round := func(x float64) float64 { return money.RoundMinor(x, rule) }
 	win, wout := s.weights(js)
 	nt := int32(len(s.taus))
 	fee := s.goal.Fee / 12

@@ -430,7 +430,7 @@ type simProgram struct {
 	fee      float64
 	between  Between
 	scale    float64
-	halfUp   bool
+	rule     money.Rounding
 	rows     []Month
 	firstOut int32 // month index of the first flow out, −1 if none
 	lastOut  int32 // and of the last
@@ -445,7 +445,7 @@ type simProgram struct {
 func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 	p, g := s.plan, s.goal
 	pg := &simProgram{s: s, months: int(s.end-p.Start) + 1, fee: g.Fee / 12, between: g.Between,
-		scale: math.Pow(10, float64(s.places)), halfUp: s.rounding == money.HalfUp, firstOut: -1, deadline: -1}
+		scale: math.Pow(10, float64(s.places)), rule: s.rounding, firstOut: -1, deadline: -1}
 	pg.sr, pg.cr = st.vol/math.Sqrt(12), -st.vol*st.vol/24
 	pg.si, pg.ci = st.ivol/math.Sqrt(12), -st.ivol*st.ivol/24
 	pg.noInfl = st.ivol == 0
@@ -675,10 +675,10 @@ type pathOut struct {
 func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, o *[simLanes]pathOut) {
 	const L = simLanes
 	js, ls, es := w.j, w.l, w.e
-	halfUp, accrue := pg.halfUp, pg.s.accrue
+	rule, accrue := pg.rule, pg.s.accrue
 	b, fee := pg.between, pg.fee
 	var bal, base, acc, accrued [L]float64
-	open := roundUnit(amounts[0], halfUp)
+	open := money.RoundMinor(amounts[0], rule)
 	for l := range L {
 		bal[l], base[l], o[l].short = open, open, -1
 	}
@@ -696,13 +696,13 @@ func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, o 
 				continue
 			}
 			for l := range L {
-				in := roundUnit(base[l]*j[l]+acc[l], halfUp)
+				in := money.RoundMinor(base[l]*j[l]+acc[l], rule)
 				bal[l] += in
 				base[l], acc[l] = bal[l], 0
 			}
 		case evCredit:
 			for l := range L {
-				in := roundUnit(accrued[l], halfUp)
+				in := money.RoundMinor(accrued[l], rule)
 				bal[l] += in
 				accrued[l] -= in
 			}
@@ -710,7 +710,7 @@ func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, o 
 			j, lj := js[k:k+L:k+L], ls[k:k+L:k+L]
 			for l := range L {
 				if bal[l] > 0 {
-					f := roundUnit(bal[l]*fee, halfUp)
+					f := money.RoundMinor(bal[l]*fee, rule)
 					bal[l] -= f
 					a := j[l]
 					if e.tau != 1 {
@@ -737,7 +737,7 @@ func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, o 
 				if ia != 0 || ib != 0 {
 					x = x * es[ia+l] / es[ib+l]
 				}
-				x = roundUnit(x, halfUp)
+				x = money.RoundMinor(x, rule)
 				if e.out {
 					x = -math.Abs(x)
 					if -x > bal[l] {
@@ -807,14 +807,6 @@ func (pg *simProgram) value(w *simWorker, src int32, lane int) float64 {
 	return at
 }
 
-// roundUnit rounds x to a whole minor unit by the plan's rule.
-func roundUnit(x float64, halfUp bool) float64 {
-	if halfUp {
-		return math.Round(x)
-	}
-	return math.RoundToEven(x)
-}
-
 // parallel draws every path, simLanes at a time spread over GOMAXPROCS
 // workers, and calls fn with each group: paths[l] is lane l's path. A last
 // group with fewer paths repeats its last one. fn must write only to its
@@ -870,7 +862,7 @@ func (pg *simProgram) targetOf(w *simWorker, lane int) float64 {
 	if pg.targetIdx == 0 || pg.noInfl {
 		return pg.targetF
 	}
-	return roundUnit(pg.targetF*w.e[int(pg.targetIdx)*simLanes+lane], pg.halfUp)
+	return money.RoundMinor(pg.targetF*w.e[int(pg.targetIdx)*simLanes+lane], pg.rule)
 }
 
 // runAll simulates every path with the given source amounts.
