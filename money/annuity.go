@@ -10,20 +10,22 @@ import (
 var ErrNoRate = errors.New("no rate balances the cash flows")
 
 // AnnuityRate returns the rate i per period that solves the equation of
-// value of a uniform annuity,
+// value of a uniform annuity over n periods with an opening amount P at
+// t = 0, a level amount A each period and a final amount F at t = n:
 //
-//	fv + pv·(F/P,i,n) + pmt·(1 + i·w)·(F/A,i,n) = 0,
+//	F + P·(F/P,i,n) + A·(1 + i·w)·(F/A,i,n) = 0,
 //
-// with w = 1 for payments at the start of each period (an annuity due) and
-// 0 at the end. Signs follow the cash: money paid in is negative, money
-// received positive. The root is bracketed before it is refined (Newton's
+// with w = 1 for amounts at the start of each period (atStart, an annuity
+// due) and 0 at the end. Signs follow the cash: money paid in is negative,
+// money received positive. The root is bracketed before it is refined (Newton's
 // method, falling back to bisection whenever a step would leave the
 // bracket), so it is found wherever one exists with i from −99% to +100% a
 // period; when the cash flows change sign more than once and there are
 // several, the lowest is returned. It returns [ErrNoRate] when there is none.
-func AnnuityRate(n, pv, pmt, fv float64, begin bool) (float64, error) {
+func AnnuityRate(n, opening, level, final float64, atStart bool) (float64, error) {
+	pv, pmt, fv := opening, level, final
 	w := 0.0
-	if begin {
+	if atStart {
 		w = 1
 	}
 	f := func(i float64) (float64, float64) { // value and derivative

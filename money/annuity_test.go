@@ -11,7 +11,8 @@ import (
 )
 
 // Check values printed in the npm package financial 0.2.4's docs and tests
-// (check-values.md §5, VERIFIED from its source); same equation and signs.
+// (lmammino/financial, test/financial.test.ts at commit 27d1aae, and its
+// rate() docs); same equation and signs.
 func TestAnnuityRate_Published(t *testing.T) {
 	tests := []struct {
 		n, pv, pmt, fv float64

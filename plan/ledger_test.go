@@ -236,8 +236,7 @@ func TestProject_DallasFed(t *testing.T) {
 
 // TestProject_SavingsAnnuity is Lippman, Math in Society, "Savings
 // Annuities": $100 each month at 6% for 20 years → $46,204.09 (from
-// memory: the check-values notes saw it only re-typed; 100·(1.005^240 −
-// 1)/0.005 = 46,204.09 derived agrees). 240 interest postings each round by
+// memory; 100·(1.005^240 − 1)/0.005 = 46,204.09, derived, agrees). 240 interest postings each round by
 // half a cent at most, so the ledger is within 0.005·(F/A,0.5%,240) ≈ 2.31
 // of it (derived bound); in practice it lands within a few cents.
 func TestProject_SavingsAnnuity(t *testing.T) {

@@ -226,9 +226,9 @@ func TestPublished_FactorTables(t *testing.T) {
 	// (and Table_B.2_Future_Value_of_1.htm, Table_B.4_Future_Value_of_an_Annuity_of_1.htm;
 	// Wild_MA_8e/Table_B.3_Present_Value_of_an_Annuity_of_1.htm).
 	const mh = "McGraw-Hill, Wild, Appendix B, Tables B.1–B.4"
-	// Table B.3, 6%, n = 20, read from an OCR copy of the same table
-	// (re-post), https://solutioninn.com/study-help/questions/se-118000-1000-16-p1ao-1-i-li-8422323
-	const mhOCR = "McGraw-Hill, Wild, Table B.3 (OCR re-post)"
+	// Table B.3, 6%, n = 20: not in the excerpt of the table read; the
+	// value is derived from the formula, (1 − 1.06^−20)/0.06 = 11.46992.
+	const mhOCR = "derived from the P/A formula"
 	all := func(fp, pf, af, fa, ap, pa, pg, ag string) map[string]string {
 		return map[string]string{"F/P": fp, "P/F": pf, "A/F": af, "F/A": fa, "A/P": ap, "P/A": pa, "P/G": pg, "A/G": ag}
 	}
@@ -445,8 +445,8 @@ func TestPublished_DallasFed(t *testing.T) {
 }
 
 // Lippman, Math in Society (CC BY-SA), "Savings Annuities": $100 each month
-// at 6% for 20 years grows to $46,204.09 (from memory: seen only re-typed on
-// a homework site). The deposit that reaches it is 100.00 (the ledger's cent
+// at 6% for 20 years grows to $46,204.09 (from memory; derived from the
+// formula, 100·(1.005^240 − 1)/0.005 = 46,204.09, agrees). The deposit that reaches it is 100.00 (the ledger's cent
 // rounding moves the balance by cents, a cent of deposit by 4.62); the
 // growth of 1,000,000 a month, scaled, shows the same digits.
 func TestPublished_Lippman(t *testing.T) {

@@ -245,8 +245,8 @@ func TestSimulate_ZeroVolatilityIsTheLedger(t *testing.T) {
 	}
 }
 
-// Standard normal quantiles Φ⁻¹(p) at the reported levels: check-values.md
-// §6 gives them to 7 places (Φ⁻¹(0.05) = −1.6448536, Φ⁻¹(0.25) =
+// Standard normal quantiles Φ⁻¹(p) at the reported levels, to 7 places
+// from the standard normal table (common practice) (Φ⁻¹(0.05) = −1.6448536, Φ⁻¹(0.25) =
 // −0.6744898); the longer digits are from memory and agree with them.
 var normalQuantile = [5]float64{-1.6448536269514722, -0.6744897501960817, 0, 0.6744897501960817, 1.6448536269514722}
 
@@ -258,9 +258,8 @@ func (d lognormal) mean() float64          { return math.Exp(d.mu + d.s*d.s/2) }
 
 // quantileSE is the sampling error of the sample p-quantile of n draws:
 // sqrt(p(1−p)/n)/f(x_p), f the lognormal density, f(x) = φ(z)/(x·s) at
-// z = Φ⁻¹(p) (Stuart & Ord, Kendall's Advanced Theory of Statistics, 1994,
-// as cited in check-values.md §6; the density from the R Lognormal docs
-// cited there).
+// z = Φ⁻¹(p) (Stuart & Ord, Kendall's Advanced Theory of Statistics, 1994; the
+// density from the R stats Lognormal documentation).
 func (d lognormal) quantileSE(i, n int) float64 {
 	p := float64(SimLevels[i]) / 100
 	z := normalQuantile[i]
@@ -297,8 +296,8 @@ func checkLognormal(t *testing.T, what string, pcts Percentiles, xs []float64, d
 
 // TestSimulate_LumpSumClosedForm checks a single lump sum, whose terminal
 // wealth under the model is exactly lognormal: ln W_T ~ N(ln W0 +
-// T·ln(1 + r) − σ²T/2, σ²T) — geometric Brownian motion (check-values.md
-// §6: the GBM text and the R Lognormal docs it cites) with drift ln(1 + r),
+// T·ln(1 + r) − σ²T/2, σ²T) — geometric Brownian motion (log S_t/S_0 ~ N((u − v²/2)t, v²t),
+// the Geometric Brownian motion article, and the R stats Lognormal docs) with drift ln(1 + r),
 // so the mean grows by 1 + r a year and the median by (1 + r)·e^(−σ²/2).
 // The percentiles of 10,000 paths at a fixed seed must lie within 4 of the
 // sampling errors computed above, and so must the mean.
@@ -337,7 +336,7 @@ func TestSimulate_LumpSumClosedForm(t *testing.T) {
 			checkLognormal(t, "balance at "+by.String(), sim.AtDeadline, xs, d)
 		})
 	}
-	// The formula above against the DERIVED fixture of check-values.md §6
+	// The formula above against a fixture derived from the GBM formula
 	// (W0 = 100,000, μ = 0.07, σ = 0.15, T = 30): P5 150,849.86, P25
 	// 334,795.64, median 582,698.67, P75 1,014,164.16, P95 2,250,832.30,
 	// mean 816,616.99.
@@ -356,8 +355,8 @@ func TestSimulate_LumpSumClosedForm(t *testing.T) {
 // a closed form. A target in today's money is grown by each path's
 // inflation, lognormal with ln I_T ~ N(T·ln(1 + i) − σᵢ²T/2, σᵢ²T), so a
 // fixed balance B meets it with probability Φ((ln(B/target) + σᵢ²T/2) /
-// (σᵢ√T)) (the lognormal CDF, R distributional docs cited in
-// check-values.md §6); the share of 10,000 paths must lie within 4 binomial
+// (σᵢ√T)) (the lognormal CDF, R distributional package docs,
+// dist_lognormal); the share of 10,000 paths must lie within 4 binomial
 // sampling errors, sqrt(P(1−P)/N) (common practice, no source). An amount in
 // today's money and a stream growing with inflation are lognormal in the
 // same way.

@@ -227,7 +227,15 @@ func unreachableReason(p *Plan, g *Goal, ends []float64) string {
 	case len(g.Withdrawals) > 0 && peak < len(ends)-1:
 		pm := p.Start + Month(peak)
 		l, _ := Project(p, g, pm)
-		return fmt.Sprintf("withdrawals outpace growth: the balance peaks at %s in %s, short of the target, and falls after", l.BalanceAt(pm).Format(p.Currency, false), pm)
+		at := l.BalanceAt(pm).Format(p.Currency, false)
+		firstOut := horizonEnd(p)
+		for _, w := range g.Withdrawals {
+			firstOut = min(firstOut, w.From)
+		}
+		if !open && lastDeposit != 0 && pm >= lastDeposit && pm < firstOut {
+			return fmt.Sprintf("deposits stop in %s with the balance at %s, short of the target, and withdrawals from %s draw it down", lastDeposit, at, firstOut)
+		}
+		return fmt.Sprintf("withdrawals outpace growth: the balance peaks at %s in %s, short of the target, and falls after", at, pm)
 	case len(g.Deposits) > 0 && !open && netRate <= 0:
 		return fmt.Sprintf("deposits stop in %s and interest alone never reaches it (the rate after fees is %s a year)", lastDeposit, money.Percent(netRate, 4))
 	case len(g.Deposits) > 0 && !open:

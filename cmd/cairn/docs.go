@@ -581,6 +581,7 @@ func checkDoc(p *plan.Plan) *doc {
 		}
 		jg["streams"] = streams
 		goals = append(goals, jg)
+		d.drawdown = d.drawdown || hasDrawdown(g)
 		d.after = append(d.after, fmt.Sprintf("%s: between interest dates (%s), %s.", g.Name, g.Between, g.Between.Words()))
 	}
 	d.grids = []*grid{gg, sg}
