@@ -58,7 +58,10 @@ type env struct {
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer, now func() time.Time) int {
 	e := &env{stdin: stdin, stdout: stdout, stderr: stderr, now: now}
 	app := newApp(e)
-	err := app.Run(reorder(app, args))
+	args, err := reorder(app, args)
+	if err == nil {
+		err = app.Run(args)
+	}
 	return report(stderr, err)
 }
 
@@ -105,6 +108,25 @@ func report(w io.Writer, err error) int {
 	return exitBadInput
 }
 
+// flagMessage rewords the flag package's messages in cairn's terms:
+// "flag provided but not defined: -x" becomes "unknown option --x", and
+// `invalid value "v" for flag -x: parse error` becomes `--x: invalid value "v"`.
+func flagMessage(msg string) string {
+	if name, ok := strings.CutPrefix(msg, "flag provided but not defined: "); ok {
+		return "unknown option --" + strings.TrimLeft(name, "-")
+	}
+	if rest, ok := strings.CutPrefix(msg, "invalid value "); ok {
+		if v, name, ok := strings.Cut(rest, " for flag "); ok {
+			name, _, _ = strings.Cut(name, ":")
+			return "--" + strings.TrimLeft(name, "-") + ": invalid value " + v
+		}
+	}
+	if name, ok := strings.CutPrefix(msg, "flag needs an argument: "); ok {
+		return "--" + strings.TrimLeft(name, "-") + " needs a value"
+	}
+	return lowerFirst(msg)
+}
+
 func plural(n int, one, many string) string {
 	if n == 1 {
 		return one
@@ -138,7 +160,7 @@ func newApp(e *env) *cli.App {
 			if errors.Is(err, flag.ErrHelp) {
 				return err
 			}
-			return usagef("run `cairn --help` for usage", "%s", lowerFirst(err.Error()))
+			return usagef("run `cairn --help` for usage", "%s", flagMessage(err.Error()))
 		},
 		CommandNotFound: func(c *cli.Context, name string) {},
 		// our own help command (for `cairn help file`) stops urfave/cli from
@@ -173,9 +195,9 @@ func newApp(e *env) *cli.App {
 // reorder moves each command's flags before its positional arguments, since
 // urfave/cli stops reading flags at the first positional one and people
 // type `cairn solve household.yaml --goal Retirement`.
-func reorder(app *cli.App, args []string) []string {
+func reorder(app *cli.App, args []string) ([]string, error) {
 	if len(args) < 2 {
-		return args
+		return args, nil
 	}
 	var cmd *cli.Command
 	ci := -1
@@ -187,7 +209,7 @@ func reorder(app *cli.App, args []string) []string {
 		break
 	}
 	if cmd == nil {
-		return args
+		return args, nil
 	}
 	takesValue := map[string]bool{}
 	for _, f := range cmd.Flags {
@@ -198,6 +220,7 @@ func reorder(app *cli.App, args []string) []string {
 	}
 	flags := []string{}
 	var pos []string
+	missing := ""
 	rest := args[ci+1:]
 	for i := 0; i < len(rest); i++ {
 		a := rest[i]
@@ -214,10 +237,17 @@ func reorder(app *cli.App, args []string) []string {
 		if strings.Contains(name, "=") {
 			continue
 		}
-		if takesValue[name] && i+1 < len(rest) {
+		if takesValue[name] {
+			if i+1 == len(rest) {
+				missing = a
+				continue
+			}
 			flags = append(flags, rest[i+1])
 			i++
 		}
+	}
+	if missing != "" {
+		return nil, usagef("run `cairn "+cmd.Name+" --help` for usage", "--%s needs a value", strings.TrimLeft(missing, "-"))
 	}
 	out := append([]string{}, args[:ci+1]...)
 	out = append(out, flags...)
@@ -225,7 +255,7 @@ func reorder(app *cli.App, args []string) []string {
 		out = append(out, "--")
 		out = append(out, pos...)
 	}
-	return out
+	return out, nil
 }
 
 // negativeNumber reports whether a looks like a negative number ("-1.5%"),

@@ -565,7 +565,7 @@ func TestReport_Writes(t *testing.T) {
 		{"empty out", []string{"--out", ""}, 2, "--out needs a file name"},
 		{"bad as-of", []string{"--as-of", "2026-13", "--out", "-"}, 2, "--as-of"},
 		{"two files", []string{hh, "--out", "-"}, 2, "too many arguments"},
-		{"bad flag", []string{"--format", "json"}, 2, "flag provided but not defined"},
+		{"bad flag", []string{"--format", "json"}, 2, "unknown option --format"},
 		{"one goal to stdout", []string{"--goal", "education", "--out", "-"}, 0, ""},
 	}
 	for _, tt := range tests {
