@@ -22,8 +22,6 @@ type Term struct {
 	// amounts, or money between interest dates under a simple or none rule).
 	Factors []money.Factor
 	Value   money.Amount // at the end of month At, signed
-
-	stream *Stream
 }
 
 // An Equation of value states the balance at the end of month At as the sum
@@ -119,7 +117,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 			}
 		}
 		v := s.runFloat(prv, floatOpts{only: int32(i)}).closing
-		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding), stream: src.stream}
+		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding)}
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"
 		}
@@ -160,18 +158,4 @@ func (t Term) Product() float64 {
 		v *= f.Value()
 	}
 	return v
-}
-
-// amountOf returns the first amount of stream st's term, as a positive
-// amount; def when the stream has no term.
-func (eq *Equation) amountOf(st *Stream, def money.Amount) money.Amount {
-	if st == nil {
-		return def
-	}
-	for _, t := range eq.Terms {
-		if t.stream == st {
-			return t.Amount.Abs()
-		}
-	}
-	return def
 }

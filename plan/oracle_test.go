@@ -185,8 +185,7 @@ type oracleResult struct {
 	relTol     float64
 	fail       string
 	note       string // a count this case contributes to, by name
-	postings   int
-	centLimits bool // the tolerance is set by the cents, not the library
+	centLimits bool   // the tolerance is set by the cents, not the library
 }
 
 // oracleRun runs check over the cases of function fn on every CPU and
