@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 )
 
 // A Plan is a household's goals as read from one goals file.
@@ -19,6 +20,8 @@ type Plan struct {
 	// [Simulate], as a fraction; HasInflationVolatility says the file gave it.
 	InflationVolatility    float64
 	HasInflationVolatility bool
+
+	cache *engine.Cache // schedules by shape, when a caller set one (see withCache)
 }
 
 // Goal returns the goal with the given name (case-insensitive), or nil.

@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 )
 
 // A Quantity is what a solver solves for.
@@ -172,26 +173,27 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// compiled to a nearer end is the prefix of a longer one.
 	var s *schedule
 	var pr *params
-	var r floatResult
+	var r engine.Result
+	o := engine.Options{Reach: func(m int32, bal float64) bool { return reach(p.Start+Month(m), bal) }}
 	for _, years := range []int{40, 80, HorizonYears} {
 		h := min(max(p.Start.Add(years*12-1), Horizon(p, g)), end)
 		s = compile(p, g, h)
 		pr = s.defaultParams()
-		if r = s.runFloat(pr, floatOpts{only: -1, reach: reach}); r.reached != 0 || h == end {
+		if r = s.exact(pr, o); r.Reached || h == end {
 			break
 		}
 	}
-	found := r.reached
-	if found == 0 {
+	if !r.Reached {
 		ends := make([]float64, end-p.Start+1)
-		s.runFloat(pr, floatOpts{only: -1, monthEnds: ends})
+		s.exact(pr, engine.Options{MonthEnds: ends})
 		return nil, noSolution(g, "%s", unreachableReason(p, g, ends))
 	}
+	found := p.Start + Month(r.ReachMonth)
 	a := &Answer{Goal: g, For: ForTime, Month: found, Months: int(found-p.Start) + 1, Periods: math.NaN()}
 	a.Periods, a.Freq = closedFormPeriods(p, g)
 	a.Deadline = found
 	a.Target = targetAtMonth(p, g, found)
-	a.Balance = money.Minor(int64(math.Round(r.closing*scale)), p.Currency.Places)
+	a.Balance = money.Minor(int64(r.Closing), p.Currency.Places)
 	if full {
 		s2 := compile(p, g, found)
 		pr2 := s2.defaultParams()
@@ -374,14 +376,14 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	meets := func(c int64) bool { // meets the target with every withdrawal paid
 		set(c)
 		bal, r := s.closing(pr)
-		return r.shortTick < 0 && bal.Cmp(target) >= 0
+		return !r.Short && bal.Cmp(target) >= 0
 	}
 	// linear guess from the value of one unit
 	pr1 := s.defaultParams()
 	pr1.amountsF[idx] = 1
-	per := s.runFloat(pr1, floatOpts{only: idx}).closing
+	per := s.smooth(pr1, true, idx)
 	set(0)
-	b0 := s.runFloat(pr, floatOpts{only: -1}).closing
+	b0 := s.exact(pr, engine.Options{}).Closing / s.scale()
 	if per <= 0 {
 		what := "the stream has no deposits on or before the deadline"
 		if start {
@@ -423,8 +425,8 @@ func (s *schedule) setter(pr *params, idx int32) func(c int64) {
 // firstAmount is source idx's first amount under pr, in money of its date.
 func (s *schedule) firstAmount(pr *params, idx int32) money.Amount {
 	for _, e := range s.events {
-		if e.src == idx {
-			return pr.amounts[idx].MulFloat(e.unit).Round(s.places, s.rounding).Abs()
+		if flowOf(&e, idx) {
+			return pr.amounts[idx].MulFloat(e.Unit).Round(s.places, s.rounding).Abs()
 		}
 	}
 	return pr.amounts[idx].Abs()
@@ -458,14 +460,14 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	ok := func(c int64) bool { // every withdrawal paid, and leave left
 		set(c)
 		bal, r := s.closing(pr)
-		return r.shortTick < 0 && bal.Cmp(g.Leave) >= 0
+		return !r.Short && bal.Cmp(g.Leave) >= 0
 	}
 	// linear guess
 	pr1 := s.defaultParams()
 	pr1.amountsF[idx] = 1
-	per := -s.runFloat(pr1, floatOpts{only: idx}).closing
+	per := -s.smooth(pr1, true, idx)
 	set(0)
-	b0 := s.runFloat(pr, floatOpts{only: -1}).closing
+	b0 := s.exact(pr, engine.Options{}).Closing / s.scale()
 	if per <= 0 {
 		// no amount of the stream falls by its end: any amount "lasts", and
 		// the search below would run to the limit
@@ -495,8 +497,8 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 	pr := s.defaultParams()
 	bal, r := s.closing(pr)
 	a := &Answer{Goal: g, For: ForLasts, Periods: math.NaN()}
-	if r.shortTick >= 0 {
-		m := r.shortMonth
+	if r.Short {
+		m := p.Start + Month(r.ShortMonth)
 		a.Month, a.Months, a.Deadline = m, int(m-p.Start)+1, m
 		s2 := compile(p, g, m)
 		pr2 := s2.defaultParams()
@@ -535,7 +537,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	f := func(delta float64) float64 {
 		r := money.ForceRate(delta)
 		pr.rate = &r
-		return s.runFloat(pr, floatOpts{only: allSources}).closing - target.Float()
+		return s.smooth(pr, false, 0) - target.Float()
 	}
 	lo, hi := math.Log1p(minSolveRate), math.Log1p(maxSolveRate)
 	// With money only coming in, the balance rises with the rate and there
@@ -690,8 +692,8 @@ func (s *schedule) annuityRoot(target money.Amount) (delta float64, ok bool) {
 	P := TicksPerYear / int64(st.Every.PerYear())
 	count, last := 0, int64(0)
 	for _, e := range s.events {
-		if e.src == 1 {
-			count, last = count+1, e.tick
+		if flowOf(&e, 1) {
+			count, last = count+1, e.Tick
 		}
 	}
 	if st.Timing == Begin {

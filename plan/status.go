@@ -127,11 +127,11 @@ func Describe(p *Plan, g *Goal) GoalView {
 		sv := StreamView{Stream: st, PerYear: st.Every.PerYear(), RatePerPeriod: g.Rates[0].Rate.PerPeriod(st.Every)}
 		idx := s.sourceIndex(st)
 		for _, e := range s.events {
-			if e.src == idx {
+			if flowOf(&e, idx) {
 				if sv.Count == 0 {
-					sv.First = e.month
+					sv.First = p.Start + Month(e.Month)
 				}
-				sv.Last = e.month
+				sv.Last = p.Start + Month(e.Month)
 				sv.Count++
 			}
 		}

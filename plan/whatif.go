@@ -2,14 +2,12 @@ package plan
 
 import (
 	"fmt"
-	"runtime"
 	"strings"
-	"sync"
-	"sync/atomic"
 
 	"gopkg.in/yaml.v3"
 
 	"cairn/money"
+	"cairn/plan/internal/par"
 )
 
 // An Override is one what-if change, KEY=VALUE, applied to a goal. Values
@@ -233,33 +231,27 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 	errs := make([]error, total)
 	// Cells are independent: solve them on every core, each worker taking
 	// the next cell; the grid's order does not depend on the schedule.
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), total) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for c := int(next.Add(1) - 1); c < total; c = int(next.Add(1) - 1) {
-				rem := c
-				cell := Cell{Values: make([]string, len(axes))}
-				ovs := make([]Override, len(axes))
-				for i := len(axes) - 1; i >= 0; i-- {
-					v := axes[i].Values[rem%len(axes[i].Values)]
-					rem /= len(axes[i].Values)
-					cell.Values[i] = v
-					ovs[i] = Override{Key: axes[i].Key, Value: v}
-				}
-				q2, g2, err := p.With(goal, stream, ovs)
-				if err != nil {
-					errs[c] = err
-					continue
-				}
-				cell.Answer, cell.Err = solve(q2, g2, q, false)
-				gr.Cells[c] = cell
-			}
-		}()
-	}
-	wg.Wait()
+	// Every cell's plan is cloned from cached, so the cells share one
+	// schedule cache: a cell whose shape another cell compiled reuses it.
+	cached := p.withCache()
+	par.Each(total, func(c int) {
+		rem := c
+		cell := Cell{Values: make([]string, len(axes))}
+		ovs := make([]Override, len(axes))
+		for i := len(axes) - 1; i >= 0; i-- {
+			v := axes[i].Values[rem%len(axes[i].Values)]
+			rem /= len(axes[i].Values)
+			cell.Values[i] = v
+			ovs[i] = Override{Key: axes[i].Key, Value: v}
+		}
+		q2, g2, err := cached.With(goal, stream, ovs)
+		if err != nil {
+			errs[c] = err
+			return
+		}
+		cell.Answer, cell.Err = solve(q2, g2, q, false)
+		gr.Cells[c] = cell
+	})
 	for _, err := range errs {
 		if err != nil {
 			return nil, err

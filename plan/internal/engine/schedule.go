@@ -1,0 +1,267 @@
+// Package engine is cairn's model of an account on a time grid: a goal,
+// lowered by package plan to a [Shape], is compiled into a [Schedule] of
+// events, and [Walk] — the one walk — advances a schedule through them.
+//
+// The schedule holds only what the events depend on (timing, frequencies,
+// growth); what a solver varies — amounts, rate values, the fee's size, the
+// between rule, the rounding rule — is an [Inputs] given to each walk, so a
+// schedule is shared by every walk of one shape (see [Cache]).
+package engine
+
+import (
+	"cmp"
+	"math"
+	"slices"
+)
+
+// TicksPerYear is the number of ticks in a year of the time grid: the least
+// common multiple of every frequency's count a year (365, 52, 26, 24, 12, 6,
+// 4, 2, 1), so that every event of every frequency sits exactly on a tick.
+const TicksPerYear = 113880
+
+// TicksPerMonth is the number of ticks in a month (a twelfth of a year).
+const TicksPerMonth = TicksPerYear / 12
+
+// A Kind is the kind of an event. The kinds are a closed set; at one tick
+// they happen in this order.
+type Kind uint8
+
+const (
+	Interest  Kind = iota // interest for the period ending
+	Credit                // month end: accrued interest of a more-than-monthly compounding is credited
+	Fee                   // the month's fee
+	FlowEnd               // an amount at the end of its period
+	Mark                  // the month end
+	FlowBegin             // an amount at the start of its period
+)
+
+// An Event is one thing that happens to the balance, on the tick grid.
+type Event struct {
+	Tick   int64
+	Kind   Kind
+	Src    int32   // flows: the source (see [Shape]); others: 0
+	Step   int32   // the rate step in force for the interest period the event is in
+	Period int32   // that period's index (interest: the period ending)
+	Ti     int32   // flows and fees: index of Tau among the schedule's distinct values
+	Tau    float64 // flows and fees: fraction of the interest period left until its credit
+	Unit   float64 // flows: amount per unit of the source's amount (growth, indexing)
+	Month  int32   // the month the event is shown in, counted from the start (0)
+	// Flows in money indexed to inflation: the amount is multiplied by the
+	// inflation index at the start of month IA over that at month IB, both
+	// 1 at fixed inflation. A random-inflation walk reads them.
+	IA, IB int32
+}
+
+// A Shape is what a schedule's events depend on, and nothing else: package
+// plan lowers a goal to it. Months count from the plan's start (month 0).
+// The key of a [Cache] is derived from it field by field, so a field added
+// here is in the key.
+type Shape struct {
+	Months   int32   // months through the end, inclusive of the last
+	PerYear  int     // interest periods a year (compounding)
+	StepFrom []int32 // the month each rate step begins
+	Fee      bool    // a monthly fee is taken
+	Streams  []StreamShape
+	Once     []int32 // the month (at its end) of each one-time amount
+}
+
+// A StreamShape is the timing and growth of one stream of amounts.
+type StreamShape struct {
+	PerYear  int
+	Begin    bool  // at the start of each period (else at the end)
+	From     int32 // first month with a period
+	Until    int32 // last month with an amount, when HasUntil
+	HasUntil bool
+	First    float64 // multiplier of the amounts of the first year (money indexed to today)
+	Grow     float64 // yearly growth of the amount
+	// Today and GrowInflation say the amount follows inflation: a walk
+	// with random inflation indexes it (Event.IA, Event.IB).
+	Today, GrowInflation bool
+}
+
+// A Schedule is a shape compiled onto the tick grid: its events in order.
+// It is never changed after [Compile] returns it.
+type Schedule struct {
+	months   int32
+	endTick  int64
+	period   int64 // ticks per interest period
+	accrue   bool  // interest accrues at each compounding and is credited at month ends
+	stepFrom []int32
+	events   []Event
+	taus     []float64
+	sources  int
+}
+
+// Events returns the schedule's events in order; the caller must not change
+// them.
+func (s *Schedule) Events() []Event { return s.events }
+
+// PeriodTicks returns the length of an interest period in ticks.
+func (s *Schedule) PeriodTicks() int64 { return s.period }
+
+// EndTick returns the tick at the end of the last month.
+func (s *Schedule) EndTick() int64 { return s.endTick }
+
+// Months returns the number of months the schedule covers.
+func (s *Schedule) Months() int32 { return s.months }
+
+// Periods returns the number of interest periods: every credited one and
+// the one left open at the end.
+func (s *Schedule) Periods() int { return int(s.endTick/s.period) + 1 }
+
+// Sources returns the number of sources: the opening balance, each stream,
+// each one-time amount.
+func (s *Schedule) Sources() int { return s.sources }
+
+// StepAt returns the rate step in force at tick: the one of its month.
+func (s *Schedule) StepAt(tick int64) int32 {
+	m := int32(tick / TicksPerMonth)
+	k := 0
+	for i, from := range s.stepFrom {
+		if from <= m {
+			k = i
+		}
+	}
+	return int32(k)
+}
+
+func labelEnd(t int64) int32 {
+	if t <= 0 {
+		return 0
+	}
+	return int32((t - 1) / TicksPerMonth)
+}
+
+func labelBegin(t int64) int32 { return int32(t / TicksPerMonth) }
+
+// Compile lays shape sh on the tick grid.
+func Compile(sh *Shape) *Schedule {
+	end := sh.Months - 1
+	s := &Schedule{months: sh.Months, stepFrom: slices.Clone(sh.StepFrom)}
+	s.endTick = int64(sh.Months) * TicksPerMonth
+	s.period = TicksPerYear / int64(sh.PerYear)
+	s.accrue = sh.PerYear > 12
+	s.sources = 1 + len(sh.Streams) + len(sh.Once)
+	// Each kind of event is laid down in tick order as a run of its own;
+	// the runs are then merged, which is cheaper than sorting the whole.
+	n := s.endTick / s.period
+	ev := make([]Event, 0, n)
+	for k := int64(1); k <= n; k++ {
+		t := k * s.period
+		ev = append(ev, Event{Tick: t, Kind: Interest, Step: s.StepAt(t - s.period), Period: int32(k - 1), Month: labelEnd(t)})
+	}
+	runs := [][]Event{ev}
+	ev = make([]Event, 0, int64(sh.Months)*3)
+	for m := int32(0); m <= end; m++ { // month ends: credit, fee and mark
+		t := int64(m+1) * TicksPerMonth
+		if s.accrue {
+			ev = append(ev, Event{Tick: t, Kind: Credit, Month: m})
+		}
+		if sh.Fee {
+			ev = append(ev, Event{Tick: t, Kind: Fee, Month: m})
+		}
+		ev = append(ev, Event{Tick: t, Kind: Mark, Month: m})
+	}
+	runs = append(runs, ev)
+	for k, st := range sh.Streams {
+		src := int32(1 + k)
+		P := TicksPerYear / int64(st.PerYear)
+		from := int64(st.From) * TicksPerMonth
+		lg := math.Log1p(st.Grow)
+		ev = make([]Event, 0, max(s.endTick-from, 0)/P+2)
+		for k := int64(0); ; k++ {
+			ps := from + k*P
+			t, kd, label := ps, FlowBegin, labelBegin(ps)
+			if !st.Begin {
+				t, kd, label = ps+P, FlowEnd, labelEnd(ps+P)
+			}
+			if label > end || (st.HasUntil && label > st.Until) || t > s.endTick || (kd == FlowBegin && t >= s.endTick) {
+				break
+			}
+			year := (ps - from) / TicksPerYear
+			u := st.First
+			if year > 0 && st.Grow != 0 {
+				u = st.First * math.Exp(float64(year)*lg)
+			}
+			e := Event{Tick: t, Kind: kd, Src: src, Unit: u, Month: label}
+			anniv := st.From + 12*int32(year)
+			switch {
+			case st.GrowInflation && st.Today:
+				e.IA = anniv
+			case st.GrowInflation:
+				e.IA, e.IB = anniv, st.From
+			case st.Today:
+				e.IA = st.From
+			}
+			ev = append(ev, e)
+		}
+		runs = append(runs, ev)
+	}
+	// Every one-time amount is a source, even one after the end, so that
+	// source indexes are the same whatever the horizon compiled.
+	ev = nil
+	for k, on := range sh.Once {
+		if on > end {
+			continue
+		}
+		src := int32(1 + len(sh.Streams) + k)
+		ev = append(ev, Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: src, Unit: 1, Month: on})
+	}
+	slices.SortFunc(ev, eventOrder) // one-time amounts may be written in any order
+	runs = append(runs, ev)
+	ev = mergeRuns(runs)
+	// fraction of the interest period left, and the step of that period
+	tauIndex := map[float64]int32{}
+	for i := range ev {
+		e := &ev[i]
+		if e.Kind == Interest || e.Kind == Credit || e.Kind == Mark {
+			continue
+		}
+		next := (e.Tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
+		e.Tau = float64(next-e.Tick) / float64(s.period)
+		k, ok := tauIndex[e.Tau]
+		if !ok {
+			k = int32(len(s.taus))
+			tauIndex[e.Tau] = k
+			s.taus = append(s.taus, e.Tau)
+		}
+		e.Ti = k
+		e.Period = int32(e.Tick / s.period)
+		e.Step = s.StepAt(next - s.period)
+	}
+	s.events = ev
+	return s
+}
+
+// eventOrder orders events by tick, then kind, then source; the three
+// together are unique to an event, so the order is total.
+func eventOrder(a, b Event) int {
+	if c := cmp.Compare(a.Tick, b.Tick); c != 0 {
+		return c
+	}
+	if c := cmp.Compare(a.Kind, b.Kind); c != 0 {
+		return c
+	}
+	return cmp.Compare(a.Src, b.Src)
+}
+
+// mergeRuns merges runs, each already in event order, into one.
+func mergeRuns(runs [][]Event) []Event {
+	total := 0
+	for _, r := range runs {
+		total += len(r)
+	}
+	out := make([]Event, 0, total)
+	idx := make([]int, len(runs))
+	for len(out) < total {
+		best := -1
+		for k, r := range runs {
+			if idx[k] < len(r) && (best < 0 || eventOrder(r[idx[k]], runs[best][idx[best]]) < 0) {
+				best = k
+			}
+		}
+		out = append(out, runs[best][idx[best]])
+		idx[best]++
+	}
+	return out
+}
