@@ -116,7 +116,7 @@ func (s *schedule) ledger(pr *params) *Ledger {
 	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, places: s.places, sources: s.sources}
 	l.Opening = pr.amounts[0].Round(s.places, s.rounding)
 	l.log.MonthEnd = make([]int64, s.end-p.Start+1)
-	l.log.Posts = make([]engine.Post, 0, len(s.events))
+	l.log.Posts = make([]engine.Post, 0, s.eng.MaxPosts())
 	r := s.exact(pr, engine.Options{Log: &l.log})
 	if r.Short {
 		l.short = p.Start + Month(r.ShortMonth)

@@ -41,7 +41,7 @@ type schedule struct {
 	goal     *Goal
 	end      Month // last month, inclusive
 	eng      *engine.Schedule
-	events   []engine.Event
+	events   []engine.Event // in order (engine.Schedule.Events)
 	endTick  int64
 	period   int64           // ticks per compounding period
 	comp     money.Frequency // compounding frequency
@@ -83,8 +83,8 @@ func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
 }
 
 // compile returns the schedule of goal g through the end of month end,
-// from the plan's schedule cache when its caller gave it one (see
-// [Plan.withCache]), else compiled afresh.
+// from the plan's schedule cache (see [Plan.checkBounds]), or compiled
+// afresh for a plan without one.
 func compile(p *Plan, g *Goal, end Month) *schedule {
 	sh := shapeOf(p, g, end)
 	es := p.cache.Compile(&sh)
@@ -164,9 +164,7 @@ func (s *schedule) scale() float64 { return math.Pow(10, float64(s.places)) }
 func (s *schedule) exact(pr *params, o engine.Options) engine.Result {
 	in := s.inputs(pr)
 	o.Mode = engine.Exact
-	var r [1]engine.Result
-	engine.Walk[[1]float64](s.eng, &in, &o, r[:])
-	return r[0]
+	return engine.Walk(s.eng, &in, &o)
 }
 
 // smooth returns the closing balance of s under pr, unrounded and
@@ -175,9 +173,7 @@ func (s *schedule) exact(pr *params, o engine.Options) engine.Result {
 func (s *schedule) smooth(pr *params, one bool, src int32) float64 {
 	in := s.inputs(pr)
 	o := engine.Options{Mode: engine.Smooth, One: one, Source: src}
-	var r [1]engine.Result
-	engine.Walk[[1]float64](s.eng, &in, &o, r[:])
-	return r[0].Closing
+	return engine.Walk(s.eng, &in, &o).Closing
 }
 
 // closing returns the exact closing balance of s under pr, without a ledger.
@@ -188,7 +184,13 @@ func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 
 // checkBounds reports an error if goal g's target or projected balance
 // would pass [MaxBalanceUnits], beyond which cairn does not promise cents.
+// It runs on every plan read (Parse) and every what-if (With) before the
+// plan is handed out, so it is where a plan gets its schedule cache: the
+// plan owns it, and its clones share it.
 func (p *Plan) checkBounds(g *Goal) error {
+	if p.cache == nil {
+		p.cache = new(engine.Cache)
+	}
 	limit := money.Units(MaxBalanceUnits)
 	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {
 		return fmt.Errorf("goal %s: the target grown to the deadline passes the limit of %s", money.Quote(g.Name), limit.Format(p.Currency, false))
@@ -199,15 +201,6 @@ func (p *Plan) checkBounds(g *Goal) error {
 		return fmt.Errorf("goal %s: the projected balance passes the limit of %s; check its amounts and rates", money.Quote(g.Name), limit.Format(p.Currency, false))
 	}
 	return nil
-}
-
-// withCache returns a shallow copy of p that carries a schedule cache of
-// its own, for a caller that compiles the same shapes many times (a what-if
-// grid, the household status): every plan cloned from the copy shares it.
-func (p *Plan) withCache() *Plan {
-	q := *p
-	q.cache = new(engine.Cache)
-	return &q
 }
 
 // flowOf reports whether e is an amount of source src.

@@ -21,7 +21,7 @@ type Plan struct {
 	InflationVolatility    float64
 	HasInflationVolatility bool
 
-	cache *engine.Cache // schedules by shape, when a caller set one (see withCache)
+	cache *engine.Cache // its schedules by shape (see checkBounds); nil: none kept
 }
 
 // Goal returns the goal with the given name (case-insensitive), or nil.

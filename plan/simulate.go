@@ -477,32 +477,34 @@ func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 	return pg
 }
 
-// simLanes is how many paths one walk advances together.
-const simLanes = engine.PathLanes
+// simLanes is how many paths a worker draws before it walks them: a group
+// whose walks share the schedule while it is in cache.
+const simLanes = 4
 
 // A simWorker holds one goroutine's generators and buffers for simLanes
-// paths; nothing in it grows with the number of paths. Per-period and
-// per-month values are interleaved by lane: lane l of period k is at
-// k·simLanes + l.
+// paths; nothing in it grows with the number of paths. Lane l holds one
+// path's draws.
 type simWorker struct {
 	srcR, srcI rand.ChaCha8
 	rngR, rngI *rand.Rand
-	n          []float64 // each month's log-return noise, for the lane being drawn
-	j, l       []float64 // each period's realised rate and its log
-	e          []float64 // inflation noise factor at the start of each month
-	paths      engine.Paths
+	n          []float64              // each month's log-return noise, for the lane being drawn
+	j, l       [simLanes][]float64    // each period's realised rate and its log
+	e          [simLanes][]float64    // inflation noise factor at the start of each month
+	paths      [simLanes]engine.Paths // the lanes' draws, as the walk reads them
 }
 
 func (pg *simProgram) newWorker() *simWorker {
-	w := &simWorker{n: make([]float64, pg.months), j: make([]float64, pg.periods*simLanes),
-		l: make([]float64, pg.periods*simLanes), e: make([]float64, (pg.months+1)*simLanes)}
+	w := &simWorker{n: make([]float64, pg.months)}
 	w.rngR, w.rngI = rand.New(&w.srcR), rand.New(&w.srcI)
-	w.paths = engine.Paths{J: w.j, L: w.l}
-	if !pg.noInfl {
-		w.paths.Infl = w.e
-	}
-	for i := range w.e {
-		w.e[i] = 1 // no inflation noise unless draw sets it
+	for l := range simLanes {
+		w.j[l], w.l[l], w.e[l] = make([]float64, pg.periods), make([]float64, pg.periods), make([]float64, pg.months+1)
+		for i := range w.e[l] {
+			w.e[l][i] = 1 // no inflation noise unless draw sets it
+		}
+		w.paths[l] = engine.Paths{J: w.j[l], L: w.l[l]}
+		if !pg.noInfl {
+			w.paths[l].Infl = w.e[l]
+		}
 	}
 	return w
 }
@@ -541,8 +543,8 @@ func (pg *simProgram) draw(w *simWorker, seed uint64, path, lane int) {
 			gr = expm1(noise)
 		}
 		j := pg.jdet[k]
-		w.j[k*simLanes+lane] = j + (1+j)*gr
-		w.l[k*simLanes+lane] = pg.ldet[k] + noise
+		w.j[lane][k] = j + (1+j)*gr
+		w.l[lane][k] = pg.ldet[k] + noise
 	}
 	if pg.noInfl {
 		return
@@ -551,7 +553,7 @@ func (pg *simProgram) draw(w *simWorker, seed uint64, path, lane int) {
 	x := 0.0
 	for m := 0; m < pg.months; m++ {
 		x += pg.si*w.rngI.NormFloat64() + pg.ci
-		w.e[(m+1)*simLanes+lane] = 1 + expm1(x)
+		w.e[lane][m+1] = 1 + expm1(x)
 	}
 }
 
@@ -587,15 +589,18 @@ func expm1(x float64) float64 {
 	return x + float64(x2*q)
 }
 
-// walk runs simLanes paths, paths[l] on lane l, with source amounts
-// amounts at the realised rates drawn into w: the engine's exact walk, as
-// the ledger's, with each interest period's own rate per path. rows, when
-// not nil, receives the balance at each recorded month: rows[m][path].
+// walk runs the paths drawn into w, paths[l] on lane l, with source
+// amounts amounts: the engine's exact walk, as the ledger's, with each
+// interest period's own rate. rows, when not nil, receives the balance at
+// each recorded month: rows[m][path].
 func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, paths *[simLanes]int, res *[simLanes]engine.Result) {
 	in := pg.in
 	in.Amounts = amounts
-	o := engine.Options{Mode: engine.Exact, Paths: &w.paths, Rows: rows, PathOf: paths[:], HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
-	engine.Walk[[simLanes]float64](pg.s.eng, &in, &o, res[:])
+	o := engine.Options{Mode: engine.Exact, Rows: rows, HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
+	for l := range simLanes {
+		o.Paths, o.Path = &w.paths[l], paths[l]
+		res[l] = engine.Walk(pg.s.eng, &in, &o)
+	}
 }
 
 // values returns, per lane of w, the value at the deadline of one unit of
@@ -606,12 +611,11 @@ func (pg *simProgram) values(w *simWorker, src int32) [simLanes]float64 {
 	in := pg.in
 	in.Amounts = make([]float64, len(pg.in.Amounts))
 	in.Amounts[src] = 1
-	o := engine.Options{Mode: engine.Smooth, One: true, Source: src, Paths: &w.paths, HasDeadline: true, Deadline: pg.deadline}
-	var res [simLanes]engine.Result
-	engine.Walk[[simLanes]float64](pg.s.eng, &in, &o, res[:])
+	o := engine.Options{Mode: engine.Smooth, One: true, Source: src, HasDeadline: true, Deadline: pg.deadline}
 	var v [simLanes]float64
-	for l := range v {
-		v[l] = res[l].AtDeadline
+	for l := range simLanes {
+		o.Paths = &w.paths[l]
+		v[l] = engine.Walk(pg.s.eng, &in, &o).AtDeadline
 	}
 	return v
 }
@@ -643,7 +647,7 @@ func (pg *simProgram) targetOf(w *simWorker, lane int) float64 {
 	if pg.targetIdx == 0 || pg.noInfl {
 		return pg.targetF
 	}
-	return money.RoundMinor(pg.targetF*w.e[int(pg.targetIdx)*simLanes+lane], pg.in.Rounding)
+	return money.RoundMinor(pg.targetF*w.e[lane][pg.targetIdx], pg.in.Rounding)
 }
 
 // runAll simulates every path with the given source amounts.

@@ -169,13 +169,13 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		return money.Minor(int64(math.Round(bal*scale)), p.Currency.Places).Cmp(targetAtMonth(p, g, m)) >= 0
 	}
 	// Most goals are reached within decades: walk a short horizon first and
-	// go further only when the target is not met by its end. A schedule
-	// compiled to a nearer end is the prefix of a longer one.
+	// go to the plan's end only when the target is not met by then. A
+	// schedule compiled to a nearer end is the prefix of a longer one.
 	var s *schedule
 	var pr *params
 	var r engine.Result
 	o := engine.Options{Reach: func(m int32, bal float64) bool { return reach(p.Start+Month(m), bal) }}
-	for _, years := range []int{40, 80, HorizonYears} {
+	for _, years := range []int{40, HorizonYears} {
 		h := min(max(p.Start.Add(years*12-1), Horizon(p, g)), end)
 		s = compile(p, g, h)
 		pr = s.defaultParams()

@@ -7,6 +7,7 @@ import (
 	"gopkg.in/yaml.v3"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 	"cairn/plan/internal/par"
 )
 
@@ -231,9 +232,11 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 	errs := make([]error, total)
 	// Cells are independent: solve them on every core, each worker taking
 	// the next cell; the grid's order does not depend on the schedule.
-	// Every cell's plan is cloned from cached, so the cells share one
-	// schedule cache: a cell whose shape another cell compiled reuses it.
-	cached := p.withCache()
+	// Every cell's plan is cloned from the grid's own, so the cells share
+	// one schedule cache: a cell whose shape another cell compiled reuses
+	// it.
+	cached := *p
+	cached.cache = new(engine.Cache)
 	par.Each(total, func(c int) {
 		rem := c
 		cell := Cell{Values: make([]string, len(axes))}

@@ -1,7 +1,9 @@
 package engine
 
 import (
-	"fmt"
+	"encoding/binary"
+	"math"
+	"reflect"
 	"sync"
 )
 
@@ -17,11 +19,44 @@ type Cache struct {
 // maxCached bounds a cache: past it, the cache starts afresh.
 const maxCached = 256
 
-// Key returns the cache key of shape sh: every field of it, printed. It is
-// derived mechanically from the whole shape (floats print in their shortest
-// exact form), so a field added to [Shape] is in the key without a change
-// here.
-func Key(sh *Shape) string { return fmt.Sprintf("%v", *sh) }
+// Key returns the cache key of shape sh: every field of it, encoded in
+// order by reflection (see appendKey), so a field added to [Shape] is in
+// the key without a change here.
+func Key(sh *Shape) string {
+	return string(appendKey(make([]byte, 0, 256), reflect.ValueOf(sh).Elem()))
+}
+
+// appendKey appends the exact value of v: integers and float bits as 8
+// bytes, booleans as one, slices as their length and elements, structs
+// field by field. A kind it does not know panics, in the test that
+// covers every field, before a shape holding one could be cached.
+func appendKey(b []byte, v reflect.Value) []byte {
+	switch v.Kind() {
+	case reflect.Int, reflect.Int8, reflect.Int16, reflect.Int32, reflect.Int64:
+		return binary.LittleEndian.AppendUint64(b, uint64(v.Int()))
+	case reflect.Uint, reflect.Uint8, reflect.Uint16, reflect.Uint32, reflect.Uint64:
+		return binary.LittleEndian.AppendUint64(b, v.Uint())
+	case reflect.Float32, reflect.Float64:
+		return binary.LittleEndian.AppendUint64(b, math.Float64bits(v.Float()))
+	case reflect.Bool:
+		if v.Bool() {
+			return append(b, 1)
+		}
+		return append(b, 0)
+	case reflect.Slice:
+		b = binary.LittleEndian.AppendUint64(b, uint64(v.Len()))
+		for i := range v.Len() {
+			b = appendKey(b, v.Index(i))
+		}
+		return b
+	case reflect.Struct:
+		for i := range v.NumField() {
+			b = appendKey(b, v.Field(i))
+		}
+		return b
+	}
+	panic("engine: a shape field of kind " + v.Kind().String() + " has no key encoding")
+}
 
 // Compile returns the schedule of shape sh, compiling it unless the cache
 // holds it.

@@ -27,7 +27,7 @@ const TicksPerMonth = TicksPerYear / 12
 type Kind uint8
 
 const (
-	Interest  Kind = iota // interest for the period ending
+	Interest  Kind = iota // interest for the period ending (Count of them, a period apart)
 	Credit                // month end: accrued interest of a more-than-monthly compounding is credited
 	Fee                   // the month's fee
 	FlowEnd               // an amount at the end of its period
@@ -35,7 +35,9 @@ const (
 	FlowBegin             // an amount at the start of its period
 )
 
-// An Event is one thing that happens to the balance, on the tick grid.
+// An Event is one thing that happens to the balance, on the tick grid. A
+// schedule keeps the amounts (flows) and fees as events; interest dates,
+// credits and month ends are regular and the walk makes them.
 type Event struct {
 	Tick   int64
 	Kind   Kind
@@ -45,6 +47,7 @@ type Event struct {
 	Ti     int32   // flows and fees: index of Tau among the schedule's distinct values
 	Tau    float64 // flows and fees: fraction of the interest period left until its credit
 	Unit   float64 // flows: amount per unit of the source's amount (growth, indexing)
+	Count  int32   // interest: how many interest dates in a row, one period apart (at least 1)
 	Month  int32   // the month the event is shown in, counted from the start (0)
 	// Flows in money indexed to inflation: the amount is multiplied by the
 	// inflation index at the start of month IA over that at month IB, both
@@ -87,13 +90,15 @@ type Schedule struct {
 	period   int64 // ticks per interest period
 	accrue   bool  // interest accrues at each compounding and is credited at month ends
 	stepFrom []int32
-	events   []Event
+	events   []Event // every event, in order
+	flows    int     // how many of them are amounts
+	fees     int     // and fees
 	taus     []float64
 	sources  int
 }
 
-// Events returns the schedule's events in order; the caller must not change
-// them.
+// Events returns the schedule's events in order; the caller must not
+// change them.
 func (s *Schedule) Events() []Event { return s.events }
 
 // PeriodTicks returns the length of an interest period in ticks.
@@ -142,33 +147,16 @@ func Compile(sh *Shape) *Schedule {
 	s.period = TicksPerYear / int64(sh.PerYear)
 	s.accrue = sh.PerYear > 12
 	s.sources = 1 + len(sh.Streams) + len(sh.Once)
-	// Each kind of event is laid down in tick order as a run of its own;
-	// the runs are then merged, which is cheaper than sorting the whole.
-	n := s.endTick / s.period
-	ev := make([]Event, 0, n)
-	for k := int64(1); k <= n; k++ {
-		t := k * s.period
-		ev = append(ev, Event{Tick: t, Kind: Interest, Step: s.StepAt(t - s.period), Period: int32(k - 1), Month: labelEnd(t)})
-	}
-	runs := [][]Event{ev}
-	ev = make([]Event, 0, int64(sh.Months)*3)
-	for m := int32(0); m <= end; m++ { // month ends: credit, fee and mark
-		t := int64(m+1) * TicksPerMonth
-		if s.accrue {
-			ev = append(ev, Event{Tick: t, Kind: Credit, Month: m})
-		}
-		if sh.Fee {
-			ev = append(ev, Event{Tick: t, Kind: Fee, Month: m})
-		}
-		ev = append(ev, Event{Tick: t, Kind: Mark, Month: m})
-	}
-	runs = append(runs, ev)
+	// Each stream's amounts are laid down in tick order as a run of their
+	// own; the runs are then merged, which is cheaper than sorting the whole.
+	var runs [][]Event
 	for k, st := range sh.Streams {
 		src := int32(1 + k)
 		P := TicksPerYear / int64(st.PerYear)
 		from := int64(st.From) * TicksPerMonth
 		lg := math.Log1p(st.Grow)
-		ev = make([]Event, 0, max(s.endTick-from, 0)/P+2)
+		ev := make([]Event, 0, max(s.endTick-from, 0)/P+2)
+		lastYear, u := int64(0), st.First
 		for k := int64(0); ; k++ {
 			ps := from + k*P
 			t, kd, label := ps, FlowBegin, labelBegin(ps)
@@ -179,9 +167,8 @@ func Compile(sh *Shape) *Schedule {
 				break
 			}
 			year := (ps - from) / TicksPerYear
-			u := st.First
-			if year > 0 && st.Grow != 0 {
-				u = st.First * math.Exp(float64(year)*lg)
+			if year != lastYear && st.Grow != 0 {
+				lastYear, u = year, st.First*math.Exp(float64(year)*lg)
 			}
 			e := Event{Tick: t, Kind: kd, Src: src, Unit: u, Month: label}
 			anniv := st.From + 12*int32(year)
@@ -199,7 +186,7 @@ func Compile(sh *Shape) *Schedule {
 	}
 	// Every one-time amount is a source, even one after the end, so that
 	// source indexes are the same whatever the horizon compiled.
-	ev = nil
+	var ev []Event
 	for k, on := range sh.Once {
 		if on > end {
 			continue
@@ -209,27 +196,85 @@ func Compile(sh *Shape) *Schedule {
 	}
 	slices.SortFunc(ev, eventOrder) // one-time amounts may be written in any order
 	runs = append(runs, ev)
-	ev = mergeRuns(runs)
-	// fraction of the interest period left, and the step of that period
-	tauIndex := map[float64]int32{}
-	for i := range ev {
-		e := &ev[i]
+	flows := mergeRuns(runs) // the (usual) single run is used as it is
+	// the regular events, interest dates and month ends, in order, with the
+	// amounts merged in as they come
+	n := s.endTick / s.period
+	// (at most: a run of interest dates, a credit, a fee and a mark a
+	// month, and each amount with the run it breaks)
+	ev = make([]Event, 0, int64(sh.Months)*4+2*int64(len(flows))+1)
+	fi := 0
+	add := func(e Event) {
+		for fi < len(flows) && before(&flows[fi], &e) {
+			ev = append(ev, flows[fi])
+			fi++
+		}
+		ev = append(ev, e)
+	}
+	// Interest dates in a row, with nothing between them and one rate step,
+	// are one event: the walk runs through them in a tight loop.
+	var run Event
+	flush := func() {
+		if run.Count > 0 {
+			add(run)
+			run.Count = 0
+		}
+	}
+	k := int64(1)
+	for m := range sh.Months {
+		t := int64(m+1) * TicksPerMonth
+		for ; k <= n && k*s.period <= t; k++ { // interest first at a tick
+			ti := k * s.period
+			step := run.Step // the step is the one of the period's month, which changes only at a month
+			if run.Count == 0 || (ti-s.period)/TicksPerMonth != (ti-2*s.period)/TicksPerMonth {
+				step = s.StepAt(ti - s.period)
+			}
+			e := Event{Tick: ti, Kind: Interest, Step: step, Period: int32(k - 1), Month: labelEnd(ti), Count: 1}
+			if run.Count > 0 && run.Step == e.Step && (fi == len(flows) || !before(&flows[fi], &e)) {
+				run.Count++
+				continue
+			}
+			flush()
+			run = e
+		}
+		flush()
+		if s.accrue {
+			add(Event{Tick: t, Kind: Credit, Month: m})
+		}
+		if sh.Fee {
+			add(Event{Tick: t, Kind: Fee, Month: m})
+		}
+		add(Event{Tick: t, Kind: Mark, Month: m})
+	}
+	flush()
+	s.events = append(ev, flows[fi:]...)
+	s.flows, s.fees = len(flows), 0
+	// fraction of the interest period left, and the step of that period;
+	// the distinct fractions are few, found by the ticks left
+	var left []int64 // ticks left of each of s.taus
+	k32 := int32(-1)
+	for i := range s.events {
+		e := &s.events[i]
 		if e.Kind == Interest || e.Kind == Credit || e.Kind == Mark {
 			continue
 		}
-		next := (e.Tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
-		e.Tau = float64(next-e.Tick) / float64(s.period)
-		k, ok := tauIndex[e.Tau]
-		if !ok {
-			k = int32(len(s.taus))
-			tauIndex[e.Tau] = k
-			s.taus = append(s.taus, e.Tau)
+		if e.Kind == Fee {
+			s.fees++
 		}
-		e.Ti = k
+		next := (e.Tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
+		r := next - e.Tick
+		if k32 < 0 || left[k32] != r {
+			k32 = int32(slices.Index(left, r))
+			if k32 < 0 {
+				k32 = int32(len(left))
+				left = append(left, r)
+				s.taus = append(s.taus, float64(r)/float64(s.period))
+			}
+		}
+		e.Tau, e.Ti = s.taus[k32], k32
 		e.Period = int32(e.Tick / s.period)
 		e.Step = s.StepAt(next - s.period)
 	}
-	s.events = ev
 	return s
 }
 
@@ -247,21 +292,43 @@ func eventOrder(a, b Event) int {
 
 // mergeRuns merges runs, each already in event order, into one.
 func mergeRuns(runs [][]Event) []Event {
-	total := 0
+	var out []Event
 	for _, r := range runs {
-		total += len(r)
-	}
-	out := make([]Event, 0, total)
-	idx := make([]int, len(runs))
-	for len(out) < total {
-		best := -1
-		for k, r := range runs {
-			if idx[k] < len(r) && (best < 0 || eventOrder(r[idx[k]], runs[best][idx[best]]) < 0) {
-				best = k
-			}
-		}
-		out = append(out, runs[best][idx[best]])
-		idx[best]++
+		out = merge(out, r)
 	}
 	return out
+}
+
+// merge merges a and b, each in event order, into one; when either is
+// empty it returns the other.
+func merge(a, b []Event) []Event {
+	if len(a) == 0 {
+		return b
+	}
+	if len(b) == 0 {
+		return a
+	}
+	out := make([]Event, len(a)+len(b))
+	i, j := 0, 0
+	for k := range out {
+		if j == len(b) || i < len(a) && before(&a[i], &b[j]) {
+			out[k] = a[i]
+			i++
+		} else {
+			out[k] = b[j]
+			j++
+		}
+	}
+	return out
+}
+
+// before reports whether x comes before y in event order (see eventOrder).
+func before(x, y *Event) bool {
+	if x.Tick != y.Tick {
+		return x.Tick < y.Tick
+	}
+	if x.Kind != y.Kind {
+		return x.Kind < y.Kind
+	}
+	return x.Src < y.Src
 }

@@ -46,24 +46,14 @@ const (
 	Smooth
 )
 
-// Paths are the realised rates of [PathLanes] paths walked together, as a
-// simulation draws them: lane l of interest period k is at k·PathLanes + l.
+// Paths gives each interest period its own realised rate, as a
+// simulation draws them for one path: J[k] is period k's periodic rate and
+// L[k] = ln(1 + J[k]).
 type Paths struct {
-	J, L []float64 // the period's realised periodic rate, and ln(1 + rate)
+	J, L []float64
 	// Infl, when set, is the inflation index at the start of each month
-	// (lane l of month m at m·PathLanes + l) by which amounts indexed to
-	// inflation are scaled.
+	// by which amounts indexed to inflation are scaled.
 	Infl []float64
-}
-
-// PathLanes is how many paths one walk over [Paths] advances together:
-// their balances are independent chains of arithmetic, so a processor
-// overlaps them.
-const PathLanes = 4
-
-// Lanes is the balance state of a walk: one path, or PathLanes of them.
-type Lanes interface {
-	[1]float64 | [PathLanes]float64
 }
 
 // Options select what a walk does beyond advancing the balance.
@@ -73,30 +63,28 @@ type Options struct {
 	// unless it is the opening balance); otherwise every source counts.
 	One    bool
 	Source int32
-	// Paths, when set, gives each interest period its own rate per lane
-	// instead of Inputs.Rates.
+	// Paths, when set, gives each interest period its own rate instead of
+	// Inputs.Rates.
 	Paths *Paths
-	// Log, when set (one lane, exact), receives every posting and month end.
+	// Log, when set (exact), receives every posting and month end.
 	Log *Log
-	// MonthEnds, when set (one lane), receives the balance at each month
-	// end, in currency units.
+	// MonthEnds, when set, receives the balance at each month end, in
+	// currency units.
 	MonthEnds []float64
-	// Reach, when set (one lane), is asked at every month end with the
-	// balance in currency units; the walk stops at the first month it
-	// accepts.
+	// Reach, when set, is asked at every month end with the balance in
+	// currency units; the walk stops at the first month it accepts.
 	Reach func(month int32, bal float64) bool
 	// Rows, when set, records the balance at chosen month ends: Rows[m],
-	// when not nil, receives lane l's balance at Rows[m][PathOf[l]].
-	Rows   [][]float64
-	PathOf []int
+	// when not nil, receives it at Rows[m][Path].
+	Rows [][]float64
+	Path int
 	// HasDeadline records the balance at the end of month Deadline in
 	// Result.AtDeadline.
 	HasDeadline bool
 	Deadline    int32
 }
 
-// A Result is what one lane of a walk reports, in the walk's units (see
-// [Mode]).
+// A Result is what a walk reports, in the walk's units (see [Mode]).
 type Result struct {
 	Closing    float64
 	Peak       float64 // the largest balance at a month end (at least 0)
@@ -133,20 +121,20 @@ type Log struct {
 	MonthEnd []int64
 }
 
-// weights returns, for every rate step and distinct tau, what one unit
-// arriving (win) or leaving (wout) earns by the credit: accrual's values,
-// computed once per walk instead of once per event.
-func (s *Schedule) weights(js []float64, b Between) (win, wout []float64) {
+// weights returns, for every rate step k and distinct tau i, what one unit
+// arriving (at 2(k·nt + i)) or leaving (the next) earns by the credit:
+// accrual's values, computed once per walk instead of once per event.
+func (s *Schedule) weights(js []float64, b Between) []float64 {
 	nt := len(s.taus)
-	win, wout = make([]float64, len(js)*nt), make([]float64, len(js)*nt)
+	w := make([]float64, 2*len(js)*nt)
 	for k, j := range js {
 		l := math.Log1p(j)
 		for i, tau := range s.taus {
-			win[k*nt+i] = Accrual(b, j, l, tau, false)
-			wout[k*nt+i] = Accrual(b, j, l, tau, true)
+			w[2*(k*nt+i)] = Accrual(b, j, l, tau, false)
+			w[2*(k*nt+i)+1] = Accrual(b, j, l, tau, true)
 		}
 	}
-	return win, wout
+	return w
 }
 
 // Accrual returns what one unit arriving (out false) or leaving (out true)
@@ -170,195 +158,190 @@ func Accrual(b Between, j, l, tau float64, out bool) float64 {
 }
 
 // roundPosting rounds an interest credit or a fee to the minor unit.
-func roundPosting(x float64, r money.Rounding) float64 { return money.RoundMinor(x, r) }
+func roundPosting(x float64, r money.Rounding) float64 { return roundMinor(x, r) }
 
 // roundAmount rounds an amount — the opening balance, or a flow's amount
 // times its growth and indexing — to the minor unit.
-func roundAmount(x float64, r money.Rounding) float64 { return money.RoundMinor(x, r) }
+func roundAmount(x float64, r money.Rounding) float64 { return roundMinor(x, r) }
+
+// roundMinor is [money.RoundMinor] in a form the compiler inlines, so that
+// the walk makes no call for it: the same value for every x (the zero of
+// −0 has a plus sign, which no sum or comparison sees). Below 2⁵² in
+// size, adding and taking away 2⁵² rounds the size to an integer, ties to
+// even, by the processor's own rounding, and a tie rounded down goes up
+// for half-up; from 2⁵² on every float64 is an integer.
+func roundMinor(x float64, r money.Rounding) float64 {
+	if a := math.Abs(x); a < 1<<52 { // else an integer already, or not a number
+		t := (a + 1<<52) - 1<<52
+		if a-t == 0.5 && r == money.HalfUp { // a tie rounded down, which goes up
+			t++
+		}
+		if x < 0 {
+			return -t
+		}
+		return t
+	}
+	return x
+}
 
 // Walk advances schedule s through its events: the one walk of cairn's
-// model. The ledger, every search, the equation of value and the
-// simulation are this walk with different options. res receives one
-// result per lane.
-func Walk[A Lanes](s *Schedule, in *Inputs, o *Options, res []Result) {
-	var bal, base, acc, accrued, peak, j A
-	n := len(bal)
-	exact := o.Mode == Exact
-	scale := 1.0
-	if exact {
+// model. The ledger, every search, the equation of value and each path of
+// the simulation are this walk with different options.
+//
+// Loop-invariant settings are read through in and o where they are used,
+// which leaves the registers to the balances.
+func Walk(s *Schedule, in *Inputs, o *Options) Result {
+	var bal, base, acc, accrued, peak float64
+	res := Result{ShortTick: -1}
+	var scale float64 = 1 // minor units per currency unit (exact)
+	if o.Mode == Exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	rule, b, fee, accrue := in.Rounding, in.Between, in.Fee, s.accrue
-	paths := o.Paths
-	var win, wout []float64
-	nt := int32(len(s.taus))
-	if paths == nil {
-		win, wout = s.weights(in.Rates, b)
+	var w []float64 // what a unit earns by the credit: see weight
+	if o.Paths == nil {
+		w = s.weights(in.Rates, in.Between)
 	}
-	open := 0.0
 	if !o.One || o.Source == 0 {
-		open = in.Amounts[0] * scale
-		if exact {
-			open = roundAmount(open, rule)
+		bal = in.Amounts[0] * scale
+		if o.Mode == Exact {
+			bal = roundAmount(bal, in.Rounding)
 		}
+		base = bal
 	}
-	for l := range n {
-		bal[l], base[l] = open, open
-		res[l] = Result{ShortTick: -1}
-	}
-	log := o.Log
-	var jj, ljj []float64 // the current event's period's rate (and log) per lane, with Paths
-	events, rs, amounts, outs := s.events, in.Rates, in.Amounts, in.Out
-	one, only, monthEnds, rows, reach := o.One, o.Source, o.MonthEnds, o.Rows, o.Reach
-	hasDeadline, deadline := o.HasDeadline, o.Deadline
-	for i := range events {
-		e := &events[i]
+	var j float64 // the rate of the interest period
+	for i := range s.events {
+		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			if paths == nil {
-				for l := range n {
-					j[l] = rs[e.Step]
+			for c := range e.Count { // each interest date of the run
+				if p := o.Paths; p != nil {
+					j = p.J[e.Period+c]
+				} else {
+					j = in.Rates[e.Step]
 				}
-			} else {
-				k := int(e.Period) * PathLanes
-				for l := range n {
-					j[l] = paths.J[k+l]
+				x := base*j + acc
+				if s.accrue {
+					accrued += x
+					base, acc = bal+accrued, 0
+					continue
 				}
-			}
-			if accrue {
-				for l := range n {
-					accrued[l] += base[l]*j[l] + acc[l]
-					base[l], acc[l] = bal[l]+accrued[l], 0
+				if o.Mode == Exact {
+					x = roundPosting(x, in.Rounding)
 				}
-				continue
-			}
-			for l := range n {
-				x := base[l]*j[l] + acc[l]
-				if exact {
-					x = roundPosting(x, rule)
-				}
-				bal[l] += x
-				base[l], acc[l] = bal[l], 0
-				if log != nil && x != 0 {
-					log.Posts = append(log.Posts, Post{Tick: e.Tick, Month: e.Month, Kind: PostInterest, Amount: int64(x), Balance: int64(bal[l])})
+				bal += x
+				base, acc = bal, 0
+				if o.Log != nil && x != 0 {
+					t := e.Tick + int64(c)*s.period
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0)
 				}
 			}
 		case Credit:
-			for l := range n {
-				x := accrued[l]
-				if exact {
-					x = roundPosting(x, rule)
-				}
-				bal[l] += x
-				accrued[l] -= x
-				if log != nil && x != 0 {
-					log.Posts = append(log.Posts, Post{Tick: e.Tick, Month: e.Month, Kind: PostInterest, Amount: int64(x), Balance: int64(bal[l])})
-				}
+			x := accrued
+			if o.Mode == Exact {
+				x = roundPosting(x, in.Rounding)
+			}
+			bal += x
+			accrued -= x
+			if o.Log != nil && x != 0 {
+				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0)
 			}
 		case Fee:
-			wo := 0.0
-			if paths == nil {
-				wo = wout[e.Step*nt+e.Ti]
-			} else {
-				k := int(e.Period) * PathLanes
-				jj, ljj = paths.J[k:k+PathLanes], paths.L[k:k+PathLanes]
+			f := bal * in.Fee
+			if o.Mode == Exact {
+				if bal <= 0 {
+					continue
+				}
+				if f = roundPosting(f, in.Rounding); f == 0 {
+					continue
+				}
 			}
-			for l := range n {
-				f := bal[l] * fee
-				if exact {
-					if bal[l] <= 0 {
-						continue
-					}
-					if f = roundPosting(f, rule); f == 0 {
-						continue
-					}
-				}
-				bal[l] -= f
-				w := wo
-				if paths != nil {
-					w = Accrual(b, jj[l], ljj[l], e.Tau, true)
-				}
-				acc[l] -= f * w
-				if log != nil {
-					log.Posts = append(log.Posts, Post{Tick: e.Tick, Month: e.Month, Kind: PostFee, Amount: -int64(f), Balance: int64(bal[l])})
-				}
+			bal -= f
+			if p := o.Paths; p == nil {
+				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
+			} else {
+				acc -= f * pathWeight(p, in.Between, e, true)
+			}
+			if o.Log != nil {
+				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0)
 			}
 		case Mark:
-			for l := range n {
-				peak[l] = max(peak[l], bal[l])
+			peak = max(peak, bal)
+			m := e.Month
+			if o.Log != nil {
+				o.Log.MonthEnd[m] = int64(bal)
 			}
-			if log != nil {
-				log.MonthEnd[e.Month] = int64(bal[0])
+			if o.MonthEnds != nil {
+				o.MonthEnds[m] = bal / scale
 			}
-			if monthEnds != nil {
-				monthEnds[e.Month] = bal[0] / scale
-			}
-			if rows != nil {
-				if row := rows[e.Month]; row != nil {
-					for l := range n {
-						row[o.PathOf[l]] = bal[l]
-					}
+			if o.Rows != nil {
+				if row := o.Rows[m]; row != nil {
+					row[o.Path] = bal
 				}
 			}
-			if hasDeadline && e.Month == deadline {
-				for l := range n {
-					res[l].AtDeadline = bal[l]
-				}
+			if o.HasDeadline && m == o.Deadline {
+				res.AtDeadline = bal
 			}
-			if reach != nil && reach(e.Month, bal[0]/scale) {
-				res[0].Reached, res[0].ReachMonth = true, e.Month
-				res[0].Closing, res[0].Peak = bal[0], peak[0]
-				return
+			if o.Reach != nil && o.Reach(m, bal/scale) {
+				res.Reached, res.ReachMonth = true, m
+				res.Closing, res.Peak = bal, peak
+				return res
 			}
 		case FlowEnd, FlowBegin:
-			if one && e.Src != only {
+			if o.One && e.Src != o.Source {
 				continue
 			}
-			wi, wo := 0.0, 0.0
-			if paths == nil {
-				wi, wo = win[e.Step*nt+e.Ti], wout[e.Step*nt+e.Ti]
-			} else {
-				k := int(e.Period) * PathLanes
-				jj, ljj = paths.J[k:k+PathLanes], paths.L[k:k+PathLanes]
+			x := in.Amounts[e.Src] * scale * e.Unit
+			p := o.Paths
+			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
+				x = x * p.Infl[e.IA] / p.Infl[e.IB]
 			}
-			x0 := amounts[e.Src] * scale * e.Unit
-			out := outs[e.Src]
-			indexed := paths != nil && paths.Infl != nil && (e.IA != 0 || e.IB != 0)
-			for l := range n {
-				x := x0
-				if indexed {
-					x = x * paths.Infl[int(e.IA)*PathLanes+l] / paths.Infl[int(e.IB)*PathLanes+l]
-				}
-				if exact {
-					x = roundAmount(x, rule)
-				}
-				var short float64
-				if out {
-					x = -math.Abs(x)
-					if exact && -x > bal[l] {
-						if !res[l].Short {
-							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month
-						}
-						paid := max(bal[l], 0)
-						short, x = -x-paid, -paid
+			if o.Mode == Exact {
+				x = roundAmount(x, in.Rounding)
+			}
+			var short float64
+			if in.Out[e.Src] {
+				x = -math.Abs(x)
+				if o.Mode == Exact && -x > bal {
+					if !res.Short {
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
 					}
+					paid := max(bal, 0)
+					short, x = -x-paid, -paid
 				}
-				bal[l] += x
-				w := wi
-				switch {
-				case paths != nil:
-					w = Accrual(b, jj[l], ljj[l], e.Tau, x < 0)
-				case x < 0:
-					w = wo
+			}
+			bal += x
+			if p == nil {
+				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+				if x < 0 {
+					i++
 				}
-				acc[l] += x * w
-				if log != nil {
-					log.Posts = append(log.Posts, Post{Tick: e.Tick, Month: e.Month, Kind: PostFlow, Src: e.Src, Amount: int64(x), Balance: int64(bal[l]), Short: int64(short)})
-				}
+				acc += x * w[i]
+			} else {
+				acc += x * pathWeight(p, in.Between, e, x < 0)
+			}
+			if o.Log != nil {
+				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short)
 			}
 		}
 	}
-	for l := range n {
-		res[l].Closing, res[l].Peak = bal[l], peak[l]
-	}
+	res.Closing, res.Peak = bal, peak
+	return res
 }
+
+// pathWeight returns what one unit arriving (or leaving, when out) at
+// event e earns by the credit at the realised rate of its period in p.
+func pathWeight(p *Paths, b Between, e *Event, out bool) float64 {
+	if e.Tau == 1 {
+		return p.J[e.Period]
+	}
+	return Accrual(b, p.J[e.Period], p.L[e.Period], e.Tau, out)
+}
+
+// post records one movement.
+func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short float64) {
+	g.Posts = append(g.Posts, Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x), Balance: int64(bal), Short: int64(short)})
+}
+
+// MaxPosts returns the most movements a walk of s can post: a [Log] with
+// room for them grows no more during the walk.
+func (s *Schedule) MaxPosts() int { return len(s.events) + int(s.endTick/s.period) }
