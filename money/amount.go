@@ -77,22 +77,6 @@ func (a Amount) Sign() int { return a.d.Sign() }
 // IsZero reports whether a is zero.
 func (a Amount) IsZero() bool { return a.d.IsZero() }
 
-// Min returns the smaller of a and b.
-func Min(a, b Amount) Amount {
-	if a.Cmp(b) <= 0 {
-		return a
-	}
-	return b
-}
-
-// Max returns the larger of a and b.
-func Max(a, b Amount) Amount {
-	if a.Cmp(b) >= 0 {
-		return a
-	}
-	return b
-}
-
 // A Rounding is the rule that rounds an amount to a number of decimal places
 // when an exact value lies halfway between two.
 type Rounding int

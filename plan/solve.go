@@ -638,7 +638,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 			hi2 = lo2
 		} else {
 			hi2 = lo2 + step
-			if bal, ok = meets(hi2); ok || step > 1 {
+			if _, ok = meets(hi2); ok || step > 1 {
 				break
 			}
 			lo2 = hi2

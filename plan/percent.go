@@ -1,0 +1,50 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"gopkg.in/yaml.v3"
+)
+
+// ParsePercent parses a percentage written with a percent sign, "12%" or
+// "12.5 %", and returns it as a fraction (0.12).
+func ParsePercent(s string) (float64, error) {
+	t := strings.TrimSpace(s)
+	num, ok := strings.CutSuffix(t, "%")
+	num = strings.TrimSpace(num)
+	x, err := strconv.ParseFloat(num, 64)
+	if !ok || err != nil || num == "" || strings.ContainsAny(num, "eExXpP_") || math.IsNaN(x) || math.IsInf(x, 0) {
+		return 0, fmt.Errorf("invalid percentage %q (want a number and a percent sign, such as 12%%)", s)
+	}
+	return x / 100, nil
+}
+
+// ParseVolatility parses a volatility a year, "15%", within 0% and
+// [MaxVolatilityPercent].
+func ParseVolatility(s string) (float64, error) {
+	x, err := ParsePercent(s)
+	if err != nil {
+		return 0, err
+	}
+	if x < 0 || x > MaxVolatilityPercent/100.0 {
+		return 0, fmt.Errorf("volatility %q is out of range (want 0%% to %d%% a year)", s, MaxVolatilityPercent)
+	}
+	return x, nil
+}
+
+// volatility decodes a volatility key of a goals file.
+func (d *decoder) volatility(n *yaml.Node, path string) (float64, bool) {
+	s, ok := d.scalar(n, path, "a volatility a year such as 12%")
+	if !ok {
+		return 0, false
+	}
+	x, err := ParseVolatility(s)
+	if err != nil {
+		d.errorf(n, path, "%v", err)
+		return 0, false
+	}
+	return x, true
+}
