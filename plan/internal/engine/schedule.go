@@ -204,40 +204,36 @@ func Compile(sh *Shape) *Schedule {
 	// month, and each amount with the run it breaks)
 	ev = make([]Event, 0, int64(sh.Months)*4+2*int64(len(flows))+1)
 	fi := 0
+	// Interest dates in a row, with nothing between them and one rate step,
+	// are one event: the walk runs through them in a tight loop. interestTo
+	// adds the dates up to tick t (which come before any other event at t).
+	done := int64(0) // interest dates added: the first done of them
+	interestTo := func(t int64) {
+		for last := min(t/s.period, n); done < last; {
+			first := done + 1
+			start := (first - 1) * s.period // the first period's start
+			step, end := s.StepAt(start), last
+			for _, from := range s.stepFrom { // the step holds until a step's month begins
+				if b := int64(from) * TicksPerMonth; b > start {
+					end = min(end, (b+s.period-1)/s.period) // the last period starting before b
+				}
+			}
+			ti := first * s.period
+			ev = append(ev, Event{Tick: ti, Kind: Interest, Step: step, Period: int32(first - 1), Month: labelEnd(ti), Count: int32(end - first + 1)})
+			done = end
+		}
+	}
 	add := func(e Event) {
 		for fi < len(flows) && before(&flows[fi], &e) {
+			interestTo(flows[fi].Tick)
 			ev = append(ev, flows[fi])
 			fi++
 		}
+		interestTo(e.Tick)
 		ev = append(ev, e)
 	}
-	// Interest dates in a row, with nothing between them and one rate step,
-	// are one event: the walk runs through them in a tight loop.
-	var run Event
-	flush := func() {
-		if run.Count > 0 {
-			add(run)
-			run.Count = 0
-		}
-	}
-	k := int64(1)
 	for m := range sh.Months {
 		t := int64(m+1) * TicksPerMonth
-		for ; k <= n && k*s.period <= t; k++ { // interest first at a tick
-			ti := k * s.period
-			step := run.Step // the step is the one of the period's month, which changes only at a month
-			if run.Count == 0 || (ti-s.period)/TicksPerMonth != (ti-2*s.period)/TicksPerMonth {
-				step = s.StepAt(ti - s.period)
-			}
-			e := Event{Tick: ti, Kind: Interest, Step: step, Period: int32(k - 1), Month: labelEnd(ti), Count: 1}
-			if run.Count > 0 && run.Step == e.Step && (fi == len(flows) || !before(&flows[fi], &e)) {
-				run.Count++
-				continue
-			}
-			flush()
-			run = e
-		}
-		flush()
 		if s.accrue {
 			add(Event{Tick: t, Kind: Credit, Month: m})
 		}
@@ -246,8 +242,12 @@ func Compile(sh *Shape) *Schedule {
 		}
 		add(Event{Tick: t, Kind: Mark, Month: m})
 	}
-	flush()
-	s.events = append(ev, flows[fi:]...)
+	for ; fi < len(flows); fi++ {
+		interestTo(flows[fi].Tick)
+		ev = append(ev, flows[fi])
+	}
+	interestTo(s.endTick)
+	s.events = ev
 	s.flows, s.fees = len(flows), 0
 	// fraction of the interest period left, and the step of that period;
 	// the distinct fractions are few, found by the ticks left
