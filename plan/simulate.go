@@ -497,7 +497,7 @@ func (pg *simProgram) newWorker() *simWorker {
 		for i := range w.e[l] {
 			w.e[l][i] = 1 // no inflation noise unless draw sets it
 		}
-		w.paths[l] = engine.Paths{J: w.j[l], L: w.l[l]}
+		w.paths[l] = engine.Paths{J: w.j[l], L: w.l[l], W: make([]float64, len(pg.s.events))}
 		if !pg.noInfl {
 			w.paths[l].Infl = w.e[l]
 		}
@@ -542,6 +542,7 @@ func (pg *simProgram) draw(w *simWorker, seed uint64, path, lane int) {
 		w.j[lane][k] = j + (1+j)*gr
 		w.l[lane][k] = pg.ldet[k] + noise
 	}
+	pg.s.eng.Weights(&w.paths[lane], &pg.in)
 	if pg.noInfl {
 		return
 	}

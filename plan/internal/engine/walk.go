@@ -51,6 +51,9 @@ const (
 // L[k] = ln(1 + J[k]).
 type Paths struct {
 	J, L []float64
+	// W[i] is what one unit of event i (a flow or a fee) earns by its
+	// credit at its period's realised rate: [Weights] of the path.
+	W []float64
 	// Infl, when set, is the inflation index at the start of each month
 	// by which amounts indexed to inflation are scaled.
 	Infl []float64
@@ -66,7 +69,8 @@ type Options struct {
 	// Paths, when set, gives each interest period its own rate instead of
 	// Inputs.Rates.
 	Paths *Paths
-	// Log, when set (exact), receives every posting and month end.
+	// Log, when set (exact), receives every posting and month end; its
+	// Posts must have room for MaxPosts more.
 	Log *Log
 	// MonthEnds, when set, receives the balance at each month end, in
 	// currency units.
@@ -259,7 +263,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			if p := o.Paths; p == nil {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
 			} else {
-				acc -= f * pathWeight(p, in.Between, e, true)
+				acc -= f * p.W[i]
 			}
 			if o.Log != nil {
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0)
@@ -317,7 +321,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				acc += x * w[i]
 			} else {
-				acc += x * pathWeight(p, in.Between, e, x < 0)
+				acc += x * p.W[i]
 			}
 			if o.Log != nil {
 				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short)
@@ -328,18 +332,31 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	return res
 }
 
-// pathWeight returns what one unit arriving (or leaving, when out) at
-// event e earns by the credit at the realised rate of its period in p.
-func pathWeight(p *Paths, b Between, e *Event, out bool) float64 {
-	if e.Tau == 1 {
-		return p.J[e.Period]
+// Weights fills p.W for schedule s under rule b and the out flags of in:
+// what one unit of each flow or fee earns by its credit at the realised
+// rate of its period, J and L.
+func (s *Schedule) Weights(p *Paths, in *Inputs) {
+	for i := range s.events {
+		e := &s.events[i]
+		switch e.Kind {
+		case Fee, FlowEnd, FlowBegin:
+			k := e.Period
+			if e.Tau == 1 {
+				p.W[i] = p.J[k]
+			} else {
+				p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
+			}
+		}
 	}
-	return Accrual(b, p.J[e.Period], p.L[e.Period], e.Tau, out)
 }
 
 // post records one movement.
+// The log must have room for it (see MaxPosts): the walk makes no call to
+// grow it.
 func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short float64) {
-	g.Posts = append(g.Posts, Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x), Balance: int64(bal), Short: int64(short)})
+	n := len(g.Posts)
+	g.Posts = g.Posts[:n+1]
+	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x), Balance: int64(bal), Short: int64(short)}
 }
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with
