@@ -155,7 +155,11 @@ func Compile(sh *Shape) *Schedule {
 		P := TicksPerYear / int64(st.PerYear)
 		from := int64(st.From) * TicksPerMonth
 		lg := math.Log1p(st.Grow)
-		ev := make([]Event, 0, max(s.endTick-from, 0)/P+2)
+		last := s.endTick // the stream's amounts end by its until, if it has one
+		if st.HasUntil {
+			last = min(last, int64(st.Until+1)*TicksPerMonth+P)
+		}
+		ev := make([]Event, 0, max(last-from, 0)/P+2)
 		lastYear, u := int64(0), st.First
 		for k := int64(0); ; k++ {
 			ps := from + k*P
@@ -200,9 +204,18 @@ func Compile(sh *Shape) *Schedule {
 	// the regular events, interest dates and month ends, in order, with the
 	// amounts merged in as they come
 	n := s.endTick / s.period
-	// (at most: a run of interest dates, a credit, a fee and a mark a
-	// month, and each amount with the run it breaks)
-	ev = make([]Event, 0, int64(sh.Months)*4+2*int64(len(flows))+1)
+	// room for: a mark, a credit and a fee a month, the amounts, and the
+	// runs of interest dates (at most one a date, and one after each other
+	// event or start of a rate step)
+	perMonth := int64(1)
+	if s.accrue {
+		perMonth++
+	}
+	if sh.Fee {
+		perMonth++
+	}
+	nRuns := min(n, int64(sh.Months)*perMonth+int64(len(flows)+len(sh.StepFrom))+1)
+	ev = make([]Event, 0, int64(sh.Months)*perMonth+int64(len(flows))+nRuns)
 	fi := 0
 	// Interest dates in a row, with nothing between them and one rate step,
 	// are one event: the walk runs through them in a tight loop. interestTo

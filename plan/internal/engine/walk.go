@@ -361,4 +361,10 @@ func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, sh
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with
 // room for them grows no more during the walk.
-func (s *Schedule) MaxPosts() int { return len(s.events) + int(s.endTick/s.period) }
+func (s *Schedule) MaxPosts() int {
+	n := len(s.events) // each event posts once, but a run of interest dates once a date
+	if !s.accrue {
+		n += int(s.endTick / s.period)
+	}
+	return n
+}
