@@ -124,8 +124,8 @@ func checkNodes(file string, n *yaml.Node) *Error {
 	return nil
 }
 
-// split reports whether b is three digits written right after a comma that
-// follows the number a: "1,000" cut in two by a flow collection.
+// split reports whether a and b are "1,000" cut in two by a flow
+// collection: up to three digits, a comma with no space, three digits.
 func split(a, b *yaml.Node) bool {
 	if a == nil || a.Kind != yaml.ScalarNode || b.Kind != yaml.ScalarNode || a.Style != 0 || b.Style != 0 {
 		return false
@@ -133,9 +133,13 @@ func split(a, b *yaml.Node) bool {
 	if a.Line != b.Line || b.Column != a.Column+utf8.RuneCountInString(a.Value)+1 {
 		return false
 	}
-	last := a.Value[len(a.Value)-1:]
-	return last >= "0" && last <= "9" && len(b.Value) >= 3 && strings.Trim(b.Value[:3], "0123456789") == ""
+	return thousandsHead.MatchString(a.Value) && thousandsTail.MatchString(b.Value)
 }
+
+var (
+	thousandsHead = regexp.MustCompile(`^[-+]?[0-9]{1,3}$`)
+	thousandsTail = regexp.MustCompile(`^[0-9]{3}(\.[0-9]*)?[kM]?$`)
+)
 
 // syntaxError turns a yaml.v3 error into a positioned error in cairn's
 // words, falling back to the library's own line and message.
