@@ -51,8 +51,8 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 		return nil, d.errs
 	}
 	var root yaml.Node
-	if err := yaml.Unmarshal(data, &root); err != nil {
-		d.errs = append(d.errs, yamlError(name, err))
+	if err := decodeDocument(name, data, &root); err != nil {
+		d.errs = append(d.errs, err)
 		return nil, d.errs
 	}
 	if root.Kind == 0 || len(root.Content) == 0 {

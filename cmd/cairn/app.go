@@ -56,13 +56,14 @@ type env struct {
 // run runs cairn with the given arguments and returns its exit code. It is
 // main without the process: tests call it directly.
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer, now func() time.Time) int {
-	e := &env{stdin: stdin, stdout: stdout, stderr: stderr, now: now}
+	out := &outWriter{w: stdout}
+	e := &env{stdin: stdin, stdout: out, stderr: stderr, now: now}
 	app := newApp(e)
 	args, err := reorder(app, args)
 	if err == nil {
 		err = app.Run(args)
 	}
-	return report(stderr, err)
+	return report(stderr, lostOutput(err, out))
 }
 
 // report prints err the way cairn prints errors and returns the exit code.
@@ -331,13 +332,16 @@ func streamFlag(c *cli.Context) string {
 }
 
 func readFile(name string) ([]byte, error) {
+	if err := checkGoalsFile(name, nil); err != nil {
+		return nil, err
+	}
 	f, err := os.Open(name)
 	if err != nil {
 		return nil, fmt.Errorf("cannot read goals file: %s", strings.TrimPrefix(err.Error(), "open "))
 	}
 	defer f.Close()
-	if st, err := f.Stat(); err == nil && st.IsDir() {
-		return nil, fmt.Errorf("%s is a directory, not a goals file", name)
+	if err := checkGoalsFile(name, f); err != nil {
+		return nil, err
 	}
 	data, err := io.ReadAll(io.LimitReader(f, plan.MaxFileSize+1))
 	if err != nil {

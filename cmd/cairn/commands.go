@@ -1,10 +1,7 @@
 package main
 
 import (
-	"errors"
 	"fmt"
-	"os"
-	"path/filepath"
 	"strconv"
 	"strings"
 
@@ -354,7 +351,7 @@ func initCommand(e *env) *cli.Command {
 		Usage:     "write the example household file to start from",
 		ArgsUsage: "[FILE]",
 		Description: "Writes an invented household's goals (default: cairn.yaml) to edit into your own.\n" +
-			"It never overwrites an existing file unless --force is given.\n\n" +
+			"It never overwrites an existing file unless --force is given; - writes to standard output.\n\n" +
 			"Example:\n   cairn init\n   cairn init our-plan.yaml",
 		Flags: []cli.Flag{
 			&cli.BoolFlag{Name: "force", Usage: "overwrite an existing file"},
@@ -367,7 +364,10 @@ func initCommand(e *env) *cli.Command {
 			if name == "" {
 				name = "cairn.yaml"
 			}
-			if err := writeFileAtomic(name, examples.Household, c.Bool("force")); err != nil {
+			if name == "-" {
+				return writeStdout(e, examples.Household)
+			}
+			if err := writeFileAtomic(name, examples.Household, c.Bool("force"), ""); err != nil {
 				return err
 			}
 			fmt.Fprintf(e.stdout, "wrote %s: an invented household to edit into your own\n", name)
@@ -376,62 +376,6 @@ func initCommand(e *env) *cli.Command {
 			return nil
 		},
 	}
-}
-
-// writeFileAtomic writes data to name through a temporary file in the same
-// directory renamed into place, so a failure leaves no partial file. It
-// refuses to replace an existing file unless force is set.
-func writeFileAtomic(name string, data []byte, force bool) error {
-	if _, err := os.Lstat(name); err == nil && !force {
-		return &inputError{err: fmt.Errorf("%s already exists; not overwriting it", name), hint: "use --force to replace it, or name another file"}
-	} else if err != nil && !errors.Is(err, os.ErrNotExist) {
-		return &inputError{err: fmt.Errorf("cannot write %s: %v", name, err)}
-	}
-	dir := filepath.Dir(name)
-	f, err := os.CreateTemp(dir, "."+filepath.Base(name)+".tmp-*")
-	if err != nil {
-		return &inputError{err: fmt.Errorf("cannot write %s: %v", name, unwrapPath(err))}
-	}
-	tmp := f.Name()
-	_, werr := f.Write(data)
-	if werr == nil {
-		werr = f.Chmod(0o644)
-	}
-	cerr := f.Close()
-	if werr == nil {
-		werr = cerr
-	}
-	if werr == nil {
-		if !force {
-			// link fails if the name appeared meanwhile; rename would replace it
-			werr = os.Link(tmp, name)
-			if werr == nil {
-				os.Remove(tmp)
-			}
-		} else {
-			werr = os.Rename(tmp, name)
-		}
-	}
-	if werr != nil {
-		os.Remove(tmp)
-		if errors.Is(werr, os.ErrExist) {
-			return &inputError{err: fmt.Errorf("%s already exists; not overwriting it", name), hint: "use --force to replace it"}
-		}
-		return &inputError{err: fmt.Errorf("cannot write %s: %v", name, unwrapPath(werr))}
-	}
-	return nil
-}
-
-func unwrapPath(err error) error {
-	var pe *os.PathError
-	if errors.As(err, &pe) {
-		return pe.Err
-	}
-	var le *os.LinkError
-	if errors.As(err, &le) {
-		return le.Err
-	}
-	return err
 }
 
 // --- help

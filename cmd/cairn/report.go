@@ -68,7 +68,7 @@ func reportCommand(e *env) *cli.Command {
 				}
 				return nil
 			}
-			if err := writeFileAtomic(name, data, c.Bool("force")); err != nil {
+			if err := writeFileAtomic(name, data, c.Bool("force"), goalsFile(c)); err != nil {
 				return err
 			}
 			fmt.Fprintf(e.stdout, "wrote %s\n\n", name)
