@@ -36,13 +36,22 @@ func goalFlag(required bool) cli.Flag {
 	return &cli.StringFlag{Name: "goal", Aliases: []string{"g"}, Usage: u}
 }
 
-// planGoalQuantity reads the plan and the --goal and --for flags.
-func planGoalQuantity(c *cli.Context, e *env) (*plan.Plan, *plan.Goal, plan.Quantity, error) {
+// planAndGoal reads the plan and the --goal flag.
+func planAndGoal(c *cli.Context, e *env) (*plan.Plan, *plan.Goal, error) {
 	p, err := readPlan(c, e)
 	if err != nil {
-		return nil, nil, 0, err
+		return nil, nil, err
 	}
 	g, err := goalOf(c, p)
+	if err != nil {
+		return nil, nil, err
+	}
+	return p, g, nil
+}
+
+// planGoalQuantity reads the plan and the --goal and --for flags.
+func planGoalQuantity(c *cli.Context, e *env) (*plan.Plan, *plan.Goal, plan.Quantity, error) {
+	p, g, err := planAndGoal(c, e)
 	if err != nil {
 		return nil, nil, 0, err
 	}

@@ -26,11 +26,7 @@ func projectCommand(e *env) *cli.Command {
 			&cli.BoolFlag{Name: "chart", Usage: "draw the closing balance as a bar chart under the table (table format only)"},
 		),
 		Action: func(c *cli.Context) error {
-			p, err := readPlan(c, e)
-			if err != nil {
-				return err
-			}
-			g, err := goalOf(c, p)
+			p, g, err := planAndGoal(c, e)
 			if err != nil {
 				return err
 			}

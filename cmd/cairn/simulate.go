@@ -38,11 +38,7 @@ func simulateCommand(e *env) *cli.Command {
 			&cli.StringFlag{Name: "stream", Usage: "the deposit stream to solve for, by `NAME` (default: the first)"},
 		),
 		Action: func(c *cli.Context) error {
-			p, err := readPlan(c, e)
-			if err != nil {
-				return err
-			}
-			g, err := goalOf(c, p)
+			p, g, err := planAndGoal(c, e)
 			if err != nil {
 				return err
 			}

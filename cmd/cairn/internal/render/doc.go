@@ -68,7 +68,8 @@ type Table struct {
 // Add appends a row.
 func (t *Table) Add(cells ...Cell) { t.Rows = append(t.Rows, cells) }
 
-// Width is the width of t in plain text with amounts at their places.
+// Width measures t for fitting in [LineWidth]: the widest head or cell of
+// each shown column, amounts at their places, two spaces between columns.
 func (t *Table) Width() int {
 	total := 0
 	for i, c := range t.Cols {
