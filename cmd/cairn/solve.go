@@ -140,8 +140,9 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 			j["every"] = a.Stream.Every.String()
 			j["in_todays_money"] = a.Stream.Today
 			j["first_amount"] = jamt(p, a.FirstAmount)
-			// the CSV form has the words without the comma
-			add("stream", render.Label(streamLabel(a.Stream)+", "+every(a.Stream), streamLabel(a.Stream)+" "+every(a.Stream)))
+			// the CSV form has always had these words without their commas
+			stream := streamLabel(a.Stream) + ", " + every(a.Stream)
+			add("stream", render.Label(stream, strings.ReplaceAll(stream, ",", "")))
 			add("amount", cash(p, a.Amount))
 			if a.Stream.Today {
 				add("first amount, in "+a.Stream.From.String(), cash(p, a.FirstAmount))
