@@ -1,5 +1,11 @@
 package main
 
+import (
+	"fmt"
+
+	"github.com/urfave/cli/v2"
+)
+
 // fileHelp documents every key of the goals file with its default.
 const fileHelp = `THE GOALS FILE (format version 1)
 
@@ -124,3 +130,25 @@ EXAMPLE
 cairn is a planning aid: its results are estimates, not financial, tax or
 investment advice.
 `
+
+func helpCommand(e *env) *cli.Command {
+	return &cli.Command{
+		Name:      "help",
+		Usage:     "help on a command, or on the goals file: cairn help file",
+		ArgsUsage: "[COMMAND|file]",
+		Action: func(c *cli.Context) error {
+			topic := c.Args().First()
+			switch topic {
+			case "":
+				return cli.ShowAppHelp(c)
+			case "file":
+				fmt.Fprint(e.stdout, fileHelp)
+				return nil
+			}
+			if c.App.Command(topic) == nil {
+				return usagef("run `cairn --help` for the commands", "no help topic %q", topic)
+			}
+			return cli.ShowCommandHelp(c, topic)
+		},
+	}
+}

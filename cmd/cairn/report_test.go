@@ -14,6 +14,7 @@ import (
 	"strings"
 	"testing"
 
+	"cairn/cmd/cairn/internal/render"
 	"cairn/examples"
 	"cairn/plan"
 )
@@ -423,7 +424,7 @@ func TestReport_Rules(t *testing.T) {
 				if want := g.HasVolatility && g.Volatility > 0 || p.HasInflationVolatility && p.InflationVolatility > 0; band != want {
 					t.Errorf("%s: band drawn %v, want %v (volatility %v)", g.Name, band, want, g.Volatility)
 				}
-				if band && !strings.Contains(st, fmt.Sprintf("%s simulated paths (seed %d)", groupInt(reportPaths), reportSeed)) {
+				if band && !strings.Contains(st, fmt.Sprintf("%s simulated paths (seed %d)", render.Grouped(reportPaths), reportSeed)) {
 					t.Errorf("%s: the band does not state its paths and seed", g.Name)
 				}
 			}
@@ -451,15 +452,17 @@ func TestReport_Figures(t *testing.T) {
 	if len(status) != 1 {
 		t.Fatalf("%d status tables, want 1", len(status))
 	}
-	want := tableOf(statusDoc(p, plan.StatusOf(p)).grids[0], "", "")
+	want := statusDoc(p, plan.StatusOf(p)).Tables()[0]
 	rows := status[0].find(func(n *node) bool { return n.name == "tr" && n.parent.name == "tbody" })
 	if len(rows) != len(want.Rows) {
 		t.Fatalf("status table: %d rows, want %d", len(rows), len(want.Rows))
 	}
 	for i, r := range rows {
 		var w []string
-		for _, c := range want.Rows[i] {
-			w = append(w, c.Text)
+		for k, c := range want.Rows[i] {
+			if !want.Cols[k].Hidden {
+				w = append(w, c.String())
+			}
 		}
 		if got := cells(r); strings.Join(got, "|") != strings.Join(w, "|") {
 			t.Errorf("status row %d = %q, want %q (as cairn status prints it)", i+1, got, w)
@@ -521,7 +524,7 @@ func TestReport_Writes(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("report: exit %d", code)
 	}
-	if want := "wrote " + out + "\n\n" + wrap("Note: "+noteText, 80) + wrap("Caution: "+cautionText, 80); stdout != want {
+	if want := "wrote " + out + "\n\n" + render.Wrap("Note: "+noteText, render.LineWidth) + render.Wrap("Caution: "+cautionText, render.LineWidth); stdout != want {
 		t.Errorf("stdout = %q, want %q", stdout, want)
 	}
 	first, err := os.ReadFile(out)

@@ -7,6 +7,7 @@ package main
 // --force, and works on file systems without chmod or hard links.
 
 import (
+	"cairn/cmd/cairn/internal/render"
 	"errors"
 	"fmt"
 	"io"
@@ -200,7 +201,7 @@ func writeStdout(e *env, data []byte) error {
 	if _, err := e.stdout.Write(data); err != nil {
 		return outputError(err)
 	}
-	fmt.Fprint(e.stderr, wrap("Note: "+noteText, 80))
+	fmt.Fprint(e.stderr, render.Wrap("Note: "+noteText, 80))
 	return nil
 }
 

@@ -1,0 +1,102 @@
+package main
+
+import (
+	"fmt"
+	"strconv"
+
+	"github.com/urfave/cli/v2"
+
+	"cairn/cmd/cairn/internal/render"
+	"cairn/plan"
+)
+
+func compareCommand(e *env) *cli.Command {
+	return &cli.Command{
+		Name:      "compare",
+		Usage:     "what-if grid: solve one goal under every combination of changed values",
+		ArgsUsage: "[FILE]",
+		Description: "Each --vary KEY=V1,V2,… is one axis; every combination is solved side by side with the\n" +
+			"base plan first. Separate values with ; when they hold commas (deposit=1,000;1,500).\n\n" +
+			"Example:\n   cairn compare examples/household.yaml --goal Retirement --for deposit --vary rate=5%,6%,7% --vary by=2049-12,2051-12",
+		Flags: append(fileFlags(true), goalFlag(true),
+			&cli.StringSliceFlag{Name: "vary", Usage: "an axis `KEY=V1,V2,…` (repeatable)"},
+			&cli.StringFlag{Name: "for", Value: "time", Usage: "the `QUANTITY` to solve for: " + plan.Quantities},
+			&cli.StringFlag{Name: "stream", Usage: "the stream to change and solve for, by `NAME`"},
+		),
+		Action: func(c *cli.Context) error {
+			p, g, q, err := planGoalQuantity(c, e)
+			if err != nil {
+				return err
+			}
+			var axes []plan.Vary
+			for _, s := range c.StringSlice("vary") {
+				v, err := plan.ParseVary(s)
+				if err != nil {
+					return usagef("", "--vary: %v", err)
+				}
+				axes = append(axes, v)
+			}
+			if len(axes) == 0 {
+				return usagef("for example --vary rate=5%,6%,7%", "--vary is required")
+			}
+			if _, err := parseFormat(c); err != nil {
+				return err
+			}
+			gr, err := plan.Compare(p, g.Name, c.String("stream"), axes, plan.Question{For: q, Stream: c.String("stream")})
+			if err != nil {
+				return &inputError{err: fmt.Errorf("--vary %v", err)}
+			}
+			return out(c, e, compareDoc(p, g, gr))
+		},
+	}
+}
+
+// compareDoc is the what-if grid gr of goal g, the base plan first.
+func compareDoc(p *plan.Plan, g *plan.Goal, gr *plan.Grid) *render.Doc {
+	d := newDoc(p, hasDrawdown(g))
+	d.Lead = []string{fmt.Sprintf("%s: what-if, solving for %s; the base plan is the first row.", g.Name, gr.For)}
+	cols := []render.Column{{Head: "case", Key: "case"}}
+	for _, k := range gr.Keys {
+		cols = append(cols, render.Column{Head: k, Key: k})
+	}
+	anyErr := gr.Base.Err != nil
+	for _, c := range gr.Cells {
+		anyErr = anyErr || c.Err != nil
+	}
+	cols = append(cols, render.Column{Head: gr.For.String(), Key: "answer", Numeric: true}, render.Column{Head: "why not", Key: "reason", Hidden: !anyErr})
+	t := &render.Table{Cols: cols}
+	// row adds one case to the table and returns its JSON form.
+	row := func(name string, values []string, c plan.Cell) map[string]any {
+		jc := map[string]any{"case": name}
+		vals := map[string]any{}
+		cells := []render.Cell{render.Text(name)}
+		for i, k := range gr.Keys {
+			vals[k] = values[i]
+			cells = append(cells, render.Text(values[i]))
+		}
+		jc["values"] = vals
+		if c.Err != nil {
+			why := reasonOf(c.Err)
+			cells = append(cells, render.Label("none", ""), render.Text(why))
+			jc["answer"], jc["reason"] = nil, why
+		} else {
+			ans := answerValue(p, c.Answer)
+			cells = append(cells, ans, render.Text(""))
+			jc["answer"] = ans.Plain()
+		}
+		t.Add(cells...)
+		return jc
+	}
+	base := make([]string, len(gr.Keys))
+	for i := range base {
+		base[i] = "as planned"
+	}
+	jb := row("base", base, gr.Base)
+	var cells []map[string]any
+	for i, c := range gr.Cells {
+		cells = append(cells, row(strconv.Itoa(i+1), c.Values, c))
+	}
+	d.Blocks = []render.Block{t}
+	d.Data["goal"], d.Data["for"], d.Data["base"], d.Data["cells"] = g.Name, gr.For.String(), jb, cells
+	return d
+}
