@@ -7,7 +7,6 @@ package main
 // --force, and works on file systems without chmod or hard links.
 
 import (
-	"cairn/cmd/cairn/internal/render"
 	"errors"
 	"fmt"
 	"io"
@@ -18,6 +17,8 @@ import (
 	"syscall"
 
 	"github.com/urfave/cli/v2"
+
+	"cairn/cmd/cairn/internal/render"
 
 	"cairn/plan"
 )
