@@ -19,7 +19,6 @@ import (
 	"github.com/urfave/cli/v2"
 
 	"cairn/cmd/cairn/internal/render"
-
 	"cairn/plan"
 )
 
