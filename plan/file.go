@@ -160,7 +160,7 @@ func (d *decoder) name(n *yaml.Node, path string) (string, bool) {
 	if !ok {
 		return "", false
 	}
-	s = strings.TrimSpace(s)
+	s = cleanName(s)
 	if utf8.RuneCountInString(s) > MaxNameLength {
 		d.errorf(n, path, "name %s is longer than %d characters", money.Quote(s), MaxNameLength)
 		return "", false
@@ -308,16 +308,15 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		d.errorf(goalsNode, "goals", "%d goals, over the limit of %d a file", len(goalsNode.Content), MaxGoals)
 		return p
 	}
-	names := map[string]int{}
+	var names named
 	for i, gn := range goalsNode.Content {
 		g := d.goal(p, resolve(gn), fmt.Sprintf("goals[%d]", i))
 		if g == nil {
 			continue
 		}
-		if j, dup := names[lower(g.Name)]; dup {
-			d.errorf(gn, fmt.Sprintf("goals[%d].name", i), "duplicate goal name %s (goals[%d] has it too)", money.Quote(g.Name), j)
+		if j, dup := names.add(g.Name, fmt.Sprintf("goals[%d]", i)); dup {
+			d.errorf(gn, fmt.Sprintf("goals[%d].name", i), "duplicate goal name %s (%s has it too)", money.Quote(g.Name), j)
 		}
-		names[lower(g.Name)] = i
 		p.Goals = append(p.Goals, g)
 	}
 	return p
@@ -327,6 +326,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 	g := &Goal{pos: d.pos(n)}
 	var nameSeen, rateSeen bool
 	var byNode, targetNode *yaml.Node
+	var streams named
 	limit := p.Start.Add(HorizonYears*12 - 1)
 	checkMonth := func(v *yaml.Node, pth string, m Month) bool {
 		if m < p.Start {
@@ -392,7 +392,11 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 				return
 			}
 			for i, sn := range v.Content {
-				if s := d.stream(p, resolve(sn), fmt.Sprintf("%s[%d]", kp, i), out, checkMonth); s != nil {
+				sp := fmt.Sprintf("%s[%d]", kp, i)
+				if s := d.stream(p, resolve(sn), sp, out, checkMonth); s != nil {
+					if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
+						d.errorf(sn, sp+".name", "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
+					}
 					if out {
 						g.Withdrawals = append(g.Withdrawals, s)
 					} else {
@@ -658,10 +662,17 @@ func parseLength(s string) (int, error) {
 	if err != nil || n <= 0 {
 		return 0, bad
 	}
+	beyond := fmt.Errorf("length %s is beyond the %d-year horizon", money.Quote(s), HorizonYears)
 	switch f[1] {
 	case "year", "years":
+		if n > HorizonYears { // before n*12 can overflow
+			return 0, beyond
+		}
 		return n * 12, nil
 	case "month", "months":
+		if n > HorizonYears*12 {
+			return 0, beyond
+		}
 		return n, nil
 	}
 	return 0, bad

@@ -110,7 +110,7 @@ func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
 			}
 		}
 		for _, g := range p.Goals {
-			if goal != "" && !strings.EqualFold(g.Name, goal) {
+			if goal != "" && p.Goal(goal) != g {
 				continue
 			}
 			if p, _, err = p.With(g.Name, streamFlag(c), sets); err != nil {
