@@ -213,13 +213,9 @@ func (d *decoder) rate(n *yaml.Node, path string, lo, hi float64) (money.Rate, b
 	if !ok {
 		return money.Rate{}, false
 	}
-	r, err := money.ParseRate(s)
+	r, err := ParseRateIn(s, lo, hi)
 	if err != nil {
 		d.errorf(n, path, "%v", err)
-		return r, false
-	}
-	if e := r.Effective() * 100; e < lo || e > hi {
-		d.errorf(n, path, "rate %s is out of range (want %g%% to %g%% a year effective)", money.Quote(s), lo, hi)
 		return r, false
 	}
 	return r, true
