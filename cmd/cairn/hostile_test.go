@@ -66,3 +66,41 @@ func TestRun_HostileArgs(t *testing.T) {
 		})
 	}
 }
+
+// TestRun_CSVFormulaNames checks that goal and stream names that would start
+// a spreadsheet formula are neutralised in CSV, and only there. Source:
+// OWASP, "CSV Injection" (prefix a cell starting with =, +, -, @, tab or
+// carriage return with a single quote).
+func TestRun_CSVFormulaNames(t *testing.T) {
+	dir := t.TempDir()
+	f := filepath.Join(dir, "f.yaml")
+	text := "cairn: 1\nstart: 2027-01\ngoals:\n  - name: \"=1+2\"\n    target: 1000\n    by: 2030-12\n    deposits:\n      - name: \"@SUM(A1)\"\n        amount: 10\n        every: month\n"
+	if err := os.WriteFile(f, []byte(text), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var stdout, stderr bytes.Buffer
+	for _, args := range [][]string{{"solve", f, "--for", "deposit"}, {"solve", f, "--for", "deposit", "--explain"}, {"status", f}, {"check", f}} {
+		stdout.Reset()
+		if code := run(append(append([]string{"cairn"}, args...), "--format", "csv"), strings.NewReader(""), &stdout, &stderr, fixedNow); code != 0 {
+			t.Fatalf("%q: exit %d: %s", args, code, stderr.String())
+		}
+		if !strings.Contains(stdout.String(), "'=1+2") && !strings.Contains(stdout.String(), "'@SUM(A1)") {
+			t.Errorf("%q: want a name with its quote:\n%s", args, stdout.String())
+		}
+		for _, line := range strings.Split(strings.TrimSpace(stdout.String()), "\n") {
+			for _, cell := range strings.Split(line, ",") {
+				if cell != "" && strings.ContainsRune("=+@", rune(cell[0])) {
+					t.Errorf("%q: CSV cell %q starts a formula:\n%s", args, cell, stdout.String())
+				}
+			}
+		}
+	}
+	stdout.Reset()
+	if code := run([]string{"cairn", "status", f, "--format", "csv"}, strings.NewReader(""), &stdout, &stderr, fixedNow); code != 0 || !strings.Contains(stdout.String(), "'=1+2") {
+		t.Errorf("status csv: exit %d, want the name as '=1+2:\n%s", code, stdout.String())
+	}
+	stdout.Reset()
+	if code := run([]string{"cairn", "status", f, "--format", "json"}, strings.NewReader(""), &stdout, &stderr, fixedNow); code != 0 || !strings.Contains(stdout.String(), `"=1+2"`) {
+		t.Errorf("status json: exit %d, want the name as written:\n%s", code, stdout.String())
+	}
+}
