@@ -150,14 +150,7 @@ func TestPlan_With(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(strings.Join(tt.ovs, " "), func(t *testing.T) {
-			var ovs []plan.Override
-			for _, s := range tt.ovs {
-				o, err := plan.ParseOverride(s)
-				if err != nil {
-					t.Fatal(err)
-				}
-				ovs = append(ovs, o)
-			}
+			ovs := mustOverrides(t, tt.ovs)
 			q, g, err := p.With(tt.goal, tt.stream, ovs)
 			if err != nil {
 				t.Fatalf("With(%q, %q, %v) error: %v", tt.goal, tt.stream, tt.ovs, err)
