@@ -1,10 +1,6 @@
 package plan
 
-import (
-	"fmt"
-
-	"cairn/money"
-)
+import "fmt"
 
 // A problem is a rule across keys that a goal breaks: the goals file refuses
 // it at the key it names, and a what-if (--set, --vary) refuses it with the
@@ -31,15 +27,11 @@ func (p *Plan) settle() {
 }
 
 // problems runs the cross-field checks over every goal of the plan. They run
-// after parsing and after every what-if change.
+// after parsing and after every what-if change. (Unique goal names are the
+// decoder's: they are about the list as written, and no what-if renames.)
 func (p *Plan) problems() []problem {
 	var out []problem
-	names := map[string]int{}
-	for i, g := range p.Goals {
-		if j, dup := names[lower(g.Name)]; dup {
-			out = append(out, problem{goal: g, key: "name", msg: fmt.Sprintf("duplicate goal name %s (goals[%d] has it too)", money.Quote(g.Name), j)})
-		}
-		names[lower(g.Name)] = i
+	for _, g := range p.Goals {
 		if n := len(g.Deposits) + len(g.Withdrawals); n > MaxStreams {
 			out = append(out, problem{goal: g, msg: fmt.Sprintf("%d streams, over the limit of %d a goal", n, MaxStreams)})
 		}

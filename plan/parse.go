@@ -437,12 +437,19 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		d.errorf(goalsNode, "goals", "%d goals, over the limit of %d a file", len(items), MaxGoals)
 		return p
 	}
+	names := map[string]int{}
 	for i, gn := range items {
 		path := fmt.Sprintf("goals[%d]", i)
 		d.nodes[path] = gn
-		if g := d.goal(p, resolve(gn), path); g != nil {
-			p.Goals = append(p.Goals, g)
+		g := d.goal(p, resolve(gn), path)
+		if g == nil {
+			continue
 		}
+		if j, dup := names[lower(g.Name)]; dup {
+			d.errorf(gn, join(path, "name"), "duplicate goal name %s (goals[%d] has it too)", money.Quote(g.Name), j)
+		}
+		names[lower(g.Name)] = i
+		p.Goals = append(p.Goals, g)
 	}
 	return p
 }
