@@ -18,9 +18,11 @@ type problem struct {
 // parsing and after every what-if change.
 func (p *Plan) settle() {
 	for _, g := range p.Goals {
-		for _, s := range append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...) {
-			if !s.growSet {
-				s.Grow, s.GrowInflation = 0, s.Today
+		for _, ss := range [][]*Stream{g.Deposits, g.Withdrawals} {
+			for _, s := range ss {
+				if !s.growSet {
+					s.Grow, s.GrowInflation = 0, s.Today
+				}
 			}
 		}
 	}

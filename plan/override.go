@@ -119,7 +119,7 @@ func (p *Plan) apply(g *Goal, stream string, o Override) error {
 			return fmt.Errorf("%s: goal %s has no %s stream", o.Key, money.Quote(g.Name), kind)
 		}
 	}
-	d := newDecoder("--set " + o.Key)
+	d := &decoder{file: "--set " + o.Key} // one scalar: no keys to track
 	var v value
 	if !d.value(k, &yaml.Node{Kind: yaml.ScalarNode, Tag: "!!str", Value: o.Value}, o.Key, t, &v) {
 		return fmt.Errorf("%s", d.errs[0].Msg)
