@@ -74,6 +74,7 @@ type Key struct {
 
 	Required bool
 	Missing  string // the reason given when a required key is missing, or ""
+	OrAsOf   bool   // Required unless the caller gives today's month (Parse's asOf)
 
 	Default string // help: the value when the key is absent
 	Help    string // help: what the key means, one or more lines
@@ -122,7 +123,8 @@ var Keys = []*Key{
 	{Name: "cairn", Scope: InPlan, Form: FormVersion, Required: true,
 		Missing: `want "cairn: 1", the format version, at the top`,
 		Default: "required", Help: "the format version: 1"},
-	{Name: "start", Scope: InPlan, Form: FormMonth,
+	{Name: "start", Scope: InPlan, Form: FormMonth, Required: true, OrAsOf: true,
+		Missing: "want the plan's first month, such as start: 2027-01",
 		Default: "the month after --as-of (today)",
 		Help: "first month of the plan; t = 0 is its start, balances\n" +
 			"are as of then, and \"today's money\" means money then",

@@ -69,6 +69,7 @@ type decoder struct {
 	nodes map[string]*yaml.Node // each value decoded, by path, to position cross-field problems
 	bad   map[string]bool       // paths whose value was refused
 	goals map[*Goal]string      // each goal's path, such as goals[0]
+	asOf  Month                 // today's month, if the caller gives it
 }
 
 func newDecoder(file string) *decoder {
@@ -280,7 +281,7 @@ func (d *decoder) keys(n *yaml.Node, path string, s Scope, t *target) map[string
 		return nil
 	}
 	for _, k := range ks {
-		if k.Required && given[k.Name] == nil {
+		if k.Required && given[k.Name] == nil && !(k.OrAsOf && d.asOf != 0) {
 			msg := fmt.Sprintf("missing key %q", k.Name)
 			if k.Missing != "" {
 				msg += " (" + k.Missing + ")"
@@ -411,14 +412,12 @@ func (d *decoder) list(v *yaml.Node, path, noun string) ([]*yaml.Node, bool) {
 
 func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 	p := &Plan{File: d.file, Currency: money.USD, Rounding: money.HalfEven}
+	d.asOf = asOf
 	given := d.keys(n, "", InPlan, &target{p: p})
 	if given == nil {
 		return nil
 	}
 	if given["start"] == nil {
-		if asOf == 0 {
-			d.errorf(n, "", "missing key \"start\" (want the plan's first month, such as start: 2027-01)")
-		}
 		p.Start = asOf + 1
 	}
 	goalsNode := given["goals"]
