@@ -13,6 +13,13 @@
 // deposits and values beyond the limits (see [MaxFileSize], [MaxGoals],
 // [HorizonYears] and the other limits).
 //
+// One table, [Keys], says for every key where it may appear, how its value
+// is written and checked, where it goes in the model, its help text and
+// whether a what-if may change it. The decoder, [Plan.With] (--set and
+// --vary) and the help on the file all read it, and the rules across keys
+// (a target in today's money needs a deadline) run after parsing and after
+// every what-if, so a what-if the file would refuse is refused alike.
+//
 // # Time
 //
 // Time is exact. Every event sits on an integer tick of a year divided into

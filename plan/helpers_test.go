@@ -21,6 +21,20 @@ func mustParse(t testing.TB, name, src string) *plan.Plan {
 	return p
 }
 
+// mustOverrides parses each KEY=VALUE with [plan.ParseOverride].
+func mustOverrides(t testing.TB, ss []string) []plan.Override {
+	t.Helper()
+	var ovs []plan.Override
+	for _, s := range ss {
+		o, err := plan.ParseOverride(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ovs = append(ovs, o)
+	}
+	return ovs
+}
+
 // mustProject projects goal g of p through month end.
 func mustProject(t testing.TB, p *plan.Plan, g *plan.Goal, end plan.Month) *plan.Ledger {
 	t.Helper()

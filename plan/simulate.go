@@ -13,7 +13,6 @@ import (
 	"sync/atomic"
 
 	"github.com/shopspring/decimal"
-	"gopkg.in/yaml.v3"
 
 	"cairn/money"
 )
@@ -1104,18 +1103,4 @@ func ParseVolatility(s string) (float64, error) {
 		return 0, fmt.Errorf("volatility %q is out of range (want 0%% to %d%% a year)", s, MaxVolatilityPercent)
 	}
 	return x, nil
-}
-
-// volatility decodes a volatility key of a goals file.
-func (d *decoder) volatility(n *yaml.Node, path string) (float64, bool) {
-	s, ok := d.scalar(n, path, "a volatility a year such as 12%")
-	if !ok {
-		return 0, false
-	}
-	x, err := ParseVolatility(s)
-	if err != nil {
-		d.errorf(n, path, "%v", err)
-		return 0, false
-	}
-	return x, true
 }
