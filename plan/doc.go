@@ -49,7 +49,9 @@
 // near-halfway products in exact arithmetic. The monthly credit of interest
 // accrued more often than monthly is the float sum rounded: its exact value
 // has powers of the daily or weekly rate in its denominator and is never
-// halfway. When compounding is more frequent than monthly (daily, weekly),
+// halfway. So is interest that includes money moved part way through an
+// interest period: under compound it is irrational, under simple (j·τ) it
+// is rational but summed in float, a known limit. When compounding is more frequent than monthly (daily, weekly),
 // interest accrues unrounded at every compounding date, itself earning
 // interest, and is credited at each month end, as banks credit daily
 // interest and as Regulation DD's daily-rate examples assume. Fees ("fee: 0.25%", a year) are taken at each month end as a
