@@ -5,8 +5,6 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/shopspring/decimal"
-
 	"cairn/money"
 	"cairn/plan"
 )
@@ -80,6 +78,3 @@ func roundTo(x float64, places int) float64 {
 	s := math.Pow(10, float64(places))
 	return math.Round(x*s) / s
 }
-
-// decimalOf returns n as an exact decimal multiplier.
-func decimalOf(n int64) decimal.Decimal { return decimal.NewFromInt(n) }

@@ -1,5 +1,7 @@
 package plan
 
+import "cairn/money"
+
 // Limits on goals files. Files beyond them are refused with a message, not
 // processed slowly. Each limit has one name; messages, checks and the help
 // text all read it from here.
@@ -19,3 +21,7 @@ const (
 	MaxInflationPct  = 50
 	MaxGrowthPercent = 50 // a stream's yearly rise or fall, effective
 )
+
+// amountLimit is [MaxAmountUnits] as messages write it, grouped in
+// thousands: "1,000,000,000,000". Messages use this name, never the digits.
+var amountLimit = money.Units(MaxAmountUnits).Format(money.Currency{Places: 0}, false)

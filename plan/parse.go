@@ -218,7 +218,7 @@ func (d *decoder) amount(n *yaml.Node, path string, allowToday, allowNeg bool) (
 		return a, false, false
 	}
 	if a.Abs().Cmp(money.Units(MaxAmountUnits)) > 0 {
-		d.errorf(n, path, "amount %s is beyond the limit of 1,000,000,000,000", money.Quote(s))
+		d.errorf(n, path, "amount %s is beyond the limit of %s", money.Quote(s), amountLimit)
 		return a, false, false
 	}
 	return a, today, true
