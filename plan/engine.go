@@ -43,6 +43,7 @@ type event struct {
 	step  int32   // rate step in force for the interest period the event is in
 	tau   float64 // flows and fees: fraction of the interest period left until its credit
 	ti    int32   // index of tau in schedule.taus
+	year  int32   // flows: whole years of growth in unit
 	unit  float64 // flows: amount per unit of the source's base amount (growth, indexing)
 	month Month   // the month the event is shown in
 }
@@ -77,6 +78,10 @@ type schedule struct {
 	sources  []source
 	places   int
 	rounding money.Rounding
+	// grow is, per source, the yearly growth rate of its amounts when each
+	// event's unit is exactly (1 + grow)^year, NaN when it is not (an amount
+	// in today's money indexed over part of a year).
+	grow []float64
 }
 
 func monthTick(p *Plan, m Month) int64 { return int64(m-p.Start) * TicksPerMonth }
@@ -212,6 +217,7 @@ func build(p *Plan, g *Goal, end Month) *schedule {
 	runs = append(runs, ev)
 	// flows
 	s.sources = sourcesOf(g)
+	s.grow = make([]float64, len(s.sources)) // the opening balance and one-time amounts: unit 1
 	for k, st := range append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...) {
 		src := int32(1 + k)
 		P := TicksPerYear / int64(st.Every.PerYear())
@@ -222,6 +228,10 @@ func build(p *Plan, g *Goal, end Month) *schedule {
 		}
 		gr := st.growth(p.Inflation)
 		lg := math.Log1p(gr)
+		s.grow[src] = gr
+		if first != 1 {
+			s.grow[src] = math.NaN()
+		}
 		ev = make([]event, 0, max(s.endTick-from, 0)/P+2)
 		for k := int64(0); ; k++ {
 			ps := from + k*P
@@ -237,7 +247,7 @@ func build(p *Plan, g *Goal, end Month) *schedule {
 			if year > 0 && gr != 0 {
 				u = first * math.Exp(float64(year)*lg)
 			}
-			ev = append(ev, event{tick: t, kind: kd, src: src, unit: u, month: label})
+			ev = append(ev, event{tick: t, kind: kd, src: src, unit: u, year: int32(year), month: label})
 		}
 		runs = append(runs, ev)
 	}
@@ -381,6 +391,29 @@ func (s *schedule) rates(pr *params) []float64 {
 	return js
 }
 
+// rateFactors appends to dst the periodic rate of each step under pr as a
+// multiplier: the float of [schedule.rates], exact when the rate is
+// rational. A dst with room on the caller's stack spares an allocation.
+func (s *schedule) rateFactors(pr *params, dst []money.Multiplier) []money.Multiplier {
+	for _, r := range s.steps {
+		if pr.rate != nil {
+			r = *pr.rate
+		}
+		dst = append(dst, r.PeriodMultiplier(s.comp))
+	}
+	return dst
+}
+
+// unitOf returns the multiplier of flow event e's amount: its unit, exact
+// when the unit is a whole number of years' growth at a decimal rate.
+func (s *schedule) unitOf(e *event) money.Multiplier {
+	g := s.grow[e.src]
+	if math.IsNaN(g) {
+		return money.FloatMultiplier(e.unit)
+	}
+	return money.GrowthMultiplier(e.unit, g, int(e.year))
+}
+
 // allSources, as floatOpts.only, values every source together, unrounded
 // and unclamped: a smooth function of the rate for root finding.
 const allSources = -2
@@ -472,8 +505,11 @@ func (s *schedule) runFloat(pr *params, o floatOpts) floatResult {
 // exact whole number of the currency's minor unit (cents for USD), a
 // fixed-point decimal in an int64; each interest credit, fee and growing
 // amount is computed from those exact balances in float64 and rounded once,
-// to the minor unit, by the plan's rule. Interest accrued between monthly
-// credits of a more-than-monthly compounding is carried unrounded. When rec
+// to the minor unit, by the plan's rule; a product within a hair of half a
+// unit is settled in exact arithmetic by money.RoundProduct, from the rate's
+// exact form (see rateFactors and unitOf), so that a tie goes by the rule.
+// Interest accrued between monthly credits of a more-than-monthly
+// compounding is carried unrounded. When rec
 // is set, every movement is recorded there. The solvers' searches and the
 // ledger both walk here, so what a search finds is what the ledger shows.
 func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) floatResult {
@@ -481,9 +517,15 @@ func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) flo
 	rule := s.rounding
 	round := func(x float64) float64 { return money.RoundMinor(x, rule) }
 	win, wout := s.weights(js)
+	jm := s.rateFactors(pr, make([]money.Multiplier, 0, 8))
 	nt := int32(len(s.taus))
 	fee := s.goal.Fee / 12
-	bal := int64(round(pr.amountsF[0] * scale))
+	feeM := money.RateMultiplier(fee, s.goal.Fee, 12, 1)
+	bal := int64(money.RoundProduct(pr.amountsF[0]*scale, money.One, 0, rule))
+	// Each rounding below is money.RoundFast, inlined, and RoundProduct only
+	// when the float product lies near a half unit.
+	var q float64
+	var sure bool
 	base, acc, accrued := float64(bal), 0.0, 0.0
 	res := floatResult{shortTick: -1}
 	var peak int64
@@ -500,7 +542,10 @@ func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) flo
 				base, acc = float64(bal)+accrued, 0
 				continue
 			}
-			x := int64(round(in))
+			if q, sure = money.RoundFast(in); !sure {
+				q = money.RoundProduct(base, jm[e.step], acc, rule)
+			}
+			x := int64(q)
 			bal += x
 			base, acc = float64(bal), 0
 			if rec != nil && x != 0 {
@@ -515,12 +560,19 @@ func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) flo
 			}
 		case evFee:
 			if bal > 0 {
-				f := int64(round(float64(bal) * fee))
+				if q, sure = money.RoundFast(float64(bal) * fee); !sure {
+					q = money.RoundProduct(float64(bal), feeM, 0, rule)
+				}
+				f := int64(q)
 				if f == 0 {
 					continue
 				}
 				bal -= f
-				acc -= float64(f) * wout[e.step*nt+e.ti]
+				if e.tau == 1 { // a whole period's interest: part of the next base
+					base -= float64(f)
+				} else {
+					acc -= float64(f) * wout[e.step*nt+e.ti]
+				}
 				if rec != nil {
 					post(e, Fee, "", -f, 0)
 				}
@@ -545,7 +597,10 @@ func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) flo
 			}
 		default:
 			src := &s.sources[e.src]
-			x := int64(round(pr.amountsF[e.src] * scale * e.unit))
+			if q, sure = money.RoundFast(pr.amountsF[e.src] * scale * e.unit); !sure {
+				q = money.RoundProduct(pr.amountsF[e.src]*scale, s.unitOf(e), 0, rule)
+			}
+			x := int64(q)
 			var short int64
 			if src.out {
 				if x > 0 {
@@ -560,7 +615,9 @@ func (s *schedule) walk(pr *params, js []float64, o *floatOpts, rec *Ledger) flo
 				}
 			}
 			bal += x
-			if x < 0 {
+			if e.tau == 1 { // a whole period's interest: part of the next base
+				base += float64(x)
+			} else if x < 0 {
 				acc += float64(x) * wout[e.step*nt+e.ti]
 			} else {
 				acc += float64(x) * win[e.step*nt+e.ti]

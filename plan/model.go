@@ -127,6 +127,9 @@ type Stream struct {
 	Grow          float64
 	GrowInflation bool
 	Out           bool // a withdrawal
+
+	growSet   bool // grow was given; otherwise an amount in today's money grows with inflation
+	forMonths int  // a withdrawal's length as given by for:, which sets Until
 }
 
 // growth returns the stream's yearly growth rate under inflation pi.

@@ -12,9 +12,6 @@ import (
 	"sync"
 	"sync/atomic"
 
-	"github.com/shopspring/decimal"
-	"gopkg.in/yaml.v3"
-
 	"cairn/money"
 )
 
@@ -896,7 +893,7 @@ func (pg *simProgram) meets(bal, target float64) bool { return bal >= target-0.5
 
 // toMinor returns a in minor units (cents), exactly for an amount in them.
 func (pg *simProgram) toMinor(a money.Amount) float64 {
-	return a.Decimal().Shift(int32(pg.s.places)).InexactFloat64()
+	return a.MinorFloat(pg.s.places)
 }
 
 // minor returns the source amounts of pr in minor units, scaled as the
@@ -911,7 +908,7 @@ func (pg *simProgram) minor(pr *params) []float64 {
 
 // amount returns x minor units as an amount rounded to them.
 func (pg *simProgram) amount(x float64) money.Amount {
-	return money.FromDecimal(decimal.NewFromFloat(x).Shift(-int32(pg.s.places))).Round(pg.s.places, pg.s.rounding)
+	return money.MinorRounded(x, pg.s.places, pg.s.rounding)
 }
 
 // successes counts the paths whose balance at the deadline meets their
@@ -1051,15 +1048,15 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 	}
 	c, found := searchCents(ok, guess, limit, true)
 	if !found {
-		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target in %s of the paths", money.Percent(level, 2))
+		return nil, noSolution(g, "no amount up to the %s limit meets the target in %s of the paths", amountLimit, money.Percent(level, 2))
 	}
 	ok(c)
-	unitAmt := money.FromDecimal(money.Cents(1).Decimal().Shift(int32(2 - s.places)))
-	ans := &SimDeposit{Stream: dep, Level: level, Amount: unitAmt.Mul(decimalInt(c)), SuccessPaths: counts[c]}
+	unitAmt := money.Minor(1, s.places)
+	ans := &SimDeposit{Stream: dep, Level: level, Amount: unitAmt.MulInt(int64(c)), SuccessPaths: counts[c]}
 	ans.Success = float64(ans.SuccessPaths) / float64(st.paths)
 	if c > 0 {
 		ok(c - 1)
-		ans.HasBelow, ans.Below, ans.BelowPaths = true, unitAmt.Mul(decimalInt(c-1)), counts[c-1]
+		ans.HasBelow, ans.Below, ans.BelowPaths = true, unitAmt.MulInt(int64(c-1)), counts[c-1]
 		ans.BelowSuccess = float64(ans.BelowPaths) / float64(st.paths)
 	}
 	ans.FirstAmount = ans.Amount
@@ -1104,18 +1101,4 @@ func ParseVolatility(s string) (float64, error) {
 		return 0, fmt.Errorf("volatility %q is out of range (want 0%% to %d%% a year)", s, MaxVolatilityPercent)
 	}
 	return x, nil
-}
-
-// volatility decodes a volatility key of a goals file.
-func (d *decoder) volatility(n *yaml.Node, path string) (float64, bool) {
-	s, ok := d.scalar(n, path, "a volatility a year such as 12%")
-	if !ok {
-		return 0, false
-	}
-	x, err := ParseVolatility(s)
-	if err != nil {
-		d.errorf(n, path, "%v", err)
-		return 0, false
-	}
-	return x, true
 }

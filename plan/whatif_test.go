@@ -150,14 +150,7 @@ func TestPlan_With(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(strings.Join(tt.ovs, " "), func(t *testing.T) {
-			var ovs []plan.Override
-			for _, s := range tt.ovs {
-				o, err := plan.ParseOverride(s)
-				if err != nil {
-					t.Fatal(err)
-				}
-				ovs = append(ovs, o)
-			}
+			ovs := mustOverrides(t, tt.ovs)
 			q, g, err := p.With(tt.goal, tt.stream, ovs)
 			if err != nil {
 				t.Fatalf("With(%q, %q, %v) error: %v", tt.goal, tt.stream, tt.ovs, err)
@@ -201,7 +194,9 @@ func TestPlan_With_Errors(t *testing.T) {
 		{"car", "", "deposit=-5", `deposit: negative amount "-5"`},
 		{"car", "lunch", "deposit=5", `deposit: goal "car" has no deposit stream named "lunch"`},
 		{"car", "", "withdrawal=5", `withdrawal: goal "car" has no withdrawal stream`},
-		{"car", "", "by=2026-01", `by: month 2026-01 is outside the plan (2027-01 to 2176-12)`},
+		// the file's message, one rule for both (issue 12: a what-if is refused like the file)
+		{"car", "", "by=2026-01", `by: month 2026-01 is before the plan's start 2027-01`},
+		{"car", "", "by=2177-01", `by: month 2177-01 is beyond the 150-year horizon (last month 2176-12)`},
 		{"car", "", "by=2026-13", `by: invalid month "2026-13"`},
 		{"car", "", "every=biweekly", `every: ambiguous frequency "biweekly"`},
 		{"car", "", "every=continuously", `every: continuous is for compounding only`},

@@ -41,9 +41,9 @@ func convertCommand(e *env) *cli.Command {
 				}
 				pi = &x
 			}
-			forms := allForms(r)
+			forms := r.Forms()
 			if s := c.String("to"); s != "" {
-				f, err := parseForm(r, s)
+				f, err := r.In(s)
 				if err != nil {
 					return usagef("", "--to: %v", err)
 				}
@@ -55,48 +55,6 @@ func convertCommand(e *env) *cli.Command {
 			return out(c, e, convertDoc(r, forms, pi))
 		},
 	}
-}
-
-// allForms lists r in every form.
-func allForms(r money.Rate) []money.Rate {
-	out := []money.Rate{r.AsEffective()}
-	for _, f := range money.Frequencies {
-		out = append(out, r.AsNominal(f))
-	}
-	out = append(out, r.AsNominal(money.Continuous))
-	for _, f := range money.Frequencies {
-		out = append(out, r.AsPeriodic(f))
-	}
-	return out
-}
-
-// parseForm parses a --to form and returns r in it.
-func parseForm(r money.Rate, s string) (money.Rate, error) {
-	t := strings.Join(strings.Fields(strings.ToLower(s)), " ")
-	switch t {
-	case "effective", "apy", "effective annual":
-		return r.AsEffective(), nil
-	case "continuous", "continuously", "compounded continuously":
-		return r.AsNominal(money.Continuous), nil
-	}
-	if w, ok := strings.CutPrefix(t, "compounded "); ok {
-		f, err := money.ParseFrequency(w)
-		if err != nil {
-			return r, err
-		}
-		return r.AsNominal(f), nil
-	}
-	if w, ok := strings.CutPrefix(t, "per "); ok {
-		f, err := money.ParseFrequency(w)
-		if err != nil || f == money.Continuous {
-			if err == nil {
-				err = fmt.Errorf("a periodic rate needs a period such as month")
-			}
-			return r, err
-		}
-		return r.AsPeriodic(f), nil
-	}
-	return r, fmt.Errorf("unknown form %q (want effective, continuous, \"compounded FREQ\" or \"per FREQ\")", s)
 }
 
 // convertDoc is rate r in each of forms, and with inflation pi its real rate.

@@ -103,8 +103,7 @@ func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
 		goal := c.String("goal")
 		if goal == "" && len(p.Goals) > 1 {
 			for _, o := range sets {
-				switch o.Key {
-				case "deposit", "withdrawal", "grow", "every":
+				if o.NeedsGoal() {
 					return nil, usagef("name the goal with --goal", "--set %s needs --goal when the file has several goals", o.Key)
 				}
 			}

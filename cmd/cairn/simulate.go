@@ -82,8 +82,8 @@ func simulateCommand(e *env) *cli.Command {
 // simOptions reads --paths, --seed, --volatility and --inflation-volatility.
 func simOptions(c *cli.Context) (plan.SimOptions, error) {
 	opts := plan.SimOptions{Paths: c.Int("paths"), Seed: c.Uint64("seed")}
-	if opts.Paths < plan.MinPaths || opts.Paths > plan.MaxPaths {
-		return opts, usagef("", "--paths: %d is out of range (want %d to %d)", opts.Paths, plan.MinPaths, plan.MaxPaths)
+	if err := plan.CheckPaths(opts.Paths); err != nil {
+		return opts, usagef("", "--paths: %v", err)
 	}
 	for _, f := range []struct {
 		name string
@@ -114,12 +114,9 @@ func simQuestion(c *cli.Context) (level float64, solve bool, err error) {
 	case !c.IsSet("success"):
 		return 0, false, usagef("for example --for deposit --success 90%", "--for deposit needs --success, the share of paths that must meet the target")
 	}
-	x, err := plan.ParsePercent(c.String("success"))
+	x, err := plan.ParseSuccess(c.String("success"))
 	if err != nil {
 		return 0, false, usagef("for example --success 90%", "--success: %v", err)
-	}
-	if !(x > 0 && x <= 1) {
-		return 0, false, usagef("for example --success 90%", "--success: %q is out of range (want more than 0%% and at most 100%%)", c.String("success"))
 	}
 	return x, true, nil
 }

@@ -3,6 +3,7 @@ package plan
 import (
 	"bytes"
 	"fmt"
+	"slices"
 	"strconv"
 	"strings"
 	"unicode/utf8"
@@ -12,30 +13,12 @@ import (
 	"cairn/money"
 )
 
-// Limits on goals files. Files beyond them are refused with a message, not
-// processed slowly.
-const (
-	MaxFileSize     = 1 << 20 // bytes
-	MaxGoals        = 100
-	MaxStreams      = 50 // deposits plus withdrawals, per goal
-	MaxOnce         = 1000
-	MaxRateSteps    = 200
-	HorizonYears    = 150 // no date may lie more than this after the start
-	MaxAmountUnits  = 1_000_000_000_000
-	MaxBalanceUnits = 10_000_000_000_000 // largest balance or target computed to the cent
-	MaxNameLength   = 100                // characters in a goal's, stream's or one-time amount's name
-	MaxRatePercent  = 100                // effective a year
-	MinRatePercent  = -99                // effective a year
-	MaxFeePercent   = 20
-	MaxInflationPct = 50
-)
-
 // Parse reads a goals file (format version 1). name is used in positions.
 // asOf is today's month, used only when the file has no start (the plan then
 // starts the month after). Every problem in the file is reported at once, as
 // an [ErrorList] of positioned errors.
 func Parse(name string, data []byte, asOf Month) (*Plan, error) {
-	d := &decoder{file: name}
+	d := newDecoder(name)
 	if len(data) > MaxFileSize {
 		d.errs = append(d.errs, &Error{Pos: Position{File: name}, Msg: fmt.Sprintf("file is %d bytes, over the %d-byte limit for a goals file", len(data), MaxFileSize)})
 		return nil, d.errs
@@ -59,24 +42,57 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 		d.errs = append(d.errs, &Error{Pos: Position{name, 1, 1}, Msg: "empty goals file (want at least \"cairn: 1\" and goals; cairn init writes an example)"})
 		return nil, d.errs
 	}
-	p := d.plan(root.Content[0], asOf)
-	if len(d.errs) == 0 {
-		for _, g := range p.Goals {
-			if err := p.checkBounds(g); err != nil {
-				d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
+	if p := d.plan(root.Content[0], asOf); p != nil {
+		p.settle()
+		for _, pr := range p.problems() {
+			d.report(pr)
+		}
+		if len(d.errs) == 0 {
+			for _, g := range p.Goals {
+				if err := p.checkBounds(g); err != nil {
+					d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
+				}
 			}
+		}
+		if len(d.errs) == 0 {
+			return p, nil
 		}
 	}
 	d.errs.Sort()
-	if err := d.errs.Err(); err != nil {
-		return nil, err
-	}
-	return p, nil
+	return nil, d.errs
 }
 
+// A decoder decodes one goals file (or one what-if value) through [Keys].
 type decoder struct {
-	file string
-	errs ErrorList
+	file  string
+	errs  ErrorList
+	nodes map[string]*yaml.Node // each value decoded, by path, to position cross-field problems
+	bad   map[string]bool       // paths whose value was refused
+	goals map[*Goal]string      // each goal's path, such as goals[0]
+	asOf  Month                 // today's month, if the caller gives it
+}
+
+func newDecoder(file string) *decoder {
+	return &decoder{file: file, nodes: map[string]*yaml.Node{}, bad: map[string]bool{}, goals: map[*Goal]string{}}
+}
+
+// report adds a cross-field problem, positioned at the key it names, unless
+// a key it depends on is already reported.
+func (d *decoder) report(pr problem) {
+	path := d.goals[pr.goal]
+	for _, k := range pr.involves {
+		if d.bad[join(path, k)] {
+			return
+		}
+	}
+	at, named := path, path
+	if pr.at != "" {
+		at = join(path, pr.at)
+	}
+	if pr.key != "" {
+		named = join(path, pr.key)
+	}
+	d.errs = append(d.errs, &Error{Pos: d.pos(d.nodes[at]), Msg: named + ": " + pr.msg})
 }
 
 func (d *decoder) errorf(n *yaml.Node, path, format string, args ...any) {
@@ -202,7 +218,7 @@ func (d *decoder) amount(n *yaml.Node, path string, allowToday, allowNeg bool) (
 		return a, false, false
 	}
 	if a.Abs().Cmp(money.Units(MaxAmountUnits)) > 0 {
-		d.errorf(n, path, "amount %s is beyond the limit of 1,000,000,000,000", money.Quote(s))
+		d.errorf(n, path, "amount %s is beyond the limit of %s", money.Quote(s), amountLimit)
 		return a, false, false
 	}
 	return a, today, true
@@ -234,84 +250,198 @@ func (d *decoder) month(n *yaml.Node, path string) (Month, bool) {
 	return m, true
 }
 
-func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
-	p := &Plan{File: d.file, Currency: money.USD, Rounding: money.HalfEven}
-	var goalsNode, startNode *yaml.Node
-	version := false
-	ok := d.fields(n, "", []string{"cairn", "start", "currency", "inflation", "inflation_volatility", "rounding", "goals"}, func(key string, v *yaml.Node) {
-		switch key {
-		case "cairn":
-			version = true
-			if s, ok := d.scalar(v, "cairn", "the format version 1"); ok && s != "1" {
-				d.errorf(v, "cairn", "unsupported format version %q (want 1)", s)
-			}
-		case "start":
-			startNode = v
-			if m, ok := d.month(v, "start"); ok {
-				p.Start = m
-			}
-		case "currency":
-			if s, ok := d.scalar(v, "currency", "an ISO 4217 code such as USD"); ok {
-				c, err := money.LookupCurrency(s)
-				if err != nil {
-					d.errorf(v, "currency", "%v", err)
-				}
-				p.Currency = c
-			}
-		case "inflation":
-			if r, ok := d.rate(v, "inflation", -MaxInflationPct, MaxInflationPct); ok {
-				p.Inflation = r
-			}
-		case "rounding":
-			if s, ok := d.scalar(v, "rounding", "half-even or half-up"); ok {
-				r, err := money.ParseRounding(s)
-				if err != nil {
-					d.errorf(v, "rounding", "%v", err)
-				}
-				p.Rounding = r
-			}
-		case "inflation_volatility":
-			p.InflationVolatility, p.HasInflationVolatility = d.volatility(v, "inflation_volatility")
-		case "goals":
-			goalsNode = v
+// keys decodes the mapping n of scope s into t through the table [Keys],
+// reporting unknown, repeated and missing keys and every refused value. It
+// returns the value node of each key given, or nil if n is not a mapping.
+func (d *decoder) keys(n *yaml.Node, path string, s Scope, t *target) map[string]*yaml.Node {
+	ks := keysIn(s)
+	given := map[string]*yaml.Node{}
+	ok := d.fields(n, path, keyNames(ks), func(name string, v *yaml.Node) {
+		given[name] = v
+		k := ks[slices.IndexFunc(ks, func(k *Key) bool { return k.Name == name })]
+		if k.Form == FormList {
+			return // the caller decodes the items
+		}
+		kp := join(path, name)
+		d.nodes[kp] = v
+		var val value
+		if !d.value(k, v, kp, t, &val) {
+			d.bad[kp] = true
+			return
+		}
+		if k.put != nil {
+			k.put(t, &val)
 		}
 	})
 	if !ok {
 		return nil
 	}
-	if !version {
-		d.errorf(n, "", "missing key \"cairn\" (want \"cairn: 1\", the format version, at the top)")
-	}
-	if startNode == nil {
-		if asOf == 0 {
-			d.errorf(n, "", "missing key \"start\" (want the plan's first month, such as start: 2027-01)")
+	for _, k := range ks {
+		if k.Required && given[k.Name] == nil && !(k.OrAsOf && d.asOf != 0) {
+			msg := fmt.Sprintf("missing key %q", k.Name)
+			if k.Missing != "" {
+				msg += " (" + k.Missing + ")"
+			}
+			d.errorf(n, path, "%s", msg)
 		}
+	}
+	return given
+}
+
+// value parses the value n of key k, reporting a refused value at path.
+// Months inside a goal must lie within the plan's horizon from t.p.Start.
+func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) bool {
+	ok := false
+	switch k.Form {
+	case FormVersion:
+		if v.text, ok = d.scalar(n, path, want[k.Form]); ok && v.text != "1" {
+			d.errorf(n, path, "unsupported format version %q (want 1)", v.text)
+			return false
+		}
+	case FormMonth:
+		if v.month, ok = d.month(n, path); ok && k.Scope != InPlan {
+			ok = d.inHorizon(t.p, n, path, v.month)
+		}
+	case FormCurrency:
+		if v.text, ok = d.scalar(n, path, want[k.Form]); ok {
+			if _, err := money.LookupCurrency(v.text); err != nil {
+				d.errorf(n, path, "%v", err)
+				return false
+			}
+		}
+	case FormRounding:
+		if v.text, ok = d.scalar(n, path, want[k.Form]); ok {
+			if _, err := money.ParseRounding(v.text); err != nil {
+				d.errorf(n, path, "%v", err)
+				return false
+			}
+		}
+	case FormRate:
+		v.rate, ok = d.rate(n, path, k.Min, k.Max)
+	case FormRates:
+		v.rates = d.rates(k, t.p, n, path)
+		ok = v.rates != nil
+	case FormVolatility:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			x, err := ParseVolatility(s)
+			if err != nil {
+				d.errorf(n, path, "%v", err)
+				return false
+			}
+			v.x, ok = x, true
+		}
+	case FormName:
+		v.text, ok = d.name(n, path)
+	case FormAmount, FormAmountToday, FormSignedAmount:
+		v.amount, v.today, ok = d.amount(n, path, k.Form == FormAmountToday, k.Form == FormSignedAmount)
+	case FormChoice:
+		s, sok := d.scalar(n, path, k.Want)
+		if !sok {
+			return false
+		}
+		w := strings.ToLower(strings.TrimSpace(s))
+		i := slices.IndexFunc(k.Choices, func(c Choice) bool { return c.Word == w })
+		if i < 0 {
+			d.errorf(n, path, "unknown %s %s (want %s)", k.Noun, money.Quote(s), k.Want)
+			return false
+		}
+		v.n, ok = k.Choices[i].Value, true
+	case FormFrequency:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			f, err := money.ParseFrequency(s)
+			switch {
+			case err != nil:
+				d.errorf(n, path, "%v", err)
+			case f == money.Continuous:
+				d.errorf(n, path, "continuous is for compounding only (want a payment frequency such as month)")
+			default:
+				v.freq, ok = f, true
+			}
+		}
+	case FormLength:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			m, err := parseLength(s)
+			switch {
+			case err != nil:
+				d.errorf(n, path, "%v", err)
+			case m > HorizonYears*12:
+				d.errorf(n, path, "length %s is beyond the %d-year horizon", money.Quote(s), HorizonYears)
+			default:
+				v.n, ok = m, true
+			}
+		}
+	case FormGrowth:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			if strings.EqualFold(strings.TrimSpace(s), "inflation") {
+				v.inflation, ok = true, true
+			} else if r, rok := d.rate(n, path, k.Min, k.Max); rok {
+				v.x, ok = r.Effective(), true
+			}
+		}
+	}
+	return ok
+}
+
+// inHorizon reports whether month m lies within the plan's horizon,
+// reporting it at path if not.
+func (d *decoder) inHorizon(p *Plan, n *yaml.Node, path string, m Month) bool {
+	if m < p.Start {
+		d.errorf(n, path, "month %s is before the plan's start %s", m, p.Start)
+		return false
+	}
+	if limit := horizonEnd(p); m > limit {
+		d.errorf(n, path, "month %s is beyond the %d-year horizon (last month %s)", m, HorizonYears, limit)
+		return false
+	}
+	return true
+}
+
+// list returns the items of the list node v, reporting at path a node that
+// is not a list, in words such as "goals" or "one-time amounts".
+func (d *decoder) list(v *yaml.Node, path, noun string) ([]*yaml.Node, bool) {
+	if v.Kind != yaml.SequenceNode {
+		d.errorf(v, path, "want a list of %s, not %s", noun, describe(v))
+		return nil, false
+	}
+	return v.Content, true
+}
+
+func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
+	p := &Plan{File: d.file, Currency: money.USD, Rounding: money.HalfEven}
+	d.asOf = asOf
+	given := d.keys(n, "", InPlan, &target{p: p})
+	if given == nil {
+		return nil
+	}
+	if given["start"] == nil {
 		p.Start = asOf + 1
 	}
+	goalsNode := given["goals"]
 	if goalsNode == nil {
-		d.errorf(n, "", "missing key \"goals\" (want a list of goals)")
 		return p
 	}
-	if goalsNode.Kind != yaml.SequenceNode {
-		d.errorf(goalsNode, "goals", "want a list of goals, not %s", describe(goalsNode))
+	items, ok := d.list(goalsNode, "goals", "goals")
+	if !ok {
 		return p
 	}
-	if len(goalsNode.Content) == 0 {
+	if len(items) == 0 {
 		d.errorf(goalsNode, "goals", "empty list (want at least one goal)")
 		return p
 	}
-	if len(goalsNode.Content) > MaxGoals {
-		d.errorf(goalsNode, "goals", "%d goals, over the limit of %d a file", len(goalsNode.Content), MaxGoals)
+	if len(items) > MaxGoals {
+		d.errorf(goalsNode, "goals", "%d goals, over the limit of %d a file", len(items), MaxGoals)
 		return p
 	}
 	var names named
-	for i, gn := range goalsNode.Content {
-		g := d.goal(p, resolve(gn), fmt.Sprintf("goals[%d]", i))
+	for i, gn := range items {
+		path := fmt.Sprintf("goals[%d]", i)
+		d.nodes[path] = gn
+		g := d.goal(p, resolve(gn), path)
 		if g == nil {
 			continue
 		}
-		if j, dup := names.add(g.Name, fmt.Sprintf("goals[%d]", i)); dup {
-			d.errorf(gn, fmt.Sprintf("goals[%d].name", i), "duplicate goal name %s (%s has it too)", money.Quote(g.Name), j)
+		if j, dup := names.add(g.Name, path); dup {
+			d.errorf(gn, join(path, "name"), "duplicate goal name %s (%s has it too)", money.Quote(g.Name), j)
 		}
 		p.Goals = append(p.Goals, g)
 	}
@@ -320,128 +450,66 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 
 func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 	g := &Goal{pos: d.pos(n)}
-	var nameSeen, rateSeen bool
-	var byNode, targetNode *yaml.Node
-	var streams named
-	limit := p.Start.Add(HorizonYears*12 - 1)
-	checkMonth := func(v *yaml.Node, pth string, m Month) bool {
-		if m < p.Start {
-			d.errorf(v, pth, "month %s is before the plan's start %s", m, p.Start)
-			return false
-		}
-		if m > limit {
-			d.errorf(v, pth, "month %s is beyond the %d-year horizon (last month %s)", m, HorizonYears, limit)
-			return false
-		}
-		return true
-	}
-	ok := d.fields(n, path, []string{"name", "balance", "rate", "between", "fee", "volatility", "target", "by", "deposits", "withdrawals", "once", "leave"}, func(key string, v *yaml.Node) {
-		kp := join(path, key)
-		switch key {
-		case "name":
-			nameSeen = true // a wrong value is its own error, not a missing name
-			if s, ok := d.name(v, kp); ok {
-				g.Name = s
-				if g.Name == "" {
-					d.errorf(v, kp, "empty goal name")
-				}
-			}
-		case "balance":
-			g.Balance, _, _ = d.amount(v, kp, false, false)
-		case "rate":
-			rateSeen = true
-			g.Rates = d.rates(p, v, kp, checkMonth)
-		case "between":
-			if s, ok := d.scalar(v, kp, "compound, simple or none"); ok {
-				switch strings.ToLower(strings.TrimSpace(s)) {
-				case "compound":
-					g.Between = Compound
-				case "simple":
-					g.Between = Simple
-				case "none":
-					g.Between = None
-				default:
-					d.errorf(v, kp, "unknown rule %s (want compound, simple or none)", money.Quote(s))
-				}
-			}
-		case "fee":
-			if r, ok := d.rate(v, kp, 0, MaxFeePercent); ok {
-				g.Fee = r.Stated()
-				if r.Form() != money.Effective {
-					g.Fee = r.Effective()
-				}
-			}
-		case "target":
-			targetNode = v
-			var ok bool
-			g.Target, g.TargetToday, ok = d.amount(v, kp, true, false)
-			g.HasTarget = ok
-		case "by":
-			byNode = v
-			if m, ok := d.month(v, kp); ok && checkMonth(v, kp, m) {
-				g.By, g.HasBy = m, true
-			}
-		case "deposits", "withdrawals":
-			out := key == "withdrawals"
-			if v.Kind != yaml.SequenceNode {
-				d.errorf(v, kp, "want a list of streams, not %s", describe(v))
-				return
-			}
-			for i, sn := range v.Content {
-				sp := fmt.Sprintf("%s[%d]", kp, i)
-				if s := d.stream(p, resolve(sn), sp, out, checkMonth); s != nil {
-					if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
-						d.errorf(sn, sp+".name", "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
-					}
-					if out {
-						g.Withdrawals = append(g.Withdrawals, s)
-					} else {
-						g.Deposits = append(g.Deposits, s)
-					}
-				}
-			}
-		case "once":
-			if v.Kind != yaml.SequenceNode {
-				d.errorf(v, kp, "want a list of one-time amounts, not %s", describe(v))
-				return
-			}
-			if len(v.Content) > MaxOnce {
-				d.errorf(v, kp, "%d one-time amounts, over the limit of %d a goal", len(v.Content), MaxOnce)
-				return
-			}
-			for i, on := range v.Content {
-				if o, ok := d.once(resolve(on), fmt.Sprintf("%s[%d]", kp, i), checkMonth); ok {
-					g.Once = append(g.Once, o)
-				}
-			}
-		case "leave":
-			g.Leave, _, _ = d.amount(v, kp, false, false)
-		case "volatility":
-			g.Volatility, g.HasVolatility = d.volatility(v, kp)
-		}
-	})
-	if !ok {
+	d.goals[g] = path
+	given := d.keys(n, path, InGoal, &target{p: p, g: g})
+	if given == nil {
 		return nil
 	}
-	if !nameSeen {
-		d.errorf(n, path, "missing key \"name\" (every goal needs a name)")
+	if v := given["name"]; v != nil && !d.bad[join(path, "name")] && g.Name == "" {
+		d.errorf(v, join(path, "name"), "empty goal name")
 	}
-	if !rateSeen {
+	if given["rate"] == nil {
 		g.Rates = []RateStep{{From: p.Start, Rate: money.EffectiveRate(0)}}
 	}
-	if len(g.Deposits)+len(g.Withdrawals) > MaxStreams {
-		d.errorf(n, path, "%d streams, over the limit of %d a goal", len(g.Deposits)+len(g.Withdrawals), MaxStreams)
+	var streams named
+	for _, out := range []bool{false, true} {
+		key := "deposits"
+		if out {
+			key = "withdrawals"
+		}
+		v := given[key]
+		if v == nil {
+			continue
+		}
+		kp := join(path, key)
+		items, _ := d.list(v, kp, "streams")
+		for i, sn := range items {
+			sp := fmt.Sprintf("%s[%d]", kp, i)
+			if s := d.stream(p, g, resolve(sn), sp, out); s != nil {
+				if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
+					d.errorf(sn, join(sp, "name"), "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
+				}
+				if out {
+					g.Withdrawals = append(g.Withdrawals, s)
+				} else {
+					g.Deposits = append(g.Deposits, s)
+				}
+			}
+		}
 	}
-	if g.TargetToday && !g.HasBy && byNode == nil {
-		d.errorf(targetNode, join(path, "target"), "a target in today's money needs a deadline (want by: YYYY-MM)")
+	if v := given["once"]; v != nil {
+		kp := join(path, "once")
+		items, _ := d.list(v, kp, "one-time amounts")
+		if len(items) > MaxOnce {
+			d.errorf(v, kp, "%d one-time amounts, over the limit of %d a goal", len(items), MaxOnce)
+			items = nil
+		}
+		for i, on := range items {
+			ip := fmt.Sprintf("%s[%d]", kp, i)
+			var o Once
+			if given := d.keys(resolve(on), ip, InOnce, &target{p: p, g: g, o: &o}); given != nil &&
+				given["amount"] != nil && given["on"] != nil && !d.bad[ip+".amount"] && !d.bad[ip+".on"] {
+				g.Once = append(g.Once, o)
+			}
+		}
 	}
 	return g
 }
 
-func (d *decoder) rates(p *Plan, v *yaml.Node, path string, checkMonth func(*yaml.Node, string, Month) bool) []RateStep {
-	lo, hi := float64(MinRatePercent), float64(MaxRatePercent)
+// rates decodes a rate or a schedule of rates (key k) from the plan's start.
+func (d *decoder) rates(k *Key, p *Plan, v *yaml.Node, path string) []RateStep {
 	if v.Kind == yaml.ScalarNode {
-		r, ok := d.rate(v, path, lo, hi)
+		r, ok := d.rate(v, path, k.Min, k.Max)
 		if !ok {
 			return nil
 		}
@@ -464,39 +532,22 @@ func (d *decoder) rates(p *Plan, v *yaml.Node, path string, checkMonth func(*yam
 				d.errorf(sn, sp, "want from: and rate: (only the first rate may stand alone)")
 				continue
 			}
-			if r, ok := d.rate(sn, sp, lo, hi); ok {
+			if r, ok := d.rate(sn, sp, k.Min, k.Max); ok {
 				steps = append(steps, RateStep{From: p.Start, Rate: r})
 			}
 			continue
 		}
 		st := RateStep{From: p.Start}
-		var fromNode *yaml.Node
-		rateOK, fromOK := false, false
-		d.fields(sn, sp, []string{"from", "rate"}, func(key string, fv *yaml.Node) {
-			switch key {
-			case "from":
-				fromNode = fv
-				if m, ok := d.month(fv, sp+".from"); ok && checkMonth(fv, sp+".from", m) {
-					st.From, fromOK = m, true
-				}
-			case "rate":
-				st.Rate, rateOK = d.rate(fv, sp+".rate", lo, hi)
-			}
-		})
-		if sn.Kind != yaml.MappingNode {
+		given := d.keys(sn, sp, InRateStep, &target{p: p, st: &st})
+		if given == nil || given["rate"] == nil || d.bad[sp+".rate"] {
 			continue
 		}
-		if !rateOK {
-			if !hasKey(sn, "rate") {
-				d.errorf(sn, sp, "missing key \"rate\"")
-			}
-			continue
-		}
+		fromNode := given["from"]
 		if i > 0 && fromNode == nil {
 			d.errorf(sn, sp, "missing key \"from\" (each later rate needs the month it starts)")
 			continue
 		}
-		if fromNode != nil && !fromOK {
+		if fromNode != nil && d.bad[sp+".from"] {
 			continue // from: is already reported; do not compare its default
 		}
 		if len(steps) > 0 && st.From <= steps[len(steps)-1].From {
@@ -512,98 +563,23 @@ func (d *decoder) rates(p *Plan, v *yaml.Node, path string, checkMonth func(*yam
 	return steps
 }
 
-func (d *decoder) stream(p *Plan, n *yaml.Node, path string, out bool, checkMonth func(*yaml.Node, string, Month) bool) *Stream {
+func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out bool) *Stream {
 	s := &Stream{Out: out, From: p.Start}
-	keys := []string{"name", "amount", "every", "timing", "from", "until", "grow"}
+	scope := InStream
 	if out {
-		keys = append(keys, "for")
+		scope = InWithdrawal
 	}
-	var amountOK, everySeen bool
-	var untilNode, forNode *yaml.Node
-	var forMonths int
-	ok := d.fields(n, path, keys, func(key string, v *yaml.Node) {
-		kp := join(path, key)
-		switch key {
-		case "name":
-			if t, ok := d.name(v, kp); ok {
-				s.Name = t
-			}
-		case "amount":
-			s.Amount, s.Today, amountOK = d.amount(v, kp, true, false)
-		case "every":
-			everySeen = true
-			if t, ok := d.scalar(v, kp, "a frequency such as month"); ok {
-				f, err := money.ParseFrequency(t)
-				if err != nil {
-					d.errorf(v, kp, "%v", err)
-				} else if f == money.Continuous {
-					d.errorf(v, kp, "continuous is for compounding only (want a payment frequency such as month)")
-				} else {
-					s.Every = f
-				}
-			}
-		case "timing":
-			if t, ok := d.scalar(v, kp, "start or end"); ok {
-				switch strings.ToLower(strings.TrimSpace(t)) {
-				case "end":
-					s.Timing = End
-				case "start", "begin", "beginning":
-					s.Timing = Begin
-				default:
-					d.errorf(v, kp, "unknown timing %s (want start or end)", money.Quote(t))
-				}
-			}
-		case "from":
-			if m, ok := d.month(v, kp); ok && checkMonth(v, kp, m) {
-				s.From = m
-			}
-		case "until":
-			untilNode = v
-			if m, ok := d.month(v, kp); ok && checkMonth(v, kp, m) {
-				s.Until, s.HasUntil = m, true
-			}
-		case "grow":
-			if t, ok := d.scalar(v, kp, "a yearly rate such as 3% or inflation"); ok {
-				if strings.EqualFold(strings.TrimSpace(t), "inflation") {
-					s.GrowInflation = true
-					return
-				}
-				if r, ok := d.rate(v, kp, -50, 50); ok {
-					s.Grow = r.Effective()
-				}
-			}
-		case "for":
-			forNode = v
-			if t, ok := d.scalar(v, kp, "a length such as 30 years"); ok {
-				m, err := parseLength(t)
-				if err != nil {
-					d.errorf(v, kp, "%v", err)
-				} else if m > HorizonYears*12 {
-					d.errorf(v, kp, "length %s is beyond the %d-year horizon", money.Quote(t), HorizonYears)
-				} else {
-					forMonths = m
-				}
-			}
-		}
-	})
-	if !ok {
+	given := d.keys(n, path, scope, &target{p: p, g: g, s: s})
+	if given == nil {
 		return nil
 	}
-	if !amountOK && !hasKey(n, "amount") {
-		d.errorf(n, path, "missing key \"amount\"")
-	}
-	if !everySeen {
-		d.errorf(n, path, "missing key \"every\" (want a frequency such as month)")
-	}
-	if s.Today && !s.GrowInflation && s.Grow == 0 && !hasKey(n, "grow") {
-		s.GrowInflation = true
-	}
+	untilNode, forNode := given["until"], given["for"]
 	if untilNode != nil && forNode != nil {
 		d.errorf(forNode, join(path, "for"), "give until or for, not both")
 	}
-	if forNode != nil && forMonths > 0 {
-		s.Until, s.HasUntil = s.From.Add(forMonths-1), true
-		if s.Until > p.Start.Add(HorizonYears*12-1) {
+	if forNode != nil && s.forMonths > 0 {
+		s.Until, s.HasUntil = s.From.Add(s.forMonths-1), true
+		if s.Until > horizonEnd(p) {
 			d.errorf(forNode, join(path, "for"), "stream would run beyond the %d-year horizon", HorizonYears)
 		}
 	}
@@ -615,36 +591,6 @@ func (d *decoder) stream(p *Plan, n *yaml.Node, path string, out bool, checkMont
 		d.errorf(at, join(path, "until"), "month %s is before from %s", s.Until, s.From)
 	}
 	return s
-}
-
-func (d *decoder) once(n *yaml.Node, path string, checkMonth func(*yaml.Node, string, Month) bool) (Once, bool) {
-	var o Once
-	var amountOK, onOK bool
-	ok := d.fields(n, path, []string{"name", "amount", "on"}, func(key string, v *yaml.Node) {
-		kp := join(path, key)
-		switch key {
-		case "name":
-			if t, ok := d.name(v, kp); ok {
-				o.Name = t
-			}
-		case "amount":
-			o.Amount, _, amountOK = d.amount(v, kp, false, true)
-		case "on":
-			if m, ok := d.month(v, kp); ok && checkMonth(v, kp, m) {
-				o.On, onOK = m, true
-			}
-		}
-	})
-	if !ok {
-		return o, false
-	}
-	if !hasKey(n, "amount") {
-		d.errorf(n, path, "missing key \"amount\"")
-	}
-	if !hasKey(n, "on") {
-		d.errorf(n, path, "missing key \"on\" (want the month, such as on: 2027-04)")
-	}
-	return o, amountOK && onOK
 }
 
 // parseLength parses "30 years", "18 months", "1 year".

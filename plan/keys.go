@@ -1,0 +1,308 @@
+package plan
+
+import (
+	"cairn/money"
+)
+
+// A Scope is where in a goals file a key may appear.
+type Scope int
+
+const (
+	InPlan       Scope = iota // the top level
+	InGoal                    // each goal
+	InStream                  // each deposit or withdrawal stream
+	InWithdrawal              // withdrawal streams only
+	InOnce                    // each one-time amount
+	InRateStep                // each step of a rate schedule
+)
+
+// A Form is how a key's value is written.
+type Form int
+
+const (
+	FormVersion      Form = iota // the format version, 1
+	FormMonth                    // YYYY-MM
+	FormCurrency                 // an ISO 4217 code
+	FormRounding                 // half-even or half-up
+	FormRate                     // a rate in one of the trade's forms, between Min and Max % a year effective
+	FormRates                    // a FormRate, or a list of rate steps (InRateStep)
+	FormVolatility               // a percentage a year, 0% to MaxVolatilityPercent
+	FormName                     // text of at most MaxNameLength characters
+	FormAmount                   // an amount, 0 or more
+	FormAmountToday              // an amount, 0 or more, or "… today" in today's money
+	FormSignedAmount             // an amount: positive in, negative out
+	FormChoice                   // one of Choices
+	FormFrequency                // a payment frequency (not continuous)
+	FormLength                   // a number of years or months
+	FormGrowth                   // a yearly rate between Min and Max %, or "inflation"
+	FormList                     // a list of mappings, each in the scope Items
+)
+
+// want says what a value of the form looks like, in error messages.
+var want = map[Form]string{
+	FormVersion:    "the format version 1",
+	FormMonth:      "a month such as 2027-01",
+	FormCurrency:   "an ISO 4217 code such as USD",
+	FormRounding:   "half-even or half-up",
+	FormRate:       "a rate such as 4.1%",
+	FormVolatility: "a volatility a year such as 12%",
+	FormFrequency:  "a frequency such as month",
+	FormLength:     "a length such as 30 years",
+	FormGrowth:     "a yearly rate such as 3% or inflation",
+}
+
+// A Choice is one word a FormChoice key accepts and the value it stands for.
+type Choice struct {
+	Word  string
+	Value int
+}
+
+// A Key is one key of the goals file: where it may appear, how its value is
+// written and checked, where it goes in the model, its help text, and
+// whether a what-if (--set KEY=VALUE, --vary KEY=V1,V2) may change it. The
+// file decoder, [Plan.With] and the help text all read [Keys].
+type Key struct {
+	Name  string
+	Scope Scope
+	Form  Form
+	Items Scope // FormList: the scope of each item
+
+	Min, Max float64  // FormRate, FormRates, FormGrowth: the range, % a year effective
+	Choices  []Choice // FormChoice: the words accepted
+	Noun     string   // FormChoice: what a value is called in errors ("rule")
+	Want     string   // FormChoice: the words to suggest ("compound, simple or none")
+
+	Required bool
+	Missing  string // the reason given when a required key is missing, or ""
+	OrAsOf   bool   // Required unless the caller gives today's month (Parse's asOf)
+
+	Default string // help: the value when the key is absent
+	Help    string // help: what the key means, one or more lines
+
+	// Set is the name under which --set and --vary change the key, or ""
+	// when they cannot; SetOut the name that changes the key of a
+	// withdrawal stream. A key of a stream changes the deposit (or, under
+	// SetOut, withdrawal) stream named by --stream, the first when none is
+	// named, so it needs the goal named when a file has several goals.
+	Set, SetOut string
+
+	put func(t *target, v *value) // stores a parsed value in the model
+}
+
+// NeedsGoal reports whether a what-if of the key changes one stream, so that
+// the goal must be named when the file has several.
+func (k *Key) NeedsGoal() bool { return k.Scope == InStream || k.Scope == InWithdrawal }
+
+// A target is where a key's value goes: the plan and, inside it, the goal,
+// stream, one-time amount or rate step being decoded or changed.
+type target struct {
+	p  *Plan
+	g  *Goal
+	s  *Stream
+	o  *Once
+	st *RateStep
+}
+
+// A value is a parsed value of any form.
+type value struct {
+	amount    money.Amount
+	today     bool
+	rate      money.Rate
+	month     Month
+	text      string
+	x         float64
+	freq      money.Frequency
+	n         int // a choice's value, a length in months
+	inflation bool
+	rates     []RateStep
+}
+
+// Keys is every key of the goals file, in the order the help lists them.
+var Keys = []*Key{
+	// the top level
+	{Name: "cairn", Scope: InPlan, Form: FormVersion, Required: true,
+		Missing: `want "cairn: 1", the format version, at the top`,
+		Default: "required", Help: "the format version: 1"},
+	{Name: "start", Scope: InPlan, Form: FormMonth, Required: true, OrAsOf: true,
+		Missing: "want the plan's first month, such as start: 2027-01",
+		Default: "the month after --as-of (today)",
+		Help: "first month of the plan; t = 0 is its start, balances\n" +
+			"are as of then, and \"today's money\" means money then",
+		put: func(t *target, v *value) { t.p.Start = v.month }},
+	{Name: "currency", Scope: InPlan, Form: FormCurrency,
+		Default: "USD",
+		Help: "ISO 4217 code (USD, EUR, GBP, JPY, ...), for display\n" +
+			"and for the places postings round to (JPY: 0)",
+		put: func(t *target, v *value) { t.p.Currency, _ = money.LookupCurrency(v.text) }},
+	{Name: "inflation", Scope: InPlan, Form: FormRate, Min: -MaxInflationPct, Max: MaxInflationPct,
+		Default: "0%", Help: "a year; grows \"today\" amounts, gives today's-money figures",
+		Set: "inflation",
+		put: func(t *target, v *value) { t.p.Inflation = v.rate }},
+	{Name: "inflation_volatility", Scope: InPlan, Form: FormVolatility,
+		Default: "0%",
+		Help: "for cairn simulate: the volatility of inflation a year,\n" +
+			"such as 1% (see SIMULATION)",
+		put: func(t *target, v *value) { t.p.InflationVolatility, t.p.HasInflationVolatility = v.x, true }},
+	{Name: "rounding", Scope: InPlan, Form: FormRounding,
+		Default: "half-even",
+		Help: "how each interest, fee and growing amount rounds to the\n" +
+			"cent: half-even or half-up",
+		put: func(t *target, v *value) { t.p.Rounding, _ = money.ParseRounding(v.text) }},
+	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true,
+		Missing: "want a list of goals",
+		Default: "required", Help: "a list of goals"},
+
+	// each goal
+	{Name: "name", Scope: InGoal, Form: FormName, Required: true,
+		Missing: "every goal needs a name",
+		Default: "required", Help: "unique within the file",
+		put: func(t *target, v *value) { t.g.Name = v.text }},
+	{Name: "balance", Scope: InGoal, Form: FormAmount,
+		Default: "0", Help: "already saved at the start",
+		Set: "balance",
+		put: func(t *target, v *value) { t.g.Balance = v.amount }},
+	{Name: "rate", Scope: InGoal, Form: FormRates, Min: MinRatePercent, Max: MaxRatePercent,
+		Default: "0%",
+		Help: "a rate, or a schedule of rates:\n" +
+			"  rate: 4.1%                       (effective a year)\n" +
+			"  rate: 4.1% apy                   (the same)\n" +
+			"  rate: 3.9% compounded monthly    (nominal)\n" +
+			"  rate: 5% compounded continuously\n" +
+			"  rate: 0.35% per month            (periodic)\n" +
+			"  rate:\n" +
+			"    - 6.5%\n" +
+			"    - from: 2045-01\n" +
+			"      rate: 4.5%\n" +
+			"A bare rate is the effective annual rate. Interest is\n" +
+			"credited at the first rate's compounding dates: every\n" +
+			"1/m year for \"compounded m\", each period for \"per\",\n" +
+			"monthly for effective and continuous rates.",
+		Set: "rate",
+		put: func(t *target, v *value) { t.g.Rates = v.rates }},
+	{Name: "between", Scope: InGoal, Form: FormChoice,
+		Choices: []Choice{{"compound", int(Compound)}, {"simple", int(Simple)}, {"none", int(None)}},
+		Noun:    "rule", Want: "compound, simple or none",
+		Default: "compound",
+		Help: "what money arriving or leaving between two interest\n" +
+			"dates earns until the next one:\n" +
+			"  compound  fractional-period compounding (the\n" +
+			"            effective rate per deposit period)\n" +
+			"  simple    simple interest for the fraction\n" +
+			"  none      nothing for deposits; withdrawals earn\n" +
+			"            nothing for that period",
+		Set: "between",
+		put: func(t *target, v *value) { t.g.Between = Between(v.n) }},
+	{Name: "fee", Scope: InGoal, Form: FormRate, Min: 0, Max: MaxFeePercent,
+		Default: "0%", Help: "a year, taken monthly (a twelfth) from the balance",
+		Set: "fee",
+		put: func(t *target, v *value) {
+			t.g.Fee = v.rate.Stated()
+			if v.rate.Form() != money.Effective {
+				t.g.Fee = v.rate.Effective()
+			}
+		}},
+	{Name: "volatility", Scope: InGoal, Form: FormVolatility,
+		Default: "none",
+		Help: "for cairn simulate: the volatility of returns a year,\n" +
+			"such as 12%, from 0% to 100% (see SIMULATION); none\n" +
+			"means returns are fixed",
+		put: func(t *target, v *value) { t.g.Volatility, t.g.HasVolatility = v.x, true }},
+	{Name: "target", Scope: InGoal, Form: FormAmountToday,
+		Default: "none",
+		Help: "an amount, or \"400k today\" in today's money (grown by\n" +
+			"inflation to the deadline; needs by)",
+		Set: "target",
+		put: func(t *target, v *value) { t.g.Target, t.g.TargetToday, t.g.HasTarget = v.amount, v.today, true }},
+	{Name: "by", Scope: InGoal, Form: FormMonth,
+		Default: "none", Help: "the deadline: the end of that month",
+		Set: "by",
+		put: func(t *target, v *value) { t.g.By, t.g.HasBy = v.month, true }},
+	{Name: "deposits", Scope: InGoal, Form: FormList, Items: InStream,
+		Default: "none", Help: "a list of streams (below)"},
+	{Name: "withdrawals", Scope: InGoal, Form: FormList, Items: InStream,
+		Default: "none", Help: "a list of streams, plus for:"},
+	{Name: "once", Scope: InGoal, Form: FormList, Items: InOnce,
+		Default: "none",
+		Help: "one-time amounts: positive in, negative out\n" +
+			"  - name: gift       (optional)\n" +
+			"    amount: 1,000\n" +
+			"    on: 2027-12      (at the end of that month)"},
+	{Name: "leave", Scope: InGoal, Form: FormAmount,
+		Default: "0", Help: "balance that must remain after the last withdrawal",
+		Set: "leave",
+		put: func(t *target, v *value) { t.g.Leave = v.amount }},
+
+	// each stream
+	{Name: "name", Scope: InStream, Form: FormName,
+		Default: "none", Help: "a label, used by --stream",
+		put: func(t *target, v *value) { t.s.Name = v.text }},
+	{Name: "amount", Scope: InStream, Form: FormAmountToday, Required: true,
+		Default: "required",
+		Help: "per period, 0 or more; \"250 today\" is in today's money\n" +
+			"and rises with inflation unless grow says otherwise",
+		Set: "deposit", SetOut: "withdrawal",
+		put: func(t *target, v *value) { t.s.Amount, t.s.Today = v.amount, v.today }},
+	{Name: "every", Scope: InStream, Form: FormFrequency, Required: true,
+		Missing: "want a frequency such as month",
+		Default: "required",
+		Help: "day, week, 2 weeks (fortnightly), half month (twice a\n" +
+			"month, semimonthly), month, 2 months, quarter, half\n" +
+			"year (twice a year, semiannually), year (annually).\n" +
+			"\"biweekly\" and \"bimonthly\" are refused: each means two\n" +
+			"different things.",
+		Set: "every",
+		put: func(t *target, v *value) { t.s.Every = v.freq }},
+	{Name: "timing", Scope: InStream, Form: FormChoice,
+		Choices: []Choice{{"end", int(End)}, {"start", int(Begin)}, {"begin", int(Begin)}, {"beginning", int(Begin)}},
+		Noun:    "timing", Want: "start or end",
+		Default: "end", Help: "end or start of each period",
+		put: func(t *target, v *value) { t.s.Timing = Timing(v.n) }},
+	{Name: "from", Scope: InStream, Form: FormMonth,
+		Default: "start", Help: "first month with a period",
+		put: func(t *target, v *value) { t.s.From = v.month }},
+	{Name: "until", Scope: InStream, Form: FormMonth,
+		Default: "none", Help: "last month with an amount (none: open-ended)",
+		put: func(t *target, v *value) { t.s.Until, t.s.HasUntil = v.month, true }},
+	{Name: "for", Scope: InWithdrawal, Form: FormLength,
+		Default: "none", Help: "withdrawals only, instead of until: \"30 years\", \"18 months\"",
+		put: func(t *target, v *value) { t.s.forMonths = v.n }},
+	{Name: "grow", Scope: InStream, Form: FormGrowth, Min: -MaxGrowthPercent, Max: MaxGrowthPercent,
+		Default: "0%", Help: "a yearly rise of the amount, or \"inflation\"",
+		Set: "grow",
+		put: func(t *target, v *value) { t.s.GrowInflation, t.s.Grow, t.s.growSet = v.inflation, v.x, true }},
+
+	// each one-time amount (documented under the goal's once)
+	{Name: "name", Scope: InOnce, Form: FormName,
+		put: func(t *target, v *value) { t.o.Name = v.text }},
+	{Name: "amount", Scope: InOnce, Form: FormSignedAmount, Required: true,
+		put: func(t *target, v *value) { t.o.Amount = v.amount }},
+	{Name: "on", Scope: InOnce, Form: FormMonth, Required: true,
+		Missing: "want the month, such as on: 2027-04",
+		put:     func(t *target, v *value) { t.o.On = v.month }},
+
+	// each step of a rate schedule (documented under the goal's rate)
+	{Name: "from", Scope: InRateStep, Form: FormMonth,
+		put: func(t *target, v *value) { t.st.From = v.month }},
+	{Name: "rate", Scope: InRateStep, Form: FormRate, Min: MinRatePercent, Max: MaxRatePercent, Required: true,
+		put: func(t *target, v *value) { t.st.Rate = v.rate }},
+}
+
+// keysIn returns the keys of a scope in table order; a withdrawal has the
+// stream's keys and its own.
+func keysIn(s Scope) []*Key {
+	var out []*Key
+	for _, k := range Keys {
+		if k.Scope == s || s == InWithdrawal && k.Scope == InStream {
+			out = append(out, k)
+		}
+	}
+	return out
+}
+
+func keyNames(ks []*Key) []string {
+	out := make([]string, len(ks))
+	for i, k := range ks {
+		out[i] = k.Name
+	}
+	return out
+}

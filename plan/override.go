@@ -1,0 +1,158 @@
+package plan
+
+import (
+	"fmt"
+	"strings"
+
+	"gopkg.in/yaml.v3"
+
+	"cairn/money"
+)
+
+// An Override is one what-if change, KEY=VALUE, applied to a goal. Values
+// are written as in a goals file.
+type Override struct {
+	Key, Value string
+}
+
+// OverrideKeys lists the keys an Override may set, in the order the help
+// shows them: each is the Set or SetOut name of one key of [Keys].
+var OverrideKeys = []string{"rate", "deposit", "withdrawal", "balance", "target", "by", "inflation", "fee", "grow", "every", "between", "leave"}
+
+// SetKey returns the key of the goals file that the what-if name changes
+// and whether it changes a withdrawal stream (the name is the key's
+// SetOut), or nil when no key has that name.
+func SetKey(name string) (k *Key, out bool) {
+	for _, k := range Keys {
+		switch name {
+		case k.Set:
+			return k, false
+		case k.SetOut:
+			return k, true
+		}
+	}
+	return nil, false
+}
+
+// ParseOverride parses KEY=VALUE.
+func ParseOverride(s string) (Override, error) {
+	k, v, ok := strings.Cut(s, "=")
+	k = strings.ToLower(strings.TrimSpace(k))
+	if !ok || k == "" {
+		return Override{}, fmt.Errorf("invalid override %s (want KEY=VALUE, such as rate=5%%)", money.Quote(s))
+	}
+	if !contains(OverrideKeys, k) {
+		if sg := suggest(k, OverrideKeys); sg != "" {
+			return Override{}, fmt.Errorf("unknown override key %s (did you mean %s?)", money.Quote(k), money.Quote(sg))
+		}
+		return Override{}, fmt.Errorf("unknown override key %s (want one of %s)", money.Quote(k), strings.Join(OverrideKeys, ", "))
+	}
+	return Override{Key: k, Value: strings.TrimSpace(v)}, nil
+}
+
+func (o Override) String() string { return o.Key + "=" + o.Value }
+
+// NeedsGoal reports whether the override changes one stream of a goal, so
+// that the goal must be named when a file has several.
+func (o Override) NeedsGoal() bool {
+	k, _ := SetKey(o.Key)
+	return k != nil && k.NeedsGoal()
+}
+
+// With returns a copy of the plan with the overrides applied to the goal
+// named goal; stream names the deposit or withdrawal stream that deposit,
+// withdrawal, grow and every change ("" for the first). The original plan is
+// not changed. Each value is parsed and checked by the same table as the
+// goals file ([Keys]), and the changed plan passes the same cross-field
+// checks: a change the file would refuse is refused with the file's message,
+// after the KEY it is about.
+func (p *Plan) With(goal, stream string, ovs []Override) (*Plan, *Goal, error) {
+	q := p.Clone()
+	g := q.Goal(goal)
+	if g == nil {
+		return nil, nil, fmt.Errorf("no goal named %s", money.Quote(goal))
+	}
+	for _, o := range ovs {
+		if err := q.apply(g, stream, o); err != nil {
+			return nil, nil, err
+		}
+	}
+	q.settle()
+	for _, pr := range q.problems() {
+		if pr.goal != g {
+			continue
+		}
+		key := pr.key
+		for _, o := range ovs {
+			if k, _ := SetKey(o.Key); k != nil && k.Scope == InGoal && k.Name == pr.at {
+				key = o.Key
+			}
+		}
+		if key == "" {
+			return nil, nil, fmt.Errorf("goal %s: %s", money.Quote(g.Name), pr.msg)
+		}
+		return nil, nil, fmt.Errorf("%s: %s", key, pr.msg)
+	}
+	if err := q.checkBounds(g); err != nil {
+		return nil, nil, err
+	}
+	return q, g, nil
+}
+
+// apply parses one override's value as its key of the goals file and
+// stores it in goal g (or its stream, or the plan).
+func (p *Plan) apply(g *Goal, stream string, o Override) error {
+	k, out := SetKey(o.Key)
+	if k == nil {
+		return fmt.Errorf("unknown override key %s", money.Quote(o.Key))
+	}
+	t := &target{p: p, g: g}
+	if k.NeedsGoal() {
+		if t.s = g.Stream(stream, out); t.s == nil {
+			kind := "deposit"
+			if out {
+				kind = "withdrawal"
+			}
+			if stream != "" {
+				return fmt.Errorf("%s: goal %s has no %s stream named %s", o.Key, money.Quote(g.Name), kind, money.Quote(stream))
+			}
+			return fmt.Errorf("%s: goal %s has no %s stream", o.Key, money.Quote(g.Name), kind)
+		}
+	}
+	d := &decoder{file: "--set " + o.Key} // one scalar: no keys to track
+	var v value
+	if !d.value(k, &yaml.Node{Kind: yaml.ScalarNode, Tag: "!!str", Value: o.Value}, o.Key, t, &v) {
+		return fmt.Errorf("%s", d.errs[0].Msg)
+	}
+	k.put(t, &v)
+	return nil
+}
+
+// A Vary is one axis of a what-if grid: a key and the values to try.
+type Vary struct {
+	Key    string
+	Values []string
+}
+
+// ParseVary parses KEY=V1,V2,…. Values holding commas themselves (amounts
+// such as 1,500) may be separated by semicolons instead.
+func ParseVary(s string) (Vary, error) {
+	o, err := ParseOverride(s)
+	if err != nil {
+		return Vary{}, err
+	}
+	sep := ","
+	if strings.Contains(o.Value, ";") {
+		sep = ";"
+	}
+	var vals []string
+	for _, v := range strings.Split(o.Value, sep) {
+		if v = strings.TrimSpace(v); v != "" {
+			vals = append(vals, v)
+		}
+	}
+	if len(vals) == 0 {
+		return Vary{}, fmt.Errorf("invalid vary %s (want KEY=V1,V2,…)", money.Quote(s))
+	}
+	return Vary{Key: o.Key, Values: vals}, nil
+}
