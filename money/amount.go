@@ -1,6 +1,7 @@
 package money
 
 import (
+	"bytes"
 	"fmt"
 	"math"
 	"math/big"
@@ -297,7 +298,7 @@ func ParseAmount(s string) (Amount, error) {
 			return bad("")
 		}
 	}
-	if len(digits) > 15 {
+	if len(bytes.TrimLeft(digits, "0"))+int(mult) > 15 { // the digits of the whole part, k and M counted
 		return bad("too large")
 	}
 	num := string(digits)

@@ -2,7 +2,6 @@ package plan
 
 import (
 	"math"
-	"strings"
 
 	"cairn/money"
 )
@@ -21,10 +20,10 @@ type Plan struct {
 	HasInflationVolatility bool
 }
 
-// Goal returns the goal with the given name (case-insensitive), or nil.
+// Goal returns the goal with the given name (see sameName), or nil.
 func (p *Plan) Goal(name string) *Goal {
 	for _, g := range p.Goals {
-		if equalFold(g.Name, name) {
+		if sameName(g.Name, name) {
 			return g
 		}
 	}
@@ -176,7 +175,7 @@ func cloneStreams(ss []*Stream) []*Stream {
 	return out
 }
 
-// Stream returns the goal's stream with the given name (case-insensitive)
+// Stream returns the goal's stream with the given name (see sameName)
 // among its deposits (out false) or withdrawals (out true); an empty name
 // picks the first. It returns nil if there is none.
 func (g *Goal) Stream(name string, out bool) *Stream {
@@ -185,7 +184,7 @@ func (g *Goal) Stream(name string, out bool) *Stream {
 		ss = g.Withdrawals
 	}
 	for _, s := range ss {
-		if name == "" || equalFold(s.Name, name) {
+		if name == "" || sameName(s.Name, name) {
 			return s
 		}
 	}
@@ -209,5 +208,3 @@ func (p *Plan) Today(a money.Amount, m Month) money.Amount {
 	years := float64(m-p.Start+1) / 12
 	return a.MulFloat(math.Exp(-p.Inflation.Force()*years)).Round(p.Currency.Places, p.Rounding)
 }
-
-func equalFold(a, b string) bool { return strings.EqualFold(a, b) }

@@ -176,7 +176,7 @@ func (d *decoder) name(n *yaml.Node, path string) (string, bool) {
 	if !ok {
 		return "", false
 	}
-	s = strings.TrimSpace(s)
+	s = cleanName(s)
 	if utf8.RuneCountInString(s) > MaxNameLength {
 		d.errorf(n, path, "name %s is longer than %d characters", money.Quote(s), MaxNameLength)
 		return "", false
@@ -229,13 +229,9 @@ func (d *decoder) rate(n *yaml.Node, path string, lo, hi float64) (money.Rate, b
 	if !ok {
 		return money.Rate{}, false
 	}
-	r, err := money.ParseRate(s)
+	r, err := ParseRateIn(s, lo, hi)
 	if err != nil {
 		d.errorf(n, path, "%v", err)
-		return r, false
-	}
-	if e := r.Effective() * 100; e < lo || e > hi {
-		d.errorf(n, path, "rate %s is out of range (want %g%% to %g%% a year effective)", money.Quote(s), lo, hi)
 		return r, false
 	}
 	return r, true
@@ -436,7 +432,7 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		d.errorf(goalsNode, "goals", "%d goals, over the limit of %d a file", len(items), MaxGoals)
 		return p
 	}
-	names := map[string]int{}
+	var names named
 	for i, gn := range items {
 		path := fmt.Sprintf("goals[%d]", i)
 		d.nodes[path] = gn
@@ -444,10 +440,9 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		if g == nil {
 			continue
 		}
-		if j, dup := names[lower(g.Name)]; dup {
-			d.errorf(gn, join(path, "name"), "duplicate goal name %s (goals[%d] has it too)", money.Quote(g.Name), j)
+		if j, dup := names.add(g.Name, path); dup {
+			d.errorf(gn, join(path, "name"), "duplicate goal name %s (%s has it too)", money.Quote(g.Name), j)
 		}
-		names[lower(g.Name)] = i
 		p.Goals = append(p.Goals, g)
 	}
 	return p
@@ -466,6 +461,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 	if given["rate"] == nil {
 		g.Rates = []RateStep{{From: p.Start, Rate: money.EffectiveRate(0)}}
 	}
+	var streams named
 	for _, out := range []bool{false, true} {
 		key := "deposits"
 		if out {
@@ -478,7 +474,11 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		kp := join(path, key)
 		items, _ := d.list(v, kp, "streams")
 		for i, sn := range items {
-			if s := d.stream(p, g, resolve(sn), fmt.Sprintf("%s[%d]", kp, i), out); s != nil {
+			sp := fmt.Sprintf("%s[%d]", kp, i)
+			if s := d.stream(p, g, resolve(sn), sp, out); s != nil {
+				if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
+					d.errorf(sn, join(sp, "name"), "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
+				}
 				if out {
 					g.Withdrawals = append(g.Withdrawals, s)
 				} else {
@@ -604,10 +604,17 @@ func parseLength(s string) (int, error) {
 	if err != nil || n <= 0 {
 		return 0, bad
 	}
+	beyond := fmt.Errorf("length %s is beyond the %d-year horizon", money.Quote(s), HorizonYears)
 	switch f[1] {
 	case "year", "years":
+		if n > HorizonYears { // before n*12 can overflow
+			return 0, beyond
+		}
 		return n * 12, nil
 	case "month", "months":
+		if n > HorizonYears*12 {
+			return 0, beyond
+		}
 		return n, nil
 	}
 	return 0, bad

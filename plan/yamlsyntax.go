@@ -16,6 +16,7 @@ import (
 	"io"
 	"regexp"
 	"strings"
+	"unicode"
 	"unicode/utf8"
 
 	"gopkg.in/yaml.v3"
@@ -23,10 +24,15 @@ import (
 	"cairn/money"
 )
 
-// decodeDocument decodes data into root. data must hold one YAML document;
+// decodeDocument decodes data into root. data must hold one YAML document
+// of plain text (no control or invisible characters outside comments);
 // a YAML feature cairn does not read (merge keys) and a number cut in two by
 // a comma inside [ ] or { } are refused with their position.
 func decodeDocument(file string, data []byte, root *yaml.Node) *Error {
+	if line, col, r, ok := hiddenChar(data); ok {
+		return &Error{Pos: Position{file, line, col}, Msg: describeRune(r) + " here: a goals file holds plain text " +
+			"(delete the character; it may have come with pasted text)"}
+	}
 	if line, ok := secondDocument(data); ok {
 		return &Error{Pos: Position{file, line, 1}, Msg: "a goals file is one YAML document, but a second one starts here " +
 			"(remove this line, or move what follows it into the first document)"}
@@ -92,11 +98,18 @@ func emptyDocument(n *yaml.Node) bool {
 	return true
 }
 
-// checkNodes refuses merge keys and numbers split by a comma in a flow
+// checkNodes refuses control and invisible characters written as escapes
+// ("\e", "\u202e"), merge keys and numbers split by a comma in a flow
 // collection ({amount: 1,000} reads as amount 1 and a key 000).
 func checkNodes(file string, n *yaml.Node) *Error {
 	if n == nil {
 		return nil
+	}
+	if n.Kind == yaml.ScalarNode {
+		if what, _, ok := HiddenText(n.Value); ok {
+			return &Error{Pos: Position{file, n.Line, n.Column}, Msg: "this value holds " + what +
+				" (written as an escape): a goals file holds plain text"}
+		}
 	}
 	if n.Kind == yaml.MappingNode {
 		for i := 0; i+1 < len(n.Content); i += 2 {
@@ -457,4 +470,47 @@ func stripComment(t string) string {
 		t = t[:i]
 	}
 	return strings.TrimRight(t, " ")
+}
+
+// hiddenChar finds the first character that hiddenRune refuses, with its
+// line and column (in characters). In a comment, invisible characters are
+// allowed but control characters are not (YAML forbids them anywhere; the
+// position and the words are better here). A '#' starts a comment
+// at the start of a line or after a space or tab, outside quotes; a quote
+// opens where a value starts. A character the pass takes for a comment by
+// mistake (a '#' inside a multi-line value) is still refused when the value
+// is decoded, by checkNodes.
+func hiddenChar(data []byte) (line, col int, r rune, ok bool) {
+	var quote rune // the open quote, or 0
+	for i, ln := range strings.Split(string(data), "\n") {
+		prev := ' ' // the character before, as if a space began the line
+		lead := ' ' // the last non-space character before, ' ' at the start
+		c := 0
+		escaped, comment := false, false
+		for _, r := range ln {
+			c++
+			if hiddenRune(r) && (!comment || unicode.IsControl(r)) {
+				return i + 1, c, r, true
+			}
+			switch {
+			case comment:
+			case quote == '"' && escaped:
+				escaped = false
+			case quote == '"' && r == '\\':
+				escaped = true
+			case quote != 0 && r == quote:
+				quote = 0 // '' inside single quotes closes and reopens
+			case quote != 0:
+			case (r == '"' || r == '\'') && strings.ContainsRune(" :-[{,?", lead):
+				quote = r
+			case r == '#' && (prev == ' ' || prev == '\t'):
+				comment = true
+			}
+			prev = r
+			if r != ' ' && r != '\t' {
+				lead = r
+			}
+		}
+	}
+	return 0, 0, 0, false
 }

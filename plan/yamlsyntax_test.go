@@ -44,6 +44,15 @@ func TestParse_YAMLSlips(t *testing.T) {
 		// Issue 13 item 6: one document.
 		{"second document", "  - name: a\n---\ngoals: []\n", "5:1", "a goals file is one YAML document"},
 		{"document end then more", "  - name: a\n...\ngoals: [\n", "5:1", "a goals file is one YAML document"},
+		// Issue 13 item 13: control and invisible characters, where they stand.
+		{"escape in a plain name", "  - name: ab\x1b[2Jc\n", "4:13", "control character U+001B here"},
+		{"bidi override after wide text", "  - name: 日本\u202efund\n", "4:13", "invisible character U+202E here"},
+		{"zero-width space in a key", "  - na\u200bme: a\n", "4:7", "invisible character U+200B here"},
+		{"bell inside a quoted value", "  - name: \"a # b\x07\"\n", "4:17", "control character U+0007 here"},
+		{"control character in a comment", "  - name: a # \x1b]0;x\x07\n", "4:15", "control character U+001B here"},
+		{"escape written as an escape", "  - name: \"a\\x1bb\"\n", "4:11", "this value holds control character U+001B (written as an escape)"},
+		{"bidi written as an escape", "  - name: x\n    target: \"1\\u202e0\"\n", "5:13", "this value holds invisible character U+202E"},
+		{"invisible character in a multi-line quoted value", "  - name: \"a\n     #\u200b\"\n", "5:7", "invisible character U+200B here"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -71,6 +80,8 @@ func TestParse_OneDocumentMarkers(t *testing.T) {
 		body + "---\n",
 		body + "...\n# the end\n",
 		strings.Replace(body, "    balance: 5\n", "    balance: 5\n    rate: [{from: 2027-01,rate: 4%}]\n", 1), // dates are not a split number
+		"# \u202e invisible characters in comments are allowed \u200b\n" + body + "# \u200b\n",
+		strings.Replace(body, "name: a", "name: \"a # \u200d\" # \u202e", 1), // a joiner in a name
 	} {
 		if _, err := Parse("f.yaml", []byte(text), MonthOf(2026, 12)); err != nil {
 			t.Errorf("Parse(%q) = %v, want no error", text, err)

@@ -7,6 +7,7 @@ import (
 	"io"
 	"strings"
 	"time"
+	"unicode"
 
 	"github.com/urfave/cli/v2"
 
@@ -58,7 +59,10 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer, now func() ti
 	out := &outWriter{w: stdout}
 	e := &env{stdin: stdin, stdout: out, stderr: stderr, now: now}
 	app := newApp(e)
-	args, err := reorder(app, args)
+	err := plainArgs(args)
+	if err == nil {
+		args, err = reorder(app, args)
+	}
 	if err == nil {
 		err = app.Run(args)
 	}
@@ -108,6 +112,34 @@ func report(w io.Writer, err error) int {
 	return exitBadInput
 }
 
+// plainArgs refuses an argument that holds a control character (a tab or
+// newline too) or an invisible one (see [plan.HiddenText]), naming where it
+// is without writing it to the terminal.
+func plainArgs(args []string) error {
+	for i := 1; i < len(args); i++ {
+		a := args[i]
+		what, at, ok := plan.HiddenText(a)
+		for j, r := range []rune(a) {
+			if unicode.IsControl(r) && (!ok || j < at) {
+				what, at, ok = fmt.Sprintf("control character U+%04X", r), j, true
+				break
+			}
+		}
+		if !ok {
+			continue
+		}
+		where := fmt.Sprintf("argument %d", i)
+		if name, _, eq := strings.Cut(a, "="); eq && strings.HasPrefix(a, "-") {
+			where, at = "the value of "+name, at-len([]rune(name))-1
+		} else if p := args[i-1]; i > 1 && strings.HasPrefix(p, "-") && !strings.Contains(p, "=") && !negativeNumber(p) {
+			where = "the value of " + p
+		}
+		return usagef("names and values on the command line are plain text: retype it rather than paste it",
+			"%s holds %s (character %d)", where, what, at+1)
+	}
+	return nil
+}
+
 // flagMessage rewords the flag package's messages in cairn's terms:
 // "flag provided but not defined: -x" becomes "unknown option --x", and
 // `invalid value "v" for flag -x: parse error` becomes `--x: invalid value "v"`.
@@ -119,6 +151,12 @@ func flagMessage(msg string) string {
 		if v, name, ok := strings.Cut(rest, " for flag "); ok {
 			name, _, _ = strings.Cut(name, ":")
 			return "--" + strings.TrimLeft(name, "-") + ": invalid value " + v
+		}
+	}
+	if rest, ok := strings.CutPrefix(msg, "invalid boolean value "); ok {
+		if v, name, ok := strings.Cut(rest, " for "); ok {
+			name, _, _ = strings.Cut(name, ":")
+			return "--" + strings.TrimLeft(name, "-") + " is on or off: give it alone (--" + strings.TrimLeft(name, "-") + "), or =true or =false, not " + v
 		}
 	}
 	if name, ok := strings.CutPrefix(msg, "flag needs an argument: "); ok {

@@ -8,6 +8,7 @@ import (
 
 	"cairn/cmd/cairn/internal/render"
 	"cairn/money"
+	"cairn/plan"
 )
 
 func convertCommand(e *env) *cli.Command {
@@ -28,13 +29,13 @@ func convertCommand(e *env) *cli.Command {
 			if c.NArg() != 1 {
 				return usagef("for example: cairn convert \"3.9% compounded monthly\"", "convert takes one RATE (quote it if it has spaces)")
 			}
-			r, err := money.ParseRate(c.Args().First())
+			r, err := plan.ParseRateIn(c.Args().First(), plan.MinRatePercent, plan.MaxRatePercent)
 			if err != nil {
 				return &inputError{err: err}
 			}
 			var pi *money.Rate
 			if s := c.String("inflation"); s != "" {
-				x, err := money.ParseRate(s)
+				x, err := plan.ParseRateIn(s, -plan.MaxInflationPct, plan.MaxInflationPct)
 				if err != nil {
 					return &inputError{err: fmt.Errorf("--inflation: %v", err)}
 				}

@@ -109,7 +109,7 @@ func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
 			}
 		}
 		for _, g := range p.Goals {
-			if goal != "" && !strings.EqualFold(g.Name, goal) {
+			if goal != "" && p.Goal(goal) != g {
 				continue
 			}
 			if p, _, err = p.With(g.Name, streamFlag(c), sets); err != nil {
@@ -170,12 +170,12 @@ func asOfMonth(c *cli.Context, e *env) (plan.Month, error) {
 	return plan.MonthOf(t.Year(), t.Month()), nil
 }
 
-// goalOf returns the goal named by --goal.
+// goalOf returns the goal named by --goal, after checking --stream.
 func goalOf(c *cli.Context, p *plan.Plan) (*plan.Goal, error) {
 	name := c.String("goal")
 	if name == "" {
 		if len(p.Goals) == 1 {
-			return p.Goals[0], nil
+			return p.Goals[0], knownStream(c, p.Goals[0])
 		}
 		return nil, usagef("the goals are: "+goalNames(p), "--goal is required (the file has %d goals)", len(p.Goals))
 	}
@@ -183,7 +183,30 @@ func goalOf(c *cli.Context, p *plan.Plan) (*plan.Goal, error) {
 	if g == nil {
 		return nil, usagef("the goals are: "+goalNames(p), "no goal named %q", name)
 	}
-	return g, nil
+	return g, knownStream(c, g)
+}
+
+// knownStream refuses a --stream that names none of goal g's streams, as
+// goalOf refuses an unknown --goal, whatever the command goes on to ask.
+func knownStream(c *cli.Context, g *plan.Goal) error {
+	if !c.IsSet("stream") {
+		return nil
+	}
+	name := c.String("stream")
+	if g.Stream(name, false) != nil || g.Stream(name, true) != nil {
+		return nil
+	}
+	var ns []string
+	for _, s := range append(append([]*plan.Stream(nil), g.Deposits...), g.Withdrawals...) {
+		if s.Name != "" {
+			ns = append(ns, fmt.Sprintf("%q", s.Name))
+		}
+	}
+	hint := "the goal has no named deposits or withdrawals (give a stream a name: in the file)"
+	if len(ns) > 0 {
+		hint = fmt.Sprintf("the streams of %q are: %s", g.Name, strings.Join(ns, ", "))
+	}
+	return usagef(hint, "goal %q has no stream named %q", g.Name, name)
 }
 
 func goalNames(p *plan.Plan) string {

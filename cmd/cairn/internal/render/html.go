@@ -40,8 +40,12 @@ type Figure struct {
 	Caption string
 }
 
-// Write renders the page to w.
+// Write renders the page to w; a number that is not finite is an error,
+// and nothing is written.
 func (p *Page) Write(w io.Writer) error {
+	if err := p.finite(); err != nil {
+		return err
+	}
 	d := pageData{Title: p.Title, Footer: cssString(p.Footer), Version: p.Version, Meta: p.Meta,
 		Status: htmlTableOf(p.Status, "status", p.StatusCaption), Remarks: p.Remarks, Notices: noticesOf(p.Notices)}
 	for _, s := range p.Goals {

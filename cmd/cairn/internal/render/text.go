@@ -24,8 +24,12 @@ const (
 )
 
 // Write renders d to w in format f. With CSV the notices go to stderr, each
-// on a line "cairn: note: …".
+// on a line "cairn: note: …". A number that is not finite is an error, and
+// nothing is written.
 func (d *Doc) Write(w, stderr io.Writer, f Format) error {
+	if err := d.finite(); err != nil {
+		return err
+	}
 	switch f {
 	case FormatJSON:
 		return d.writeJSON(w)
@@ -163,10 +167,17 @@ func gridOf(b Block) *Table {
 	return nil
 }
 
+// machineRow is row r as CSV cells. A text cell that a spreadsheet would
+// read as a formula (it starts with =, +, -, @, a tab or a carriage return)
+// gets a leading single quote, as OWASP's advice on CSV injection has it;
+// numbers, a negative amount among them, are written as they are.
 func machineRow(r []Cell) []string {
 	out := make([]string, len(r))
 	for i, c := range r {
 		out[i] = c.Plain()
+		if c.kind == textCell && out[i] != "" && strings.ContainsRune("=+-@\t\r", rune(out[i][0])) {
+			out[i] = "'" + out[i]
+		}
 	}
 	return out
 }
