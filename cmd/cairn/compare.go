@@ -16,10 +16,12 @@ func compareCommand(e *env) *cli.Command {
 		Usage:     "what-if grid: solve one goal under every combination of changed values",
 		ArgsUsage: "[FILE]",
 		Description: "Each --vary KEY=V1,V2,… is one axis; every combination is solved side by side with the\n" +
-			"base plan first. Separate values with ; when they hold commas (deposit=1,000;1,500).\n\n" +
+			"base plan first. Separate values with , or with ; — with ; a comma is a thousands separator\n" +
+			"(deposit=1,000;1,500); a comma list that could hold one is refused (deposit=1,000,1,500).\n" +
+			"A key may be changed once (by --set or one --vary), and not the quantity solved for.\n\n" +
 			"Example:\n   cairn compare examples/household.yaml --goal Retirement --for deposit --vary rate=5%,6%,7% --vary by=2049-12,2051-12",
 		Flags: append(fileFlags(true), goalFlag(true),
-			&cli.StringSliceFlag{Name: "vary", Usage: "an axis `KEY=V1,V2,…` (repeatable)"},
+			&cli.StringSliceFlag{Name: "vary", Usage: "an axis `KEY=V1,V2,…` or KEY=V1;V2;… (repeatable, one per key)"},
 			&cli.StringFlag{Name: "for", Value: "time", Usage: "the `QUANTITY` to solve for: " + plan.Quantities},
 			&cli.StringFlag{Name: "stream", Usage: "the stream to change and solve for, by `NAME`"},
 		),
@@ -38,6 +40,17 @@ func compareCommand(e *env) *cli.Command {
 			}
 			if len(axes) == 0 {
 				return usagef("for example --vary rate=5%,6%,7%", "--vary is required")
+			}
+			sets, err := overrides(c)
+			if err != nil {
+				return err
+			}
+			var all []plan.Vary
+			for _, o := range sets {
+				all = append(all, plan.Vary{Key: o.Key, Values: []string{o.Value}})
+			}
+			if err := plan.CheckAxes(append(all, axes...), q); err != nil {
+				return usagef("", "--vary: %v", err)
 			}
 			if _, err := parseFormat(c); err != nil {
 				return err

@@ -17,12 +17,23 @@ func statusCommand(e *env) *cli.Command {
 		Description: "For every goal: the target as written and at its deadline, the balance projected at the\n" +
 			"deadline, the month the target is reached, on track or short by how much, and the deposit\n" +
 			"per period needed to make the deadline; then the total set aside a month now and needed.\n\n" +
-			"Example:\n   cairn status examples/household.yaml\n   cairn status examples/household.yaml --set inflation=3% --format json",
-		Flags: fileFlags(true),
+			"--set changes every goal, or only the one named by --goal; a change to a stream (deposit,\n" +
+			"withdrawal, grow, every) needs --goal when the file has several goals.\n\n" +
+			"Example:\n   cairn status examples/household.yaml\n   cairn status examples/household.yaml --set inflation=3% --format json\n" +
+			"   cairn status examples/household.yaml --goal Education --set deposit=200",
+		Flags: append(fileFlags(true),
+			&cli.StringFlag{Name: "goal", Aliases: []string{"g"}, Usage: "the goal that --set changes, by `NAME` (every goal is still shown)"},
+			&cli.StringFlag{Name: "stream", Usage: "the stream that --set changes, by `NAME` (the goal's first when not given)"},
+		),
 		Action: func(c *cli.Context) error {
 			p, err := readPlan(c, e)
 			if err != nil {
 				return err
+			}
+			if c.IsSet("goal") {
+				if _, err := goalOf(c, p); err != nil {
+					return err
+				}
 			}
 			if _, err := parseFormat(c); err != nil {
 				return err
