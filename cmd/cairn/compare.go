@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"slices"
 	"strconv"
 
 	"github.com/urfave/cli/v2"
@@ -68,6 +69,20 @@ func compareCommand(e *env) *cli.Command {
 func compareDoc(p *plan.Plan, g *plan.Goal, gr *plan.Grid) *render.Doc {
 	d := newDoc(p, hasDrawdown(g))
 	d.Lead = []string{fmt.Sprintf("%s: what-if, solving for %s; the base plan is the first row.", g.Name, gr.For)}
+	if gr.For == plan.ForRate && g.Fee != 0 {
+		d.Lead = append(d.Lead, fmt.Sprintf("Each rate is before the goal's fee of %s a year, which is taken as well.", pct(g.Fee)))
+		d.Data["before_fee"] = jsonRate(g.Fee)
+	}
+	if a := gr.Base.Answer; a != nil && a.Stream != nil && (gr.For == plan.ForDeposit || gr.For == plan.ForWithdrawal) {
+		switch {
+		case slices.Contains(gr.Keys, "grow"):
+			d.Lead = append(d.Lead, fmt.Sprintf("Each %s is the first year's amount of %s, which grows as its row says.", gr.For, streamLabel(a.Stream)))
+			d.Data["amount_is"] = "first year"
+		case firstYear(p, a.Stream, a.Amount) != "":
+			d.Lead = append(d.Lead, fmt.Sprintf("Each %s is the first year's amount of %s, which grows %s.", gr.For, streamLabel(a.Stream), growthText(a.Stream)))
+			d.Data["amount_is"], d.Data["grow"] = "first year", growthJSON(a.Stream)
+		}
+	}
 	cols := []render.Column{{Head: "case", Key: "case"}}
 	for _, k := range gr.Keys {
 		cols = append(cols, render.Column{Head: k, Key: k})

@@ -52,13 +52,15 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 		{Head: "deadline", Key: "deadline"}, {Head: "projected", Key: "projected", Numeric: true}, {Head: "reached", Key: "reached"},
 		{Head: "status", Key: "status"}, {Head: "short by", Key: "short_by", Numeric: true, Hidden: true},
 		{Head: "needed", Key: "needed"}, {Head: "every", Key: "needed_every", Hidden: true},
+		{Head: "grows", Key: "needed_grows", Hidden: true}, {Head: "in today's money", Key: "target_in_todays_money", Hidden: true},
 	}}
 	var goals []map[string]any
 	drawdown := false
 	for _, gs := range st.Goals {
 		goal := gs.Goal
 		target, atDeadline, deadline, projected, reached := render.None(), render.None(), render.None(), render.None(), render.None()
-		status, shortBy, needed, neededEvery := render.None(), render.Text(""), render.None(), render.Text("")
+		status, shortBy, needed, neededEvery, neededGrows := render.None(), render.Text(""), render.None(), render.Text(""), render.Text("")
+		today := render.Text("")
 		jg := map[string]any{"goal": goal.Name}
 		if goal.HasTarget {
 			target = cash(p, goal.Target)
@@ -67,6 +69,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 			}
 			jg["target"] = jamt(p, goal.Target)
 			jg["target_in_todays_money"] = goal.TargetToday
+			today = render.Bool(goal.TargetToday)
 		}
 		if goal.HasBy {
 			deadline = render.Month(goal.By)
@@ -87,7 +90,14 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 				a := gs.Needed
 				needed = cash(p, a.Amount).Then(" " + every(a.Stream))
 				neededEvery = render.Text(a.Stream.Every.String())
-				jg["needed"] = map[string]any{"amount": jamt(p, a.Amount), "every": a.Stream.Every.String(), "stream": streamLabel(a.Stream), "in_todays_money": a.Stream.Today}
+				jn := map[string]any{"amount": jamt(p, a.Amount), "every": a.Stream.Every.String(), "stream": streamLabel(a.Stream), "in_todays_money": a.Stream.Today}
+				if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+					needed = needed.Then(" *")
+					neededGrows = render.Label(growthText(a.Stream), growthPlain(a.Stream))
+					jn["grow"], jn["amount_is"] = growthJSON(a.Stream), "first year"
+					d.After = append(d.After, fmt.Sprintf("%s: * %s.", goal.Name, fy))
+				}
+				jg["needed"] = jn
 			} else {
 				jg["needed_reason"] = reasonOf(gs.NeededErr)
 				d.After = append(d.After, fmt.Sprintf("%s: no deposit makes the deadline: %s.", goal.Name, reasonOf(gs.NeededErr)))
@@ -117,7 +127,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 			}
 		}
 		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
-		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery)
+		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
 		goals = append(goals, jg)
 	}
 	d.Notices = notices(drawdown)
