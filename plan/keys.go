@@ -1,6 +1,9 @@
 package plan
 
 import (
+	"slices"
+	"strings"
+
 	"cairn/money"
 )
 
@@ -15,6 +18,29 @@ const (
 	InOnce                    // each one-time amount
 	InRateStep                // each step of a rate schedule
 )
+
+// where says where in the file a key of each scope is written, in errors
+// about a key given in the wrong place.
+var where = map[Scope]string{
+	InPlan:       "the top level of the file",
+	InGoal:       "each goal (under goals:)",
+	InStream:     "each stream (under deposits: or withdrawals:)",
+	InWithdrawal: "each withdrawal stream (under withdrawals:)",
+	InOnce:       "each one-time amount (under once:)",
+	InRateStep:   "each step of a rate schedule (under rate:)",
+}
+
+// scopesOf says where the key name belongs, for every scope that has it
+// ("each goal (under goals:)"), or "" when no scope has it.
+func scopesOf(name string) string {
+	var out []string
+	for _, k := range Keys {
+		if w := where[k.Scope]; k.Name == name && !slices.Contains(out, w) {
+			out = append(out, w)
+		}
+	}
+	return strings.Join(out, ", or in ")
+}
 
 // A Form is how a key's value is written.
 type Form int
@@ -43,7 +69,7 @@ var want = map[Form]string{
 	FormVersion:    "the format version 1",
 	FormMonth:      "a month such as 2027-01",
 	FormCurrency:   "an ISO 4217 code such as USD",
-	FormRounding:   "half-even or half-up",
+	FormRounding:   "half-even or half-up (half_even, halfeven, half_up and halfup mean the same)",
 	FormRate:       "a rate such as 4.1%",
 	FormVolatility: "a volatility a year such as 12%",
 	FormFrequency:  "a frequency such as month",
@@ -146,7 +172,8 @@ var Keys = []*Key{
 	{Name: "rounding", Scope: InPlan, Form: FormRounding,
 		Default: "half-even",
 		Help: "how each interest, fee and growing amount rounds to the\n" +
-			"cent: half-even or half-up",
+			"cent: half-even or half-up (also written half_even,\n" +
+			"halfeven, half_up, halfup)",
 		put: func(t *target, v *value) { t.p.Rounding, _ = money.ParseRounding(v.text) }},
 	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true,
 		Missing: "want a list of goals",
@@ -247,15 +274,17 @@ var Keys = []*Key{
 		Default: "required",
 		Help: "day, week, 2 weeks (fortnightly), half month (twice a\n" +
 			"month, semimonthly), month, 2 months, quarter, half\n" +
-			"year (twice a year, semiannually), year (annually).\n" +
+			"year (twice a year, semiannually), year (annually);\n" +
+			"also as every month, per month, a month or monthly.\n" +
 			"\"biweekly\" and \"bimonthly\" are refused: each means two\n" +
 			"different things.",
 		Set: "every",
 		put: func(t *target, v *value) { t.s.Every = v.freq }},
 	{Name: "timing", Scope: InStream, Form: FormChoice,
 		Choices: []Choice{{"end", int(End)}, {"start", int(Begin)}, {"begin", int(Begin)}, {"beginning", int(Begin)}},
-		Noun:    "timing", Want: "start or end",
-		Default: "end", Help: "end or start of each period",
+		Noun:    "timing", Want: "end or start; begin and beginning mean start",
+		Default: "end", Help: "end or start of each period; begin and beginning\n" +
+			"mean start",
 		put: func(t *target, v *value) { t.s.Timing = Timing(v.n) }},
 	{Name: "from", Scope: InStream, Form: FormMonth,
 		Default: "start", Help: "first month with a period",

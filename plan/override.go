@@ -134,8 +134,12 @@ type Vary struct {
 	Values []string
 }
 
-// ParseVary parses KEY=V1,V2,…. Values holding commas themselves (amounts
-// such as 1,500) may be separated by semicolons instead.
+// ParseVary parses KEY=V1,V2,… or KEY=V1;V2;…. When the values hold a
+// semicolon it separates them, and a comma inside a value is a thousands
+// separator (deposit=1,000;1,500). Otherwise commas separate them, and a
+// comma that could be a thousands separator — a digit before it, exactly
+// three digits after it — is refused as ambiguous: deposit=1,000,1,500 could
+// be two amounts or four.
 func ParseVary(s string) (Vary, error) {
 	o, err := ParseOverride(s)
 	if err != nil {
@@ -144,6 +148,9 @@ func ParseVary(s string) (Vary, error) {
 	sep := ","
 	if strings.Contains(o.Value, ";") {
 		sep = ";"
+	} else if thousandsComma(o.Value) {
+		return Vary{}, fmt.Errorf("ambiguous list %s: a comma between digits may group thousands (1,000) or separate values (want values separated by ;, such as %s=1,000;1,500, or amounts without commas, such as %s=1000,1500)",
+			money.Quote(o.Value), o.Key, o.Key)
 	}
 	var vals []string
 	for _, v := range strings.Split(o.Value, sep) {
@@ -155,4 +162,45 @@ func ParseVary(s string) (Vary, error) {
 		return Vary{}, fmt.Errorf("invalid vary %s (want KEY=V1,V2,…)", money.Quote(s))
 	}
 	return Vary{Key: o.Key, Values: vals}, nil
+}
+
+// thousandsComma reports whether s has a comma that could group thousands:
+// one to three digits before it, not starting with 0, and exactly three
+// digits after it.
+func thousandsComma(s string) bool {
+	digit := func(i int) bool { return i >= 0 && i < len(s) && s[i] >= '0' && s[i] <= '9' }
+	for i := range len(s) {
+		if s[i] != ',' || !digit(i+1) || !digit(i+2) || !digit(i+3) || digit(i+4) {
+			continue
+		}
+		j := i
+		for digit(j - 1) {
+			j--
+		}
+		if n := i - j; n >= 1 && n <= 3 && s[j] != '0' {
+			return true
+		}
+	}
+	return false
+}
+
+// solvedKeys maps each quantity a solver finds to the what-if name of the
+// key it replaces; a what-if of that key would be overwritten by the answer.
+var solvedKeys = map[Quantity]string{ForDeposit: "deposit", ForRate: "rate", ForStart: "balance", ForWithdrawal: "withdrawal"}
+
+// CheckAxes refuses a what-if grid that would not say what it computes: a
+// key changed twice (the later change would silently win), or the key whose
+// value the grid solves for q. A --set is an axis of one value here.
+func CheckAxes(axes []Vary, q Quantity) error {
+	seen := map[string]bool{}
+	for _, ax := range axes {
+		if seen[ax.Key] {
+			return fmt.Errorf("%s is changed twice (give every value to try in one --vary %s=…, and leave it out of --set)", ax.Key, ax.Key)
+		}
+		seen[ax.Key] = true
+		if solvedKeys[q] == ax.Key {
+			return fmt.Errorf("%s is the quantity solved for (--for %s), so varying it changes nothing (vary another key, or solve for another quantity)", ax.Key, q)
+		}
+	}
+	return nil
 }

@@ -128,7 +128,9 @@ func (d *decoder) fields(n *yaml.Node, path string, known []string, fn func(key 
 		}
 		if !contains(known, key) {
 			kp := join(path, key)
-			if s := suggest(key, known); s != "" {
+			if where := scopesOf(key); where != "" {
+				d.errorf(k, kp, "unknown key %s here: it belongs in %s", money.Quote(key), where)
+			} else if s := suggest(key, known); s != "" {
 				d.errorf(k, kp, "unknown key %s (did you mean %s?)", money.Quote(key), money.Quote(s))
 			} else {
 				d.errorf(k, kp, "unknown key %s (want one of %s)", money.Quote(key), strings.Join(known, ", "))
@@ -193,7 +195,7 @@ func (d *decoder) scalar(n *yaml.Node, path, want string) (string, bool) {
 	return n.Value, true
 }
 
-func (d *decoder) amount(n *yaml.Node, path string, allowToday, allowNeg bool) (a money.Amount, today, ok bool) {
+func (d *decoder) amount(n *yaml.Node, path string, cur money.Currency, allowToday, allowNeg bool) (a money.Amount, today, ok bool) {
 	want := "an amount such as 1,500.00"
 	if allowToday {
 		want += " or 1,500 today"
@@ -211,6 +213,11 @@ func (d *decoder) amount(n *yaml.Node, path string, allowToday, allowNeg bool) (
 	a, err := money.ParseAmount(t)
 	if err != nil {
 		d.errorf(n, path, "%v", err)
+		return a, false, false
+	}
+	if sym := symbolOf(t); sym != "" && !strings.Contains(cur.Symbol, sym) && !d.bad["currency"] {
+		d.errorf(n, path, "amount %s is written in %s but the file's currency is %s (cairn does not convert currencies: write the amount in %s without a symbol, such as %s)",
+			money.Quote(s), sym, cur.Code, cur.Code, money.Quote(strings.TrimSpace(strings.Replace(strings.TrimSpace(s), sym, "", 1))))
 		return a, false, false
 	}
 	if a.Sign() < 0 && !allowNeg {
@@ -333,7 +340,7 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 	case FormName:
 		v.text, ok = d.name(n, path)
 	case FormAmount, FormAmountToday, FormSignedAmount:
-		v.amount, v.today, ok = d.amount(n, path, k.Form == FormAmountToday, k.Form == FormSignedAmount)
+		v.amount, v.today, ok = d.amount(n, path, t.p.Currency, k.Form == FormAmountToday, k.Form == FormSignedAmount)
 	case FormChoice:
 		s, sok := d.scalar(n, path, k.Want)
 		if !sok {
@@ -383,8 +390,12 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 }
 
 // inHorizon reports whether month m lies within the plan's horizon,
-// reporting it at path if not.
+// reporting it at path if not. Without a valid start there is no horizon,
+// and only the start is reported.
 func (d *decoder) inHorizon(p *Plan, n *yaml.Node, path string, m Month) bool {
+	if d.bad["start"] {
+		return true // no start to measure from; its own problem is reported
+	}
 	if m < p.Start {
 		d.errorf(n, path, "month %s is before the plan's start %s", m, p.Start)
 		return false
@@ -415,6 +426,9 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 	}
 	if given["start"] == nil {
 		p.Start = asOf + 1
+		if asOf == 0 {
+			d.bad["start"] = true // reported as missing
+		}
 	}
 	goalsNode := given["goals"]
 	if goalsNode == nil {
@@ -554,7 +568,7 @@ func (d *decoder) rates(k *Key, p *Plan, v *yaml.Node, path string) []RateStep {
 			d.errorf(fromNode, sp+".from", "month %s is not after the previous rate's %s (rates must be in date order)", st.From, steps[len(steps)-1].From)
 			continue
 		}
-		if i == 0 && st.From != p.Start {
+		if i == 0 && st.From != p.Start && !d.bad["start"] {
 			d.errorf(fromNode, sp+".from", "the first rate must apply from the start %s", p.Start)
 			continue
 		}
@@ -591,6 +605,18 @@ func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out bool) 
 		d.errorf(at, join(path, "until"), "month %s is before from %s", s.Until, s.From)
 	}
 	return s
+}
+
+// symbolOf returns the currency symbol an amount is written with ("€" in
+// "-€250"), or "" for none: the symbols [money.ParseAmount] reads.
+func symbolOf(s string) string {
+	t := strings.TrimLeft(strings.TrimSpace(s), "+-−")
+	for _, sym := range []string{"$", "€", "£", "¥"} {
+		if strings.HasPrefix(t, sym) {
+			return sym
+		}
+	}
+	return ""
 }
 
 // parseLength parses "30 years", "18 months", "1 year".

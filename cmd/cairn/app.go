@@ -224,7 +224,13 @@ func newApp(e *env) *cli.App {
 		},
 	}
 	for _, c := range app.Commands {
-		c.OnUsageError = app.OnUsageError
+		hint := "run `cairn " + c.Name + " --help` for usage"
+		c.OnUsageError = func(_ *cli.Context, err error, _ bool) error {
+			if errors.Is(err, flag.ErrHelp) {
+				return err
+			}
+			return usagef(hint, "%s", flagMessage(err.Error()))
+		}
 		c.HideHelpCommand = true // `cairn help COMMAND` is the help command's
 	}
 	return app

@@ -43,10 +43,11 @@ func checkDoc(p *plan.Plan) *render.Doc {
 	d.Lead = []string{fmt.Sprintf("%s is valid: %d %s from %s, amounts in %s, inflation %s, postings rounded %s.",
 		p.File, len(p.Goals), plural(len(p.Goals), "goal", "goals"), p.Start, p.Currency.Code, p.Inflation, p.Rounding)}
 	gt := &render.Table{Title: "Goals", Cols: []render.Column{{Head: "goal", Key: "goal"}, {Head: "effective rate", Key: "effective_rate"},
-		{Head: "credited", Key: "interest_credited"}, {Head: "per credit", Key: "rate_per_credit"}, {Head: "fee", Key: "fee", Numeric: true},
+		{Head: "interest", Key: "interest_credited"}, {Head: "per compounding", Key: "rate_per_credit"}, {Head: "fee", Key: "fee", Numeric: true},
 		{Head: "horizon", Key: "horizon"}, {Head: "target at deadline", Key: "target_at_deadline", Numeric: true}}}
 	st := &render.Table{Title: "Streams", Cols: []render.Column{{Head: "goal", Key: "goal"}, {Head: "stream", Key: "stream"}, {Head: "amount", Key: "amount", Numeric: true},
-		{Head: "every", Key: "every"}, {Head: "a year", Key: "per_year", Numeric: true}, {Head: "rate per period", Key: "rate_per_period", Numeric: true},
+		{Head: "every", Key: "every"}, {Head: "timing", Key: "timing"}, {Head: "grows", Key: "grow"}, {Head: "a year", Key: "per_year", Numeric: true},
+		{Head: "rate per period", Key: "rate_per_period", Numeric: true},
 		{Head: "first", Key: "first"}, {Head: "last", Key: "last"}, {Head: "count", Key: "count", Numeric: true}}}
 	var goals []map[string]any
 	for _, g := range p.Goals {
@@ -66,9 +67,9 @@ func checkDoc(p *plan.Plan) *render.Doc {
 			target = cash(p, v.TargetAt)
 		}
 		// the fee is written to CSV as shown, with its percent sign
-		gt.Add(render.Text(g.Name), render.Text(strings.Join(eff, "; ")), render.Text(v.Compounding.Adjective()), render.Text(strings.Join(per, "; ")),
+		gt.Add(render.Text(g.Name), render.Text(strings.Join(eff, "; ")), render.Text(interestWords(v.Compounding)), render.Text(strings.Join(per, "; ")),
 			render.Text(pct(g.Fee)), render.Month(v.Horizon), target)
-		jg := map[string]any{"goal": g.Name, "effective_rates": eff, "interest_credited": v.Compounding.Adjective(), "between": g.Between.String(),
+		jg := map[string]any{"goal": g.Name, "effective_rates": eff, "interest_credited": creditedAt(v.Compounding).Adjective(), "interest_compounded": v.Compounding.Adjective(), "between": g.Between.String(),
 			"between_rule": g.Between.Words(), "horizon": v.Horizon.String(), "fee": jsonRate(g.Fee)}
 		if g.HasTarget {
 			jg["target_at_deadline"] = jamt(p, v.TargetAt)
@@ -86,10 +87,11 @@ func checkDoc(p *plan.Plan) *render.Doc {
 			if s.Count > 0 {
 				first, last = s.First.String(), s.Last.String()
 			}
-			st.Add(render.Text(g.Name), render.Text(streamLabel(s.Stream)), a, render.Text(s.Stream.Every.String()), render.Int(s.PerYear),
+			st.Add(render.Text(g.Name), render.Text(streamLabel(s.Stream)), a, render.Text(s.Stream.Every.String()), render.Text(s.Stream.Timing.String()),
+				render.Label(growthText(s.Stream), growthPlain(s.Stream)), render.Int(s.PerYear),
 				render.Rate(s.RatePerPeriod), render.Text(first), render.Text(last), render.Int(s.Count))
 			streams = append(streams, map[string]any{"stream": streamLabel(s.Stream), "withdrawal": s.Stream.Out, "amount": jamt(p, s.Stream.Amount),
-				"in_todays_money": s.Stream.Today, "every": s.Stream.Every.String(), "per_year": s.PerYear, "timing": s.Stream.Timing.String(),
+				"in_todays_money": s.Stream.Today, "every": s.Stream.Every.String(), "per_year": s.PerYear, "timing": s.Stream.Timing.String(), "grow": growthJSON(s.Stream),
 				"rate_per_period": jsonRate(s.RatePerPeriod), "first": first, "last": last, "count": s.Count})
 		}
 		jg["streams"] = streams

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"slices"
 	"strconv"
 
 	"github.com/urfave/cli/v2"
@@ -16,10 +17,12 @@ func compareCommand(e *env) *cli.Command {
 		Usage:     "what-if grid: solve one goal under every combination of changed values",
 		ArgsUsage: "[FILE]",
 		Description: "Each --vary KEY=V1,V2,… is one axis; every combination is solved side by side with the\n" +
-			"base plan first. Separate values with ; when they hold commas (deposit=1,000;1,500).\n\n" +
+			"base plan first. Separate values with , or with ; — with ; a comma is a thousands separator\n" +
+			"(deposit=1,000;1,500); a comma list that could hold one is refused (deposit=1,000,1,500).\n" +
+			"A key may be changed once (by --set or one --vary), and not the quantity solved for.\n\n" +
 			"Example:\n   cairn compare examples/household.yaml --goal Retirement --for deposit --vary rate=5%,6%,7% --vary by=2049-12,2051-12",
 		Flags: append(fileFlags(true), goalFlag(true),
-			&cli.StringSliceFlag{Name: "vary", Usage: "an axis `KEY=V1,V2,…` (repeatable)"},
+			&cli.StringSliceFlag{Name: "vary", Usage: "an axis `KEY=V1,V2,…` or KEY=V1;V2;… (repeatable, one per key)"},
 			&cli.StringFlag{Name: "for", Value: "time", Usage: "the `QUANTITY` to solve for: " + plan.Quantities},
 			&cli.StringFlag{Name: "stream", Usage: "the stream to change and solve for, by `NAME`"},
 		),
@@ -39,6 +42,17 @@ func compareCommand(e *env) *cli.Command {
 			if len(axes) == 0 {
 				return usagef("for example --vary rate=5%,6%,7%", "--vary is required")
 			}
+			sets, err := overrides(c)
+			if err != nil {
+				return err
+			}
+			var all []plan.Vary
+			for _, o := range sets {
+				all = append(all, plan.Vary{Key: o.Key, Values: []string{o.Value}})
+			}
+			if err := plan.CheckAxes(append(all, axes...), q); err != nil {
+				return usagef("", "--vary: %v", err)
+			}
 			if _, err := parseFormat(c); err != nil {
 				return err
 			}
@@ -55,6 +69,20 @@ func compareCommand(e *env) *cli.Command {
 func compareDoc(p *plan.Plan, g *plan.Goal, gr *plan.Grid) *render.Doc {
 	d := newDoc(p, hasDrawdown(g))
 	d.Lead = []string{fmt.Sprintf("%s: what-if, solving for %s; the base plan is the first row.", g.Name, gr.For)}
+	if gr.For == plan.ForRate && g.Fee != 0 {
+		d.Lead = append(d.Lead, fmt.Sprintf("Each rate is before the goal's fee of %s a year, which is taken as well.", pct(g.Fee)))
+		d.Data["before_fee"] = jsonRate(g.Fee)
+	}
+	if a := gr.Base.Answer; a != nil && a.Stream != nil && (gr.For == plan.ForDeposit || gr.For == plan.ForWithdrawal) {
+		switch {
+		case slices.Contains(gr.Keys, "grow"):
+			d.Lead = append(d.Lead, fmt.Sprintf("Each %s is the first year's amount of %s, which grows as its row says.", gr.For, streamLabel(a.Stream)))
+			d.Data["amount_is"] = "first year"
+		case firstYear(p, a.Stream, a.Amount) != "":
+			d.Lead = append(d.Lead, fmt.Sprintf("Each %s is the first year's amount of %s, which grows %s.", gr.For, streamLabel(a.Stream), growthText(a.Stream)))
+			d.Data["amount_is"], d.Data["grow"] = "first year", growthJSON(a.Stream)
+		}
+	}
 	cols := []render.Column{{Head: "case", Key: "case"}}
 	for _, k := range gr.Keys {
 		cols = append(cols, render.Column{Head: k, Key: k})

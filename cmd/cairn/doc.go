@@ -64,8 +64,8 @@ func pct(x float64) string                     { return money.RateText(x) }
 // cash is amount a of plan p as a table cell.
 func cash(p *plan.Plan, a money.Amount) render.Cell { return render.Amount(a, p.Currency) }
 
-// jsonRate formats a fraction as a percent string with 4 decimals.
-func jsonRate(x float64) string { return render.Percent4(x) }
+// jsonRate formats a fraction as a rate's machine form ([render.RatePlain]).
+func jsonRate(x float64) string { return render.RatePlain(x) }
 
 func every(s *plan.Stream) string { return "every " + s.Every.String() }
 
@@ -85,6 +85,81 @@ func amountPhrase(p *plan.Plan, s *plan.Stream, a, first money.Amount) string {
 		return fmt.Sprintf("%s in today's money (%s in %s)", amt(p, a), amt(p, first), s.From)
 	}
 	return amt(p, a)
+}
+
+// firstYear says that amount a of stream s is its first year's when the
+// stream rises or falls each year ("2,405.51 is the first year's amount; it
+// rises 2.5% a year"), or "" when every period's amount is a. An amount in
+// today's money that rises with inflation is the same every year in today's
+// money, and needs no note.
+func firstYear(p *plan.Plan, s *plan.Stream, a money.Amount) string {
+	if s == nil || s.Today && s.GrowInflation {
+		return ""
+	}
+	var w string
+	switch {
+	case s.GrowInflation:
+		w = "rises with inflation"
+	case s.Grow > 0:
+		w = "rises " + pct(s.Grow) + " a year"
+	case s.Grow < 0:
+		w = "falls " + pct(-s.Grow) + " a year"
+	default:
+		return ""
+	}
+	return fmt.Sprintf("%s is the first year's amount; it %s", amt(p, a), w)
+}
+
+// interestWords says when a goal whose first rate compounds at f earns and
+// is credited interest: "monthly" when the two are the same dates, and
+// "compounded daily, credited monthly" when compounding is more frequent
+// than monthly (the engine credits such interest at each month end).
+func interestWords(f money.Frequency) string {
+	if f == money.Continuous || f.PerYear() > 12 {
+		return "compounded " + f.Adjective() + ", credited monthly"
+	}
+	return f.Adjective()
+}
+
+// creditedAt is the frequency at which interest compounding at f is
+// credited.
+func creditedAt(f money.Frequency) money.Frequency {
+	if f == money.Continuous || f.PerYear() > 12 {
+		return money.Monthly
+	}
+	return f
+}
+
+// growthPlain is growthJSON as CSV writes it: "" for none.
+func growthPlain(s *plan.Stream) string {
+	if g, ok := growthJSON(s).(string); ok {
+		return g
+	}
+	return ""
+}
+
+// growthText is the yearly change of stream s as shown: "2.5% a year",
+// "inflation", or "-" for none.
+func growthText(s *plan.Stream) string {
+	switch {
+	case s.GrowInflation:
+		return "inflation"
+	case s.Grow != 0:
+		return pct(s.Grow) + " a year"
+	}
+	return "-"
+}
+
+// growthJSON is the yearly change of stream s in machine form: a rate,
+// "inflation", or nil when it does not change.
+func growthJSON(s *plan.Stream) any {
+	switch {
+	case s.GrowInflation:
+		return "inflation"
+	case s.Grow != 0:
+		return jsonRate(s.Grow)
+	}
+	return nil
 }
 
 func hasDrawdown(g *plan.Goal) bool { return len(g.Withdrawals) > 0 }

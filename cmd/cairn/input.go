@@ -104,9 +104,13 @@ func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
 		if goal == "" && len(p.Goals) > 1 {
 			for _, o := range sets {
 				if o.NeedsGoal() {
-					return nil, usagef("name the goal with --goal", "--set %s needs --goal when the file has several goals", o.Key)
+					return nil, usagef("name the goal whose stream it changes with --goal NAME; the goals are: "+goalNames(p),
+						"--set %s needs --goal when the file has several goals", o.Key)
 				}
 			}
+		}
+		if goal != "" && p.Goal(goal) == nil {
+			return nil, usagef("the goals are: "+goalNames(p), "no goal named %q", goal)
 		}
 		for _, g := range p.Goals {
 			if goal != "" && p.Goal(goal) != g {

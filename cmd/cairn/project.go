@@ -49,8 +49,12 @@ func projectCommand(e *env) *cli.Command {
 				}
 				end = m
 			}
-			if _, err := parseFormat(c); err != nil {
+			f, err := parseFormat(c)
+			if err != nil {
 				return err
+			}
+			if c.Bool("chart") && f != render.FormatText {
+				return usagef("leave out --chart, or use --format table", "--chart draws in the terminal and is for --format table, not %s", strings.ToLower(c.String("format")))
 			}
 			l, err := plan.Project(p, g, end)
 			if err != nil {

@@ -220,7 +220,11 @@ func goalFacts(p *plan.Plan, gs plan.GoalStatus) *render.Facts {
 		add("Projected at the deadline", s)
 		if gs.NeededErr == nil {
 			a := gs.Needed
-			add("Needed to make the deadline", fmt.Sprintf("%s %s (%s)", amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), streamLabel(a.Stream)))
+			need := fmt.Sprintf("%s %s (%s)", amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), streamLabel(a.Stream))
+			if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+				need += "; " + fy
+			}
+			add("Needed to make the deadline", need)
 		} else {
 			add("Needed to make the deadline", "no deposit makes it: "+reasonOf(gs.NeededErr))
 		}
@@ -336,10 +340,10 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 			from = "from " + st.From.String()
 		}
 		rates = append(rates, s+", "+from)
-		credits = append(credits, pct(v.PerCredit[i])+" a credit "+from)
+		credits = append(credits, pct(v.PerCredit[i])+" per compounding period "+from)
 	}
 	add("Rate", strings.Join(rates, "; "))
-	add("Interest credited", v.Compounding.Adjective()+": "+strings.Join(credits, "; "))
+	add("Interest", interestWords(v.Compounding)+": "+strings.Join(credits, "; "))
 	add("Between interest dates", fmt.Sprintf("%s: %s", g.Between, g.Between.Words()))
 	if g.Fee > 0 {
 		add("Fee", pct(g.Fee)+" a year of the balance, a twelfth taken at each month end")

@@ -59,7 +59,7 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 	g := a.Goal
 	switch a.For {
 	case plan.ForTime:
-		s := fmt.Sprintf("%s reaches %s in %s, %d %s from %s.", g.Name, amt(p, a.Target), a.Month, a.Months, plural(a.Months, "month", "months"), p.Start)
+		s := fmt.Sprintf("%s reaches %s in %s, after %s.", g.Name, amt(p, a.Target), a.Month, span(p, a))
 		if a.Note != "" {
 			s += " (" + a.Note + ".)"
 		}
@@ -67,14 +67,21 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 	case plan.ForDeposit:
 		s := fmt.Sprintf("%s needs a deposit of %s %s (%s) to reach %s by %s.", g.Name,
 			amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), streamLabel(a.Stream), amt(p, a.Target), a.Deadline)
+		if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+			s += " (" + fy + ".)"
+		}
 		if a.Note != "" {
 			s += " (" + a.Note + ".)"
 		}
 		return s
 	case plan.ForRate:
 		comp := g.Rates[0].Rate.Compounding()
-		return fmt.Sprintf("%s reaches %s by %s at %s a year effective (%s compounded %s).", g.Name, amt(p, a.Target), a.Deadline,
+		s := fmt.Sprintf("%s reaches %s by %s at %s a year effective (%s compounded %s).", g.Name, amt(p, a.Target), a.Deadline,
 			pct(a.Rate.Effective()), pct(a.Rate.Nominal(comp)), comp.Adjective())
+		if g.Fee != 0 {
+			s += fmt.Sprintf(" The rate is before the goal's fee of %s a year, which is taken as well.", pct(g.Fee))
+		}
+		return s
 	case plan.ForStart:
 		s := fmt.Sprintf("%s needs %s saved at the start of %s to reach %s by %s.", g.Name, amt(p, a.Amount), p.Start, amt(p, a.Target), a.Deadline)
 		if a.Note != "" {
@@ -82,8 +89,12 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 		}
 		return s
 	case plan.ForWithdrawal:
-		return fmt.Sprintf("%s can pay %s of %s %s from %s through %s, leaving %s.", g.Name, streamLabel(a.Stream),
+		s := fmt.Sprintf("%s can pay %s of %s %s from %s through %s, leaving %s.", g.Name, streamLabel(a.Stream),
 			amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), a.Stream.From, a.Deadline, amt(p, a.Left))
+		if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+			s += " (" + fy + ".)"
+		}
+		return s
 	case plan.ForLasts:
 		if a.Lasts {
 			s := fmt.Sprintf("%s: the money lasts through the last withdrawal in %s, leaving %s.", g.Name, a.Month, amt(p, a.Left))
@@ -92,9 +103,33 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 			}
 			return s
 		}
-		return fmt.Sprintf("%s runs out of money in %s, %d %s from %s.", g.Name, a.Month, a.Months, plural(a.Months, "month", "months"), p.Start)
+		return fmt.Sprintf("%s runs out of money in %s, after %s.", g.Name, a.Month, span(p, a))
 	}
 	return ""
+}
+
+// span says how long the plan runs until the month of answer a, counting
+// the way a reader counts: "530 months (44 years 2 months), 2027-01 through
+// 2071-02", both months whole.
+func span(p *plan.Plan, a *plan.Answer) string {
+	y, m := a.Months/12, a.Months%12
+	var ym []string
+	if y > 0 {
+		ym = append(ym, fmt.Sprintf("%d %s", y, plural(y, "year", "years")))
+	}
+	if m > 0 && y > 0 {
+		ym = append(ym, fmt.Sprintf("%d %s", m, plural(m, "month", "months")))
+	}
+	long := ""
+	if y > 0 {
+		long = " (" + strings.Join(ym, " ") + ")"
+	}
+	return fmt.Sprintf("%d %s%s, %s through %s", a.Months, plural(a.Months, "month", "months"), long, p.Start, a.Month)
+}
+
+// spanLabel is the item that counts the months of span.
+func spanLabel(p *plan.Plan, a *plan.Answer) string {
+	return fmt.Sprintf("months from %s through %s", p.Start, a.Month)
 }
 
 // answerValue is the answer as one cell: a month, an amount or a rate.
@@ -127,7 +162,7 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		j["answer"] = a.Month.String()
 		j["months"] = a.Months
 		add("month reached", render.Month(a.Month))
-		add("months from "+p.Start.String(), render.Int(a.Months))
+		add(spanLabel(p, a), render.Int(a.Months))
 		if !math.IsNaN(a.Periods) {
 			add("closed form", render.Text(fmt.Sprintf("n = %.4f periods of %s", a.Periods, a.Freq)))
 			j["closed_form_periods"] = strconv.FormatFloat(a.Periods, 'f', 4, 64)
@@ -147,6 +182,10 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 			if a.Stream.Today {
 				add("first amount, in "+a.Stream.From.String(), cash(p, a.FirstAmount))
 			}
+			if g := growthJSON(a.Stream); g != nil && firstYear(p, a.Stream, a.Amount) != "" {
+				add("grows", render.Text(growthText(a.Stream)+" (the amount is the first year's)"))
+				j["grow"], j["amount_is"] = g, "first year"
+			}
 		} else {
 			add("opening balance", cash(p, a.Amount))
 		}
@@ -158,6 +197,10 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		// rates are written to CSV as shown, with their percent sign
 		add("effective annual rate", render.Text(pct(a.Rate.Effective())))
 		add("nominal, compounded "+comp.Adjective(), render.Text(pct(a.Rate.Nominal(comp))))
+		if g.Fee != 0 {
+			j["before_fee"] = jsonRate(g.Fee)
+			add("both before the fee of", render.Text(pct(g.Fee)+" a year"))
+		}
 		var others []string
 		for _, r := range a.Rates {
 			others = append(others, jsonRate(r.Effective()))
@@ -178,7 +221,7 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 			j["answer"] = a.Month.String()
 			j["months"] = a.Months
 			add("runs out in", render.Month(a.Month))
-			add("months from "+p.Start.String(), render.Int(a.Months))
+			add(spanLabel(p, a), render.Int(a.Months))
 		}
 	}
 	if a.For == plan.ForWithdrawal {

@@ -17,12 +17,23 @@ func statusCommand(e *env) *cli.Command {
 		Description: "For every goal: the target as written and at its deadline, the balance projected at the\n" +
 			"deadline, the month the target is reached, on track or short by how much, and the deposit\n" +
 			"per period needed to make the deadline; then the total set aside a month now and needed.\n\n" +
-			"Example:\n   cairn status examples/household.yaml\n   cairn status examples/household.yaml --set inflation=3% --format json",
-		Flags: fileFlags(true),
+			"--set changes every goal, or only the one named by --goal; a change to a stream (deposit,\n" +
+			"withdrawal, grow, every) needs --goal when the file has several goals.\n\n" +
+			"Example:\n   cairn status examples/household.yaml\n   cairn status examples/household.yaml --set inflation=3% --format json\n" +
+			"   cairn status examples/household.yaml --goal Education --set deposit=200",
+		Flags: append(fileFlags(true),
+			&cli.StringFlag{Name: "goal", Aliases: []string{"g"}, Usage: "the goal that --set changes, by `NAME` (every goal is still shown)"},
+			&cli.StringFlag{Name: "stream", Usage: "the stream that --set changes, by `NAME` (the goal's first when not given)"},
+		),
 		Action: func(c *cli.Context) error {
 			p, err := readPlan(c, e)
 			if err != nil {
 				return err
+			}
+			if c.IsSet("goal") {
+				if _, err := goalOf(c, p); err != nil {
+					return err
+				}
 			}
 			if _, err := parseFormat(c); err != nil {
 				return err
@@ -41,13 +52,15 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 		{Head: "deadline", Key: "deadline"}, {Head: "projected", Key: "projected", Numeric: true}, {Head: "reached", Key: "reached"},
 		{Head: "status", Key: "status"}, {Head: "short by", Key: "short_by", Numeric: true, Hidden: true},
 		{Head: "needed", Key: "needed"}, {Head: "every", Key: "needed_every", Hidden: true},
+		{Head: "grows", Key: "needed_grows", Hidden: true}, {Head: "in today's money", Key: "target_in_todays_money", Hidden: true},
 	}}
 	var goals []map[string]any
 	drawdown := false
 	for _, gs := range st.Goals {
 		goal := gs.Goal
 		target, atDeadline, deadline, projected, reached := render.None(), render.None(), render.None(), render.None(), render.None()
-		status, shortBy, needed, neededEvery := render.None(), render.Text(""), render.None(), render.Text("")
+		status, shortBy, needed, neededEvery, neededGrows := render.None(), render.Text(""), render.None(), render.Text(""), render.Text("")
+		today := render.Text("")
 		jg := map[string]any{"goal": goal.Name}
 		if goal.HasTarget {
 			target = cash(p, goal.Target)
@@ -56,6 +69,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 			}
 			jg["target"] = jamt(p, goal.Target)
 			jg["target_in_todays_money"] = goal.TargetToday
+			today = render.Bool(goal.TargetToday)
 		}
 		if goal.HasBy {
 			deadline = render.Month(goal.By)
@@ -76,7 +90,14 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 				a := gs.Needed
 				needed = cash(p, a.Amount).Then(" " + every(a.Stream))
 				neededEvery = render.Text(a.Stream.Every.String())
-				jg["needed"] = map[string]any{"amount": jamt(p, a.Amount), "every": a.Stream.Every.String(), "stream": streamLabel(a.Stream), "in_todays_money": a.Stream.Today}
+				jn := map[string]any{"amount": jamt(p, a.Amount), "every": a.Stream.Every.String(), "stream": streamLabel(a.Stream), "in_todays_money": a.Stream.Today}
+				if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+					needed = needed.Then(" *")
+					neededGrows = render.Label(growthText(a.Stream), growthPlain(a.Stream))
+					jn["grow"], jn["amount_is"] = growthJSON(a.Stream), "first year"
+					d.After = append(d.After, fmt.Sprintf("%s: * %s.", goal.Name, fy))
+				}
+				jg["needed"] = jn
 			} else {
 				jg["needed_reason"] = reasonOf(gs.NeededErr)
 				d.After = append(d.After, fmt.Sprintf("%s: no deposit makes the deadline: %s.", goal.Name, reasonOf(gs.NeededErr)))
@@ -106,7 +127,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 			}
 		}
 		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
-		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery)
+		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
 		goals = append(goals, jg)
 	}
 	d.Notices = notices(drawdown)

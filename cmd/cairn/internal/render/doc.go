@@ -10,6 +10,7 @@
 package render
 
 import (
+	"math"
 	"strconv"
 
 	"cairn/money"
@@ -193,7 +194,7 @@ func None() Cell { return Label("-", "") }
 func Amount(a money.Amount, c money.Currency) Cell { return Cell{kind: amountCell, a: a, cur: c} }
 
 // Rate is an annual rate or a rate per period, as a fraction: "6.5%" shown
-// (see [money.RateText]), "6.5000" (percent, four places) in CSV.
+// (see [money.RateText]), "6.5000" in CSV ([RatePlain]: the same digits).
 func Rate(x float64) Cell { return Cell{kind: rateCell, x: x} }
 
 // Share is a share of paths, as a fraction: "23.4%" shown with places
@@ -226,9 +227,17 @@ func (c Cell) Then(words string) Cell {
 // Grouped is n with thousands separators: "12,000".
 func Grouped(n int) string { return money.Units(int64(n)).Format(money.Currency{Places: 0}, false) }
 
-// Percent4 is a fraction as a percent with four places, the machine form of
-// a rate: 0.065 is "6.5000".
-func Percent4(x float64) string { return strconv.FormatFloat(x*100, 'f', 4, 64) }
+// RatePlain is a rate, as a fraction, in its machine form: a percent
+// without the sign, with every digit text shows ([money.RateText]: four
+// places, six below 1%), trailing zeros kept: 0.065 is "6.5000", 0.00173216
+// is "0.173216". CSV and JSON then read as the table does.
+func RatePlain(x float64) string {
+	places := 4
+	if x != 0 && math.Abs(x) < 0.01 {
+		places = 6
+	}
+	return strconv.FormatFloat(x*100, 'f', places, 64)
+}
 
 // String is c as text shows it, amounts with every place.
 func (c Cell) String() string { return c.text(false) }
@@ -273,8 +282,10 @@ func (c Cell) Plain() string {
 		return c.s
 	case amountCell:
 		return c.a.Plain(c.cur.Places)
-	case rateCell, shareCell:
-		return Percent4(c.x)
+	case rateCell:
+		return RatePlain(c.x)
+	case shareCell:
+		return strconv.FormatFloat(c.x*100, 'f', 4, 64)
 	case exactRateCell:
 		return strconv.FormatFloat(c.x*100, 'f', 6, 64)
 	case countCell, intCell:

@@ -37,7 +37,9 @@ func TestCell(t *testing.T) {
 		{"amount then words", Amount(amount(t, "160"), usd).Then(" every month"), "160.00 every month", "160 every month", "160.00"},
 		{"negative amount", Amount(amount(t, "-2500"), usd), "-2,500.00", "-2,500", "-2500.00"},
 		{"rate", Rate(0.065), "6.5%", "6.5%", "6.5000"},
-		{"small rate", Rate(0.0001095890), "0.010959%", "0.010959%", "0.0110"},
+		// the machine form keeps every digit shown (issue 17: one fact, one reading)
+		{"small rate", Rate(0.0001095890), "0.010959%", "0.010959%", "0.010959"},
+		{"zero rate", Rate(0), "0%", "0%", "0.0000"},
 		{"share", Share(0.234, 1), "23.4%", "23.4%", "23.4000"},
 		{"share two places", Share(0.9, 2), "90.00%", "90.00%", "90.0000"},
 		{"exact rate", ExactRate(0.01), "1%", "1%", "1.000000"},
