@@ -29,3 +29,13 @@ warnings=$( { groff -ww -z -man "$tmp/cairn.1" 2>&1; man --warnings -l "$tmp/cai
 if [ -n "$warnings" ]; then echo "$warnings"; exit 1; fi
 grep -q '^\.SH "THE GOALS FILE"' "$tmp/cairn.1"
 echo "cairn.1: $(wc -l < "$tmp/cairn.1") lines, no warnings"
+
+echo "-- shell completion, driven in bash, zsh and fish"
+need=()
+command -v zsh >/dev/null || need+=(zsh)
+command -v fish >/dev/null || need+=(fish)
+[ -f /usr/share/bash-completion/bash_completion ] || need+=(bash-completion)
+if [ ${#need[@]} -gt 0 ]; then
+  apt-get update -qq && apt-get install -y -qq --no-install-recommends "${need[@]}" >/dev/null
+fi
+.ci/completion-test.sh
