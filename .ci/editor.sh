@@ -22,6 +22,21 @@ node testdata/schema/validate.mjs good examples/*.yaml
 SCHEMA="$tmp/empty/cairn.schema.json" node testdata/schema/validate.mjs good "$tmp/empty/cairn.yaml"
 node testdata/schema/validate.mjs bad $(awk '$1 == "shape" { print "testdata/bad/" $2 }' testdata/schema/bad-files.txt)
 
+echo "-- each command's JSON output: its schema is generated, and ajv validates real output"
+n=0
+for f in schema/output/*.schema.json; do
+  cmd=$(basename "$f" .schema.json)
+  cairn help "$cmd" --format schema | cmp - "$f"
+done
+while read -r line; do
+  case $line in ''|'#'*) continue ;; esac
+  n=$((n + 1))
+  cmd=${line%% *}
+  # shellcheck disable=SC2086 # the line is words
+  (cd examples && cairn $line --format json > "$tmp/out-$n-$cmd.json" 2>/dev/null) || [ $? -eq 1 ]
+  SCHEMA="schema/output/$cmd.schema.json" node testdata/schema/validate.mjs good "$tmp/out-$n-$cmd.json"
+done < testdata/schema/outputs.txt
+
 echo "-- the man page: no warnings from groff or man"
 command -v man >/dev/null && command -v groff >/dev/null || { apt-get update -qq && apt-get install -y -qq --no-install-recommends man-db groff-base >/dev/null; }
 cairn help --format man > "$tmp/cairn.1"
