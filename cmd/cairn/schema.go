@@ -11,7 +11,8 @@ import (
 
 // This file writes the JSON Schema (draft 2020-12) of the goals file from
 // plan's table of keys: every key's meaning, written form (a pattern),
-// default, words and limits. It is committed as schema/goals.schema.json,
+// default, words and limits. It keeps to keywords that mean the same in
+// draft 7, which some editors' language servers still read. It is committed as schema/goals.schema.json,
 // and CI checks the two are the same.
 
 // schemaFile is the name `cairn init` writes the schema under, beside the
@@ -32,7 +33,6 @@ type jsonSchema struct {
 	MaxLength   int                    `json:"maxLength,omitempty"`
 	MinItems    int                    `json:"minItems,omitempty"`
 	MaxItems    int                    `json:"maxItems,omitempty"`
-	PrefixItems []*jsonSchema          `json:"prefixItems,omitempty"`
 	Items       *jsonSchema            `json:"items,omitempty"`
 	AnyOf       []*jsonSchema          `json:"anyOf,omitempty"`
 	Properties  map[string]*jsonSchema `json:"properties,omitempty"`
@@ -110,11 +110,13 @@ func keySchema(k *plan.Key) *jsonSchema {
 			out.MinItems = 1 // a required list may not be empty
 		}
 	case plan.FormRates:
+		// a rate, or a list of rates and steps; the decoder checks that only
+		// the first stands alone and later ones say from: (no prefixItems,
+		// which readers of older drafts would skip)
 		step := &jsonSchema{Ref: "#/$defs/" + scopeDefs[plan.InRateStep]}
 		out = &jsonSchema{AnyOf: []*jsonSchema{text(), {
 			Type: "array", MinItems: 1, MaxItems: k.MaxItems,
-			PrefixItems: []*jsonSchema{{AnyOf: []*jsonSchema{text(), step}}},
-			Items:       &jsonSchema{Ref: step.Ref, Type: "object", Required: []string{"from"}}, // each later rate says when it starts
+			Items: &jsonSchema{AnyOf: []*jsonSchema{text(), step}},
 		}}}
 	default:
 		out = text()

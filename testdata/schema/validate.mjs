@@ -5,8 +5,6 @@
 //   node validate.mjs good FILE...   each file must validate
 //   node validate.mjs bad FILE...    each file must be YAML that the schema rejects
 //
-// strictTuples is off: the rate schedule is a tuple of one (a rate or a
-// step) followed by any number of steps, which that check does not allow for.
 // The schema is ../../schema/goals.schema.json, or $SCHEMA.
 import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
@@ -19,7 +17,7 @@ if (!["good", "bad"].includes(mode) || files.length === 0) {
   process.exit(2);
 }
 const schemaPath = process.env.SCHEMA ?? fileURLToPath(new URL("../../schema/goals.schema.json", import.meta.url));
-const ajv = new Ajv2020({ allErrors: true, strict: true, strictTuples: false, allowUnionTypes: true });
+const ajv = new Ajv2020({ allErrors: true, strict: true, allowUnionTypes: true });
 const validate = ajv.compile(JSON.parse(readFileSync(schemaPath, "utf8")));
 
 let failed = 0;
