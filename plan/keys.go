@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"regexp"
 	"slices"
 	"strings"
 
@@ -98,6 +99,8 @@ type Key struct {
 	Noun     string   // FormChoice: what a value is called in errors ("rule")
 	Want     string   // FormChoice: the words to suggest ("compound, simple or none")
 
+	MaxItems int // FormList, FormRates: the most items a list may hold
+
 	Required bool
 	Missing  string // the reason given when a required key is missing, or ""
 	OrAsOf   bool   // Required unless the caller gives today's month (Parse's asOf)
@@ -175,7 +178,7 @@ var Keys = []*Key{
 			"cent: half-even or half-up (also written half_even,\n" +
 			"halfeven, half_up, halfup)",
 		put: func(t *target, v *value) { t.p.Rounding, _ = money.ParseRounding(v.text) }},
-	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true,
+	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true, MaxItems: MaxGoals,
 		Missing: "want a list of goals",
 		Default: "required", Help: "a list of goals"},
 
@@ -188,7 +191,7 @@ var Keys = []*Key{
 		Default: "0", Help: "already saved at the start",
 		Set: "balance",
 		put: func(t *target, v *value) { t.g.Balance = v.amount }},
-	{Name: "rate", Scope: InGoal, Form: FormRates, Min: MinRatePercent, Max: MaxRatePercent,
+	{Name: "rate", Scope: InGoal, Form: FormRates, Min: MinRatePercent, Max: MaxRatePercent, MaxItems: MaxRateSteps,
 		Default: "0%",
 		Help: "a rate, or a schedule of rates:\n" +
 			"  rate: 4.1%                       (effective a year)\n" +
@@ -244,11 +247,11 @@ var Keys = []*Key{
 		Default: "none", Help: "the deadline: the end of that month",
 		Set: "by",
 		put: func(t *target, v *value) { t.g.By, t.g.HasBy = v.month, true }},
-	{Name: "deposits", Scope: InGoal, Form: FormList, Items: InStream,
+	{Name: "deposits", Scope: InGoal, Form: FormList, Items: InStream, MaxItems: MaxStreams,
 		Default: "none", Help: "a list of streams (below)"},
-	{Name: "withdrawals", Scope: InGoal, Form: FormList, Items: InStream,
+	{Name: "withdrawals", Scope: InGoal, Form: FormList, Items: InWithdrawal, MaxItems: MaxStreams,
 		Default: "none", Help: "a list of streams, plus for:"},
-	{Name: "once", Scope: InGoal, Form: FormList, Items: InOnce,
+	{Name: "once", Scope: InGoal, Form: FormList, Items: InOnce, MaxItems: MaxOnce,
 		Default: "none",
 		Help: "one-time amounts: positive in, negative out\n" +
 			"  - name: gift       (optional)\n" +
@@ -334,4 +337,132 @@ func keyNames(ks []*Key) []string {
 		out[i] = k.Name
 	}
 	return out
+}
+
+// KeysIn returns the keys that may appear in a mapping of scope s, in table
+// order: a withdrawal has the stream's keys and its own.
+func KeysIn(s Scope) []*Key { return keysIn(s) }
+
+// Pattern returns how a value of k is written, as text, in a regular
+// expression anchored at both ends, or "" when the form has no one written
+// shape (a name, a list). The pattern reads the same in Go's regexp and in
+// ECMAScript, as JSON Schema's pattern keyword does: no flags, so words match
+// in any case through [aA] classes, as the decoder reads them. It describes
+// the text only; ranges (a rate's Min and Max, the amount limit) are checked
+// after it. The JSON Schema of the goals file is built from it, and a test
+// holds it to the decoder: what the decoder accepts matches, and a sample of
+// what it refuses does not.
+func (k *Key) Pattern() string {
+	switch k.Form {
+	case FormChoice:
+		ws := make([]string, len(k.Choices))
+		for i, c := range k.Choices {
+			ws[i] = c.Word
+		}
+		return `^\s*` + words(ws) + `\s*$`
+	case FormRates:
+		return patterns[FormRate]
+	}
+	return patterns[k.Form]
+}
+
+// Words returns the words a value of k may be, in lower case, for a schema's
+// examples and for completion: the choices, the currency codes, the rounding
+// rules, the payment frequencies; nil for other forms.
+func (k *Key) Words() []string {
+	switch k.Form {
+	case FormChoice:
+		var out []string
+		for _, c := range k.Choices {
+			out = append(out, c.Word)
+		}
+		return out
+	case FormCurrency:
+		return money.CurrencyCodes()
+	case FormRounding:
+		return []string{"half-even", "half-up"}
+	case FormFrequency:
+		var out []string
+		for f := money.Daily; f <= money.Yearly; f++ {
+			out = append(out, f.String())
+		}
+		return out
+	case FormGrowth:
+		return []string{"inflation"}
+	}
+	return nil
+}
+
+// Written forms, for [Key.Pattern].
+var (
+	// rateForms are the words after a bare rate's % sign that leave it the
+	// effective annual rate (money.ParseRate).
+	rateEffective = []string{"effective", "apy", "effective annual", "annual effective", "effective a year", "ear"}
+	roundingWords = []string{"half-even", "halfeven", "half_even", "half-up", "halfup", "half_up"}
+
+	patterns = func() map[Form]string {
+		var all, payment, periodic []string
+		for w, f := range money.FrequencyWords() {
+			all = append(all, w)
+			if f != money.Continuous {
+				payment = append(payment, w)
+			}
+			if (strings.HasPrefix(w, "per ") || strings.HasPrefix(w, "a ")) && f != money.Continuous &&
+				(f != money.Yearly || w == "per year") {
+				periodic = append(periodic, w)
+			}
+		}
+		number := `[-+−]?(?:\d+(?:\.\d*)?|\.\d+)`
+		tail := `(?:` + words(rateEffective) + `|` + words(periodic) +
+			`|(?:` + words([]string{"nominal", "apr"}) + `\s*)?(?:` + words([]string{"annual"}) + `\s*)?` +
+			words([]string{"compounded"}) + `\s*` + words(all) + `)`
+		rate := `\s*` + number + `\s*%\s*(?:` + words([]string{"a year", "per year"}) + `\s*)?` + tail + `?\s*`
+		digits := `(?:\d{1,3}(?:,\d{3})+|\d{1,3}(?:_\d{3})+|\d+)(?:\.\d+)?[kKmM]?`
+		amount := func(sign string) string { return `\s*` + sign + `(?:[$€£¥]\s*)?` + digits }
+		return map[Form]string{
+			FormVersion:      `^1$`,
+			FormMonth:        `^\s*(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])\s*$`,
+			FormCurrency:     `^\s*` + words(money.CurrencyCodes()) + `\s*$`,
+			FormRounding:     `^\s*` + words(roundingWords) + `\s*$`,
+			FormRate:         `^` + rate + `$`,
+			FormVolatility:   `^\s*\+?0*(?:100(?:\.0*)?|\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
+			FormAmount:       `^` + amount(`\+?`) + `\s*$`,
+			FormAmountToday:  `^` + amount(`\+?`) + `(?:\s* ` + words([]string{"today"}) + `)?\s*$`,
+			FormSignedAmount: `^` + amount(`[-+−]?`) + `\s*$`,
+			FormFrequency:    `^\s*` + words(payment) + `\s*$`,
+			FormLength:       `^\s*\+?0*[1-9]\d*\s+` + words([]string{"year", "years", "month", "months"}) + `\s*$`,
+			FormGrowth:       `^(?:` + rate + `|\s*` + words([]string{"inflation"}) + `\s*)$`,
+		}
+	}()
+)
+
+// words returns a group matching any of ws in any case, a run of white
+// space where a word has one space, longest first.
+func words(ws []string) string {
+	ws = slices.Clone(ws)
+	slices.SortFunc(ws, func(a, b string) int {
+		if len(a) != len(b) {
+			return len(b) - len(a)
+		}
+		return strings.Compare(a, b)
+	})
+	var b strings.Builder
+	b.WriteString("(?:")
+	for i, w := range ws {
+		if i > 0 {
+			b.WriteString("|")
+		}
+		for _, r := range w {
+			switch {
+			case r == ' ':
+				b.WriteString(`\s+`)
+			case r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z':
+				b.WriteString("[" + strings.ToLower(string(r)) + strings.ToUpper(string(r)) + "]")
+			default:
+				b.WriteString(regexp.QuoteMeta(string(r)))
+			}
+		}
+	}
+	b.WriteString(")")
+	return b.String()
 }

@@ -58,6 +58,9 @@ type env struct {
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer, now func() time.Time) int {
 	out := &outWriter{w: stdout}
 	e := &env{stdin: stdin, stdout: out, stderr: stderr, now: now}
+	if len(args) > 1 && args[1] == completeCommand {
+		return runComplete(e, args[2:])
+	}
 	app := newApp(e)
 	err := plainArgs(args)
 	if err == nil {
@@ -220,6 +223,7 @@ func newApp(e *env) *cli.App {
 			convertCommand(e),
 			checkCommand(e),
 			initCommand(e),
+			completionCommand(e),
 			helpCommand(e),
 		},
 	}

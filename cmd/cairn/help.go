@@ -119,8 +119,29 @@ func helpCommand(e *env) *cli.Command {
 		Name:      "help",
 		Usage:     "help on a command, or on the goals file: cairn help file",
 		ArgsUsage: "[COMMAND|file]",
+		Description: "cairn help file documents the goals file; --format schema writes it as a JSON Schema\n" +
+			"for editors instead. cairn help COMMAND --format schema writes the JSON Schema of the\n" +
+			"command's --format json output. cairn help --format man writes the manual as a man page.",
+		Flags: []cli.Flag{
+			&cli.StringFlag{Name: "format", Aliases: []string{"f"}, Value: "text", Usage: "`FORMAT`: text; schema (of the goals file or a command's JSON); man (the manual)"},
+		},
 		Action: func(c *cli.Context) error {
 			topic := c.Args().First()
+			format := c.String("format")
+			switch {
+			case format == "man" && topic == "":
+				_, err := e.stdout.Write(manPage(c.App))
+				return err
+			case format == "schema" && topic == "file":
+				_, err := e.stdout.Write(goalsSchema())
+				return err
+			case format == "schema" && jsonOutputs[topic] != nil:
+				_, err := e.stdout.Write(outputSchema(topic))
+				return err
+			case format != "text":
+				return usagef("cairn help file --format schema gives the goals file's schema, cairn help COMMAND --format schema a command's JSON output's; cairn help --format man the manual",
+					"help: unknown format %q for %s", format, strings.TrimSpace("help "+topic))
+			}
 			switch topic {
 			case "":
 				return cli.ShowAppHelp(c)

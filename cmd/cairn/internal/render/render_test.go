@@ -98,7 +98,7 @@ func TestDoc_Write(t *testing.T) {
 			[]string{"secret", "kept in csv", "##"}, ""},
 		{FormatCSV, []string{"year,secret,closing\n2027,kept in csv,1000.00\ntotal,,1000.00\n"}, []string{"Details", "##", "note"},
 			"cairn: note: the note\ncairn: caution: the caution\n"},
-		{FormatJSON, []string{"{\n  \"answer\": \"1500.00\",\n  \"caution_x\": \"the caution\",\n  \"note\": \"the note\"\n}\n"}, []string{"##", "Details"}, ""},
+		{FormatJSON, []string{"{\n  \"answer\": \"1500.00\",\n  \"cairn_json\": 1,\n  \"caution_x\": \"the caution\",\n  \"note\": \"the note\"\n}\n"}, []string{"##", "Details"}, ""},
 	}
 	for _, tt := range tests {
 		var out, errw bytes.Buffer

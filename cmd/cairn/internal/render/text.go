@@ -141,9 +141,15 @@ func (d *Doc) writeCSV(w, stderr io.Writer) error {
 	return cw.Error()
 }
 
-// writeJSON writes d.Data with each notice under its key.
+// JSONVersion is the version of every command's JSON form, written under
+// "cairn_json": it changes only when a key is removed or changes meaning,
+// not when one is added. Each command's shape is documented by its schema
+// (cairn help COMMAND --format schema).
+const JSONVersion = 1
+
+// writeJSON writes d.Data with its version and each notice under its key.
 func (d *Doc) writeJSON(w io.Writer) error {
-	m := map[string]any{}
+	m := map[string]any{"cairn_json": JSONVersion}
 	for k, v := range d.Data {
 		m[k] = v
 	}
