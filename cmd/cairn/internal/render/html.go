@@ -249,7 +249,7 @@ nav li { display: inline; margin-left: 0.4rem; }
   h1, h2, h3, caption, .kicker { break-after: avoid; page-break-after: avoid; }
   .keep, dl.budget, ul.next li { break-inside: avoid; page-break-inside: avoid; }
   h3.with-table + table thead, h3.with-table + table tbody tr:nth-child(-n+3) { break-before: avoid; page-break-before: avoid; }
-  svg.chart { max-height: 70mm; }
+  svg.chart { max-height: 64mm; }
   a { color: inherit; text-decoration: none; }
 }
 </style>
