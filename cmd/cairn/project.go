@@ -154,6 +154,23 @@ func projectChart(p *plan.Plan, g *plan.Goal, rows []plan.Row, by plan.Period) s
 		c.Runs = []int{2, 3, 4, 5, 10}
 	}
 	head := fmt.Sprintf("%s: closing balance by %s, %s to %s, in %s.", g.Name, period, rows[0].Label, rows[len(rows)-1].Label, p.Currency.Code)
+	if g.HasTarget {
+		label := "target " + amt(p, p.TargetAt(g))
+		if g.HasBy {
+			label += " at the deadline"
+		}
+		c.Level = &chart.Level{Label: label, Value: p.TargetAt(g).Float()}
+	}
+	if g.HasBy {
+		for i, r := range rows {
+			if r.From <= g.By && g.By <= r.To {
+				c.Column = &chart.Column{Label: "deadline, the end of " + g.By.String(), Index: i}
+			}
+		}
+		if c.Column == nil {
+			head += fmt.Sprintf(" The deadline, %s, is outside the chart.", g.By)
+		}
+	}
 	if k := c.PerBar(); k > 1 {
 		head += fmt.Sprintf(" Each bar is the balance at the end of a run of %d %s.", k, periods)
 	}

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"html/template"
+	"path/filepath"
 	"strconv"
 	"strings"
 
@@ -104,9 +105,10 @@ type simBand struct {
 	Points              []bandPoint
 }
 
-// goalBand returns the band of goal g from [plan.Simulate], or nil when
-// neither the goal's returns nor the plan's inflation have a volatility.
-func goalBand(p *plan.Plan, g *plan.Goal) (*simBand, error) {
+// goalSim returns the simulation of goal g from [plan.Simulate], or nil
+// when neither the goal's returns nor the plan's inflation have a
+// volatility.
+func goalSim(p *plan.Plan, g *plan.Goal) (*plan.Simulation, error) {
 	if !(g.HasVolatility && g.Volatility > 0) && !(p.HasInflationVolatility && p.InflationVolatility > 0) {
 		return nil, nil
 	}
@@ -114,6 +116,11 @@ func goalBand(p *plan.Plan, g *plan.Goal) (*simBand, error) {
 	if err != nil {
 		return nil, &inputError{err: fmt.Errorf("%s: simulation: %v", g.Name, err)}
 	}
+	return sim, nil
+}
+
+// bandOf is the 5–95 % band of simulation sim.
+func bandOf(g *plan.Goal, sim *plan.Simulation) (*simBand, error) {
 	b := &simBand{Paths: sim.Paths, Seed: sim.Seed, Volatility: sim.Volatility, InflationVolatility: sim.InflationVolatility}
 	lo, hi := -1, -1
 	for i, q := range plan.SimLevels {
@@ -139,24 +146,33 @@ func goalBand(p *plan.Plan, g *plan.Goal) (*simBand, error) {
 func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 	st := plan.StatusOf(p)
 	sd := statusDoc(p, st)
+	// The file's name only: a path from the author's machine means nothing
+	// to the reader of a printed page, and says more than it should.
+	file := filepath.Base(p.File)
 	pg := render.Page{
-		Title:   "Household plan: " + p.File,
-		Footer:  "Household plan: " + p.File + " · a planning estimate, not advice",
+		Title:   "Household plan: " + file,
+		Footer:  "Household plan: " + file + " · a planning estimate, not advice",
 		Version: Version,
 		Meta: fmt.Sprintf("From %s: %d %s from %s, amounts in %s, inflation %s a year; “today’s money” is money of %s.",
-			p.File, len(p.Goals), plural(len(p.Goals), "goal", "goals"), p.Start, p.Currency.Code, pct(p.Inflation.Effective()), p.Start),
+			file, len(p.Goals), plural(len(p.Goals), "goal", "goals"), p.Start, p.Currency.Code, pct(p.Inflation.Effective()), p.Start),
 		Status:        sd.Tables()[0],
 		StatusCaption: "Every goal: its target, the balance projected at its deadline, and the deposit that makes the deadline.",
 		Remarks:       sd.After,
+		Budget:        budgetFacts(p, st),
 	}
 	drawdown := false
 	for i, gs := range st.Goals {
-		s, err := goalReport(p, gs, i, len(st.Goals))
+		gf, err := figuresOf(p, gs)
+		if err != nil {
+			return nil, nil, err
+		}
+		s, err := goalReport(p, gf, i, len(st.Goals))
 		if err != nil {
 			return nil, nil, err
 		}
 		drawdown = drawdown || hasDrawdown(gs.Goal)
 		pg.Goals = append(pg.Goals, s)
+		pg.Next = append(pg.Next, nextSteps(p, gf)...)
 	}
 	pg.Notices = notices(drawdown)
 	var b bytes.Buffer
@@ -166,10 +182,113 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 	return b.Bytes(), pg.Notices, nil
 }
 
+// budgetFacts is the household's monthly saving: what every goal sets
+// aside now and what would make every deadline, the status figures. When
+// the plan gains a household budget, its lines belong here.
+func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
+	fs := &render.Facts{}
+	fs.Add("Set aside now, all goals", render.Text(amt(p, st.MonthlyNow)+" a month"))
+	fs.Add("Needed to make every deadline", render.Text(amt(p, st.MonthlyNeeded)+" a month"))
+	return fs
+}
+
+// goalFigures are the answers the report shows for one goal, each asked
+// of the plan package once.
+type goalFigures struct {
+	plan.GoalStatus
+	Sim       *plan.Simulation // nil when the goal's returns are fixed
+	Income    *plan.Answer     // the largest sustainable withdrawal, for a goal with withdrawals
+	IncomeErr error
+}
+
+func figuresOf(p *plan.Plan, gs plan.GoalStatus) (goalFigures, error) {
+	gf := goalFigures{GoalStatus: gs}
+	var err error
+	if gf.Sim, err = goalSim(p, gs.Goal); err != nil {
+		return gf, err
+	}
+	if hasDrawdown(gs.Goal) {
+		gf.Income, gf.IncomeErr = plan.Solve(p, gs.Goal, plan.Question{For: plan.ForWithdrawal})
+	}
+	return gf, nil
+}
+
+// nextSteps says, for page 1, what the figures of one goal point to: the
+// deposit that makes its deadline, and for a drawdown how long the
+// withdrawals last and what the balance sustains.
+func nextSteps(p *plan.Plan, gf goalFigures) []string {
+	g := gf.Goal
+	var out []string
+	reached := "as planned it is not reached"
+	if gf.Reach == nil {
+		reached = "as planned it is reached in " + gf.Reached.String()
+	}
+	switch {
+	case !g.HasTarget:
+	case !g.HasBy:
+		out = append(out, fmt.Sprintf("%s: no deadline; %s.", g.Name, reached))
+	case gf.NeededErr != nil && !gf.OnTrack:
+		out = append(out, fmt.Sprintf("%s: short by %s at %s, and no deposit makes it (%s): move the deadline or change the target.", g.Name, amt(p, gf.Short), g.By, reasonOf(gf.NeededErr)))
+	case gf.NeededErr != nil:
+		out = append(out, fmt.Sprintf("%s: on track for %s by %s; %s.", g.Name, amt(p, gf.TargetAt), g.By, reached))
+	case !gf.OnTrack:
+		a := gf.Needed
+		s := fmt.Sprintf("%s: raise %s from %s to %s %s to reach %s by the end of %s; %s.", g.Name, streamLabel(a.Stream),
+			streamAmount(p, a.Stream), amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), amt(p, gf.TargetAt), g.By, reached)
+		if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+			s += " (" + fy + ".)"
+		}
+		out = append(out, s)
+	default:
+		a := gf.Needed
+		out = append(out, fmt.Sprintf("%s: on track; keep %s at %s %s (%s would do); %s.", g.Name, streamLabel(a.Stream),
+			streamAmount(p, a.Stream), every(a.Stream), amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), reached))
+	}
+	if hasDrawdown(g) {
+		s := g.Name + ": " + lastsWords(p, gf)
+		if gf.Income != nil {
+			s += "; the balance sustains " + incomeWords(p, gf.Income)
+		}
+		out = append(out, s+".")
+	}
+	return out
+}
+
+// streamAmount is the amount of stream s as the file gives it.
+func streamAmount(p *plan.Plan, s *plan.Stream) string {
+	if s.Today {
+		return amt(p, s.Amount) + " in today’s money"
+	}
+	return amt(p, s.Amount)
+}
+
+// lastsWords says how long the planned withdrawals last.
+func lastsWords(p *plan.Plan, gf goalFigures) string {
+	switch {
+	case gf.Lasts != nil && gf.Lasts.Lasts:
+		return fmt.Sprintf("the planned withdrawals last through %s, leaving %s", gf.Lasts.Month, amt(p, gf.Lasts.Left))
+	case gf.Lasts != nil:
+		return "the planned withdrawals run out in " + gf.Lasts.Month.String()
+	case gf.LastsErr != nil:
+		return "the planned withdrawals: " + reasonOf(gf.LastsErr)
+	}
+	return ""
+}
+
+// incomeWords says the largest sustainable withdrawal of answer a.
+func incomeWords(p *plan.Plan, a *plan.Answer) string {
+	s := fmt.Sprintf("%s of %s %s from %s through %s, leaving %s", streamLabel(a.Stream),
+		amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), a.Stream.From, a.Deadline, amt(p, a.Left))
+	if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+		s += " (" + fy + ")"
+	}
+	return s
+}
+
 // goalReport is the page of goal i of n: its facts, the chart, the table and
 // remarks of its yearly projection, and its assumptions.
-func goalReport(p *plan.Plan, gs plan.GoalStatus, i, n int) (render.Section, error) {
-	g := gs.Goal
+func goalReport(p *plan.Plan, gf goalFigures, i, n int) (render.Section, error) {
+	g := gf.Goal
 	s := render.Section{
 		ID:     "goal-" + strconv.Itoa(i+1),
 		Kicker: fmt.Sprintf("Goal %d of %d: %s", i+1, n, g.Name),
@@ -179,13 +298,15 @@ func goalReport(p *plan.Plan, gs plan.GoalStatus, i, n int) (render.Section, err
 	if err != nil {
 		return s, err
 	}
-	band, err := goalBand(p, g)
-	if err != nil {
-		return s, err
+	var band *simBand
+	if gf.Sim != nil {
+		if band, err = bandOf(g, gf.Sim); err != nil {
+			return s, err
+		}
 	}
 	pd := projectDoc(p, g, l, plan.ByYear)
 	s.Notices = pd.Notices
-	s.Facts = goalFacts(p, gs)
+	s.Facts = goalFacts(p, gf)
 	s.Figure = goalChart(p, g, l, l.Rows(plan.ByYear, false), band, s.ID)
 	s.Projection = pd.Tables()[0]
 	s.ProjectionCaption = fmt.Sprintf("%s by year, %s to %s, in %s; the last column is the closing balance in money of %s.", g.Name, l.Start, l.End, p.Currency.Code, p.Start)
@@ -194,9 +315,10 @@ func goalReport(p *plan.Plan, gs plan.GoalStatus, i, n int) (render.Section, err
 	return s, nil
 }
 
-// goalFacts is the goal at a glance, from its status.
-func goalFacts(p *plan.Plan, gs plan.GoalStatus) *render.Facts {
-	g := gs.Goal
+// goalFacts is the goal at a glance, from its status, and for a drawdown
+// what the balance sustains and how many simulated paths last.
+func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
+	g := gf.Goal
 	fs := &render.Facts{}
 	add := func(t, d string) { fs.Add(t, render.Text(d)) }
 	if g.HasTarget {
@@ -204,7 +326,7 @@ func goalFacts(p *plan.Plan, gs plan.GoalStatus) *render.Facts {
 		if g.TargetToday {
 			t += " in today’s money"
 			if g.HasBy {
-				t += fmt.Sprintf(" (%s in money of %s)", amt(p, gs.TargetAt), g.By)
+				t += fmt.Sprintf(" (%s in money of %s)", amt(p, gf.TargetAt), g.By)
 			}
 		}
 		add("Target", t)
@@ -213,42 +335,71 @@ func goalFacts(p *plan.Plan, gs plan.GoalStatus) *render.Facts {
 		add("Deadline", "the end of "+g.By.String())
 	}
 	if g.HasTarget && g.HasBy {
-		s := amt(p, gs.Projected) + ": on track"
-		if !gs.OnTrack {
-			s = amt(p, gs.Projected) + ": short by " + amt(p, gs.Short)
+		s := amt(p, gf.Projected) + ": on track"
+		if !gf.OnTrack {
+			s = amt(p, gf.Projected) + ": short by " + amt(p, gf.Short)
 		}
 		add("Projected at the deadline", s)
-		if gs.NeededErr == nil {
-			a := gs.Needed
+		if gf.NeededErr == nil {
+			a := gf.Needed
 			need := fmt.Sprintf("%s %s (%s)", amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), streamLabel(a.Stream))
 			if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
 				need += "; " + fy
 			}
 			add("Needed to make the deadline", need)
 		} else {
-			add("Needed to make the deadline", "no deposit makes it: "+reasonOf(gs.NeededErr))
+			add("Needed to make the deadline", "no deposit makes it: "+reasonOf(gf.NeededErr))
 		}
 	}
 	if g.HasTarget {
-		if gs.Reach == nil {
-			add("Target reached", gs.Reached.String())
+		if gf.Reach == nil {
+			add("Target reached", gf.Reached.String())
 		} else {
-			add("Target reached", "not reached: "+reasonOf(gs.Reach))
+			add("Target reached", "not reached: "+reasonOf(gf.Reach))
 		}
 	}
 	if len(g.Deposits) > 0 {
-		add("Set aside now", amt(p, gs.MonthlyNow)+" a month")
+		add("Set aside now", amt(p, gf.MonthlyNow)+" a month")
 	}
-	if gs.Lasts != nil {
-		if gs.Lasts.Lasts {
-			add("The money", fmt.Sprintf("lasts through %s, leaving %s", gs.Lasts.Month, amt(p, gs.Lasts.Left)))
-		} else {
-			add("The money", "runs out in "+gs.Lasts.Month.String())
-		}
-	} else if gs.LastsErr != nil {
-		add("The money", reasonOf(gs.LastsErr))
+	if sim := gf.Sim; sim != nil && sim.HasTarget {
+		add("Simulated paths reaching the target", fmt.Sprintf("%s of %s at the deadline%s", share(sim.Success), render.Grouped(sim.Paths), simWords(sim)))
+	}
+	if !hasDrawdown(g) {
+		return fs
+	}
+	switch {
+	case gf.Lasts != nil && gf.Lasts.Lasts:
+		add("Planned withdrawals", fmt.Sprintf("last through %s", gf.Lasts.Month))
+		add("Left after the last withdrawal", amt(p, gf.Lasts.Left))
+	case gf.Lasts != nil:
+		add("Planned withdrawals", "run out in "+gf.Lasts.Month.String())
+		add("Left after the last withdrawal", "nothing: the balance runs out first")
+	case gf.LastsErr != nil:
+		add("Planned withdrawals", reasonOf(gf.LastsErr))
+	}
+	if gf.Income != nil {
+		add("Sustainable income", incomeWords(p, gf.Income))
+	} else if gf.IncomeErr != nil {
+		add("Sustainable income", reasonOf(gf.IncomeErr))
+	}
+	if sim := gf.Sim; sim != nil && sim.HasWithdrawals {
+		add("Simulated paths that last", fmt.Sprintf("%s of %s pay every planned withdrawal through %s%s", share(sim.Lasts), render.Grouped(sim.Paths), sim.LastWithdrawal, simWords(sim)))
+	} else {
+		add("Simulated paths that last", "not simulated: the file gives fixed returns (no volatility), so the lines above are the only path")
 	}
 	return fs
+}
+
+// share is a share of simulated paths, one decimal: "62.3%".
+func share(x float64) string { return render.Share(x, 1).String() }
+
+// simWords says how the paths of sim were drawn.
+func simWords(sim *plan.Simulation) string {
+	s := fmt.Sprintf(" (seed %d, volatility of returns %s a year", sim.Seed, pct(sim.Volatility))
+	if sim.InflationVolatility > 0 {
+		s += fmt.Sprintf(", of inflation %s", pct(sim.InflationVolatility))
+	}
+	return s + ")"
 }
 
 // yearEnd is the time-axis position of the end of month m.

@@ -672,3 +672,82 @@ func TestReport_PDF(t *testing.T) {
 		})
 	}
 }
+
+// TestReport_HandOver checks what makes the report fit to hand over (issue
+// 17): the file is named by its base name only, page 1 holds the
+// household's monthly saving and what to do next, a drawdown goal shows the
+// income the balance sustains, what is left and the share of simulated
+// paths that last, and no label is a vague "The money".
+func TestReport_HandOver(t *testing.T) {
+	dir := t.TempDir()
+	abs := filepath.Join(dir, "nested", "household.yaml")
+	if err := os.MkdirAll(filepath.Dir(abs), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(abs, examples.Household, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var stdout, stderr bytes.Buffer
+	if code := run([]string{"cairn", "report", abs, "--out", "-", "--as-of", "2026-12"}, strings.NewReader(""), &stdout, &stderr, fixedNow); code != 0 {
+		t.Fatalf("report: exit %d\n%s", code, stderr.String())
+	}
+	data := stdout.String()
+	if strings.Contains(data, dir) {
+		t.Errorf("the report holds the absolute path %s", dir)
+	}
+	if !strings.Contains(data, `content: "Household plan: household.yaml · a planning estimate, not advice"`) {
+		t.Errorf("the footer does not name household.yaml")
+	}
+	root := parseXHTML(t, stdout.Bytes())
+	summary := root.find(func(n *node) bool { return n.attrs["id"] == "status" })
+	if len(summary) != 1 {
+		t.Fatalf("%d summary sections", len(summary))
+	}
+	p, err := plan.Parse("household.yaml", examples.Household, plan.MonthOf(2026, 12))
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := plan.StatusOf(p)
+	first := summary[0].allText()
+	for _, want := range []string{
+		"Saving each month", "Set aside now, all goals " + amt(p, st.MonthlyNow) + " a month",
+		"Needed to make every deadline " + amt(p, st.MonthlyNeeded) + " a month",
+		"What to do next",
+		// the status figures, worded: examples/household.yaml's status (cairn status)
+		"Emergency fund: raise paycheck from 150.00 to 160.00 every 2 weeks to reach 15,000.00 by the end of 2029-06; as planned it is reached in 2029-08.",
+		"Retirement: the planned withdrawals run out in 2071-02; the balance sustains income of 2,917.31 in today's money",
+	} {
+		if !strings.Contains(first, want) {
+			t.Errorf("page 1 lacks %q:\n%s", want, first)
+		}
+	}
+	retirement := root.find(func(n *node) bool { return n.attrs["id"] == "goal-4" })
+	if len(retirement) != 1 {
+		t.Fatal("no section for the fourth goal")
+	}
+	g := p.Goal("Retirement")
+	income, err := plan.Solve(p, g, plan.Question{For: plan.ForWithdrawal})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sim, err := plan.Simulate(p, g, plan.SimOptions{Paths: reportPaths, Seed: reportSeed})
+	if err != nil {
+		t.Fatal(err)
+	}
+	rt := retirement[0].allText()
+	for _, want := range []string{
+		"Sustainable income income of " + amt(p, income.Amount) + " in today's money",
+		"Left after the last withdrawal nothing: the balance runs out first",
+		"Planned withdrawals run out in 2071-02",
+		fmt.Sprintf("Simulated paths that last %s of 2,000 pay every planned withdrawal through 2081-12", render.Share(sim.Lasts, 1)),
+	} {
+		if !strings.Contains(rt, want) {
+			t.Errorf("the Retirement page lacks %q:\n%s", want, rt)
+		}
+	}
+	for _, dt := range root.find(func(n *node) bool { return n.name == "dt" }) {
+		if strings.HasPrefix(dt.allText(), "The money") {
+			t.Errorf("label %q is not plain: say what it is", dt.allText())
+		}
+	}
+}

@@ -18,8 +18,12 @@ type Page struct {
 	Status        *Table
 	StatusCaption string
 	Remarks       []string
-	Notices       []Notice
-	Goals         []Section
+	// Budget is the household's monthly saving, set aside now and needed;
+	// the hook for a household budget's lines.
+	Budget  *Facts
+	Next    []string // what to do next, one sentence a goal's step
+	Notices []Notice
+	Goals   []Section
 }
 
 // A Section is one goal's part of a [Page].
@@ -47,7 +51,8 @@ func (p *Page) Write(w io.Writer) error {
 		return err
 	}
 	d := pageData{Title: p.Title, Footer: cssString(p.Footer), Version: p.Version, Meta: p.Meta,
-		Status: htmlTableOf(p.Status, "status", p.StatusCaption), Remarks: p.Remarks, Notices: noticesOf(p.Notices)}
+		Status: htmlTableOf(p.Status, "status", p.StatusCaption), Remarks: p.Remarks, Budget: factsOf(p.Budget), Next: p.Next,
+		Notices: noticesOf(p.Notices)}
 	for _, s := range p.Goals {
 		d.Goals = append(d.Goals, goalData{ID: s.ID, Kicker: s.Kicker, Name: s.Name, Facts: factsOf(s.Facts),
 			Chart: s.Figure.SVG, ChartNote: s.Figure.Caption, Projection: htmlTableOf(s.Projection, "projection", s.ProjectionCaption),
@@ -67,6 +72,8 @@ type pageData struct {
 	Meta    string
 	Status  htmlTable
 	Remarks []string
+	Budget  []fact
+	Next    []string
 	Notices []htmlNotice
 	Goals   []goalData
 }
@@ -228,7 +235,10 @@ figcaption p { margin: 0.1rem 0; }
 dl { display: grid; grid-template-columns: max-content auto; gap: 0.1rem 1rem; margin: 0.4rem 0; font-size: 9.5pt; }
 dt { font-weight: bold; font-size: 9pt; }
 dd { margin: 0; }
-ul.remarks { padding-left: 1.2rem; }
+ul.remarks, ul.next { padding-left: 1.2rem; }
+ul.next li { margin: 0.15rem 0; }
+nav ol { display: inline; padding: 0; }
+nav li { display: inline; margin-left: 0.4rem; }
 @media print {
   body { max-width: none; margin: 0; padding: 0; font-size: 10pt; }
   section.goal { break-before: page; page-break-before: always; }
@@ -236,7 +246,10 @@ ul.remarks { padding-left: 1.2rem; }
   tfoot { display: table-row-group; }
   tr, figure, dl.facts, .note { break-inside: avoid; page-break-inside: avoid; }
   dt { break-after: avoid; page-break-after: avoid; }
-  h2, h3, caption, .kicker { break-after: avoid; page-break-after: avoid; }
+  h1, h2, h3, caption, .kicker { break-after: avoid; page-break-after: avoid; }
+  .keep, dl.budget, ul.next li { break-inside: avoid; page-break-inside: avoid; }
+  h3.with-table + table thead, h3.with-table + table tbody tr:nth-child(-n+3) { break-before: avoid; page-break-before: avoid; }
+  svg.chart { max-height: 64mm; }
   a { color: inherit; text-decoration: none; }
 }
 </style>
@@ -257,18 +270,39 @@ ul.remarks { padding-left: 1.2rem; }
 {{- end}}
 </ul>
 {{- end}}
+{{- if .Budget}}
+<div class="keep">
+<h3 id="budget-h">Saving each month</h3>
+<dl class="budget" aria-labelledby="budget-h">
+{{- range .Budget}}
+<dt>{{.Term}}</dt><dd>{{.Detail}}</dd>
+{{- end}}
+</dl>
+</div>
+{{- end}}
+{{- if .Next}}
+<div class="keep">
+<h3 id="next-h">What to do next</h3>
+<ul class="next" aria-labelledby="next-h">
+{{- range .Next}}
+<li>{{.}}</li>
+{{- end}}
+</ul>
+</div>
+{{- end}}
 <nav aria-label="goals">
-<p>Each goal follows on its own page:</p>
+<div>Each goal follows on its own page:
 <ol>
 {{- range .Goals}}
 <li><a href="#{{.ID}}">{{.Name}}</a></li>
 {{- end}}
-</ol>
+</ol></div>
 </nav>
 {{template "note" .Notices}}
 </section>
 {{- range .Goals}}
 <section id="{{.ID}}" class="goal" aria-labelledby="{{.ID}}-h">
+<div class="keep">
 <p class="kicker">{{.Kicker}}</p>
 <h2 id="{{.ID}}-h">{{.Name}}</h2>
 <dl class="facts">
@@ -276,11 +310,12 @@ ul.remarks { padding-left: 1.2rem; }
 <dt>{{.Term}}</dt><dd>{{.Detail}}</dd>
 {{- end}}
 </dl>
+</div>
 <figure class="balance">
 {{.Chart}}
 <figcaption>{{.ChartNote}}</figcaption>
 </figure>
-<h3>Yearly projection</h3>
+<h3 class="with-table">Yearly projection</h3>
 {{template "table" .Projection}}
 {{- range .Remarks}}
 <p class="remark">{{.}}</p>
