@@ -202,7 +202,7 @@ func (d *decoder) scenarios(p *Plan, v *yaml.Node) {
 func (d *decoder) change(n *yaml.Node, path string) (Change, bool) {
 	ch := Change{pos: d.pos(n), path: path}
 	ks := keysIn(InChange)
-	ok := true
+	ok, errs := true, len(d.errs)
 	mapping := d.fields(n, path, keyNames(ks), func(name string, v *yaml.Node) {
 		kp := join(path, name)
 		switch name {
@@ -224,10 +224,10 @@ func (d *decoder) change(n *yaml.Node, path string) (Change, bool) {
 		}
 		ch.Sets = append(ch.Sets, Override{Key: name, Value: strings.TrimSpace(s), pos: d.pos(v), path: kp})
 	})
-	if !mapping {
+	if !mapping || len(d.errs) > errs {
 		return ch, false
 	}
-	if len(ch.Sets) == 0 && ok {
+	if len(ch.Sets) == 0 && ok && len(d.errs) == errs {
 		d.errorf(n, path, "a change with nothing to change (want a what-if key such as deposit: 200; the keys are %s)", strings.Join(OverrideKeys, ", "))
 		return ch, false
 	}

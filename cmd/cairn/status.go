@@ -155,7 +155,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 }
 
 // caseColumns are the status columns shown for each case side by side.
-var caseColumns = []string{"target_at_deadline", "projected", "reached", "status", "needed"}
+var caseColumns = []string{"target_at_deadline", "projected", "reached", "status", "short_by", "needed", "needed_every", "needed_grows"}
 
 // casesDoc is every goal under each case (the plan as written, then each
 // scenario) side by side: one row a goal and case, the goals in file order
