@@ -18,6 +18,8 @@ const (
 	InWithdrawal              // withdrawal streams only
 	InOnce                    // each one-time amount
 	InRateStep                // each step of a rate schedule
+	InScenario                // each named scenario
+	InChange                  // each change of a scenario: a goal, a stream and what-if keys
 )
 
 // where says where in the file a key of each scope is written, in errors
@@ -29,14 +31,18 @@ var where = map[Scope]string{
 	InWithdrawal: "each withdrawal stream (under withdrawals:)",
 	InOnce:       "each one-time amount (under once:)",
 	InRateStep:   "each step of a rate schedule (under rate:)",
+	InScenario:   "each scenario (under scenarios:)",
+	InChange:     "each change of a scenario (under changes:)",
 }
 
 // scopesOf says where the key name belongs, for every scope that has it
-// ("each goal (under goals:)"), or "" when no scope has it.
+// ("each goal (under goals:)"), or "" when no scope has it. A scenario's
+// change is left out: its keys are what-if names, and a key written in the
+// wrong place of the plan belongs in the plan.
 func scopesOf(name string) string {
 	var out []string
 	for _, k := range Keys {
-		if w := where[k.Scope]; k.Name == name && !slices.Contains(out, w) {
+		if w := where[k.Scope]; k.Name == name && k.Scope != InChange && !slices.Contains(out, w) {
 			out = append(out, w)
 		}
 	}
@@ -130,6 +136,7 @@ type target struct {
 	s  *Stream
 	o  *Once
 	st *RateStep
+	sc *Scenario
 }
 
 // A value is a parsed value of any form.
@@ -147,7 +154,9 @@ type value struct {
 }
 
 // Keys is every key of the goals file, in the order the help lists them.
-var Keys = []*Key{
+// The what-if keys of a scenario's change (InChange) are made from the keys
+// that --set changes, so that the two cannot drift apart.
+var Keys = withChangeKeys([]*Key{
 	// the top level
 	{Name: "cairn", Scope: InPlan, Form: FormVersion, Required: true,
 		Missing: `want "cairn: 1", the format version, at the top`,
@@ -181,6 +190,10 @@ var Keys = []*Key{
 	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true, MaxItems: MaxGoals,
 		Missing: "want a list of goals",
 		Default: "required", Help: "a list of goals"},
+	{Name: "scenarios", Scope: InPlan, Form: FormList, Items: InScenario, MaxItems: MaxScenarios,
+		Default: "none",
+		Help: "named alternatives, each a list of what-if changes\n" +
+			"(see EACH SCENARIO); --scenario NAME applies one"},
 
 	// each goal
 	{Name: "name", Scope: InGoal, Form: FormName, Required: true,
@@ -317,6 +330,60 @@ var Keys = []*Key{
 		put: func(t *target, v *value) { t.st.From = v.month }},
 	{Name: "rate", Scope: InRateStep, Form: FormRate, Min: MinRatePercent, Max: MaxRatePercent, Required: true,
 		put: func(t *target, v *value) { t.st.Rate = v.rate }},
+
+	// each scenario
+	{Name: "name", Scope: InScenario, Form: FormName, Required: true,
+		Missing: "every scenario needs a name",
+		Default: "required", Help: "unique within the file; --scenario NAME picks it",
+		put: func(t *target, v *value) { t.sc.Name = v.text }},
+	{Name: "changes", Scope: InScenario, Form: FormList, Items: InChange, Required: true, MaxItems: MaxChanges,
+		Missing: "want a list of changes, such as - goal: Retirement",
+		Default: "required", Help: "a list of changes, applied in order"},
+
+	// each change of a scenario; its what-if keys follow (withChangeKeys)
+	{Name: "goal", Scope: InChange, Form: FormName,
+		Default: "every goal",
+		Help: "the goal changed, by name; needed for a stream's key\n" +
+			"when the file has several goals"},
+	{Name: "stream", Scope: InChange, Form: FormName,
+		Default: "the first",
+		Help: "the deposit or withdrawal stream that deposit,\n" +
+			"withdrawal, grow and every change, by name"},
+})
+
+// withChangeKeys returns keys with, after them, one key of scope InChange
+// for each name in [OverrideKeys]: the key --set changes under that name,
+// written as one value (a rate schedule cannot be a what-if). A change's
+// values are applied by [Plan.With], as --set's are.
+func withChangeKeys(keys []*Key) []*Key {
+	for _, name := range OverrideKeys {
+		for _, k := range keys {
+			if k.Set != name && k.SetOut != name {
+				continue
+			}
+			c := *k
+			c.Name, c.Scope, c.Set, c.SetOut, c.put = name, InChange, "", "", nil
+			c.Required, c.Missing, c.Default = false, "", "unchanged"
+			if c.Form == FormRates {
+				c.Form, c.MaxItems = FormRate, 0
+			}
+			c.Help = "as --set " + name + "=VALUE: the goal's " + k.Name
+			switch {
+			case k.Scope == InPlan:
+				c.Help = "as --set " + name + "=VALUE: the plan's " + k.Name
+			case name == k.SetOut:
+				c.Help = "as --set " + name + "=VALUE: the withdrawal stream's " + k.Name
+			case k.NeedsGoal():
+				c.Help = "as --set " + name + "=VALUE: the deposit stream's " + k.Name
+			}
+			if k.Form == FormChoice {
+				c.Help += " (" + k.Want + ")"
+			}
+			keys = append(keys, &c)
+			break
+		}
+	}
+	return keys
 }
 
 // keysIn returns the keys of a scope in table order; a withdrawal has the

@@ -20,6 +20,8 @@ const (
 	MaxFeePercent    = 20
 	MaxInflationPct  = 50
 	MaxGrowthPercent = 50 // a stream's yearly rise or fall, effective
+	MaxScenarios     = 50 // named scenarios in a file
+	MaxChanges       = 50 // changes in one scenario
 )
 
 // amountLimit is [MaxAmountUnits] as messages write it, grouped in

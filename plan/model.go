@@ -18,6 +18,10 @@ type Plan struct {
 	// [Simulate], as a fraction; HasInflationVolatility says the file gave it.
 	InflationVolatility    float64
 	HasInflationVolatility bool
+	// Scenarios are the file's named alternatives; Applied is the name of
+	// the one [Plan.WithScenario] applied to this copy, or "".
+	Scenarios []*Scenario
+	Applied   string
 }
 
 // Goal returns the goal with the given name (see sameName), or nil.

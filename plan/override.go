@@ -13,6 +13,20 @@ import (
 // are written as in a goals file.
 type Override struct {
 	Key, Value string
+	// pos and path place a change written in a scenario of the goals file
+	// (scenarios[0].changes[1].deposit), so that a refusal is positioned
+	// there; both are zero for a change given on the command line.
+	pos  Position
+	path string
+}
+
+// refuse returns the refusal msg of o: after its path and at its position
+// for a change written in the goals file, after its key for --set.
+func (o Override) refuse(msg string) error {
+	if o.path != "" {
+		return &Error{Pos: o.pos, Msg: o.path + ": " + msg}
+	}
+	return fmt.Errorf("%s: %s", o.Key, msg)
 }
 
 // OverrideKeys lists the keys an Override may set, in the order the help
@@ -82,16 +96,16 @@ func (p *Plan) With(goal, stream string, ovs []Override) (*Plan, *Goal, error) {
 		if pr.goal != g {
 			continue
 		}
-		key := pr.key
+		by := Override{Key: pr.key}
 		for _, o := range ovs {
 			if k, _ := SetKey(o.Key); k != nil && k.Scope == InGoal && k.Name == pr.at {
-				key = o.Key
+				by = o
 			}
 		}
-		if key == "" {
+		if by.Key == "" {
 			return nil, nil, fmt.Errorf("goal %s: %s", money.Quote(g.Name), pr.msg)
 		}
-		return nil, nil, fmt.Errorf("%s: %s", key, pr.msg)
+		return nil, nil, by.refuse(pr.msg)
 	}
 	if err := q.checkBounds(g); err != nil {
 		return nil, nil, err
@@ -114,15 +128,15 @@ func (p *Plan) apply(g *Goal, stream string, o Override) error {
 				kind = "withdrawal"
 			}
 			if stream != "" {
-				return fmt.Errorf("%s: goal %s has no %s stream named %s", o.Key, money.Quote(g.Name), kind, money.Quote(stream))
+				return o.refuse(fmt.Sprintf("goal %s has no %s stream named %s", money.Quote(g.Name), kind, money.Quote(stream)))
 			}
-			return fmt.Errorf("%s: goal %s has no %s stream", o.Key, money.Quote(g.Name), kind)
+			return o.refuse(fmt.Sprintf("goal %s has no %s stream", money.Quote(g.Name), kind))
 		}
 	}
-	d := &decoder{file: "--set " + o.Key} // one scalar: no keys to track
+	d := &decoder{} // one scalar: no keys to track
 	var v value
-	if !d.value(k, &yaml.Node{Kind: yaml.ScalarNode, Tag: "!!str", Value: o.Value}, o.Key, t, &v) {
-		return fmt.Errorf("%s", d.errs[0].Msg)
+	if !d.value(k, &yaml.Node{Kind: yaml.ScalarNode, Tag: "!!str", Value: o.Value}, "", t, &v) {
+		return o.refuse(d.errs[0].Msg)
 	}
 	k.put(t, &v)
 	return nil

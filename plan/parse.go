@@ -55,6 +55,9 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 			}
 		}
 		if len(d.errs) == 0 {
+			d.checkScenarios(p)
+		}
+		if len(d.errs) == 0 {
 			return p, nil
 		}
 	}
@@ -429,6 +432,9 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		if asOf == 0 {
 			d.bad["start"] = true // reported as missing
 		}
+	}
+	if v := given["scenarios"]; v != nil {
+		d.scenarios(p, v)
 	}
 	goalsNode := given["goals"]
 	if goalsNode == nil {

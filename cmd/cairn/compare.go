@@ -16,17 +16,24 @@ func compareCommand(e *env) *cli.Command {
 		Name:      "compare",
 		Usage:     "what-if grid: solve one goal under every combination of changed values",
 		ArgsUsage: "[FILE]",
-		Description: "Each --vary KEY=V1,V2,… is one axis; every combination is solved side by side with the\n" +
+		Description: "With --scenarios (or --scenario given more than once) the plan as written and each of the\n" +
+			"file's scenarios are solved side by side, one row each; --set applies after each scenario.\n\n" +
+			"Each --vary KEY=V1,V2,… is one axis; every combination is solved side by side with the\n" +
 			"base plan first. Separate values with , or with ; — with ; a comma is a thousands separator\n" +
 			"(deposit=1,000;1,500); a comma list that could hold one is refused (deposit=1,000,1,500).\n" +
 			"A key may be changed once (by --set or one --vary), and not the quantity solved for.\n\n" +
-			"Example:\n   cairn compare examples/household.yaml --goal Retirement --for deposit --vary rate=5%,6%,7% --vary by=2049-12,2051-12",
-		Flags: append(fileFlags(true), goalFlag(true),
+			"With one --scenario, the grid is built on that scenario.\n\n" +
+			"Example:\n   cairn compare examples/household.yaml --goal Retirement --for deposit --vary rate=5%,6%,7% --vary by=2049-12,2051-12\n" +
+			"   cairn compare examples/household.yaml --goal \"Emergency fund\" --for time --scenarios",
+		Flags: append(fileFlags(true), goalFlag(true), scenariosFlag,
 			&cli.StringSliceFlag{Name: "vary", Usage: "an axis `KEY=V1,V2,…` or KEY=V1;V2;… (repeatable, one per key)"},
 			&cli.StringFlag{Name: "for", Value: "time", Usage: "the `QUANTITY` to solve for: " + plan.Quantities},
 			&cli.StringFlag{Name: "stream", Usage: "the stream to change and solve for, by `NAME`"},
 		),
 		Action: func(c *cli.Context) error {
+			if c.Bool("scenarios") || len(c.StringSlice("scenario")) > 1 {
+				return compareCases(c, e)
+			}
 			p, g, q, err := planGoalQuantity(c, e)
 			if err != nil {
 				return err
@@ -40,7 +47,7 @@ func compareCommand(e *env) *cli.Command {
 				axes = append(axes, v)
 			}
 			if len(axes) == 0 {
-				return usagef("for example --vary rate=5%,6%,7%", "--vary is required")
+				return usagef("for example --vary rate=5%,6%,7%, or --scenarios to compare the file's scenarios", "--vary is required")
 			}
 			sets, err := overrides(c)
 			if err != nil {
@@ -63,6 +70,51 @@ func compareCommand(e *env) *cli.Command {
 			return out(c, e, compareDoc(p, g, gr))
 		},
 	}
+}
+
+// compareCases solves the goal under the plan as written and each scenario
+// named, side by side.
+func compareCases(c *cli.Context, e *env) error {
+	if len(c.StringSlice("vary")) > 0 {
+		return usagef("vary a key with one --scenario, or compare scenarios without --vary", "--vary: give one --scenario to build the grid on, not several")
+	}
+	cases, err := readCases(c, e)
+	if err != nil {
+		return err
+	}
+	p := cases[0].Plan
+	g, err := goalOf(c, p)
+	if err != nil {
+		return err
+	}
+	q, err := plan.ParseQuantity(c.String("for"))
+	if err != nil {
+		return usagef("", "--for: %v", err)
+	}
+	sets, err := overrides(c)
+	if err != nil {
+		return err
+	}
+	var all []plan.Vary
+	for _, o := range sets {
+		all = append(all, plan.Vary{Key: o.Key, Values: []string{o.Value}})
+	}
+	if err := plan.CheckAxes(all, q); err != nil {
+		return usagef("", "--set: %v", err)
+	}
+	if _, err := parseFormat(c); err != nil {
+		return err
+	}
+	gr, err := plan.CompareCases(cases, g.Name, plan.Question{For: q, Stream: c.String("stream")})
+	if err != nil {
+		return &inputError{err: err}
+	}
+	d := compareDoc(p, g, gr)
+	d.Lead[0] = fmt.Sprintf("%s: the file's scenarios side by side, solving for %s; the base plan is the first row.", g.Name, gr.For)
+	for _, cs := range cases[1:] {
+		d.Lead = append(d.Lead, fmt.Sprintf("%s: %s.", cs.Name, scenarioText(p.Scenario(cs.Name))))
+	}
+	return out(c, e, d)
 }
 
 // compareDoc is the what-if grid gr of goal g, the base plan first.

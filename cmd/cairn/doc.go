@@ -51,6 +51,9 @@ func out(c *cli.Context, e *env, d *render.Doc) error {
 	if err != nil {
 		return err
 	}
+	if sc, ok := d.Data["scenario"].(string); ok {
+		d.Lead = append([]string{fmt.Sprintf("Under the scenario %q.", sc)}, d.Lead...)
+	}
 	if err := d.Write(e.stdout, e.stderr, f); err != nil {
 		return fmt.Errorf("writing output: %v", err)
 	}
@@ -165,12 +168,16 @@ func growthJSON(s *plan.Stream) any {
 func hasDrawdown(g *plan.Goal) bool { return len(g.Withdrawals) > 0 }
 
 func planJSON(p *plan.Plan) map[string]any {
-	return map[string]any{
+	m := map[string]any{
 		"file":      p.File,
 		"start":     p.Start.String(),
 		"currency":  p.Currency.Code,
 		"inflation": jsonRate(p.Inflation.Effective()),
 	}
+	if p.Applied != "" {
+		m["scenario"] = p.Applied
+	}
+	return m
 }
 
 func reasonOf(err error) string {

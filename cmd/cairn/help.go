@@ -83,6 +83,8 @@ func keySections() string {
 		{"TOP LEVEL", []plan.Scope{plan.InPlan}},
 		{"EACH GOAL", []plan.Scope{plan.InGoal}},
 		{"EACH STREAM (deposits and withdrawals)", []plan.Scope{plan.InStream, plan.InWithdrawal}},
+		{"EACH SCENARIO (under scenarios:)", []plan.Scope{plan.InScenario}},
+		{"EACH CHANGE OF A SCENARIO (under changes:; values as --set takes them)", []plan.Scope{plan.InChange}},
 	} {
 		b.WriteString(sec.title + "\n")
 		for _, k := range plan.Keys {

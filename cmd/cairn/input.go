@@ -23,10 +23,18 @@ func fileFlags(withSet bool) []cli.Flag {
 		&cli.StringFlag{Name: "as-of", Usage: "today's `MONTH` (YYYY-MM); the plan starts the month after unless the file says start:"},
 	}
 	if withSet {
-		fs = append(fs, &cli.StringSliceFlag{Name: "set", Usage: "what-if change `KEY=VALUE`, repeatable (keys: " + strings.Join(plan.OverrideKeys, ", ") + ")"})
+		fs = append(fs, &cli.StringSliceFlag{Name: "set", Usage: "what-if change `KEY=VALUE`, repeatable (keys: " + strings.Join(plan.OverrideKeys, ", ") + ")"},
+			scenarioFlag)
 	}
 	return fs
 }
+
+// scenarioFlag picks named scenarios of the goals file; scenariosFlag all
+// of them, for the commands that show cases side by side.
+var (
+	scenarioFlag  = &cli.StringSliceFlag{Name: "scenario", Usage: "apply the file's scenario `NAME` before --set (repeat to show several side by side where the command can)"}
+	scenariosFlag = &cli.BoolFlag{Name: "scenarios", Usage: "show the plan as written and each of the file's scenarios side by side"}
+)
 
 func goalFlag(required bool) cli.Flag {
 	u := "the goal, by `NAME`"
@@ -62,9 +70,105 @@ func planGoalQuantity(c *cli.Context, e *env) (*plan.Plan, *plan.Goal, plan.Quan
 	return p, g, q, nil
 }
 
-// readPlan reads and parses the goals file named by the command's argument:
-// a path, "-" for standard input, or ./cairn.yaml when none is given.
+// readPlan reads the goals file, applies the one --scenario given, if any,
+// then --set.
 func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
+	p, err := parsePlan(c, e)
+	if err != nil {
+		return nil, err
+	}
+	names, err := scenarioNames(c, p)
+	if err != nil {
+		return nil, err
+	}
+	switch len(names) {
+	case 0:
+		return withSets(c, p)
+	case 1:
+		return scenarioCase(c, p, names[0])
+	}
+	return nil, usagef("cairn status and cairn compare show several scenarios side by side",
+		"%s takes one --scenario, not %d", c.Command.Name, len(names))
+}
+
+// readCases reads the goals file and returns the plan as written and then
+// each scenario named by --scenario (every scenario with --scenarios), each
+// with --set applied after it.
+func readCases(c *cli.Context, e *env) ([]plan.Case, error) {
+	p, err := parsePlan(c, e)
+	if err != nil {
+		return nil, err
+	}
+	names, err := scenarioNames(c, p)
+	if err != nil {
+		return nil, err
+	}
+	base, err := withSets(c, p)
+	if err != nil {
+		return nil, err
+	}
+	cases := []plan.Case{{Name: "base", Plan: base}}
+	for _, n := range names {
+		q, err := scenarioCase(c, p, n)
+		if err != nil {
+			return nil, err
+		}
+		cases = append(cases, plan.Case{Name: q.Applied, Plan: q})
+	}
+	return cases, nil
+}
+
+// scenarioNames returns the scenarios named by --scenario, or every one
+// with --scenarios, refusing a name the file does not have.
+func scenarioNames(c *cli.Context, p *plan.Plan) ([]string, error) {
+	hint := "the file's scenarios are: " + quoted(p.ScenarioNames())
+	if len(p.Scenarios) == 0 {
+		hint = "the file has no scenarios (add a scenarios: list; `cairn help file` shows how)"
+	}
+	if c.Bool("scenarios") {
+		if c.IsSet("scenario") {
+			return nil, usagef("", "give --scenarios or --scenario NAME, not both")
+		}
+		if len(p.Scenarios) == 0 {
+			return nil, usagef(hint, "--scenarios: no scenarios to show")
+		}
+		return p.ScenarioNames(), nil
+	}
+	var out []string
+	for _, n := range c.StringSlice("scenario") {
+		if p.Scenario(n) == nil {
+			return nil, usagef(hint, "--scenario: no scenario named %q", n)
+		}
+		out = append(out, n)
+	}
+	return out, nil
+}
+
+// scenarioCase is plan p with the scenario named n applied, then --set.
+func scenarioCase(c *cli.Context, p *plan.Plan, n string) (*plan.Plan, error) {
+	q, err := p.WithScenario(n)
+	if err != nil {
+		return nil, &inputError{err: fmt.Errorf("--scenario %q: %v", n, err)}
+	}
+	q, err = withSets(c, q)
+	if err != nil {
+		return nil, err
+	}
+	q.Applied = p.Scenario(n).Name
+	return q, nil
+}
+
+func quoted(ns []string) string {
+	out := make([]string, len(ns))
+	for i, n := range ns {
+		out[i] = fmt.Sprintf("%q", n)
+	}
+	return strings.Join(out, ", ")
+}
+
+// parsePlan reads and parses the goals file named by the command's argument:
+// a path, "-" for standard input, or ./cairn.yaml when none is given.
+func parsePlan(c *cli.Context, e *env) (*plan.Plan, error) {
 	asOf, err := asOfMonth(c, e)
 	if err != nil {
 		return nil, err
@@ -95,6 +199,12 @@ func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
 	if err != nil {
 		return nil, &inputError{err: err, hint: "`cairn help file` lists every key with its default"}
 	}
+	return p, nil
+}
+
+// withSets is plan p with the --set changes applied, to the goal named by
+// --goal or to every goal.
+func withSets(c *cli.Context, p *plan.Plan) (*plan.Plan, error) {
 	sets, err := overrides(c)
 	if err != nil {
 		return nil, err
@@ -112,13 +222,8 @@ func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
 		if goal != "" && p.Goal(goal) == nil {
 			return nil, usagef("the goals are: "+goalNames(p), "no goal named %q", goal)
 		}
-		for _, g := range p.Goals {
-			if goal != "" && p.Goal(goal) != g {
-				continue
-			}
-			if p, _, err = p.With(g.Name, streamFlag(c), sets); err != nil {
-				return nil, &inputError{err: fmt.Errorf("--set %v", err)}
-			}
+		if p, err = p.Change(goal, streamFlag(c), sets); err != nil {
+			return nil, &inputError{err: fmt.Errorf("--set %v", err)}
 		}
 	}
 	return p, nil

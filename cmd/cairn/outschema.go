@@ -30,6 +30,7 @@ var planFields = []jsonField{
 	{"start", "string", true, "the plan's first month, YYYY-MM"},
 	{"currency", "string", true, "the ISO 4217 code"},
 	{"inflation", "string", true, "inflation a year, effective, as a decimal fraction"},
+	{"scenario", "string", false, "with --scenario: the name of the file's scenario applied"},
 }
 
 // noticeFields are the notices: the note on every output, the cautions where
@@ -46,6 +47,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"goals", "array", true, "one object a goal: target, deadline, projected balance, status and deposit needed"},
 		{"monthly_now", "string", true, "the total set aside a month now"},
 		{"monthly_needed", "string", true, "the total a month needed to meet every goal"},
+		{"cases", "array", false, "with several scenarios: the plan as written (base), then each scenario, each with its goals and totals"},
 	},
 	"check": {
 		{"valid", "boolean", true, "true: the file was read without a problem"},

@@ -35,9 +35,10 @@ func reportCommand(e *env) *cli.Command {
 			"open in a browser and print: A4 or Letter, each goal on a new page. It never overwrites a\n" +
 			"file unless --force is given; --out - writes the HTML to standard output.\n\n" +
 			"Example:\n   cairn report examples/household.yaml --out plan.html\n" +
-			"   cairn report examples/household.yaml --goal Retirement --out retirement.html --force",
+			"   cairn report examples/household.yaml --goal Retirement --out retirement.html --force\n\n" +
+			"With --scenario NAME the report is of the plan with the file's scenario NAME applied.",
 		Flags: []cli.Flag{
-			goalFlag(false),
+			goalFlag(false), scenarioFlag,
 			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Value: "plan.html", Usage: "write the report to `FILE`; - for standard output"},
 			&cli.BoolFlag{Name: "force", Usage: "overwrite an existing file"},
 			&cli.StringFlag{Name: "as-of", Usage: "today's `MONTH` (YYYY-MM); the plan starts the month after unless the file says start:"},
@@ -48,12 +49,11 @@ func reportCommand(e *env) *cli.Command {
 				return err
 			}
 			if name := c.String("goal"); name != "" {
-				g := p.Goal(name)
-				if g == nil {
+				if p.Goal(name) == nil {
 					return usagef("the goals are: "+goalNames(p), "no goal named %q", name)
 				}
 				q := *p
-				q.Goals = []*plan.Goal{g}
+				q.Goals = []*plan.Goal{p.Goal(name)}
 				p = &q
 			}
 			name := c.String("out")
@@ -142,7 +142,8 @@ func bandOf(g *plan.Goal, sim *plan.Simulation) (*simBand, error) {
 
 // buildReport renders the report of every goal of p from the documents
 // status and project print, and returns it with the notices of its first
-// page.
+// page. Under a scenario, the sentence under the title says which and what
+// it changes.
 func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 	st := plan.StatusOf(p)
 	sd := statusDoc(p, st)
@@ -173,6 +174,9 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 		drawdown = drawdown || hasDrawdown(gs.Goal)
 		pg.Goals = append(pg.Goals, s)
 		pg.Next = append(pg.Next, nextSteps(p, gf)...)
+	}
+	if p.Applied != "" {
+		pg.Meta += fmt.Sprintf(" Under the scenario “%s”: %s.", p.Applied, scenarioText(p.Scenario(p.Applied)))
 	}
 	pg.Notices = notices(drawdown)
 	var b bytes.Buffer

@@ -79,6 +79,11 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 	case plan.InRateStep:
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate:\n      - " +
 			unless("rate", "rate: 1%\n        ") + unless("from", "from: 2027-01\n        ") + kv + "\n")
+	case plan.InChange:
+		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    balance: 1000\n    by: 2040-01\n" +
+			"    deposits:\n      - amount: 10\n        every: month\n" +
+			"    withdrawals:\n      - amount: 10\n        every: month\n        from: 2040-02\n" +
+			"scenarios:\n  - name: s\n    changes:\n      - goal: g\n        " + kv + "\n")
 	}
 	text := b.String()
 	line := strings.Count(text[:strings.Index(text, kv)], "\n") + 1

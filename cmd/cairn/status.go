@@ -2,6 +2,8 @@ package main
 
 import (
 	"fmt"
+	"slices"
+	"strings"
 
 	"github.com/urfave/cli/v2"
 
@@ -20,16 +22,21 @@ func statusCommand(e *env) *cli.Command {
 			"--set changes every goal, or only the one named by --goal; a change to a stream (deposit,\n" +
 			"withdrawal, grow, every) needs --goal when the file has several goals.\n\n" +
 			"Example:\n   cairn status examples/household.yaml\n   cairn status examples/household.yaml --set inflation=3% --format json\n" +
-			"   cairn status examples/household.yaml --goal Education --set deposit=200",
-		Flags: append(fileFlags(true),
+			"   cairn status examples/household.yaml --goal Education --set deposit=200\n" +
+			"   cairn status examples/household.yaml --scenarios\n\n" +
+			"--scenario NAME applies one of the file's scenarios; with --scenarios (or --scenario given more\n" +
+			"than once) each goal's key figures are shown under the plan as written and each scenario,\n" +
+			"side by side, one row a goal and case.",
+		Flags: append(fileFlags(true), scenariosFlag,
 			&cli.StringFlag{Name: "goal", Aliases: []string{"g"}, Usage: "the goal that --set changes, by `NAME` (every goal is still shown)"},
 			&cli.StringFlag{Name: "stream", Usage: "the stream that --set changes, by `NAME` (the goal's first when not given)"},
 		),
 		Action: func(c *cli.Context) error {
-			p, err := readPlan(c, e)
+			cases, err := readCases(c, e)
 			if err != nil {
 				return err
 			}
+			p := cases[0].Plan
 			if c.IsSet("goal") {
 				if _, err := goalOf(c, p); err != nil {
 					return err
@@ -38,7 +45,14 @@ func statusCommand(e *env) *cli.Command {
 			if _, err := parseFormat(c); err != nil {
 				return err
 			}
-			return out(c, e, statusDoc(p, plan.StatusOf(p)))
+			switch len(cases) {
+			case 1:
+				return out(c, e, statusDoc(p, plan.StatusOf(p)))
+			case 2:
+				p = cases[1].Plan
+				return out(c, e, statusDoc(p, plan.StatusOf(p)))
+			}
+			return out(c, e, casesDoc(cases))
 		},
 	}
 }
@@ -138,4 +152,90 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 	d.Data["monthly_now"] = jamt(p, st.MonthlyNow)
 	d.Data["monthly_needed"] = jamt(p, st.MonthlyNeeded)
 	return d
+}
+
+// caseColumns are the status columns shown for each case side by side.
+var caseColumns = []string{"target_at_deadline", "projected", "reached", "status", "short_by", "needed", "needed_every", "needed_grows"}
+
+// casesDoc is every goal under each case (the plan as written, then each
+// scenario) side by side: one row a goal and case, the goals in file order
+// and the cases under each in order, with each case's own status document
+// in the JSON form. It is also the report's page of scenarios.
+func casesDoc(cases []plan.Case) *render.Doc {
+	base := cases[0].Plan
+	d := newDoc(base, false)
+	d.Lead = []string{"Each goal under the plan as written (base) and under each scenario, side by side;",
+		"a scenario's remarks follow where they differ from the base's."}
+	for _, c := range cases[1:] {
+		d.Lead = append(d.Lead, fmt.Sprintf("%s: %s.", c.Name, scenarioText(base.Scenario(c.Name))))
+	}
+	docs := make([]*render.Doc, len(cases))
+	for i, c := range cases {
+		docs[i] = statusDoc(c.Plan, plan.StatusOf(c.Plan))
+	}
+	st := docs[0].Tables()[0]
+	cols := []render.Column{{Head: "goal", Key: "goal"}, {Head: "case", Key: "case"}}
+	var idx []int
+	for _, k := range caseColumns {
+		i := slices.IndexFunc(st.Cols, func(c render.Column) bool { return c.Key == k })
+		cols, idx = append(cols, st.Cols[i]), append(idx, i)
+	}
+	t := &render.Table{Cols: cols}
+	for g := range base.Goals {
+		for i, c := range cases {
+			row := []render.Cell{render.Text(base.Goals[g].Name), render.Text(c.Name)}
+			for _, j := range idx {
+				row = append(row, docs[i].Tables()[0].Rows[g][j])
+			}
+			t.Add(row...)
+		}
+	}
+	var jcases []map[string]any
+	drawdown := false
+	for i, c := range cases {
+		for _, n := range docs[i].Notices {
+			drawdown = drawdown || n == drawdownNotice
+		}
+		for _, a := range docs[i].After {
+			if i == 0 || !slices.Contains(docs[0].After, a) {
+				d.After = append(d.After, c.Name+": "+a)
+			}
+		}
+		jc := map[string]any{"case": c.Name}
+		for _, k := range []string{"goals", "monthly_now", "monthly_needed"} {
+			jc[k] = docs[i].Data[k]
+		}
+		jcases = append(jcases, jc)
+	}
+	d.Notices = notices(drawdown)
+	d.Blocks = []render.Block{t}
+	for _, k := range []string{"goals", "monthly_now", "monthly_needed"} {
+		d.Data[k] = docs[0].Data[k]
+	}
+	d.Data["cases"] = jcases
+	return d
+}
+
+// scenarioText says what a scenario changes, as --set would write it:
+// "Retirement: rate=5.5%; every goal: inflation=3%".
+func scenarioText(sc *plan.Scenario) string {
+	if sc == nil {
+		return "as planned"
+	}
+	var parts []string
+	for _, ch := range sc.Changes {
+		who := "every goal"
+		if ch.Goal != "" {
+			who = ch.Goal
+		}
+		if ch.Stream != "" {
+			who += " (" + ch.Stream + ")"
+		}
+		var sets []string
+		for _, o := range ch.Sets {
+			sets = append(sets, o.String())
+		}
+		parts = append(parts, who+": "+strings.Join(sets, ", "))
+	}
+	return strings.Join(parts, "; ")
 }
