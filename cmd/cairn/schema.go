@@ -50,6 +50,8 @@ var scopeDefs = map[plan.Scope]string{
 	plan.InWithdrawal: "withdrawal",
 	plan.InOnce:       "once",
 	plan.InRateStep:   "rate_step",
+	plan.InScenario:   "scenario",
+	plan.InChange:     "change",
 }
 
 // goalsSchema returns the JSON Schema of the goals file, indented, ending in

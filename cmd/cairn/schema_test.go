@@ -210,3 +210,34 @@ func TestBadFilesSorted(t *testing.T) {
 		t.Errorf("bad-files.txt lists %s, which is not in testdata/bad", f)
 	}
 }
+
+// TestSchemaRefsResolve checks that every $ref in the goals-file schema names
+// a definition it holds, so a scope added to plan's key table without a
+// schema definition fails here rather than in the validator.
+func TestSchemaRefsResolve(t *testing.T) {
+	var root map[string]any
+	if err := json.Unmarshal(goalsSchema(), &root); err != nil {
+		t.Fatal(err)
+	}
+	defs, _ := root["$defs"].(map[string]any)
+	var walk func(v any)
+	walk = func(v any) {
+		switch v := v.(type) {
+		case map[string]any:
+			if ref, ok := v["$ref"].(string); ok {
+				name, found := strings.CutPrefix(ref, "#/$defs/")
+				if !found || defs[name] == nil {
+					t.Errorf("$ref %q names no definition", ref)
+				}
+			}
+			for _, x := range v {
+				walk(x)
+			}
+		case []any:
+			for _, x := range v {
+				walk(x)
+			}
+		}
+	}
+	walk(root)
+}
