@@ -548,7 +548,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		n = 1
 	}
 	var roots []float64
-	slope := math.NaN() // of f at roots[0], when the search found it
+	slope := math.NaN()                     // of f at roots[0], when the search found it
 	if d, ok := s.annuityRoot(target); ok { // a uniform annuity: its closed form
 		roots, n = []float64{d}, 0
 	} else if n == 1 {
