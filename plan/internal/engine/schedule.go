@@ -92,8 +92,6 @@ type Schedule struct {
 	accrue   bool  // interest accrues at each compounding and is credited at month ends
 	stepFrom []int32
 	events   []Event // every event, in order
-	flows    int     // how many of them are amounts
-	fees     int     // and fees
 	taus     []float64
 	sources  int
 	// grow is, per source, the yearly growth of its amounts when each
@@ -272,7 +270,6 @@ func Compile(sh *Shape) *Schedule {
 	}
 	interestTo(s.endTick)
 	s.events = ev
-	s.flows, s.fees = len(flows), 0
 	// fraction of the interest period left, and the step of that period;
 	// the distinct fractions are few, found by the ticks left
 	var left []int64 // ticks left of each of s.taus
@@ -281,9 +278,6 @@ func Compile(sh *Shape) *Schedule {
 		e := &s.events[i]
 		if e.Kind == Interest || e.Kind == Credit || e.Kind == Mark {
 			continue
-		}
-		if e.Kind == Fee {
-			s.fees++
 		}
 		next := (e.Tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
 		r := next - e.Tick
@@ -300,6 +294,29 @@ func Compile(sh *Shape) *Schedule {
 		e.Step = s.StepAt(next - s.period)
 	}
 	return s
+}
+
+// Prefix returns the schedule through the end of month months−1 (counted
+// from 0), which a schedule compiled through a later month holds: the same
+// events up to that month end's mark, sharing s's storage. The events of a
+// shape do not depend on how far it is compiled: a run of interest dates
+// never passes a month end, and every amount, fee and credit at a tick is
+// laid down the same whatever follows.
+func (s *Schedule) Prefix(months int32) *Schedule {
+	if months >= s.months {
+		return s
+	}
+	p := *s
+	p.months = months
+	p.endTick = int64(months) * TicksPerMonth
+	n, _ := slices.BinarySearchFunc(s.events, p.endTick, func(e Event, end int64) int {
+		if e.Tick < end || e.Tick == end && e.Kind <= Mark {
+			return -1
+		}
+		return 1
+	})
+	p.events = s.events[:n:n]
+	return &p
 }
 
 // eventOrder orders events by tick, then kind, then source; the three
