@@ -99,6 +99,9 @@ type Schedule struct {
 	// amount in today's money, first indexed over part of a year); the
 	// opening balance and one-time amounts: 0, a unit of 1.
 	grow []float64
+	// partial lists the flows and fees part way through an interest
+	// period (Tau < 1): the events a path's weights are computed for.
+	partial []int32
 }
 
 // Events returns the schedule's events in order; the caller must not
@@ -290,6 +293,9 @@ func Compile(sh *Shape) *Schedule {
 			}
 		}
 		e.Tau, e.Ti = s.taus[k32], k32
+		if e.Tau < 1 {
+			s.partial = append(s.partial, int32(i))
+		}
 		e.Period = int32(e.Tick / s.period)
 		e.Step = s.StepAt(next - s.period)
 	}
@@ -316,6 +322,8 @@ func (s *Schedule) Prefix(months int32) *Schedule {
 		return 1
 	})
 	p.events = s.events[:n:n]
+	k, _ := slices.BinarySearch(s.partial, int32(n))
+	p.partial = s.partial[:k:k]
 	return &p
 }
 
