@@ -202,6 +202,9 @@ func (p *Plan) checkBounds(g *Goal) error {
 	if p.cache == nil {
 		p.cache = new(engine.Cache)
 	}
+	if err := p.checkWork(g); err != nil {
+		return err
+	}
 	limit := money.Units(MaxBalanceUnits)
 	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {
 		return fmt.Errorf("goal %s: the target grown to the deadline passes the limit of %s", money.Quote(g.Name), limit.Format(p.Currency, false))

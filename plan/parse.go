@@ -58,6 +58,11 @@ func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) 
 			d.report(pr)
 		}
 		if len(d.errs) == 0 {
+			if g, err := p.checkFileWork(); err != nil {
+				d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
+			}
+		}
+		if len(d.errs) == 0 {
 			for _, g := range p.Goals {
 				if err := p.checkBounds(g); err != nil {
 					d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
