@@ -59,8 +59,12 @@
 //   - compound (the default): (1+j)^τ − 1, fractional-period compounding;
 //     this equals compounding at the effective rate per deposit period.
 //   - simple: j·τ, simple interest for the fraction, credited at the date.
-//   - none: nothing for a deposit until the next interest date; money
-//     withdrawn between dates earns nothing for that whole period.
+//   - none: interest on the lowest balance held throughout the interest
+//     period. A deposit earns nothing until the period ends; money
+//     withdrawn earns nothing for that period; flows within a period offset
+//     first, so a withdrawal takes from the period's deposits before the
+//     balance the period began with. At a non-negative rate this interest
+//     is never negative.
 //
 // A worked example: 4% compounded quarterly (j = 1%) and 1,000 deposited one
 // month into a quarter (τ = 2/3). At the quarter's end, compound credits
@@ -68,6 +72,16 @@
 // 2/3 = 6.666… → 6.67; none credits 0.00. A 1,000 withdrawal from a balance
 // of 5,000 one month into the quarter leaves 4,000 earning, under none,
 // 40.00 for the quarter instead of compound's 5,000 × 0.01 − 6.66 = 43.34.
+// And 1,000 in at the end of January and out at the end of February, on an
+// empty account: the lowest balance of the quarter is 0.00, so none credits
+// 0.00 (the two flows offset; neither is charged against the other).
+//
+// Under none the walk is not linear in the amounts — the lowest balance of
+// a sum is not the sum of the lowest balances — so the values of the flows
+// each taken alone add up to the balance only when no interest period
+// holds, after its first instant, money both in and out or a fee. Otherwise
+// the equation of value shows the difference as a term of its own, "flows
+// offsetting within interest periods".
 //
 // # Ledger
 //

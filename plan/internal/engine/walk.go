@@ -13,7 +13,7 @@ type Between uint8
 const (
 	Compound Between = iota // (1+j)^τ − 1
 	Simple                  // j·τ
-	None                    // nothing in; money out forgoes the period's interest
+	None                    // interest on the lowest balance held throughout the period
 )
 
 // Inputs are what a walk reads besides the schedule: everything a solver
@@ -196,6 +196,12 @@ func roundMinor(x float64, r money.Rounding) float64 {
 // which leaves the registers to the balances.
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	var bal, base, acc, accrued, peak float64
+	// low is the lowest balance (with interest accrued) held since the
+	// interest period began, what rule None pays interest on: a flow or
+	// fee at the period's first tick sets it, any later one can only
+	// lower it.
+	var low float64
+	none := in.Between == None
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if o.Mode == Exact {
@@ -212,6 +218,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 		}
 		base = bal
 	}
+	low = base
 	var j float64 // the rate of the interest period
 	for i := range s.events {
 		e := &s.events[i]
@@ -224,9 +231,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					j = in.Rates[e.Step]
 				}
 				x := base*j + acc
+				if none {
+					x = low * j
+					if o.Mode == Exact && low < 0 { // the carried fraction of a cent below an empty account
+						x = 0
+					}
+				}
 				if s.accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
+					low = base
 					continue
 				}
 				if o.Mode == Exact {
@@ -234,6 +248,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				bal += x
 				base, acc = bal, 0
+				low = base
 				if o.Log != nil && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0)
@@ -260,6 +275,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal -= f
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
 			if p := o.Paths; p == nil {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
 			} else {
@@ -314,6 +332,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal += x
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
 			if p == nil {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 				if x < 0 {
@@ -330,6 +351,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	}
 	res.Closing, res.Peak = bal, peak
 	return res
+}
+
+// lowest returns the lowest balance of an interest period, low before and
+// bal after a flow or fee with a fraction tau of the period left: at the
+// period's first tick (tau 1) the period's balance is still being set.
+func lowest(low, bal, tau float64) float64 {
+	if tau == 1 {
+		return bal
+	}
+	return min(low, bal)
 }
 
 // Weights fills p.W for schedule s under rule b and the out flags of in:

@@ -1,0 +1,119 @@
+package plan
+
+import (
+	"testing"
+)
+
+// interestOf returns the interest posted on goal g's ledger through its
+// deadline, and the ledger.
+func interestOf(t *testing.T, src string) (string, *Ledger) {
+	t.Helper()
+	p, err := Parse("numbers.yaml", []byte(src), 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := p.Goals[0]
+	l, err := Project(p, g, g.By)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sum := l.Opening.Sub(l.Opening)
+	for _, e := range l.Entries() {
+		if e.Kind == Interest {
+			sum = sum.Add(e.Amount)
+		}
+	}
+	return sum.String(), l
+}
+
+// Between none pays interest on the lowest balance held throughout the
+// interest period.
+func TestNone_InterestOnLowestBalance(t *testing.T) {
+	quarter := func(balance, once string) string {
+		return `cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    balance: ` + balance + `
+    rate: 4% compounded quarterly
+    between: none
+    by: 2027-03
+    once:
+` + once
+	}
+	tests := []struct {
+		name, src, interest, closing string
+	}{
+		// issue 13's case: the lowest balance of the quarter is 0 (derived by hand)
+		{"in and out within the period", noneOffsetFile, "0.00", "0.00"},
+		// the package doc's worked example: 4,000 × 1% (derived by hand)
+		{"withdrawal one month in", quarter("5000", "      - {amount: -1000, on: 2027-01}\n"), "40.00", "4040.00"},
+		// a deposit earns nothing until the period ends: 5,000 × 1% (derived by hand)
+		{"deposit one month in", quarter("5000", "      - {amount: 1000, on: 2027-01}\n"), "50.00", "6050.00"},
+		// out first, then in: the lowest is 4,000 (derived by hand)
+		{"out then in", quarter("5000", "      - {amount: -1000, on: 2027-01}\n      - {amount: 1000, on: 2027-02}\n"), "40.00", "5040.00"},
+		// in first, then out: the deposit is offset first, the lowest is 5,000 (derived by hand)
+		{"in then out", quarter("5000", "      - {amount: 1000, on: 2027-01}\n      - {amount: -1500, on: 2027-02}\n"), "45.00", "4545.00"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			interest, l := interestOf(t, tt.src)
+			if interest != tt.interest || l.Closing.String() != tt.closing {
+				t.Fatalf("interest %s, closing %s; want %s and %s", interest, l.Closing, tt.interest, tt.closing)
+			}
+		})
+	}
+}
+
+// At a non-negative rate no interest credit under between none is
+// negative (random plans). (Under compound and simple a monthly credit of
+// daily interest can post −0.01 on an emptied account: the carried
+// fraction of a cent, credited when it rounds to one.)
+func TestNone_InterestNeverNegativeAtNonNegativeRate(t *testing.T) {
+	eachRandomPlan(t, 13, func(t *testing.T, src string, p *Plan, g *Goal) {
+		if g.Between != None {
+			return
+		}
+		for _, st := range g.Rates {
+			if st.Rate.Effective() < 0 {
+				return
+			}
+		}
+		l, err := Project(p, g, g.By)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, e := range l.Entries() {
+			if e.Kind == Interest && e.Amount.Sign() < 0 {
+				t.Fatalf("interest %s in %s at a non-negative rate\n%s", e.Amount, e.Month, src)
+			}
+		}
+	})
+}
+
+// Money that arrives at an instant can pay what leaves at it: a one-time
+// 1,000 arriving at the end of the month a 1,000 withdrawal falls due, on
+// an empty account, leaves no shortfall.
+func TestOrderAtOneInstant_InBeforeOut(t *testing.T) {
+	for _, timing := range []string{"end"} {
+		src := `cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    balance: 0
+    rate: 3%
+    by: 2027-01
+    withdrawals:
+      - {amount: 1000, every: month, timing: ` + timing + `, from: 2027-01, until: 2027-01}
+    once:
+      - {amount: 1000, on: 2027-01}
+`
+		_, l := interestOf(t, src)
+		if m, short := l.FirstShort(); short {
+			t.Errorf("timing %s: short in %s, closing %s; want no shortfall (in before out at one instant)", timing, m, l.Closing)
+		}
+		if !l.Closing.IsZero() {
+			t.Errorf("timing %s: closing %s, want 0.00", timing, l.Closing)
+		}
+	}
+}
