@@ -1,6 +1,8 @@
 package plan
 
 import (
+	"math/rand/v2"
+	"strings"
 	"testing"
 )
 
@@ -115,5 +117,87 @@ goals:
 		if !l.Closing.IsZero() {
 			t.Errorf("timing %s: closing %s, want 0.00", timing, l.Closing)
 		}
+	}
+}
+
+// The balance at the deadline never falls as the rate rises (no balance
+// goes below zero), so the rates that meet a target are one range and a
+// root of the smooth balance that the exact balance does not cross is an
+// artifact: random plans with money out, each given as target its own
+// projected balance, get one rate and no note of several.
+func TestSolveRate_NoSpuriousRoots(t *testing.T) {
+	r := rand.New(rand.NewPCG(13, 4))
+	for n := 0; n < 300; {
+		src := randomGoalsFile(r)
+		if !strings.Contains(src, "withdrawals:") && !strings.Contains(src, "amount: -") {
+			continue
+		}
+		p, err := Parse("random.yaml", []byte(src), 0)
+		if err != nil {
+			continue
+		}
+		n++
+		g := p.Goals[0]
+		l, err := Project(p, g, g.By)
+		if err != nil {
+			t.Fatal(err)
+		}
+		src += "    target: " + l.Closing.String() + "\n"
+		if p, err = Parse("random.yaml", []byte(src), 0); err != nil {
+			continue
+		}
+		a, err := Solve(p, p.Goals[0], Question{For: ForRate})
+		if err != nil {
+			if !IsNoSolution(err) {
+				t.Fatalf("Solve(rate): %v\n%s", err, src)
+			}
+			continue
+		}
+		if len(a.Rates) > 0 || a.Note != "" {
+			t.Fatalf("Solve(rate) = %v and %v (%s): several rates where the balance never falls as the rate rises\n%s", a.Rate, a.Rates, a.Note, src)
+		}
+	}
+}
+
+// "Every rate meets the target" is an answer with its reason, not a root:
+// a withdrawal larger than the balance floors it at zero whatever the rate.
+func TestSolveRate_EveryRateMeets(t *testing.T) {
+	tests := []struct{ name, src, want string }{
+		{"floored then a deposit", `cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    balance: 1000
+    rate: 5%
+    target: 100
+    by: 2028-12
+    deposits:
+      - {amount: 100, every: year, from: 2028-01}
+    withdrawals:
+      - {amount: 2000, every: year, from: 2027-01, until: 2027-12}
+`, "every rate meets the target: the balance at the deadline is 100.00 whatever the rate"},
+		{"floored at a zero target", `cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    balance: 1000
+    rate: 5%
+    target: 0
+    by: 2028-12
+    withdrawals:
+      - {amount: 2000, every: year, from: 2027-01}
+`, "every rate meets the target: the balance at the deadline is 0.00 whatever the rate"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			p, err := Parse("numbers.yaml", []byte(tt.src), 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			a, err := Solve(p, p.Goals[0], Question{For: ForRate})
+			if !IsNoSolution(err) || !strings.Contains(err.Error(), tt.want) {
+				t.Fatalf("Solve(rate) = %v, %v; want no solution: %q", a, err, tt.want)
+			}
+		})
 	}
 }

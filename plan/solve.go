@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 
 	"cairn/money"
@@ -596,21 +597,49 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if n > 0 && prevF == 0 {
 		roots = append(roots, prevX)
 	}
-	if len(roots) == 0 {
-		if f(hi) < 0 {
-			return nil, noSolution(g, "even at %s a year the goal falls short of %s by the deadline", money.Percent(maxSolveRate, 0), target.Format(p.Currency, false))
-		}
-		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
-	}
-	// The lowest root of the smooth balance is within rounding of the
-	// answer: bracket the lowest rate whose exact balance meets the target
-	// around it, then bisect.
+	// The exact walk settles what the smooth balance only suggests.
 	meets := func(delta float64) (money.Amount, bool) {
 		r := money.ForceRate(delta)
 		pr.rate = &r
 		bal, _ := s.closing(pr)
 		return bal, bal.Cmp(target) >= 0
 	}
+	if n > 1 {
+		// Money goes out: where a withdrawal is larger than the balance the
+		// exact balance is floored at zero and the smooth one is not, so a
+		// root of the smooth balance is a rate only where the exact balance
+		// crosses the target.
+		roots = slices.DeleteFunc(roots, func(r float64) bool { return !crosses(meets, r) })
+	}
+	if len(roots) == 0 {
+		bLo, okLo := meets(lo)
+		bHi, okHi := meets(hi)
+		switch {
+		case !okHi:
+			return nil, noSolution(g, "even at %s a year the goal falls short of %s by the deadline", money.Percent(maxSolveRate, 0), target.Format(p.Currency, false))
+		case okLo && bLo.Cmp(bHi) == 0:
+			return nil, noSolution(g, "every rate meets the target: the balance at the deadline is %s whatever the rate, so no rate is the answer", bLo.Format(p.Currency, false))
+		case okLo:
+			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
+		}
+		// The exact balance crosses the target where the smooth one has no
+		// root: bisect it.
+		a, b := lo, hi
+		for range 200 {
+			if b-a <= 1e-12 {
+				break
+			}
+			if m := a + (b-a)/2; func() bool { _, ok := meets(m); return ok }() {
+				b = m
+			} else {
+				a = m
+			}
+		}
+		roots = []float64{b}
+	}
+	// The lowest root of the smooth balance is within rounding of the
+	// answer: bracket the lowest rate whose exact balance meets the target
+	// around it, then bisect.
 	delta := roots[0]
 	bal, ok := meets(delta)
 	// Usually one step along the smooth balance's slope lands on the
@@ -659,6 +688,21 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	bal, _ = meets(delta)
 	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: bal}
 	return finishRate(s, a, pr, roots, full), nil
+}
+
+// crosses reports whether the exact balance crosses the target at force
+// of interest r: whether it meets the target on one side of r and not on
+// the other, within a distance widened from 1e-7 to 1e-2 (the exact
+// balance moves in whole cents, so a small step may not move it).
+func crosses(meets func(float64) (money.Amount, bool), r float64) bool {
+	for h := 1e-7; h <= 1e-2; h *= 10 {
+		_, okl := meets(r - h)
+		_, okh := meets(r + h)
+		if okl != okh {
+			return true
+		}
+	}
+	return false
 }
 
 // finishRate completes a rate answer: the other roots, and the proof at the
