@@ -640,6 +640,15 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// The lowest root of the smooth balance is within rounding of the
 	// answer: bracket the lowest rate whose exact balance meets the target
 	// around it, then bisect.
+	// The answer is the crossing found, within 1e-12 above it, raised by
+	// 1e-12: a margin against the last bits a conversion of the rate to
+	// another form changes, so that the rate meets the target when used.
+	answer := func(d float64) *Answer {
+		d += 1e-12
+		b, _ := meets(d)
+		a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(d), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: b}
+		return finishRate(s, a, pr, roots, full)
+	}
 	delta := roots[0]
 	bal, ok := meets(delta)
 	// Usually one step along the smooth balance's slope lands on the
@@ -649,10 +658,9 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		slope := (f(delta+h) - f(delta-h)) / (2 * h)
 		if slope > 0 {
 			d := delta + (target.Float()-bal.Float())/slope + 1e-13
-			if b, m := meets(d); m {
+			if _, m := meets(d); m {
 				if _, m2 := meets(d - 1e-12); !m2 {
-					a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(d), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: b}
-					return finishRate(s, a, pr, roots, full), nil
+					return answer(d), nil
 				}
 			}
 		}
@@ -660,9 +668,11 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	lo2, hi2 := delta, delta
 	for step := 1e-9; ; step *= 8 {
 		if ok {
-			lo2 = hi2 - step
+			lo2 = max(hi2-step, lo)
 			if _, m := meets(lo2); !m || step > 1 {
 				break
+			} else if lo2 == lo { // the search's range ends here
+				return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
 			}
 			hi2 = lo2
 		} else {
@@ -684,10 +694,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 			lo2 = mid
 		}
 	}
-	delta = hi2
-	bal, _ = meets(delta)
-	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: bal}
-	return finishRate(s, a, pr, roots, full), nil
+	return answer(hi2), nil
 }
 
 // crosses reports whether the exact balance crosses the target at force
