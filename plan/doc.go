@@ -83,6 +83,56 @@
 // the equation of value shows the difference as a term of its own, "flows
 // offsetting within interest periods".
 //
+// # Order at one instant
+//
+// Several things can happen at one tick. They happen in this order: the
+// interest credit for the period ending then (and, for daily or weekly
+// compounding, the month's credit of what has accrued); the month's fee;
+// the amounts due at the end of a period — money in (deposits, one-time
+// amounts in) before money out (withdrawals, one-time amounts out); the
+// month-end balance; then the amounts due at the start of a period, again
+// money in before money out. So money that arrives at an instant can pay
+// what leaves at it: a one-time 1,000 at the end of the month a 1,000
+// withdrawal falls due pays it, even on an empty account. The month-end
+// balance is the one a statement for that month shows: it excludes the
+// next month's start-of-period amounts, which fall at the same tick.
+//
+// # Conventions
+//
+// What to know to check cairn against a statement:
+//
+//   - A rate "x%" or "x% per year" is effective: what a year's interest
+//     adds, compounding included. "x% compounded monthly" is nominal, 12
+//     credits of x/12; "x% per month" is periodic.
+//   - Compounding dates count from the plan's start, not the calendar: a
+//     rate compounded quarterly in a plan starting in February credits at
+//     the ends of April, July, October and January.
+//   - Daily compounding has 365 interest dates a year, one every 365th of
+//     a year, and a month is a twelfth of a year (30 5/12 days), so a
+//     month's credit covers the whole days that end within it: 30 or 31,
+//     in the pattern 30, 30, 31, 30, 31, 30, 30, 31, 30, 31, 30, 31 from
+//     the plan's start (182 in the first six months, 365 in a year). The
+//     fraction of a day at a month's end is carried: it is paid with the
+//     next month's first day.
+//   - Interest accrued at daily or weekly dates is credited at the month
+//     end rounded to the cent; the fraction of a cent left over is carried
+//     to the next month's credit, and earns interest meanwhile (it can
+//     round a later credit up or down by a cent).
+//   - Every interest credit, fee and amount is rounded once, to the cent,
+//     with the file's rounding rule (half-even unless "rounding: half-up").
+//   - "every 2 weeks" is 26 amounts a year, exactly half of the 52 weekly
+//     ones: the time grid divides a year into 26 equal two-week periods,
+//     not into 14-day periods (which would make about 26.07). "twice a
+//     month" is 24.
+//   - The fee ("fee: 0.25%", a year) is taken at each month end as a
+//     twelfth of the rate times the balance then: after that month's
+//     interest credit and before the amounts due at that instant.
+//   - The leave of a withdrawal goal ("leave: 10,000") is the balance at
+//     the end of the month of the last withdrawal (the latest until of its
+//     withdrawal streams), after that month's interest and fee.
+//   - A deadline "by: 2029-06" is the end of June 2029, and includes the
+//     amounts due then.
+//
 // # Ledger
 //
 // The [Ledger] is exact: every balance and posting is a whole number of the

@@ -4,6 +4,8 @@ import (
 	"math/rand/v2"
 	"strings"
 	"testing"
+
+	"cairn/money"
 )
 
 // interestOf returns the interest posted on goal g's ledger through its
@@ -200,4 +202,70 @@ goals:
 			}
 		})
 	}
+}
+
+// The conventions of the package doc's # Conventions section, each checked
+// on a small plan. Check values derived by hand (exact decimal arithmetic).
+func TestConventions(t *testing.T) {
+	file := func(goal string) string {
+		return "cairn: 1\nstart: 2027-02\ngoals:\n  - name: g\n" + goal
+	}
+	entries := func(t *testing.T, src string, kind EntryKind) []Entry {
+		t.Helper()
+		_, l := interestOf(t, src)
+		var out []Entry
+		for _, e := range l.Entries() {
+			if e.Kind == kind {
+				out = append(out, e)
+			}
+		}
+		return out
+	}
+	t.Run("daily credits cover 30, 30, 31, 30, 31, 30 days", func(t *testing.T) {
+		// 100,000 at 0.01% a day: the credits are the differences of
+		// 100,000 × 1.0001^d at d = 30, 60, 91, 121, 152, 182, each rounded
+		// half-even with the fraction of a cent carried (derived by hand)
+		want := []string{"300.44", "301.33", "312.34", "303.18", "314.24", "305.04"}
+		got := entries(t, file("    balance: 100000\n    rate: 0.01% per day\n    by: 2027-07\n"), Interest)
+		if len(got) != len(want) {
+			t.Fatalf("%d credits, want %d", len(got), len(want))
+		}
+		for i, e := range got {
+			if e.Amount.String() != want[i] {
+				t.Errorf("credit %d (%s) = %s, want %s", i+1, e.Month, e.Amount, want[i])
+			}
+		}
+	})
+	t.Run("compounding dates count from the start", func(t *testing.T) {
+		got := entries(t, file("    balance: 1000\n    rate: 4% compounded quarterly\n    by: 2028-01\n"), Interest)
+		var months []string
+		for _, e := range got {
+			months = append(months, e.Month.String())
+		}
+		// a plan starting in February credits quarterly at the ends of
+		// April, July, October and January (derived by hand)
+		if want := "2027-04 2027-07 2027-10 2028-01"; strings.Join(months, " ") != want {
+			t.Errorf("quarterly credits in %v, want %s", months, want)
+		}
+	})
+	t.Run("every 2 weeks is 26 a year", func(t *testing.T) {
+		got := entries(t, file("    balance: 0\n    rate: 0%\n    by: 2028-01\n    deposits:\n      - {amount: 10, every: 2 weeks, from: 2027-02}\n"), Deposit)
+		if len(got) != 26 { // 52 weeks / 2 (derived by hand)
+			t.Errorf("%d fortnightly deposits in a year, want 26", len(got))
+		}
+	})
+	t.Run("the fee comes before the month-end amounts", func(t *testing.T) {
+		// 1,000 at a 12% fee (1% a month) and 1,000 deposited at the
+		// month end: the fee is 1% of 1,000 (derived by hand)
+		got := entries(t, file("    balance: 1000\n    rate: 0%\n    fee: 12%\n    by: 2027-02\n    deposits:\n      - {amount: 1000, every: month, from: 2027-02}\n"), Fee)
+		if len(got) != 1 || got[0].Amount.String() != "-10.00" {
+			t.Errorf("fees %v, want one of -10.00", got)
+		}
+	})
+	t.Run("x% per year is effective", func(t *testing.T) {
+		r, err := money.ParseRate("4% per year")
+		if err != nil || r.Form() != money.Effective || r.Effective() != 0.04 {
+			t.Errorf("ParseRate(4%% per year) = %v, %v; want 4%% effective", r, err)
+		}
+	})
 }
