@@ -282,3 +282,13 @@ func PercentUp(x float64, places int) float64 {
 	}
 	return v / 100
 }
+
+// RateUp returns x rounded up to the places [RateText] shows it with (four,
+// six below 1%): how a solved rate is shown, so that the rate read from any
+// output and written back meets the target it was solved for.
+func RateUp(x float64) float64 {
+	if math.Abs(x) < 0.01 {
+		return PercentUp(x, 6)
+	}
+	return PercentUp(x, 4)
+}

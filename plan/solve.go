@@ -77,6 +77,15 @@ type Answer struct {
 	// flows change sign more than once).
 	Rate  money.Rate
 	Rates []money.Rate
+	// ShownNominal is Rate as outputs show it, nominal in the goal's
+	// compounding: rounded up to the places shown (see [money.RateUp]),
+	// and further if need be, so that written back into the goal as its
+	// rate it meets the target. ShownEffective is the effective annual
+	// rate, rounded up likewise; written back, it meets the target when the
+	// goal credits monthly. (An effective rate credits monthly, so written
+	// back into a goal compounded otherwise it makes a different account,
+	// whose balance can differ by more than the rounding.)
+	ShownEffective, ShownNominal float64
 
 	// ForLasts and ForWithdrawal: whether the money lasts, and what is left
 	// after the last withdrawal.
@@ -712,6 +721,31 @@ func crosses(meets func(float64) (money.Amount, bool), r float64) bool {
 	return false
 }
 
+// shownRate returns rate x, a fraction in the form that suffix names (""
+// for effective, " compounded monthly"), rounded up to the places it is
+// shown with, and raised a place at a time until the rate so written back
+// into goal g of plan p meets its target (it does at once unless a change
+// of compounding rounds a posting the other way).
+func shownRate(p *Plan, g *Goal, x float64, suffix string) float64 {
+	v := money.RateUp(x)
+	for range 100 {
+		q, h, err := p.With(g.Name, "", []Override{{Key: "rate", Value: money.Percent(v, 6) + suffix}})
+		if err != nil {
+			return v
+		}
+		l, err := Project(q, h, h.By)
+		if err != nil || l.BalanceAt(h.By).Cmp(q.TargetAt(h)) >= 0 {
+			return v
+		}
+		step := 1e-6 // a unit in the fourth place of a percentage, or the sixth below 1%
+		if math.Abs(v) < 0.01 {
+			step = 1e-8
+		}
+		v = money.RateUp(v + step/2)
+	}
+	return v
+}
+
 // finishRate completes a rate answer: the other roots, and the proof at the
 // answer's rate.
 func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) *Answer {
@@ -720,6 +754,12 @@ func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) 
 	}
 	pr.rate = &a.Rate
 	s.prove(a, pr, full)
+	comp := s.goal.Rates[0].Rate.Compounding()
+	a.ShownNominal = shownRate(s.plan, s.goal, a.Rate.Nominal(comp), " compounded "+comp.Adjective())
+	a.ShownEffective = money.RateUp(a.Rate.Effective())
+	if comp == money.Monthly { // an effective rate credits monthly: the same account
+		a.ShownEffective = shownRate(s.plan, s.goal, a.Rate.Effective(), "")
+	}
 	if len(a.Rates) > 0 {
 		a.Note = fmt.Sprintf("the cash flows change sign, so %d rates make the balance equal the target", len(roots))
 	}
