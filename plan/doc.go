@@ -173,6 +173,17 @@
 // misses. Only root finding for a rate uses the smooth, unrounded balance,
 // and the exact walk then settles the last cent.
 //
+// No balance goes below zero (a withdrawal larger than the balance is paid
+// in part), so the balance at a deadline never falls as the rate rises: the
+// rates that meet a target are one range, and the answer is its lowest. A
+// root of the smooth balance where the exact balance does not cross the
+// target (the smooth one goes negative where the exact one stops at zero)
+// is not a rate; when the balance at the deadline is the same at every rate
+// and meets the target, the answer is that every rate meets it (a
+// [SolveError], not a rate). A solved rate is shown rounded up to the places
+// shown, so that written back it meets the target (see
+// [Answer.ShownNominal]).
+//
 // [Compare] solves one question over a grid of what-if overrides, and
 // [StatusOf] gives every goal at a glance.
 package plan

@@ -724,17 +724,19 @@ func crosses(meets func(float64) (money.Amount, bool), r float64) bool {
 // shownRate returns rate x, a fraction in the form that suffix names (""
 // for effective, " compounded monthly"), rounded up to the places it is
 // shown with, and raised a place at a time until the rate so written back
-// into goal g of plan p meets its target (it does at once unless a change
-// of compounding rounds a posting the other way).
-func shownRate(p *Plan, g *Goal, x float64, suffix string) float64 {
+// as the goal's one rate meets target: s walked at the rate read back from
+// its text, as the goals file reads it. s must compound as the form does
+// (an effective rate monthly). It meets at once unless a posting rounds
+// the other way.
+func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix string) float64 {
 	v := money.RateUp(x)
 	for range 100 {
-		q, h, err := p.With(g.Name, "", []Override{{Key: "rate", Value: money.Percent(v, 6) + suffix}})
+		r, err := money.ParseRate(money.Percent(v, 6) + suffix)
 		if err != nil {
 			return v
 		}
-		l, err := Project(q, h, h.By)
-		if err != nil || l.BalanceAt(h.By).Cmp(q.TargetAt(h)) >= 0 {
+		pr.rate = &r
+		if bal, _ := s.closing(pr); bal.Cmp(target) >= 0 {
 			return v
 		}
 		step := 1e-6 // a unit in the fourth place of a percentage, or the sixth below 1%
@@ -752,14 +754,14 @@ func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) 
 	for _, r := range roots[1:] {
 		a.Rates = append(a.Rates, money.ForceRate(r))
 	}
-	pr.rate = &a.Rate
-	s.prove(a, pr, full)
-	comp := s.goal.Rates[0].Rate.Compounding()
-	a.ShownNominal = shownRate(s.plan, s.goal, a.Rate.Nominal(comp), " compounded "+comp.Adjective())
+	comp := s.comp
+	a.ShownNominal = s.shownRate(pr, a.Target, a.Rate.Nominal(comp), " compounded "+comp.Adjective())
 	a.ShownEffective = money.RateUp(a.Rate.Effective())
 	if comp == money.Monthly { // an effective rate credits monthly: the same account
-		a.ShownEffective = shownRate(s.plan, s.goal, a.Rate.Effective(), "")
+		a.ShownEffective = s.shownRate(pr, a.Target, a.Rate.Effective(), "")
 	}
+	pr.rate = &a.Rate
+	s.prove(a, pr, full)
 	if len(a.Rates) > 0 {
 		a.Note = fmt.Sprintf("the cash flows change sign, so %d rates make the balance equal the target", len(roots))
 	}
