@@ -1,44 +1,10 @@
 package plan
 
 import (
-	"os"
-	"path/filepath"
 	"testing"
-)
 
-// The searches' walk and the ledger are one walk (schedule.walk), with and
-// without recording; this checks they agree to the cent on every goal of
-// every example file, month by month, so that a later change cannot make
-// them drift apart.
-func TestWalkAgreesWithLedger(t *testing.T) {
-	files, _ := filepath.Glob("../examples/*.yaml")
-	if len(files) == 0 {
-		t.Fatal("no example files")
-	}
-	for _, f := range files {
-		data, err := os.ReadFile(f)
-		if err != nil {
-			t.Fatal(err)
-		}
-		p, err := Parse(f, data, 0)
-		if err != nil {
-			t.Fatal(err)
-		}
-		for _, g := range p.Goals {
-			end := Horizon(p, g)
-			s := compile(p, g, end)
-			pr := s.defaultParams()
-			ends := make([]float64, end-p.Start+1)
-			s.runFloat(pr, floatOpts{only: -1, monthEnds: ends})
-			l := s.ledger(pr)
-			for m := p.Start; m <= end; m++ {
-				if got, want := ends[m-p.Start], l.BalanceAt(m).Float(); got != want {
-					t.Fatalf("%s %s: walk %v, ledger %v at %s", f, g.Name, got, want, m)
-				}
-			}
-		}
-	}
-}
+	"cairn/plan/internal/engine"
+)
 
 // The float path allocates a fixed amount per walk, never per period: a
 // 40-year walk allocates no more than a 4-year one.
@@ -52,7 +18,7 @@ func TestWalkAllocations(t *testing.T) {
 	allocs := func(years int) float64 {
 		s := compile(p, g, p.Start.Add(years*12-1))
 		pr := s.defaultParams()
-		return testing.AllocsPerRun(20, func() { s.runFloat(pr, floatOpts{only: -1}) })
+		return testing.AllocsPerRun(20, func() { s.exact(pr, engine.Options{}) })
 	}
 	short, long := allocs(4), allocs(40)
 	if long > short {

@@ -57,19 +57,20 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		uniform[i] = true
 		first[i] = -1
 	}
-	for _, e := range s.events {
-		if e.src < 0 {
+	for i := range s.events {
+		e := &s.events[i]
+		if !flowOf(e, e.Src) {
 			continue
 		}
-		if first[e.src] < 0 {
-			first[e.src] = e.tick
-			units[e.src] = e.unit
+		if first[e.Src] < 0 {
+			first[e.Src] = e.Tick
+			units[e.Src] = e.Unit
 		}
-		last[e.src] = e.tick
-		if e.unit != units[e.src] {
-			uniform[e.src] = false
+		last[e.Src] = e.Tick
+		if e.Unit != units[e.Src] {
+			uniform[e.Src] = false
 		}
-		counts[e.src]++
+		counts[e.Src]++
 	}
 	counts[0] = 1
 	// One rate over the whole horizon and no fee: factors describe the flows.
@@ -85,8 +86,8 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	}
 	lastCredit := (s.endTick / s.period) * s.period
 	onCredits := func(i int) bool { // every flow of source i lies on an interest date
-		for _, e := range s.events {
-			if e.src == int32(i) && e.tick%s.period != 0 {
+		for k := range s.events {
+			if e := &s.events[k]; flowOf(e, int32(i)) && e.Tick%s.period != 0 {
 				return false
 			}
 		}
@@ -112,7 +113,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 				prv = &q
 			}
 		}
-		v := s.runFloat(prv, floatOpts{only: int32(i)}).closing
+		v := s.smooth(prv, true, int32(i))
 		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding)}
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"

@@ -5,6 +5,7 @@ import (
 	"sync"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 )
 
 // An EntryKind is the kind of a ledger movement.
@@ -47,37 +48,33 @@ type Ledger struct {
 	Opening money.Amount
 	Closing money.Amount
 
-	places   int
-	raw      []rawEntry
-	monthEnd []int64 // closing balance of each month, in minor units
-	short    Month   // first month with a shortfall, 0 if none
-	once     sync.Once
-	entries  []Entry
-}
-
-// A rawEntry is an Entry with its amounts in minor units; the ledger keeps
-// these and makes Entries of them only when they are asked for.
-type rawEntry struct {
-	tick                   int64
-	month                  Month
-	kind                   EntryKind
-	source                 string
-	amount, balance, short int64
+	places  int
+	log     engine.Log // every movement and month end, in minor units
+	sources []source   // what each flow's source is
+	short   Month      // first month with a shortfall, 0 if none
+	once    sync.Once
+	entries []Entry
 }
 
 // Entries returns every movement, in order: the opening balance (if any),
 // then each deposit, withdrawal, one-time amount, interest credit and fee.
 func (l *Ledger) Entries() []Entry {
 	l.once.Do(func() {
-		l.entries = make([]Entry, 0, len(l.raw)+1)
+		l.entries = make([]Entry, 0, len(l.log.Posts)+1)
 		if !l.Opening.IsZero() {
 			l.entries = append(l.entries, Entry{Month: l.Start, Kind: Opening, Source: "opening balance", Amount: l.Opening, Balance: l.Opening})
 		}
-		for _, r := range l.raw {
-			e := Entry{Tick: r.tick, Month: r.month, Kind: r.kind, Source: r.source,
-				Amount: money.Minor(r.amount, l.places), Balance: money.Minor(r.balance, l.places)}
-			if r.short != 0 {
-				e.Short = money.Minor(r.short, l.places)
+		for _, r := range l.log.Posts {
+			e := Entry{Tick: r.Tick, Month: l.Start + Month(r.Month), Kind: Interest,
+				Amount: money.Minor(r.Amount, l.places), Balance: money.Minor(r.Balance, l.places)}
+			switch r.Kind {
+			case engine.PostFee:
+				e.Kind = Fee
+			case engine.PostFlow:
+				e.Kind, e.Source = l.sources[r.Src].kind, l.sources[r.Src].name
+			}
+			if r.Short != 0 {
+				e.Short = money.Minor(r.Short, l.places)
 			}
 			l.entries = append(l.entries, e)
 		}
@@ -94,7 +91,7 @@ func (l *Ledger) BalanceAt(m Month) money.Amount {
 	if m > l.End {
 		m = l.End
 	}
-	return money.Minor(l.monthEnd[m-l.Start], l.places)
+	return money.Minor(l.log.MonthEnd[m-l.Start], l.places)
 }
 
 // FirstShort returns the first month in which a withdrawal could not be paid
@@ -116,15 +113,15 @@ func Project(p *Plan, g *Goal, end Month) (*Ledger, error) {
 // ledger walks the schedule, recording every movement.
 func (s *schedule) ledger(pr *params) *Ledger {
 	p, g := s.plan, s.goal
-	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, places: s.places}
+	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, places: s.places, sources: s.sources}
 	l.Opening = pr.amounts[0].Round(s.places, s.rounding)
-	l.monthEnd = make([]int64, s.end-p.Start+1)
-	l.raw = make([]rawEntry, 0, len(s.events))
-	r := s.walk(pr, s.rates(pr), nil, l)
-	if r.shortTick >= 0 {
-		l.short = r.shortMonth
+	l.log.MonthEnd = make([]int64, s.end-p.Start+1)
+	l.log.Posts = make([]engine.Post, 0, s.eng.MaxPosts())
+	r := s.exact(pr, engine.Options{Log: &l.log})
+	if r.Short {
+		l.short = p.Start + Month(r.ShortMonth)
 	}
-	l.Closing = money.Minor(l.monthEnd[len(l.monthEnd)-1], s.places)
+	l.Closing = money.Minor(l.log.MonthEnd[len(l.log.MonthEnd)-1], s.places)
 	return l
 }
 

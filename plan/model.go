@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 )
 
 // A Plan is a household's goals as read from one goals file.
@@ -22,6 +23,8 @@ type Plan struct {
 	// the one [Plan.WithScenario] applied to this copy, or "".
 	Scenarios []*Scenario
 	Applied   string
+
+	cache *engine.Cache // its schedules by shape (see checkBounds); nil: none kept
 }
 
 // Goal returns the goal with the given name (see sameName), or nil.

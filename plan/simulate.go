@@ -5,14 +5,11 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
-	"runtime"
 	"slices"
-	"strconv"
-	"strings"
-	"sync"
-	"sync/atomic"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
+	"cairn/plan/internal/par"
 )
 
 // Simulation limits and defaults.
@@ -264,7 +261,7 @@ func simulate(p *Plan, g *Goal, opts SimOptions, pr *params, rawOut **simRaw) (*
 		pr = s.defaultParams()
 	}
 	pg := newSimProgram(s, st, true)
-	raw := pg.runAll(st, pg.minor(pr))
+	raw := pg.runAll(st, pr.amountsF)
 	if rawOut != nil {
 		*rawOut = raw
 	}
@@ -282,7 +279,7 @@ func simulate(p *Plan, g *Goal, opts SimOptions, pr *params, rawOut **simRaw) (*
 		sim.FixedBalance = s.ledger(pr).BalanceAt(g.By)
 	}
 	sim.Rows = make([]SimRow, len(pg.rows))
-	inParallel(len(pg.rows), func(i int) {
+	par.Each(len(pg.rows), func(i int) {
 		m := pg.rows[i]
 		sim.Rows[i] = SimRow{Month: m, YearEnd: m.Calendar() == 12, IsDeadline: g.HasBy && m == g.By, Last: m == end,
 			P: percentilesOf(raw.rows[i], amount)}
@@ -392,26 +389,12 @@ func selectNth(xs []float64, k int) {
 	slices.Sort(xs[lo : hi+1])
 }
 
-// A simEvent is one event of the schedule, laid out for the simulation
-// walk.
-type simEvent struct {
-	kind     eventKind
-	out      bool // a flow out
-	deadline bool // a mark: the deadline month
-	src      int32
-	k        int32 // interest: the period ending; other events: the period they accrue to
-	row      int32 // a mark: the row it records, −1 for none
-	month    int32 // month index from the start
-	ia, ib   int32 // flows: inflation factor e[ia]/e[ib] (0 and 0: none)
-	tau      float64
-	unit     float64
-}
-
-// A simProgram is a compiled schedule prepared for many paths: the events,
-// each interest period's deterministic rate and the months it covers.
+// A simProgram is a compiled schedule prepared for many paths: each
+// interest period's deterministic rate and the months it covers, the rows
+// recorded and the target.
 type simProgram struct {
 	s        *schedule
-	events   []simEvent
+	in       engine.Inputs // the walk's inputs; Amounts is set per walk
 	months   int
 	periods  int
 	jdet     []float64 // deterministic periodic rate of each interest period
@@ -424,45 +407,41 @@ type simProgram struct {
 	si, ci float64 // inflation likewise
 	noInfl bool    // no inflation noise
 
-	fee      float64
-	between  Between
 	scale    float64
-	rule     money.Rounding
 	rows     []Month
 	firstOut int32 // month index of the first flow out, −1 if none
 	lastOut  int32 // and of the last
 
-	deadline  int32   // month index of the deadline, −1 if none
-	targetF   float64 // target at the deadline, at fixed inflation
-	targetIdx int32   // inflation factor index the target scales by (0: none)
+	hasDeadline bool
+	deadline    int32   // month index of the deadline
+	targetF     float64 // target at the deadline, at fixed inflation
+	targetIdx   int32   // inflation factor index the target scales by (0: none)
 }
 
 // newSimProgram lays schedule s out for the walk; with rows set it records
 // the December closes, the deadline and the last month.
 func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 	p, g := s.plan, s.goal
-	pg := &simProgram{s: s, months: int(s.end-p.Start) + 1, fee: g.Fee / 12, between: g.Between,
-		scale: math.Pow(10, float64(s.places)), rule: s.rounding, firstOut: -1, deadline: -1}
+	pg := &simProgram{s: s, in: s.inputs(s.defaultParams()), months: int(s.end-p.Start) + 1, scale: s.scale(), firstOut: -1}
 	pg.sr, pg.cr = st.vol/math.Sqrt(12), -st.vol*st.vol/24
 	pg.si, pg.ci = st.ivol/math.Sqrt(12), -st.ivol*st.ivol/24
 	pg.noInfl = st.ivol == 0
 	if g.HasBy && g.By <= s.end {
-		pg.deadline = int32(g.By - p.Start)
+		pg.hasDeadline, pg.deadline = true, int32(g.By-p.Start)
 		pg.targetF = pg.toMinor(p.TargetAt(g))
 		if g.TargetToday {
 			pg.targetIdx = int32(g.By-p.Start) + 1
 		}
 	}
 	// interest periods: the credited ones and the one left open at the end
-	n := int(s.endTick / s.period)
-	pg.periods = n + 1
+	pg.periods = s.eng.Periods()
 	pg.jdet = make([]float64, pg.periods)
 	pg.ldet = make([]float64, pg.periods)
 	pg.segStart = make([]int32, pg.periods+1)
 	for k := 0; k < pg.periods; k++ {
 		a := int64(k) * s.period
 		b := min(a+s.period, s.endTick)
-		j := s.steps[stepOf(p, g, a)].PerPeriod(s.comp)
+		j := pg.in.Rates[s.eng.StepAt(a)]
 		pg.jdet[k], pg.ldet[k] = j, math.Log1p(j)
 		pg.segStart[k] = int32(len(pg.segMonth))
 		for t := a; t < b; {
@@ -474,102 +453,52 @@ func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 		}
 	}
 	pg.segStart[pg.periods] = int32(len(pg.segMonth))
-	// rows
-	rowOf := map[Month]int32{}
 	if rows {
 		for m := p.Start; m <= s.end; m++ {
 			if m.Calendar() == 12 || m == s.end || (g.HasBy && m == g.By) {
-				rowOf[m] = int32(len(pg.rows))
 				pg.rows = append(pg.rows, m)
 			}
 		}
 	}
-	pg.events = make([]simEvent, 0, len(s.events))
-	for _, e := range s.events {
-		se := simEvent{kind: e.kind, src: e.src, row: -1, month: int32(e.month - p.Start), tau: e.tau, unit: e.unit}
-		switch e.kind {
-		case evInterest:
-			se.k = int32(e.tick/s.period) - 1
-		case evCredit:
-		case evMark:
-			if r, ok := rowOf[e.month]; ok {
-				se.row = r
+	for i := range s.events {
+		if e := &s.events[i]; flowOf(e, e.Src) && s.out[e.Src] {
+			if pg.firstOut < 0 {
+				pg.firstOut = e.Month
 			}
-			se.deadline = int32(e.month-p.Start) == pg.deadline
-			if se.row < 0 && !se.deadline {
-				continue // a month end nothing records
-			}
-		case evFee, evFlowEnd, evFlowBegin:
-			se.k = int32(e.tick / s.period)
-		default:
-			panic(fmt.Sprintf("simulate: event kind %d is not walked", e.kind))
+			pg.lastOut = max(pg.lastOut, e.Month)
 		}
-		if e.kind == evFlowEnd || e.kind == evFlowBegin {
-			src := &s.sources[e.src]
-			se.out = src.out
-			if src.out {
-				if pg.firstOut < 0 {
-					pg.firstOut = se.month
-				}
-				pg.lastOut = max(pg.lastOut, se.month)
-			}
-			if st := src.stream; st != nil && (st.Today || st.GrowInflation) {
-				P := TicksPerYear / int64(st.Every.PerYear())
-				ps := e.tick
-				if e.kind == evFlowEnd {
-					ps -= P
-				}
-				from := int32(st.From - p.Start)
-				anniv := from + 12*int32((ps-monthTick(p, st.From))/TicksPerYear)
-				switch {
-				case st.GrowInflation && st.Today:
-					se.ia = anniv
-				case st.GrowInflation:
-					se.ia, se.ib = anniv, from
-				default:
-					se.ia = from
-				}
-			}
-		}
-		pg.events = append(pg.events, se)
 	}
 	return pg
 }
 
-// stepOf returns the rate step in force at tick (the one of its month).
-func stepOf(p *Plan, g *Goal, tick int64) int {
-	m := p.Start + Month(tick/TicksPerMonth)
-	k := 0
-	for i, st := range g.Rates {
-		if st.From <= m {
-			k = i
-		}
-	}
-	return k
-}
-
-// simLanes is how many paths one walk advances together: their balances
-// are independent chains of arithmetic, so a processor overlaps them.
+// simLanes is how many paths a worker draws before it walks them: a group
+// whose walks share the schedule while it is in cache.
 const simLanes = 4
 
 // A simWorker holds one goroutine's generators and buffers for simLanes
-// paths; nothing in it grows with the number of paths. Per-period and
-// per-month values are interleaved by lane: lane l of period k is at
-// k·simLanes + l.
+// paths; nothing in it grows with the number of paths. Lane l holds one
+// path's draws.
 type simWorker struct {
 	srcR, srcI rand.ChaCha8
 	rngR, rngI *rand.Rand
-	n          []float64 // each month's log-return noise, for the lane being drawn
-	j, l       []float64 // each period's realised rate and its log
-	e          []float64 // inflation noise factor at the start of each month
+	n          []float64              // each month's log-return noise, for the lane being drawn
+	j, l       [simLanes][]float64    // each period's realised rate and its log
+	e          [simLanes][]float64    // inflation noise factor at the start of each month
+	paths      [simLanes]engine.Paths // the lanes' draws, as the walk reads them
 }
 
 func (pg *simProgram) newWorker() *simWorker {
-	w := &simWorker{n: make([]float64, pg.months), j: make([]float64, pg.periods*simLanes),
-		l: make([]float64, pg.periods*simLanes), e: make([]float64, (pg.months+1)*simLanes)}
+	w := &simWorker{n: make([]float64, pg.months)}
 	w.rngR, w.rngI = rand.New(&w.srcR), rand.New(&w.srcI)
-	for i := range w.e {
-		w.e[i] = 1 // no inflation noise unless draw sets it
+	for l := range simLanes {
+		w.j[l], w.l[l], w.e[l] = make([]float64, pg.periods), make([]float64, pg.periods), make([]float64, pg.months+1)
+		for i := range w.e[l] {
+			w.e[l][i] = 1 // no inflation noise unless draw sets it
+		}
+		w.paths[l] = engine.Paths{J: w.j[l], L: w.l[l], W: make([]float64, len(pg.s.events))}
+		if !pg.noInfl {
+			w.paths[l].Infl = w.e[l]
+		}
 	}
 	return w
 }
@@ -608,9 +537,10 @@ func (pg *simProgram) draw(w *simWorker, seed uint64, path, lane int) {
 			gr = expm1(noise)
 		}
 		j := pg.jdet[k]
-		w.j[k*simLanes+lane] = j + (1+j)*gr
-		w.l[k*simLanes+lane] = pg.ldet[k] + noise
+		w.j[lane][k] = j + (1+j)*gr
+		w.l[lane][k] = pg.ldet[k] + noise
 	}
+	pg.s.eng.Weights(&w.paths[lane], &pg.in)
 	if pg.noInfl {
 		return
 	}
@@ -618,7 +548,7 @@ func (pg *simProgram) draw(w *simWorker, seed uint64, path, lane int) {
 	x := 0.0
 	for m := 0; m < pg.months; m++ {
 		x += pg.si*w.rngI.NormFloat64() + pg.ci
-		w.e[(m+1)*simLanes+lane] = 1 + expm1(x)
+		w.e[lane][m+1] = 1 + expm1(x)
 	}
 }
 
@@ -654,203 +584,56 @@ func expm1(x float64) float64 {
 	return x + float64(x2*q)
 }
 
-// A pathOut receives one walk's results for one path.
-type pathOut struct {
-	path     int
-	deadline float64
-	short    int32
-}
-
-// walk runs simLanes paths over the program with source amounts amounts
-// (in minor units: cents), at the realised rates in w, with the ledger's
-// arithmetic ([schedule.walk]): balances are whole minor units (exact
-// integers in float64, to 2⁵³ of them), every posting is rounded once to
-// the minor unit by the plan's rule, accrued interest is carried unrounded
-// to its monthly credit, and withdrawals are clamped to the balance. Only
-// the periodic rate differs: each period's own, per path. rows, when not
-// nil, receives the balance at each row's month: rows[r][path].
-func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, o *[simLanes]pathOut) {
-	const L = simLanes
-	js, ls, es := w.j, w.l, w.e
-	rule, accrue := pg.rule, pg.s.accrue
-	b, fee := pg.between, pg.fee
-	var bal, base, acc, accrued [L]float64
-	open := money.RoundMinor(amounts[0], rule)
-	for l := range L {
-		bal[l], base[l], o[l].short = open, open, -1
-	}
-	for i := range pg.events {
-		e := &pg.events[i]
-		k := int(e.k) * L
-		switch e.kind {
-		case evInterest:
-			j := js[k : k+L : k+L]
-			if accrue {
-				for l := range L {
-					accrued[l] += base[l]*j[l] + acc[l]
-					base[l], acc[l] = bal[l]+accrued[l], 0
-				}
-				continue
-			}
-			for l := range L {
-				in := money.RoundMinor(base[l]*j[l]+acc[l], rule)
-				bal[l] += in
-				base[l], acc[l] = bal[l], 0
-			}
-		case evCredit:
-			for l := range L {
-				in := money.RoundMinor(accrued[l], rule)
-				bal[l] += in
-				accrued[l] -= in
-			}
-		case evFee:
-			j, lj := js[k:k+L:k+L], ls[k:k+L:k+L]
-			for l := range L {
-				if bal[l] > 0 {
-					f := money.RoundMinor(bal[l]*fee, rule)
-					bal[l] -= f
-					a := j[l]
-					if e.tau != 1 {
-						a = accrual(b, a, lj[l], e.tau, true)
-					}
-					acc[l] -= f * a
-				}
-			}
-		case evMark:
-			for l := range L {
-				if e.row >= 0 && rows != nil {
-					rows[e.row][o[l].path] = bal[l]
-				}
-				if e.deadline {
-					o[l].deadline = bal[l]
-				}
-			}
-		case evFlowEnd, evFlowBegin:
-			j, lj := js[k:k+L:k+L], ls[k:k+L:k+L]
-			x0 := amounts[e.src] * e.unit
-			ia, ib := int(e.ia)*L, int(e.ib)*L
-			for l := range L {
-				x := x0
-				if ia != 0 || ib != 0 {
-					x = x * es[ia+l] / es[ib+l]
-				}
-				x = money.RoundMinor(x, rule)
-				if e.out {
-					x = -math.Abs(x)
-					if -x > bal[l] {
-						if o[l].short < 0 {
-							o[l].short = e.month
-						}
-						x = -math.Max(bal[l], 0)
-					}
-				}
-				bal[l] += x
-				a := j[l]
-				if e.tau != 1 {
-					a = accrual(b, a, lj[l], e.tau, x < 0)
-				}
-				acc[l] += x * a
-			}
-		}
+// walk runs the paths drawn into w, paths[l] on lane l, with source
+// amounts amounts: the engine's exact walk, as the ledger's, with each
+// interest period's own rate. rows, when not nil, receives the balance at
+// each recorded month: rows[m][path].
+func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, paths *[simLanes]int, res *[simLanes]engine.Result) {
+	in := pg.in
+	in.Amounts = amounts
+	o := engine.Options{Mode: engine.Exact, Rows: rows, HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
+	for l := range simLanes {
+		o.Paths, o.Path = &w.paths[l], paths[l]
+		res[l] = engine.Walk(pg.s.eng, &in, &o)
 	}
 }
 
-// value returns the value at the deadline of source src alone on lane of
-// w: its flows unrounded and unclamped, as [schedule.runFloat] values one
-// source. The deposit solver uses it for its first guess.
-func (pg *simProgram) value(w *simWorker, src int32, lane int) float64 {
-	const L = simLanes
-	js, ls, es := w.j, w.l, w.e
-	b, fee, accrue := pg.between, pg.fee, pg.s.accrue
-	var bal, base, acc, accrued, at float64
-	for i := range pg.events {
-		e := &pg.events[i]
-		k := int(e.k)*L + lane
-		switch e.kind {
-		case evInterest:
-			if accrue {
-				accrued += base*js[k] + acc
-				base, acc = bal+accrued, 0
-				continue
-			}
-			bal += base*js[k] + acc
-			base, acc = bal, 0
-		case evCredit:
-			bal += accrued
-			accrued = 0
-		case evFee:
-			f := bal * fee
-			bal -= f
-			acc -= f * accrual(b, js[k], ls[k], e.tau, true)
-		case evMark:
-			if e.deadline {
-				at = bal
-			}
-		case evFlowEnd, evFlowBegin:
-			if e.src != src {
-				continue
-			}
-			x := e.unit
-			if e.ia != 0 || e.ib != 0 {
-				x = x * es[int(e.ia)*L+lane] / es[int(e.ib)*L+lane]
-			}
-			if e.out {
-				x = -math.Abs(x)
-			}
-			bal += x
-			acc += x * accrual(b, js[k], ls[k], e.tau, x < 0)
-		}
+// values returns, per lane of w, the value at the deadline of one unit of
+// source src alone: its flows unrounded and unclamped (the engine's smooth
+// walk), as the equation of value values one source. The deposit solver
+// uses it for its first guess.
+func (pg *simProgram) values(w *simWorker, src int32) [simLanes]float64 {
+	in := pg.in
+	in.Amounts = make([]float64, len(pg.in.Amounts))
+	in.Amounts[src] = 1
+	o := engine.Options{Mode: engine.Smooth, One: true, Source: src, HasDeadline: true, Deadline: pg.deadline}
+	var v [simLanes]float64
+	for l := range simLanes {
+		o.Paths = &w.paths[l]
+		v[l] = engine.Walk(pg.s.eng, &in, &o).AtDeadline
 	}
-	return at
+	return v
 }
 
-// parallel draws every path, simLanes at a time spread over GOMAXPROCS
-// workers, and calls fn with each group: paths[l] is lane l's path. A last
+// parallel draws every path, simLanes at a time spread over the worker
+// pool, and calls fn with each group: paths[l] is lane l's path. A last
 // group with fewer paths repeats its last one. fn must write only to its
 // paths' slots.
 func (pg *simProgram) parallel(st simSetup, fn func(w *simWorker, paths *[simLanes]int)) {
 	const chunk = 64 // paths a worker takes at a time, a multiple of simLanes
-	workers := min(runtime.GOMAXPROCS(0), (st.paths+chunk-1)/chunk)
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			w := pg.newWorker()
-			var paths [simLanes]int
-			for {
-				c := int(next.Add(1) - 1)
-				if c*chunk >= st.paths {
-					return
+	par.For((st.paths+chunk-1)/chunk, func() func(int) {
+		w := pg.newWorker()
+		var paths [simLanes]int
+		return func(c int) {
+			for g := c * chunk; g < min((c+1)*chunk, st.paths); g += simLanes {
+				for l := range simLanes {
+					paths[l] = min(g+l, st.paths-1)
+					pg.draw(w, st.seed, paths[l], l)
 				}
-				for g := c * chunk; g < min((c+1)*chunk, st.paths); g += simLanes {
-					for l := range simLanes {
-						paths[l] = min(g+l, st.paths-1)
-						pg.draw(w, st.seed, paths[l], l)
-					}
-					fn(w, &paths)
-				}
+				fn(w, &paths)
 			}
-		}()
-	}
-	wg.Wait()
-}
-
-// inParallel calls fn(i) for i in [0, n) on GOMAXPROCS goroutines.
-func inParallel(n int, fn func(i int)) {
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), n) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := int(next.Add(1) - 1); i < n; i = int(next.Add(1) - 1) {
-				fn(i)
-			}
-		}()
-	}
-	wg.Wait()
+		}
+	})
 }
 
 // targetOf returns the target of lane's path: the target at fixed
@@ -859,27 +642,29 @@ func (pg *simProgram) targetOf(w *simWorker, lane int) float64 {
 	if pg.targetIdx == 0 || pg.noInfl {
 		return pg.targetF
 	}
-	return money.RoundMinor(pg.targetF*w.e[int(pg.targetIdx)*simLanes+lane], pg.rule)
+	return money.RoundMinor(pg.targetF*w.e[lane][pg.targetIdx], pg.in.Rounding)
 }
 
 // runAll simulates every path with the given source amounts.
 func (pg *simProgram) runAll(st simSetup, amounts []float64) *simRaw {
 	raw := &simRaw{deadline: make([]float64, st.paths), short: make([]int32, st.paths), rows: make([][]float64, len(pg.rows))}
-	for r := range raw.rows {
+	byMonth := make([][]float64, pg.months)
+	for r, m := range pg.rows {
 		raw.rows[r] = make([]float64, st.paths)
+		byMonth[m-pg.s.plan.Start] = raw.rows[r]
 	}
 	varies := pg.targetIdx != 0 && !pg.noInfl
 	if varies {
 		raw.target = make([]float64, st.paths)
 	}
 	pg.parallel(st, func(w *simWorker, paths *[simLanes]int) {
-		var o [simLanes]pathOut
+		var res [simLanes]engine.Result
+		pg.walk(w, amounts, byMonth, paths, &res)
 		for l, i := range paths {
-			o[l].path = i
-		}
-		pg.walk(w, amounts, raw.rows, &o)
-		for l, i := range paths {
-			raw.deadline[i], raw.short[i] = o[l].deadline, o[l].short
+			raw.deadline[i], raw.short[i] = res[l].AtDeadline, -1
+			if res[l].Short {
+				raw.short[i] = res[l].ShortMonth
+			}
 			if varies {
 				raw.target[i] = pg.targetOf(w, l)
 			}
@@ -894,16 +679,6 @@ func (pg *simProgram) meets(bal, target float64) bool { return bal >= target-0.5
 // toMinor returns a in minor units (cents), exactly for an amount in them.
 func (pg *simProgram) toMinor(a money.Amount) float64 {
 	return a.MinorFloat(pg.s.places)
-}
-
-// minor returns the source amounts of pr in minor units, scaled as the
-// ledger's walk scales them (before the unit multipliers).
-func (pg *simProgram) minor(pr *params) []float64 {
-	out := make([]float64, len(pr.amountsF))
-	for i, a := range pr.amountsF {
-		out[i] = a * pg.scale
-	}
-	return out
 }
 
 // amount returns x minor units as an amount rounded to them.
@@ -925,180 +700,4 @@ func (pg *simProgram) successes(raw *simRaw) int {
 		}
 	}
 	return n
-}
-
-// A SimDeposit is the deposit per period that meets a goal's target by its
-// deadline in a given share of simulated paths.
-type SimDeposit struct {
-	Stream *Stream
-	Level  float64 // the share of paths asked for
-	// Amount is the smallest amount per period (in the currency's minor
-	// unit) at which at least Level of the paths meet the target; Success
-	// is the share at Amount. Below is one minor unit less and
-	// BelowSuccess its share, which is under Level, on the same random
-	// numbers; HasBelow is false when Amount is zero.
-	Amount       money.Amount
-	FirstAmount  money.Amount // Amount in money of the stream's first date, at fixed inflation
-	Success      float64
-	SuccessPaths int
-	HasBelow     bool
-	Below        money.Amount
-	BelowSuccess float64
-	BelowPaths   int
-	// Sim is the simulation of the goal with the stream at Amount.
-	Sim *Simulation
-}
-
-// SolveDeposit finds the smallest deposit per period of the goal's deposit
-// stream named stream ("" for the first) such that at least a share level
-// (0.9 for 90%) of the simulated paths meet the target by the deadline.
-// Every candidate amount is tried on the same random numbers (the same
-// seed and paths), so the share succeeding rises with the amount; the
-// answer meets level and one minor unit less does not. It returns a
-// [*SolveError] when no amount up to the limit does.
-func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOptions) (*SimDeposit, error) {
-	if !(level > 0 && level <= 1) {
-		return nil, fmt.Errorf("success level %s is out of range (want more than 0%% and at most 100%%)", money.Percent(level, 4))
-	}
-	st, err := resolveSim(p, g, opts)
-	if err != nil {
-		return nil, err
-	}
-	if err := needTarget(g, true); err != nil {
-		return nil, err
-	}
-	dep := g.Stream(stream, false)
-	if dep == nil {
-		if stream != "" {
-			return nil, noSolution(g, "the goal has no deposit stream named %q", stream)
-		}
-		return nil, noSolution(g, "the goal has no deposits to solve for (add deposits:)")
-	}
-	s := compile(p, g, g.By)
-	idx := s.sourceIndex(dep)
-	pg := newSimProgram(s, st, false)
-	pr := s.defaultParams()
-	need := int(math.Ceil(level*float64(st.paths) - 1e-9))
-	target := make([]float64, st.paths)
-
-	// A first guess from each path's balance without the stream and the
-	// value of one unit of it: the amount path i needs is
-	// (target − balance)/value, and the answer is near the need-th
-	// smallest.
-	perPath := make([]float64, st.paths)
-	zero := pg.minor(pr)
-	zero[idx] = 0
-	var anyValue atomic.Bool
-	pg.parallel(st, func(w *simWorker, paths *[simLanes]int) {
-		var o [simLanes]pathOut
-		pg.walk(w, zero, nil, &o)
-		for l, i := range paths {
-			target[i] = pg.targetOf(w, l)
-			v := pg.value(w, idx, l)
-			switch {
-			case pg.meets(o[l].deadline, target[i]):
-				perPath[i] = 0
-			case v > 0:
-				perPath[i] = (target[i] - o[l].deadline) / v
-			default:
-				perPath[i] = math.Inf(1)
-			}
-			if v > 0 {
-				anyValue.Store(true)
-			}
-		}
-	})
-	if !anyValue.Load() {
-		return nil, noSolution(g, "the stream has no deposits on or before the deadline")
-	}
-	sorted := slices.Clone(perPath)
-	slices.Sort(sorted)
-	limit := int64(MaxAmountUnits) * int64(pg.scale)
-	guess := limit
-	if x := sorted[need-1]; x < float64(limit) {
-		guess = int64(math.Ceil(x))
-	}
-
-	// The exact share on the same random numbers.
-	amounts := pg.minor(pr)
-	shareAt := func(c int64) int {
-		amounts[idx] = float64(c) / pg.scale * pg.scale // as the ledger scales an amount set in cents
-		var hits atomic.Int64
-		pg.parallel(st, func(w *simWorker, paths *[simLanes]int) {
-			var o [simLanes]pathOut
-			pg.walk(w, amounts, nil, &o)
-			n := 0
-			for l, i := range paths {
-				if (l == 0 || i != paths[l-1]) && pg.meets(o[l].deadline, target[i]) {
-					n++
-				}
-			}
-			hits.Add(int64(n))
-		})
-		return int(hits.Load())
-	}
-	counts := map[int64]int{}
-	ok := func(c int64) bool {
-		n, seen := counts[c]
-		if !seen {
-			n = shareAt(c)
-			counts[c] = n
-		}
-		return n >= need
-	}
-	c, found := searchCents(ok, guess, limit, true)
-	if !found {
-		return nil, noSolution(g, "no amount up to the %s limit meets the target in %s of the paths", amountLimit, money.Percent(level, 2))
-	}
-	ok(c)
-	unitAmt := money.Minor(1, s.places)
-	ans := &SimDeposit{Stream: dep, Level: level, Amount: unitAmt.MulInt(int64(c)), SuccessPaths: counts[c]}
-	ans.Success = float64(ans.SuccessPaths) / float64(st.paths)
-	if c > 0 {
-		ok(c - 1)
-		ans.HasBelow, ans.Below, ans.BelowPaths = true, unitAmt.MulInt(int64(c-1)), counts[c-1]
-		ans.BelowSuccess = float64(ans.BelowPaths) / float64(st.paths)
-	}
-	ans.FirstAmount = ans.Amount
-	for _, e := range s.events {
-		if e.src == idx {
-			ans.FirstAmount = ans.Amount.MulFloat(e.unit).Round(s.places, s.rounding)
-			break
-		}
-	}
-	// the simulation at the answer, over the whole horizon
-	full := compile(p, g, Horizon(p, g))
-	fpr := full.defaultParams()
-	fi := full.sourceIndex(dep)
-	fpr.amounts[fi], fpr.amountsF[fi] = ans.Amount, ans.Amount.Float()
-	if ans.Sim, err = simulate(p, g, opts, fpr, nil); err != nil {
-		return nil, err
-	}
-	return ans, nil
-}
-
-// ParsePercent parses a percentage written with a percent sign, "12%" or
-// "12.5 %", and returns it as a fraction (0.12).
-func ParsePercent(s string) (float64, error) {
-	t := strings.TrimSpace(s)
-	num, ok := strings.CutSuffix(t, "%")
-	num = strings.TrimSpace(num)
-	x, err := strconv.ParseFloat(num, 64)
-	if !ok || err != nil || num == "" || strings.ContainsAny(num, "eExXpP_") || math.IsNaN(x) || math.IsInf(x, 0) {
-		return 0, fmt.Errorf("invalid percentage %q (want a number and a percent sign, such as 12%%)", s)
-	}
-	return x / 100, nil
-}
-
-// ParseVolatility parses a volatility a year, "15%", within 0% and
-// [MaxVolatilityPercent].
-func ParseVolatility(s string) (float64, error) {
-	x, err := ParsePercent(s)
-	if err != nil {
-		return 0, err
-	}
-	if x < 0 || x > MaxVolatilityPercent/100.0 {
-		return 0, fmt.Errorf("volatility %q is out of range (want 0%% to %d%% a year)", s, MaxVolatilityPercent)
-	}
-	return x, nil
 }

@@ -324,8 +324,9 @@ func TestSimulate_LumpSumClosedForm(t *testing.T) {
 			sim, raw := simRun(t, p, g, SimOptions{Paths: n, Seed: 20270101, Volatility: fptr(tt.vol)})
 			// ln(1 + r) summed over the years, by the rate in force each year
 			logGrowth := 0.0
+			sch := compile(p, g, by)
 			for m := p.Start; m <= by; m++ {
-				logGrowth += g.Rates[stepOf(p, g, monthTick(p, m))].Rate.Force() / 12
+				logGrowth += g.Rates[sch.eng.StepAt(monthTick(p, m))].Rate.Force() / 12
 			}
 			T := float64(tt.years)
 			d := lognormal{mu: math.Log(tt.balance) + logGrowth - tt.vol*tt.vol*T/2, s: tt.vol * math.Sqrt(T)}

@@ -2,11 +2,10 @@ package plan
 
 import (
 	"fmt"
-	"runtime"
-	"sync"
-	"sync/atomic"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
+	"cairn/plan/internal/par"
 )
 
 // A Cell is one what-if of a grid: the values tried (one per axis) and the
@@ -52,33 +51,29 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 	errs := make([]error, total)
 	// Cells are independent: solve them on every core, each worker taking
 	// the next cell; the grid's order does not depend on the schedule.
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), total) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for c := int(next.Add(1) - 1); c < total; c = int(next.Add(1) - 1) {
-				rem := c
-				cell := Cell{Values: make([]string, len(axes))}
-				ovs := make([]Override, len(axes))
-				for i := len(axes) - 1; i >= 0; i-- {
-					v := axes[i].Values[rem%len(axes[i].Values)]
-					rem /= len(axes[i].Values)
-					cell.Values[i] = v
-					ovs[i] = Override{Key: axes[i].Key, Value: v}
-				}
-				q2, g2, err := p.With(goal, stream, ovs)
-				if err != nil {
-					errs[c] = err
-					continue
-				}
-				cell.Answer, cell.Err = solve(q2, g2, q, false)
-				gr.Cells[c] = cell
-			}
-		}()
-	}
-	wg.Wait()
+	// Every cell's plan is cloned from the grid's own, so the cells share
+	// one schedule cache: a cell whose shape another cell compiled reuses
+	// it.
+	cached := *p
+	cached.cache = new(engine.Cache)
+	par.Each(total, func(c int) {
+		rem := c
+		cell := Cell{Values: make([]string, len(axes))}
+		ovs := make([]Override, len(axes))
+		for i := len(axes) - 1; i >= 0; i-- {
+			v := axes[i].Values[rem%len(axes[i].Values)]
+			rem /= len(axes[i].Values)
+			cell.Values[i] = v
+			ovs[i] = Override{Key: axes[i].Key, Value: v}
+		}
+		q2, g2, err := cached.With(goal, stream, ovs)
+		if err != nil {
+			errs[c] = err
+			return
+		}
+		cell.Answer, cell.Err = solve(q2, g2, q, false)
+		gr.Cells[c] = cell
+	})
 	for _, err := range errs {
 		if err != nil {
 			return nil, err

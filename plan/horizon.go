@@ -1,0 +1,26 @@
+package plan
+
+// Horizon returns the last month a projection of goal g shows: the later of
+// its deadline, the last month of its bounded streams and one-time amounts;
+// for a goal with none of these, 30 years from the start.
+func Horizon(p *Plan, g *Goal) Month {
+	var m Month
+	if g.HasBy {
+		m = g.By
+	}
+	for _, s := range append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...) {
+		if s.HasUntil {
+			m = max(m, s.Until)
+		}
+	}
+	for _, o := range g.Once {
+		m = max(m, o.On)
+	}
+	if _, finite := lastWithdrawal(p, g); !finite && len(g.Withdrawals) > 0 {
+		m = horizonEnd(p)
+	}
+	if m == 0 {
+		m = p.Start.Add(30*12 - 1)
+	}
+	return m
+}

@@ -1,0 +1,82 @@
+package engine
+
+import (
+	"encoding/binary"
+	"math"
+	"reflect"
+	"sync"
+)
+
+// A Cache holds compiled schedules by their shape, for a caller that
+// compiles the same shape many times (a what-if grid, a household's status,
+// a search over horizons). It is safe for concurrent use; the zero value is
+// ready, and a nil *Cache compiles every time.
+type Cache struct {
+	mu sync.Mutex
+	m  map[string]*Schedule
+}
+
+// maxCached bounds a cache: past it, the cache starts afresh.
+const maxCached = 256
+
+// Key returns the cache key of shape sh: every field of it, encoded in
+// order by reflection (see appendKey), so a field added to [Shape] is in
+// the key without a change here.
+func Key(sh *Shape) string {
+	return string(appendKey(make([]byte, 0, 256), reflect.ValueOf(sh).Elem()))
+}
+
+// appendKey appends the exact value of v: integers and float bits as 8
+// bytes, booleans as one, slices as their length and elements, structs
+// field by field. A kind it does not know panics, in the test that
+// covers every field, before a shape holding one could be cached.
+func appendKey(b []byte, v reflect.Value) []byte {
+	switch v.Kind() {
+	case reflect.Int, reflect.Int8, reflect.Int16, reflect.Int32, reflect.Int64:
+		return binary.LittleEndian.AppendUint64(b, uint64(v.Int()))
+	case reflect.Uint, reflect.Uint8, reflect.Uint16, reflect.Uint32, reflect.Uint64:
+		return binary.LittleEndian.AppendUint64(b, v.Uint())
+	case reflect.Float32, reflect.Float64:
+		return binary.LittleEndian.AppendUint64(b, math.Float64bits(v.Float()))
+	case reflect.Bool:
+		if v.Bool() {
+			return append(b, 1)
+		}
+		return append(b, 0)
+	case reflect.Slice:
+		b = binary.LittleEndian.AppendUint64(b, uint64(v.Len()))
+		for i := range v.Len() {
+			b = appendKey(b, v.Index(i))
+		}
+		return b
+	case reflect.Struct:
+		for i := range v.NumField() {
+			b = appendKey(b, v.Field(i))
+		}
+		return b
+	}
+	panic("engine: a shape field of kind " + v.Kind().String() + " has no key encoding")
+}
+
+// Compile returns the schedule of shape sh, compiling it unless the cache
+// holds it.
+func (c *Cache) Compile(sh *Shape) *Schedule {
+	if c == nil {
+		return Compile(sh)
+	}
+	k := Key(sh)
+	c.mu.Lock()
+	s, ok := c.m[k]
+	c.mu.Unlock()
+	if ok {
+		return s
+	}
+	s = Compile(sh)
+	c.mu.Lock()
+	if c.m == nil || len(c.m) >= maxCached {
+		c.m = map[string]*Schedule{}
+	}
+	c.m[k] = s
+	c.mu.Unlock()
+	return s
+}

@@ -1,0 +1,445 @@
+package engine
+
+import (
+	"math"
+	"sync/atomic"
+
+	"cairn/money"
+)
+
+// walks counts the walks made since the process started: the measure of a
+// solver's work that the walk-budget tests hold (see [Walks]).
+var walks atomic.Int64
+
+// Walks returns how many walks have been made since the process started.
+func Walks() int64 { return walks.Load() }
+
+// Between says what money arriving or leaving between two interest dates
+// earns until the next one (see plan.Between).
+type Between uint8
+
+const (
+	Compound Between = iota // (1+j)^τ − 1
+	Simple                  // j·τ
+	None                    // nothing in; money out forgoes the period's interest
+)
+
+// Inputs are what a walk reads besides the schedule: everything a solver
+// may vary without compiling again.
+type Inputs struct {
+	Rates   []float64 // periodic rate of each rate step
+	Amounts []float64 // each source's amount, in currency units (before Event.Unit)
+	Out     []bool    // each source: money out (made negative; clamped to the balance when exact)
+	Fee     float64   // fraction of the balance taken each month
+	// RateM and FeeM are Rates and Fee with their exact forms, which an
+	// exact walk reads only to settle a product lying near a half unit
+	// (see [money.RoundProduct]); RateM[k].Float() is Rates[k].
+	RateM    []money.Multiplier
+	FeeM     money.Multiplier
+	Between  Between
+	Places   int            // decimal places of the minor unit
+	Rounding money.Rounding // rule for every rounding to the minor unit
+}
+
+// A Mode is the arithmetic of a walk.
+type Mode uint8
+
+const (
+	// Exact keeps every balance and posting as a whole number of minor
+	// units (exact integers in float64, to 2⁵³ of them): each interest
+	// credit, fee and amount is computed in float64 and rounded once to
+	// the minor unit, a product lying near a half unit settled in exact
+	// arithmetic so that a tie goes by the rule (see roundPosting);
+	// interest accrued between monthly credits is carried unrounded; a
+	// withdrawal larger than the balance is paid in part and the rest is
+	// short. Results are in minor units.
+	Exact Mode = iota
+	// Smooth keeps the balance in currency units, unrounded and unclamped:
+	// a smooth function of the rate for root finding, and linear in every
+	// amount, so one source can be valued alone. Results are in currency
+	// units.
+	Smooth
+)
+
+// Paths gives each interest period its own realised rate, as a
+// simulation draws them for one path: J[k] is period k's periodic rate and
+// L[k] = ln(1 + J[k]).
+type Paths struct {
+	J, L []float64
+	// W[i] is what one unit of event i (a flow or a fee) earns by its
+	// credit at its period's realised rate: [Weights] of the path.
+	W []float64
+	// Infl, when set, is the inflation index at the start of each month
+	// by which amounts indexed to inflation are scaled.
+	Infl []float64
+}
+
+// Options select what a walk does beyond advancing the balance.
+type Options struct {
+	Mode Mode
+	// One values source Source alone (its flows only, from a zero balance
+	// unless it is the opening balance); otherwise every source counts.
+	One    bool
+	Source int32
+	// Paths, when set, gives each interest period its own rate instead of
+	// Inputs.Rates.
+	Paths *Paths
+	// Log, when set (exact), receives every posting and month end; its
+	// Posts must have room for MaxPosts more.
+	Log *Log
+	// MonthEnds, when set, receives the balance at each month end, in
+	// currency units.
+	MonthEnds []float64
+	// Reach, when set, is asked at every month end with the balance in
+	// currency units; the walk stops at the first month it accepts.
+	Reach func(month int32, bal float64) bool
+	// Rows, when set, records the balance at chosen month ends: Rows[m],
+	// when not nil, receives it at Rows[m][Path].
+	Rows [][]float64
+	Path int
+	// HasDeadline records the balance at the end of month Deadline in
+	// Result.AtDeadline.
+	HasDeadline bool
+	Deadline    int32
+}
+
+// A Result is what a walk reports, in the walk's units (see [Mode]).
+type Result struct {
+	Closing    float64
+	Peak       float64 // the largest balance at a month end (at least 0)
+	Short      bool    // a withdrawal was short (exact mode)
+	ShortTick  int64   // the first short withdrawal's tick and month
+	ShortMonth int32
+	Reached    bool // Options.Reach accepted ReachMonth
+	ReachMonth int32
+	AtDeadline float64
+}
+
+// A PostKind is what a posting of a [Log] is.
+type PostKind uint8
+
+const (
+	PostInterest PostKind = iota
+	PostFee
+	PostFlow // an amount of source Post.Src
+)
+
+// A Post is one movement, in minor units.
+type Post struct {
+	Tick                   int64
+	Month                  int32
+	Kind                   PostKind
+	Src                    int32
+	Amount, Balance, Short int64
+}
+
+// A Log records an exact walk: every movement, and the balance at each
+// month end (MonthEnd must hold one per month).
+type Log struct {
+	Posts    []Post
+	MonthEnd []int64
+}
+
+// weights returns, for every rate step k and distinct tau i, what one unit
+// arriving (at 2(k·nt + i)) or leaving (the next) earns by the credit:
+// accrual's values, computed once per walk instead of once per event.
+func (s *Schedule) weights(js []float64, b Between) []float64 {
+	nt := len(s.taus)
+	w := make([]float64, 2*len(js)*nt)
+	for k, j := range js {
+		l := math.Log1p(j)
+		for i, tau := range s.taus {
+			w[2*(k*nt+i)] = Accrual(b, j, l, tau, false)
+			w[2*(k*nt+i)+1] = Accrual(b, j, l, tau, true)
+		}
+	}
+	return w
+}
+
+// Accrual returns what one unit arriving (out false) or leaving (out true)
+// with a fraction tau of an interest period left earns by the period's
+// credit at periodic rate j, whose log l = ln(1 + j) the caller knows, under
+// rule b.
+func Accrual(b Between, j, l, tau float64, out bool) float64 {
+	if tau == 1 {
+		return j
+	}
+	switch b {
+	case Simple:
+		return j * tau
+	case None:
+		if out {
+			return j
+		}
+		return 0
+	}
+	return math.Expm1(tau * l)
+}
+
+// The walk's rounding points. Each posting is a product x × m (+ plus),
+// computed in float64. The walk rounds it to the minor unit itself when the
+// float lies clearly off a half unit ([money.RoundFast], inlined: no call),
+// and otherwise calls roundPosting (interest, fees) or roundAmount (the
+// opening balance, a flow's amount times its growth), which settle it by
+// [money.RoundProduct] from the factor's exact form, so that a product
+// exactly halfway goes by the rule and not by float noise. A credit of
+// interest accrued at several compounding dates, a sum of irrational
+// terms, is never exactly halfway and is rounded from its float sum
+// (roundMinor).
+
+// roundPosting returns x × m + plus, a product near a half unit, rounded
+// to the minor unit under r.
+func roundPosting(x float64, m money.Multiplier, plus float64, r money.Rounding) float64 {
+	return money.RoundProduct(x, m, plus, r)
+}
+
+// roundAmount returns x × m, a product near a half unit, rounded to the
+// minor unit under r.
+func roundAmount(x float64, m money.Multiplier, r money.Rounding) float64 {
+	return money.RoundProduct(x, m, 0, r)
+}
+
+// rateOf returns the exact form of periodic rate j of rate step k: the
+// input's, when j is that step's rate (a simulated path's rate may be
+// another), else the float alone.
+func rateOf(in *Inputs, k int32, j float64) money.Multiplier {
+	if int(k) < len(in.RateM) && in.RateM[k].Float() == j {
+		return in.RateM[k]
+	}
+	return money.FloatMultiplier(j)
+}
+
+// unitOf returns the exact form of flow event e's unit: a whole number of
+// years' growth at the source's decimal rate, when it is one.
+func (s *Schedule) unitOf(e *Event) money.Multiplier {
+	if g := s.grow[e.Src]; !math.IsNaN(g) {
+		return money.GrowthMultiplier(e.Unit, g, int(e.Year))
+	}
+	return money.FloatMultiplier(e.Unit)
+}
+
+// roundMinor is [money.RoundMinor] in a form the compiler inlines, so that
+// the walk makes no call for it: the same value for every x (the zero of
+// −0 has a plus sign, which no sum or comparison sees). Below 2⁵² in
+// size, adding and taking away 2⁵² rounds the size to an integer, ties to
+// even, by the processor's own rounding, and a tie rounded down goes up
+// for half-up; from 2⁵² on every float64 is an integer.
+func roundMinor(x float64, r money.Rounding) float64 {
+	if a := math.Abs(x); a < 1<<52 { // else an integer already, or not a number
+		t := (a + 1<<52) - 1<<52
+		if a-t == 0.5 && r == money.HalfUp { // a tie rounded down, which goes up
+			t++
+		}
+		if x < 0 {
+			return -t
+		}
+		return t
+	}
+	return x
+}
+
+// Walk advances schedule s through its events: the one walk of cairn's
+// model. The ledger, every search, the equation of value and each path of
+// the simulation are this walk with different options.
+//
+// Loop-invariant settings are read through in and o where they are used,
+// which leaves the registers to the balances.
+func Walk(s *Schedule, in *Inputs, o *Options) Result {
+	walks.Add(1)
+	var bal, base, acc, accrued, peak float64
+	res := Result{ShortTick: -1}
+	var scale float64 = 1 // minor units per currency unit (exact)
+	if o.Mode == Exact {
+		scale = math.Pow(10, float64(in.Places))
+	}
+	var w []float64 // what a unit earns by the credit: see weight
+	if o.Paths == nil {
+		w = s.weights(in.Rates, in.Between)
+	}
+	if !o.One || o.Source == 0 {
+		bal = in.Amounts[0] * scale
+		if o.Mode == Exact {
+			if q, sure := money.RoundFast(bal); sure {
+				bal = q
+			} else {
+				bal = roundAmount(bal, money.One, in.Rounding)
+			}
+		}
+		base = bal
+	}
+	var j float64 // the rate of the interest period
+	for i := range s.events {
+		e := &s.events[i]
+		switch e.Kind {
+		case Interest:
+			for c := range e.Count { // each interest date of the run
+				if p := o.Paths; p != nil {
+					j = p.J[e.Period+c]
+				} else {
+					j = in.Rates[e.Step]
+				}
+				x := base*j + acc
+				if s.accrue {
+					accrued += x
+					base, acc = bal+accrued, 0
+					continue
+				}
+				if o.Mode == Exact {
+					if q, sure := money.RoundFast(x); sure {
+						x = q
+					} else {
+						x = roundPosting(base, rateOf(in, e.Step, j), acc, in.Rounding)
+					}
+				}
+				bal += x
+				base, acc = bal, 0
+				if o.Log != nil && x != 0 {
+					t := e.Tick + int64(c)*s.period
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0)
+				}
+			}
+		case Credit:
+			x := accrued
+			if o.Mode == Exact {
+				x = roundMinor(x, in.Rounding)
+			}
+			bal += x
+			accrued -= x
+			if o.Log != nil && x != 0 {
+				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0)
+			}
+		case Fee:
+			f := bal * in.Fee
+			if o.Mode == Exact {
+				if bal <= 0 {
+					continue
+				}
+				if q, sure := money.RoundFast(f); sure {
+					f = q
+				} else {
+					f = roundPosting(bal, in.FeeM, 0, in.Rounding)
+				}
+				if f == 0 {
+					continue
+				}
+			}
+			bal -= f
+			if e.Tau == 1 { // a whole period's interest: part of the next base
+				base -= f
+			} else if p := o.Paths; p == nil {
+				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
+			} else {
+				acc -= f * p.W[i]
+			}
+			if o.Log != nil {
+				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0)
+			}
+		case Mark:
+			peak = max(peak, bal)
+			m := e.Month
+			if o.Log != nil {
+				o.Log.MonthEnd[m] = int64(bal)
+			}
+			if o.MonthEnds != nil {
+				o.MonthEnds[m] = bal / scale
+			}
+			if o.Rows != nil {
+				if row := o.Rows[m]; row != nil {
+					row[o.Path] = bal
+				}
+			}
+			if o.HasDeadline && m == o.Deadline {
+				res.AtDeadline = bal
+			}
+			if o.Reach != nil && o.Reach(m, bal/scale) {
+				res.Reached, res.ReachMonth = true, m
+				res.Closing, res.Peak = bal, peak
+				return res
+			}
+		case FlowEnd, FlowBegin:
+			if o.One && e.Src != o.Source {
+				continue
+			}
+			a := in.Amounts[e.Src] * scale
+			x := a * e.Unit
+			p := o.Paths
+			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
+				x = x * p.Infl[e.IA] / p.Infl[e.IB]
+				if o.Mode == Exact {
+					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
+				}
+			} else if o.Mode == Exact {
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
+			}
+			var short float64
+			if in.Out[e.Src] {
+				x = -math.Abs(x)
+				if o.Mode == Exact && -x > bal {
+					if !res.Short {
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+					}
+					paid := max(bal, 0)
+					short, x = -x-paid, -paid
+				}
+			}
+			bal += x
+			if e.Tau == 1 { // a whole period's interest: part of the next base
+				base += x
+			} else if p == nil {
+				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+				if x < 0 {
+					i++
+				}
+				acc += x * w[i]
+			} else {
+				acc += x * p.W[i]
+			}
+			if o.Log != nil {
+				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short)
+			}
+		}
+	}
+	res.Closing, res.Peak = bal, peak
+	return res
+}
+
+// Weights fills p.W for schedule s under rule b and the out flags of in:
+// what one unit of each flow or fee earns by its credit at the realised
+// rate of its period, J and L.
+func (s *Schedule) Weights(p *Paths, in *Inputs) {
+	for i := range s.events {
+		e := &s.events[i]
+		switch e.Kind {
+		case Fee, FlowEnd, FlowBegin:
+			k := e.Period
+			if e.Tau == 1 {
+				p.W[i] = p.J[k]
+			} else {
+				p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
+			}
+		}
+	}
+}
+
+// post records one movement.
+// The log must have room for it (see MaxPosts): the walk makes no call to
+// grow it.
+func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short float64) {
+	n := len(g.Posts)
+	g.Posts = g.Posts[:n+1]
+	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x), Balance: int64(bal), Short: int64(short)}
+}
+
+// MaxPosts returns the most movements a walk of s can post: a [Log] with
+// room for them grows no more during the walk.
+func (s *Schedule) MaxPosts() int {
+	n := len(s.events) // each event posts once, but a run of interest dates once a date
+	if !s.accrue {
+		n += int(s.endTick / s.period)
+	}
+	return n
+}

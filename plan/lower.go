@@ -1,0 +1,207 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+
+	"cairn/money"
+	"cairn/plan/internal/engine"
+)
+
+// TicksPerYear is the number of ticks in a year of the plan's time grid: the
+// least common multiple of every frequency's count a year (365, 52, 26, 24,
+// 12, 6, 4, 2, 1), so that every event of every frequency sits exactly on a
+// tick.
+const TicksPerYear = engine.TicksPerYear
+
+// TicksPerMonth is the number of ticks in a month (a twelfth of a year).
+const TicksPerMonth = engine.TicksPerMonth
+
+func monthTick(p *Plan, m Month) int64 { return int64(m-p.Start) * TicksPerMonth }
+
+// This file is the only reader of a Goal for the engine: shapeOf turns a goal
+// into the engine's Shape (what the events depend on), and inputs into the
+// engine's Inputs (what a walk reads: amounts, rates, the fee, the between
+// rule, the rounding).
+
+// A source is one group of flows: the opening balance, a stream, a one-time
+// amount.
+type source struct {
+	kind   EntryKind
+	name   string
+	base   money.Amount // the amount the unit multipliers scale
+	stream *Stream
+	out    bool
+}
+
+// A schedule is a goal compiled onto the tick grid up to a horizon, bound to
+// the plan and goal it was lowered from.
+type schedule struct {
+	plan     *Plan
+	goal     *Goal
+	end      Month // last month, inclusive
+	eng      *engine.Schedule
+	events   []engine.Event // in order (engine.Schedule.Events)
+	endTick  int64
+	period   int64           // ticks per compounding period
+	comp     money.Frequency // compounding frequency
+	steps    []money.Rate    // rate per step (from goal.Rates)
+	sources  []source
+	out      []bool // each source's out, as the engine reads it
+	places   int
+	rounding money.Rounding
+}
+
+// streams returns goal g's streams in source order: deposits, then
+// withdrawals.
+func streams(g *Goal) []*Stream {
+	return append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...)
+}
+
+// shapeOf returns the shape of goal g through the end of month end.
+func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
+	sh := engine.Shape{Months: int32(end-p.Start) + 1, PerYear: g.Rates[0].Rate.Compounding().PerYear(), Fee: g.Fee > 0}
+	for _, st := range g.Rates {
+		sh.StepFrom = append(sh.StepFrom, int32(st.From-p.Start))
+	}
+	for _, st := range streams(g) {
+		first := 1.0
+		if st.Today {
+			first = 1 + p.Inflation.Over(float64(st.From-p.Start)/12)
+		}
+		ss := engine.StreamShape{PerYear: st.Every.PerYear(), Begin: st.Timing == Begin, From: int32(st.From - p.Start),
+			HasUntil: st.HasUntil, First: first, Grow: st.growth(p.Inflation), Today: st.Today, GrowInflation: st.GrowInflation}
+		if st.HasUntil {
+			ss.Until = int32(st.Until - p.Start)
+		}
+		sh.Streams = append(sh.Streams, ss)
+	}
+	for _, o := range g.Once {
+		sh.Once = append(sh.Once, int32(o.On-p.Start))
+	}
+	return sh
+}
+
+// compile returns the schedule of goal g through the end of month end,
+// from the plan's schedule cache (see [Plan.checkBounds]), or compiled
+// afresh for a plan without one.
+func compile(p *Plan, g *Goal, end Month) *schedule {
+	sh := shapeOf(p, g, end)
+	es := p.cache.Compile(&sh)
+	s := &schedule{plan: p, goal: g, end: end, eng: es, events: es.Events(), endTick: es.EndTick(), period: es.PeriodTicks(),
+		comp: g.Rates[0].Rate.Compounding(), places: p.Currency.Places, rounding: p.Rounding}
+	for _, st := range g.Rates {
+		s.steps = append(s.steps, st.Rate)
+	}
+	s.sources = sourcesOf(g)
+	s.out = make([]bool, len(s.sources))
+	for i, src := range s.sources {
+		s.out[i] = src.out
+	}
+	return s
+}
+
+// sourcesOf lists goal g's flow sources in schedule order: the opening
+// balance, deposits, withdrawals, one-time amounts.
+func sourcesOf(g *Goal) []source {
+	out := []source{{kind: Opening, name: "opening balance", base: g.Balance}}
+	for _, st := range streams(g) {
+		kind := Deposit
+		if st.Out {
+			kind = Withdrawal
+		}
+		out = append(out, source{kind: kind, name: st.Name, base: st.Amount, stream: st, out: st.Out})
+	}
+	for _, o := range g.Once {
+		name := o.Name
+		if name == "" {
+			name = "one-time " + o.On.String()
+		}
+		out = append(out, source{kind: OneTime, name: name, base: o.Amount, out: o.Amount.Sign() < 0})
+	}
+	return out
+}
+
+// params are the quantities a solver varies without recompiling.
+type params struct {
+	rate     *money.Rate // constant rate for every period, if set
+	amounts  []money.Amount
+	amountsF []float64
+}
+
+func (s *schedule) defaultParams() *params {
+	pr := &params{amounts: make([]money.Amount, len(s.sources)), amountsF: make([]float64, len(s.sources))}
+	for i, src := range s.sources {
+		pr.amounts[i] = src.base
+		pr.amountsF[i] = src.base.Float()
+	}
+	return pr
+}
+
+// inputs returns what a walk of s reads under pr.
+func (s *schedule) inputs(pr *params) engine.Inputs {
+	fee := s.goal.Fee / 12
+	js, ms := make([]float64, len(s.steps)), make([]money.Multiplier, len(s.steps))
+	for i, r := range s.steps {
+		if pr.rate != nil {
+			r = *pr.rate
+		}
+		ms[i] = r.PeriodMultiplier(s.comp) // exact when rational (see engine.Inputs)
+		js[i] = ms[i].Float()
+	}
+	return engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
+		Fee: fee, FeeM: money.RateMultiplier(fee, s.goal.Fee, 12, 1),
+		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding}
+}
+
+// scale is the number of minor units in a currency unit.
+func (s *schedule) scale() float64 { return math.Pow(10, float64(s.places)) }
+
+// exact walks s under pr in whole minor units (see [engine.Exact]); its
+// result is in minor units.
+func (s *schedule) exact(pr *params, o engine.Options) engine.Result {
+	in := s.inputs(pr)
+	o.Mode = engine.Exact
+	return engine.Walk(s.eng, &in, &o)
+}
+
+// smooth returns the closing balance of s under pr, unrounded and
+// unclamped (see [engine.Smooth]): of every source, or of source src alone
+// when one is set.
+func (s *schedule) smooth(pr *params, one bool, src int32) float64 {
+	in := s.inputs(pr)
+	o := engine.Options{Mode: engine.Smooth, One: one, Source: src}
+	return engine.Walk(s.eng, &in, &o).Closing
+}
+
+// closing returns the exact closing balance of s under pr, without a ledger.
+func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
+	r := s.exact(pr, engine.Options{})
+	return money.Minor(int64(r.Closing), s.places), r
+}
+
+// checkBounds reports an error if goal g's target or projected balance
+// would pass [MaxBalanceUnits], beyond which cairn does not promise cents.
+// It runs on every plan read (Parse) and every what-if (With) before the
+// plan is handed out, so it is where a plan gets its schedule cache: the
+// plan owns it, and its clones share it.
+func (p *Plan) checkBounds(g *Goal) error {
+	if p.cache == nil {
+		p.cache = new(engine.Cache)
+	}
+	limit := money.Units(MaxBalanceUnits)
+	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {
+		return fmt.Errorf("goal %s: the target grown to the deadline passes the limit of %s", money.Quote(g.Name), limit.Format(p.Currency, false))
+	}
+	s := compile(p, g, Horizon(p, g))
+	r := s.exact(s.defaultParams(), engine.Options{})
+	if !(r.Peak/s.scale() <= MaxBalanceUnits) {
+		return fmt.Errorf("goal %s: the projected balance passes the limit of %s; check its amounts and rates", money.Quote(g.Name), limit.Format(p.Currency, false))
+	}
+	return nil
+}
+
+// flowOf reports whether e is an amount of source src.
+func flowOf(e *engine.Event, src int32) bool {
+	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin) && e.Src == src
+}
