@@ -11,11 +11,11 @@ import (
 func TestPrefixIsTheShorterCompile(t *testing.T) {
 	shapes := map[string]Shape{
 		"daily, fortnightly at the end, a one-time amount": {PerYear: 365,
-			Streams: []StreamShape{{PerYear: 26, First: 1}}, Once: []int32{3, 40}},
+			Streams: []StreamShape{{PerYear: 26, First: 1}}, Once: []int32{3, 40}, OnceOut: []bool{false, true}},
 		"monthly, a fee, two rate steps, growing start-of-month amounts until month 50": {PerYear: 12, Fee: true,
 			StepFrom: []int32{0, 24}, Streams: []StreamShape{{PerYear: 12, Begin: true, Until: 50, HasUntil: true, First: 1, Grow: 0.03}}},
 		"quarterly, weekly deposits from month 5, yearly withdrawals from month 30": {PerYear: 4,
-			StepFrom: []int32{0}, Streams: []StreamShape{{PerYear: 52, From: 5, First: 1}, {PerYear: 1, From: 30, Begin: true, First: 1.1, Today: true}}},
+			StepFrom: []int32{0}, Streams: []StreamShape{{PerYear: 52, From: 5, First: 1}, {PerYear: 1, From: 30, Begin: true, Out: true, First: 1.1, Today: true}}},
 		"yearly compounding, two-monthly amounts": {PerYear: 1, Streams: []StreamShape{{PerYear: 6, First: 1, Grow: -0.01}}},
 	}
 	for name, sh := range shapes {
