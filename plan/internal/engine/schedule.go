@@ -351,11 +351,57 @@ func eventOrder(a, b Event) int {
 	return cmp.Compare(a.Src, b.Src)
 }
 
-// mergeRuns merges runs, each already in event order, into one.
+// mergeRuns merges runs, each already in event order, into one: a merge
+// of all of them at once through a heap of the runs' next events, so that
+// each event is copied once whatever the number of runs (merging 50
+// streams one after another copied the first stream's events 50 times).
+// A single non-empty run is returned as it is; two are merged directly.
 func mergeRuns(runs [][]Event) []Event {
-	var out []Event
+	runs = slices.DeleteFunc(slices.Clone(runs), func(r []Event) bool { return len(r) == 0 })
+	switch len(runs) {
+	case 0:
+		return nil
+	case 1:
+		return runs[0]
+	case 2:
+		return merge(runs[0], runs[1])
+	}
+	n := 0
 	for _, r := range runs {
-		out = merge(out, r)
+		n += len(r)
+	}
+	out := make([]Event, 0, n)
+	// h is a binary min-heap of the runs by their next event; a run is
+	// dropped from it when it is used up
+	h := make([][]Event, len(runs))
+	copy(h, runs)
+	less := func(i, j int) bool { return before(&h[i][0], &h[j][0]) }
+	down := func(i int) {
+		for {
+			m, l, r := i, 2*i+1, 2*i+2
+			if l < len(h) && less(l, m) {
+				m = l
+			}
+			if r < len(h) && less(r, m) {
+				m = r
+			}
+			if m == i {
+				return
+			}
+			h[i], h[m] = h[m], h[i]
+			i = m
+		}
+	}
+	for i := len(h)/2 - 1; i >= 0; i-- {
+		down(i)
+	}
+	for len(h) > 0 {
+		out = append(out, h[0][0])
+		if h[0] = h[0][1:]; len(h[0]) == 0 {
+			h[0] = h[len(h)-1]
+			h = h[:len(h)-1]
+		}
+		down(0)
 	}
 	return out
 }
