@@ -171,7 +171,10 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		force = p.Inflation.Force()
 	}
 	reach := func(m Month, bal float64) bool {
-		t := t0 * math.Exp(force*float64(m-p.Start+1)/12)
+		t := t0
+		if force != 0 { // a target in today's money, grown by inflation
+			t *= math.Exp(force * float64(m-p.Start+1) / 12)
+		}
 		if bal < t-1/scale {
 			return false
 		}
