@@ -77,6 +77,7 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 type decoder struct {
 	file string
 	errs ErrorList
+	prio map[*Goal]*yaml.Node // each goal's priority key, when it has one
 }
 
 func (d *decoder) errorf(n *yaml.Node, path, format string, args ...any) {
@@ -240,9 +241,9 @@ func (d *decoder) month(n *yaml.Node, path string) (Month, bool) {
 
 func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 	p := &Plan{File: d.file, Currency: money.USD, Rounding: money.HalfEven}
-	var goalsNode, startNode *yaml.Node
+	var goalsNode, startNode, budgetNode *yaml.Node
 	version := false
-	ok := d.fields(n, "", []string{"cairn", "start", "currency", "inflation", "inflation_volatility", "rounding", "goals"}, func(key string, v *yaml.Node) {
+	ok := d.fields(n, "", []string{"cairn", "start", "currency", "inflation", "inflation_volatility", "rounding", "budget", "goals"}, func(key string, v *yaml.Node) {
 		switch key {
 		case "cairn":
 			version = true
@@ -278,6 +279,8 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 			p.InflationVolatility, p.HasInflationVolatility = d.volatility(v, "inflation_volatility")
 		case "goals":
 			goalsNode = v
+		case "budget":
+			budgetNode = v
 		}
 	})
 	if !ok {
@@ -320,6 +323,17 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		names[lower(g.Name)] = i
 		p.Goals = append(p.Goals, g)
 	}
+	if budgetNode != nil {
+		limit := p.Start.Add(HorizonYears*12 - 1)
+		p.Budget = d.budget(p, budgetNode, func(v *yaml.Node, pth string, m Month) bool {
+			if m < p.Start || m > limit {
+				d.errorf(v, pth, "month %s is outside the plan (%s to %s)", m, p.Start, limit)
+				return false
+			}
+			return true
+		})
+	}
+	d.checkBudget(p, budgetNode, d.prio)
 	return p
 }
 
@@ -339,9 +353,15 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		}
 		return true
 	}
-	ok := d.fields(n, path, []string{"name", "balance", "rate", "between", "fee", "volatility", "target", "by", "deposits", "withdrawals", "once", "leave"}, func(key string, v *yaml.Node) {
+	ok := d.fields(n, path, []string{"name", "balance", "rate", "between", "fee", "volatility", "target", "by", "deposits", "withdrawals", "once", "leave", "priority"}, func(key string, v *yaml.Node) {
 		kp := join(path, key)
 		switch key {
+		case "priority":
+			g.Priority = d.priority(v, kp)
+			if d.prio == nil {
+				d.prio = map[*Goal]*yaml.Node{}
+			}
+			d.prio[g] = v
 		case "name":
 			nameSeen = true // a wrong value is its own error, not a missing name
 			if s, ok := d.name(v, kp); ok {

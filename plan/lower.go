@@ -127,6 +127,10 @@ type params struct {
 	rate     *money.Rate // constant rate for every period, if set
 	amounts  []money.Amount
 	amountsF []float64
+	// set, when not nil, gives each amount of source setSrc by its event's
+	// index (see engine.Inputs.Set).
+	set    []float64
+	setSrc int32
 }
 
 func (s *schedule) defaultParams() *params {
@@ -153,7 +157,7 @@ func (s *schedule) rates(pr *params) []float64 {
 // inputs returns what a walk of s reads under pr.
 func (s *schedule) inputs(pr *params) engine.Inputs {
 	return engine.Inputs{Rates: s.rates(pr), Amounts: pr.amountsF, Out: s.out, Fee: s.goal.Fee / 12,
-		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding}
+		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding, Set: pr.set, SetSrc: pr.setSrc}
 }
 
 // scale is the number of minor units in a currency unit.

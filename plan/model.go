@@ -21,6 +21,10 @@ type Plan struct {
 	InflationVolatility    float64
 	HasInflationVolatility bool
 
+	// Budget is what the household can set aside for the goals with a
+	// Priority, or nil.
+	Budget *Budget
+
 	cache *engine.Cache // its schedules by shape (see checkBounds); nil: none kept
 }
 
@@ -107,6 +111,9 @@ type Goal struct {
 	// a fraction; HasVolatility says the file gave it.
 	Volatility    float64
 	HasVolatility bool
+	// Priority, from 1 (first), says the goal draws on the plan's Budget;
+	// 0 says it does not.
+	Priority int
 
 	pos Position
 }

@@ -150,17 +150,16 @@ func targetAtMonth(p *Plan, g *Goal, m Month) money.Amount {
 	return p.TargetAt(&h)
 }
 
-func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
-	if err := needTarget(g, false); err != nil {
-		return nil, err
-	}
-	end := horizonEnd(p)
+// reaches returns the test of goal g's target at a month end: whether a
+// balance bal, in currency units, meets the target in money of the end of
+// month m.
+func reaches(p *Plan, g *Goal) func(m Month, bal float64) bool {
 	scale := math.Pow(10, float64(p.Currency.Places))
 	t0, force := g.Target.Float(), 0.0
 	if g.TargetToday {
 		force = p.Inflation.Force()
 	}
-	reach := func(m Month, bal float64) bool {
+	return func(m Month, bal float64) bool {
 		t := t0 * math.Exp(force*float64(m-p.Start+1)/12)
 		if bal < t-1/scale {
 			return false
@@ -168,6 +167,14 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		// near or past the target: decide exactly, in decimal
 		return money.Minor(int64(math.Round(bal*scale)), p.Currency.Places).Cmp(targetAtMonth(p, g, m)) >= 0
 	}
+}
+
+func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
+	if err := needTarget(g, false); err != nil {
+		return nil, err
+	}
+	end := horizonEnd(p)
+	reach := reaches(p, g)
 	// Most goals are reached within decades: walk a short horizon first and
 	// go to the plan's end only when the target is not met by then. A
 	// schedule compiled to a nearer end is the prefix of a longer one.

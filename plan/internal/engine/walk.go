@@ -26,6 +26,11 @@ type Inputs struct {
 	Between  Between
 	Places   int            // decimal places of the minor unit
 	Rounding money.Rounding // rule for every rounding to the minor unit
+	// Set, when not nil, gives each amount of source SetSrc itself, in
+	// currency units, by the index of its event: amounts decided date by
+	// date (a household budget's share), in place of Amounts × Unit.
+	Set    []float64
+	SetSrc int32
 }
 
 // A Mode is the arithmetic of a walk.
@@ -295,6 +300,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				continue
 			}
 			x := in.Amounts[e.Src] * scale * e.Unit
+			if in.Set != nil && e.Src == in.SetSrc {
+				x = in.Set[i] * scale
+			}
 			p := o.Paths
 			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
 				x = x * p.Infl[e.IA] / p.Infl[e.IB]
