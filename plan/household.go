@@ -159,8 +159,15 @@ func (h *household) allocate(c int64, top int, keep bool) (*Allocation, bool) {
 	meets := true
 	shares := make([]int64, n)
 	for gi, m := range h.goals {
+		stop := int32(h.end - h.p.Start)
+		if !keep { // only whether the top goals meet their deadlines
+			if gi >= top {
+				break
+			}
+			stop = int32(m.g.By - h.p.Start)
+		}
 		level, hasLevel := h.level(m, left, shares)
-		reached, month := h.fill(m, left, shares, level, hasLevel, int32(h.end-h.p.Start))
+		reached, month := h.fill(m, left, shares, level, hasLevel, stop)
 		sh := &Share{Goal: m.g, Priority: m.g.Priority, Reached: reached, Month: month}
 		if hasLevel {
 			sh.Need, sh.HasNeed = money.Minor(level, h.p.Currency.Places), true
@@ -216,10 +223,10 @@ func (h *household) level(m *member, left, shares []int64) (int64, bool) {
 			most = max(most, x)
 		}
 	}
-	if !meets(most) { // a level of the most left is everything left
+	c, ok := searchCents(meets, m.level, most, true) // a level of the most left is everything left
+	if !ok {
 		return 0, false
 	}
-	c, _ := searchCents(meets, m.level, most, true)
 	m.level = c
 	return c, true
 }

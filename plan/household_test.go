@@ -252,3 +252,23 @@ func TestSmallestBudget_Example(t *testing.T) {
 		t.Errorf("budget %s: short %d goals, one cent less short %d", all.Amount, len(all.At.Short()), len(all.Less.Short()))
 	}
 }
+
+// BenchmarkSmallestBudget10Goals40Years solves the smallest monthly budget
+// for ten goals with deadlines spread over 40 years.
+func BenchmarkSmallestBudget10Goals40Years(b *testing.B) {
+	var src strings.Builder
+	src.WriteString("cairn: 1\nstart: 2027-01\nbudget: {amount: 2000, every: month, grow: 2%}\ngoals:\n")
+	for i := range 10 {
+		fmt.Fprintf(&src, "  - {name: g%d, priority: %d, balance: %d, rate: %s, target: %d, by: %s}\n",
+			i, i+1, 1000*i, []string{"4% compounded daily", "5%", "6.5% compounded monthly"}[i%3], 20000+15000*i, plan.MonthOf(2027, 1).Add(48*(i+1)-1))
+	}
+	p, err := plan.Parse("ten.yaml", []byte(src.String()), 0)
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		if _, err := plan.SmallestBudget(p, 0); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -160,7 +160,10 @@ func reaches(p *Plan, g *Goal) func(m Month, bal float64) bool {
 		force = p.Inflation.Force()
 	}
 	return func(m Month, bal float64) bool {
-		t := t0 * math.Exp(force*float64(m-p.Start+1)/12)
+		t := t0
+		if force != 0 {
+			t *= math.Exp(force * float64(m-p.Start+1) / 12)
+		}
 		if bal < t-1/scale {
 			return false
 		}
