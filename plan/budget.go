@@ -1,10 +1,6 @@
 package plan
 
 import (
-	"fmt"
-	"strconv"
-	"strings"
-
 	"gopkg.in/yaml.v3"
 
 	"cairn/money"
@@ -36,86 +32,49 @@ var ruleNames = []string{"priority", "one-at-a-time"}
 
 func (r Rule) String() string { return ruleNames[r] }
 
-// parseRule reads a rule's name.
-func parseRule(s string) (Rule, error) {
-	switch strings.ToLower(strings.TrimSpace(s)) {
-	case "priority", "by priority":
-		return ByPriority, nil
-	case "one-at-a-time", "one at a time", "one_at_a_time":
-		return OneAtATime, nil
-	}
-	return 0, fmt.Errorf("unknown rule %s (want priority or one-at-a-time)", money.Quote(s))
-}
-
-// budget decodes the top-level budget: a stream's keys and rule.
-func (d *decoder) budget(p *Plan, n *yaml.Node, checkMonth func(*yaml.Node, string, Month) bool) *Budget {
-	n = resolve(n)
+// budget decodes the top-level budget: a stream's keys and its rule.
+func (d *decoder) budget(p *Plan, n *yaml.Node) *Budget {
 	b := &Budget{pos: d.pos(n)}
-	if n.Kind == yaml.MappingNode {
-		// rule is the budget's own key; the rest are a stream's
-		rest := *n
-		rest.Content = nil
-		for i := 0; i+1 < len(n.Content); i += 2 {
-			if n.Content[i].Value == "rule" {
-				v := resolve(n.Content[i+1])
-				if t, ok := d.scalar(v, "budget.rule", "priority or one-at-a-time"); ok {
-					r, err := parseRule(t)
-					if err != nil {
-						d.errorf(v, "budget.rule", "%v", err)
-					}
-					b.Rule = r
-				}
-				continue
-			}
-			rest.Content = append(rest.Content, n.Content[i], n.Content[i+1])
-		}
-		n = &rest
-	}
-	st := d.stream(p, n, "budget", false, checkMonth)
-	if st == nil {
+	b.Stream.From = p.Start
+	given := d.keys(n, "budget", InBudget, &target{p: p, s: &b.Stream, b: b})
+	if given == nil {
 		return nil
 	}
-	b.Stream = *st
+	if !b.Stream.growSet { // an amount in today's money rises with inflation
+		b.Stream.GrowInflation = b.Stream.Today
+	}
+	if b.Stream.HasUntil && b.Stream.Until < b.Stream.From {
+		d.errorf(given["until"], "budget.until", "month %s is before from %s", b.Stream.Until, b.Stream.From)
+		return nil
+	}
 	return b
 }
 
-// priority decodes a goal's priority: a whole number from 1.
-func (d *decoder) priority(v *yaml.Node, path string) int {
-	t, ok := d.scalar(v, path, "a whole number from 1, 1 first")
-	if !ok {
-		return 0
-	}
-	k, err := strconv.Atoi(strings.TrimSpace(t))
-	if err != nil || k < 1 || k > MaxGoals {
-		d.errorf(v, path, "invalid priority %s (want a whole number from 1 to %d, 1 first)", money.Quote(t), MaxGoals)
-		return 0
-	}
-	return k
-}
-
-// checkBudget checks the budget against the goals that draw on it.
-func (d *decoder) checkBudget(p *Plan, n *yaml.Node, prio map[*Goal]*yaml.Node) {
+// checkBudget checks the budget against the goals that draw on it: each
+// such goal has a target and its own priority, and a budget has a goal to
+// draw on it. n is the budget's node, or nil.
+func (d *decoder) checkBudget(p *Plan, n *yaml.Node) {
 	seen := map[int]*Goal{}
-	for i, g := range p.Goals {
-		v := prio[g]
-		if v == nil {
+	drawn := false
+	for _, g := range p.Goals {
+		path := join(d.goals[g], "priority")
+		v := d.nodes[path]
+		if v == nil || g.Priority == 0 {
 			continue
 		}
-		path := fmt.Sprintf("goals[%d].priority", i)
-		if p.Budget == nil {
+		drawn = true
+		switch {
+		case n == nil:
 			d.errorf(v, path, "the goal draws on a budget, but the file has none (add budget: at the top)")
-			continue
-		}
-		if !g.HasTarget {
+		case !g.HasTarget:
 			d.errorf(v, path, "a goal that draws on the budget needs a target (add target:)")
-		}
-		if h := seen[g.Priority]; h != nil && g.Priority != 0 {
-			d.errorf(v, path, "priority %d is %s's too (want each goal its own)", g.Priority, money.Quote(h.Name))
+		case seen[g.Priority] != nil:
+			d.errorf(v, path, "priority %d is %s's too (want each goal its own)", g.Priority, money.Quote(seen[g.Priority].Name))
 		}
 		seen[g.Priority] = g
 	}
-	if p.Budget != nil && len(prio) == 0 {
-		d.errorf(n, "budget", "no goal draws on the budget (give the goals that do a priority: 1 first)")
+	if n != nil && p.Budget != nil && !drawn && len(p.Goals) > 0 {
+		d.errorf(n, "budget", "no goal draws on the budget (give the goals that do a priority, 1 first)")
 	}
 }
 

@@ -322,7 +322,7 @@ func SmallestBudget(p *Plan, top int) (*BudgetAnswer, error) {
 	ok := func(c int64) bool { _, meets := h.allocate(c, top, false); return meets }
 	c, found := searchCents(ok, guess, int64(MaxAmountUnits)*int64(h.scale), true)
 	if !found {
-		return nil, &SolveError{Goal: gs[0].Name, Reason: "no budget up to the 1,000,000,000,000 limit makes every deadline (a deadline comes before the budget's first date?)"}
+		return nil, &SolveError{Goal: gs[0].Name, Reason: "no budget up to the " + amountLimit + " limit makes every deadline (a deadline comes before the budget's first date?)"}
 	}
 	ans := &BudgetAnswer{Top: top, Amount: money.Minor(c, p.Currency.Places)}
 	ans.At, _ = h.allocate(c, top, true)
