@@ -59,10 +59,13 @@ func (d *decoder) checkBudget(p *Plan, n *yaml.Node) {
 	for _, g := range p.Goals {
 		path := join(d.goals[g], "priority")
 		v := d.nodes[path]
-		if v == nil || g.Priority == 0 {
+		if v == nil {
 			continue
 		}
-		drawn = true
+		drawn = true // a priority refused is reported already
+		if g.Priority == 0 {
+			continue
+		}
 		switch {
 		case n == nil:
 			d.errorf(v, path, "the goal draws on a budget, but the file has none (add budget: at the top)")
