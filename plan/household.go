@@ -72,8 +72,19 @@ type member struct {
 	ev       []int32 // the event of each budget date in s (-1: none)
 	level    int64   // the last level found, in minor units, to start the next search from
 	reach    engine.Options
-	hit      bool  // the walk stopped because the target was reached
-	stop     int32 // month (from the start) a walk may stop at without reaching
+	hit      bool    // the walk stopped because the target was reached
+	stop     int32   // month (from the start) a walk may stop at without reaching
+	last     fillKey // the last fill of what is left now, and what it found
+	lastHit  bool
+	lastAt   Month
+}
+
+// fillKey is what a fill of what is left depends on besides it.
+type fillKey struct {
+	valid    bool
+	level    int64
+	hasLevel bool
+	stop     int32
 }
 
 // ErrNoBudget is returned by [Allocate] and [SmallestBudget] for a plan
@@ -209,6 +220,7 @@ func (h *household) allocate(c int64, top int, keep bool) (*Allocation, bool) {
 // one at a time, for a goal without a deadline, and when even everything
 // left does not make it.
 func (h *household) level(m *member, left, shares []int64) (int64, bool) {
+	m.last.valid = false // what is left has changed
 	if h.b.Rule != ByPriority || !m.g.HasBy {
 		return 0, false
 	}
@@ -237,6 +249,10 @@ func (h *household) level(m *member, left, shares []int64) (int64, bool) {
 // everything left after it; everything left throughout without a level. It
 // returns whether the target is reached, and the month.
 func (h *household) fill(m *member, left, shares []int64, level int64, hasLevel bool, stop int32) (bool, Month) {
+	key := fillKey{true, level, hasLevel, stop}
+	if m.last == key { // the search's last fill: shares hold it
+		return m.lastHit, m.lastAt
+	}
 	owed := int64(0)
 	for k, x := range left {
 		if hasLevel && h.month[k] <= m.g.By {
@@ -251,7 +267,8 @@ func (h *household) fill(m *member, left, shares []int64, level int64, hasLevel 
 	}
 	m.stop, m.hit = stop, false
 	r := m.s.exact(m.pr, m.reach)
-	return m.hit, h.p.Start + Month(r.ReachMonth)
+	m.last, m.lastHit, m.lastAt = key, m.hit, h.p.Start+Month(r.ReachMonth)
+	return m.hit, m.lastAt
 }
 
 // allocationEnd is the last month an allocation runs to: the latest
@@ -315,12 +332,31 @@ func SmallestBudget(p *Plan, top int) (*BudgetAnswer, error) {
 	if err != nil {
 		return nil, err
 	}
+	// guess: through each deadline, the budget must hold the levels the
+	// goals due by then need on their dates so far (interest aside)
 	guess := int64(0)
 	for _, m := range h.goals[:top] {
-		guess += m.level
+		need, units := 0.0, 0.0
+		for _, o := range h.goals[:top] {
+			if o.g.By <= m.g.By {
+				for k := range h.ticks {
+					if h.month[k] <= o.g.By {
+						need += float64(o.level)
+					}
+				}
+			}
+		}
+		for k, u := range h.unit {
+			if h.month[k] <= m.g.By {
+				units += u
+			}
+		}
+		if units > 0 {
+			guess = max(guess, int64(need/units))
+		}
 	}
 	ok := func(c int64) bool { _, meets := h.allocate(c, top, false); return meets }
-	c, found := searchCents(ok, guess, int64(MaxAmountUnits)*int64(h.scale), true)
+	c, found := searchCentsFrom(ok, guess, guess/32, int64(MaxAmountUnits)*int64(h.scale), true)
 	if !found {
 		return nil, &SolveError{Goal: gs[0].Name, Reason: "no budget up to the " + amountLimit + " limit makes every deadline (a deadline comes before the budget's first date?)"}
 	}

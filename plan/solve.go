@@ -309,13 +309,20 @@ func (s *schedule) sourceIndex(st *Stream) int32 {
 // holds; otherwise the largest. guess seeds the search. It returns false if
 // there is none up to limit.
 func searchCents(ok func(c int64) bool, guess, limit int64, up bool) (int64, bool) {
+	return searchCentsFrom(ok, guess, 1, limit, up)
+}
+
+// searchCentsFrom is searchCents with a first step of step minor units
+// away from the guess, doubled each time, for a guess known only roughly.
+func searchCentsFrom(ok func(c int64) bool, guess, step, limit int64, up bool) (int64, bool) {
 	guess = min(max(guess, 0), limit)
+	first := max(step, 1)
 	good := func(c int64) bool { return ok(c) == up }
 	// find lo with !good and hi with good (for up); mirrored for down
 	var lo, hi int64
 	if good(guess) {
 		hi = guess
-		step := int64(1)
+		step := first
 		lo = guess - step
 		for lo >= 0 && good(lo) {
 			hi = lo
@@ -330,7 +337,7 @@ func searchCents(ok func(c int64) bool, guess, limit int64, up bool) (int64, boo
 		}
 	} else {
 		lo = guess
-		step := int64(1)
+		step := first
 		hi = guess + step
 		for hi <= limit && !good(hi) {
 			lo = hi

@@ -21,8 +21,7 @@ func budgetCommand(e *env) *cli.Command {
 			"by year (or month, with --by month): each goal's share and what is left unallocated; and the\n" +
 			"smallest budget that makes every deadline (or those of the first --top K goals), proven by\n" +
 			"the same ledgers: one cent less misses one.\n\n" +
-			"Example:\n   cairn budget examples/budget.yaml\n   cairn budget examples/budget.yaml --by month --top 1\n" +
-			"   cairn budget examples/budget.yaml --set budget=800",
+			"Example:\n   cairn budget examples/budget.yaml\n   cairn budget examples/budget.yaml --by month --top 1",
 		Flags: append(fileFlags(true),
 			&cli.StringFlag{Name: "by", Value: "year", Usage: "rows by `PERIOD`: year or month"},
 			&cli.IntFlag{Name: "top", Usage: "the smallest budget for the deadlines of the first `K` goals in priority order (default: all)"},
