@@ -368,18 +368,26 @@ func SmallestBudget(p *Plan, top int) (*BudgetAnswer, error) {
 	return ans, nil
 }
 
-// Ledger returns the ledger of share i's goal under the allocation, its
-// budget share a deposit: the proof of when it is reached.
-func (a *Allocation) Ledger(i int) *Ledger {
-	m := a.h.goals[i]
-	pr := m.s.defaultParams()
-	pr.set, pr.setSrc = make([]float64, len(m.s.events)), 1
-	for k, x := range a.Shares[i].Amounts {
-		if e := m.ev[k]; e >= 0 {
-			pr.set[e] = float64(x) / a.h.scale
+// Ledger returns the ledger of share i's goal under the allocation through
+// the end of month end (at most the allocation's end), its budget share a
+// deposit stream: the proof of when it is reached.
+func (a *Allocation) Ledger(i int, end Month) *Ledger {
+	h, m := a.h, a.h.goals[i]
+	s := compile(h.p, m.share, max(min(end, a.End), h.p.Start))
+	pr := s.defaultParams()
+	pr.set, pr.setSrc = make([]float64, len(s.events)), 1
+	k := 0
+	for idx := range s.events {
+		if e := &s.events[idx]; flowOf(e, 1) {
+			for k < len(h.ticks) && h.ticks[k] < e.Tick {
+				k++
+			}
+			if k < len(h.ticks) && h.ticks[k] == e.Tick {
+				pr.set[idx] = float64(a.Shares[i].Amounts[k]) / h.scale
+			}
 		}
 	}
-	return m.s.ledger(pr)
+	return s.ledger(pr)
 }
 
 // A BudgetRow is the allocation over one period of a table: the budget,

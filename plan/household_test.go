@@ -65,7 +65,7 @@ goals:
 			t.Errorf("%s reached %v in %s, want %s", s.Goal.Name, s.Reached, s.Month, tt.month)
 			continue
 		}
-		got := a.Ledger(i).BalanceAt(tt.month).Float()
+		got := a.Ledger(i, tt.month).BalanceAt(tt.month).Float()
 		if math.Abs(got-tt.balance) > 0.09 {
 			t.Errorf("%s balance at %s = %.2f, want %.2f within 0.09", s.Goal.Name, tt.month, got, tt.balance)
 		}
@@ -131,7 +131,7 @@ func TestAllocate_ByPriorityReproducesSeparateAnswers(t *testing.T) {
 			}
 		}
 		if s.Month == s.Goal.By {
-			if got := a.Ledger(i).BalanceAt(s.Goal.By); got.Cmp(want.Balance) != 0 {
+			if got := a.Ledger(i, s.Goal.By).BalanceAt(s.Goal.By); got.Cmp(want.Balance) != 0 {
 				t.Errorf("%s: balance at the deadline %s, want the separate answer's %s", s.Goal.Name, got, want.Balance)
 			}
 		}

@@ -146,7 +146,7 @@ func budgetStatus(p *Plan, a *Allocation, i int, gs *GoalStatus) {
 	gs.TargetAt = g.Target
 	if g.HasBy {
 		gs.TargetAt = p.TargetAt(g)
-		gs.Projected = a.Ledger(i).BalanceAt(g.By)
+		gs.Projected = a.Ledger(i, g.By).BalanceAt(g.By)
 		gs.OnTrack = sh.Meets
 		if !gs.OnTrack {
 			gs.Short = gs.TargetAt.Sub(gs.Projected)
