@@ -565,6 +565,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		n = 1
 	}
 	var roots []float64
+	slope := math.NaN()                     // of f at roots[0], when the search found it
 	if d, ok := s.annuityRoot(target); ok { // a uniform annuity: its closed form
 		roots, n = []float64{d}, 0
 	} else if n == 1 {
@@ -585,7 +586,11 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 				if f1 == 0 {
 					roots = []float64{x1}
 				} else {
-					roots = []float64{brent(f, x0, x1, f0, f1)}
+					// within a thousandth of the target: the exact walks
+					// settle the rest by secant steps, whose error over so
+					// short a step is below a minor unit
+					r, sl := brentWithin(f, x0, x1, f0, f1, max(100/s.scale(), target.Float()/1000))
+					roots, slope = []float64{r}, sl
 				}
 				n = 0
 				break
@@ -619,62 +624,80 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
 	}
-	// The lowest root of the smooth balance is within rounding of the
-	// answer: bracket the lowest rate whose exact balance meets the target
-	// around it, then bisect.
-	meets := func(delta float64) (money.Amount, bool) {
+	// The lowest root of the smooth balance is near the answer: the exact
+	// balance differs from the smooth one by its roundings. Settle on the
+	// lowest rate whose exact balance meets the target, to within a rate
+	// step worth one minor unit of balance (tol): a rate below that does
+	// not meet it and one above that does, above − below ≤ tol. Secant steps along the exact
+	// balance close in (each aiming a quarter unit past the target), and
+	// bisection finishes once the roundings' noise stalls them.
+	meets := func(delta float64) (float64, bool) {
 		r := money.ForceRate(delta)
 		pr.rate = &r
 		bal, _ := s.closing(pr)
-		return bal, bal.Cmp(target) >= 0
+		return bal.Float(), bal.Cmp(target) >= 0
 	}
 	delta := roots[0]
-	bal, ok := meets(delta)
-	// Usually one step along the smooth balance's slope lands on the
-	// boundary: accept it when it meets and 1e-12 less does not.
-	{
+	if !(slope > 0) || math.IsInf(slope, 0) {
 		h := 1e-7
-		slope := (f(delta+h) - f(delta-h)) / (2 * h)
-		if slope > 0 {
-			d := delta + (target.Float()-bal.Float())/slope + 1e-13
-			if b, m := meets(d); m {
-				if _, m2 := meets(d - 1e-12); !m2 {
-					a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(d), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: b}
-					return finishRate(s, a, pr, roots, full), nil
-				}
-			}
-		}
+		slope = (f(delta+h) - f(delta-h)) / (2 * h)
 	}
-	lo2, hi2 := delta, delta
-	for step := 1e-9; ; step *= 8 {
-		if ok {
-			lo2 = hi2 - step
-			if _, m := meets(lo2); !m || step > 1 {
-				break
-			}
-			hi2 = lo2
+	if !(slope > 0) || math.IsInf(slope, 0) {
+		slope = 1 / s.scale() / 1e-12
+	}
+	// (and at most 1e-9, about the force one minor unit is worth on a
+	// goal of a million; a goal that hardly depends on the rate would make
+	// a minor unit worth a wide range)
+	tol := min(max(1e-12, 1/s.scale()/slope), 1e-9)
+	t := target.Float()
+	below, above := math.Inf(-1), math.Inf(1) // below does not meet the target, above does
+	hiBal := 0.0
+	x, sl := delta, slope
+	reach := tol // how far to step at least while one side is open
+	bx, meet := meets(x)
+	for range 64 {
+		if meet {
+			above, hiBal = x, bx
 		} else {
-			hi2 = lo2 + step
-			if _, ok = meets(hi2); ok || step > 1 {
-				break
-			}
-			lo2 = hi2
+			below = x
 		}
-	}
-	for range 60 {
-		if hi2-lo2 <= 1e-12 {
+		if above-below <= tol {
 			break
 		}
-		mid := lo2 + (hi2-lo2)/2
-		if _, m := meets(mid); m {
-			hi2 = mid
-		} else {
-			lo2 = mid
+		next := x + (t-bx)/sl + tol/4
+		switch {
+		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
+			next = min(next, above-reach)
+			reach *= 8
+		case math.IsInf(above, 1): // none does: step up likewise
+			next = max(next, below+reach)
+			reach *= 8
+		case !(next > below && next < above):
+			next = below + (above-below)/2
 		}
+		if next == x || math.IsNaN(next) || reach > 8 {
+			break
+		}
+		bn, m := meets(next)
+		if math.IsInf(below, -1) || math.IsInf(above, 1) {
+			// still far: the secant of the exact balance; near the target
+			// its roundings make a secant noise, and the smooth slope is
+			// the better guide
+			if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) {
+				sl = d
+			}
+		} else {
+			sl = slope
+		}
+		x, bx, meet = next, bn, m
 	}
-	delta = hi2
-	bal, _ = meets(delta)
-	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: bal}
+	if math.IsInf(above, 1) { // no rate in range meets it exactly: keep the smooth root
+		above = delta
+		hiBal, _ = meets(above)
+	}
+	bal := hiBal
+	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(above), Periods: math.NaN(), Deadline: g.By, Target: target,
+		Balance: money.Minor(int64(math.Round(bal*s.scale())), s.places)}
 	return finishRate(s, a, pr, roots, full), nil
 }
 
@@ -738,15 +761,25 @@ func anyOut(os []Once) bool {
 // brent finds a root of f in [a, b], where f(a) and f(b) differ in sign, by
 // Brent's method (inverse quadratic interpolation safeguarded by bisection).
 func brent(f func(float64) float64, a, b, fa, fb float64) float64 {
+	x, _ := brentWithin(f, a, b, fa, fb, 0)
+	return x
+}
+
+// brentWithin is [brent] stopping as soon as |f| ≤ ftol, which spares the
+// steps that only refine the root past what the caller needs. It also
+// returns the slope of f there, from the last two points (NaN when they
+// coincide).
+func brentWithin(f func(float64) float64, a, b, fa, fb, ftol float64) (float64, float64) {
 	if math.Abs(fa) < math.Abs(fb) {
 		a, b, fa, fb = b, a, fb, fa
 	}
 	c, fc := a, fa
 	d := b - a
 	mflag := true
+	slope := func() float64 { return (fb - fc) / (b - c) }
 	for it := 0; it < 200; it++ {
-		if fb == 0 || math.Abs(b-a) < 1e-13 {
-			return b
+		if fb == 0 || math.Abs(b-a) < 1e-13 || math.Abs(fb) <= ftol {
+			return b, slope()
 		}
 		var s float64
 		if fa != fc && fb != fc {
@@ -775,5 +808,5 @@ func brent(f func(float64) float64, a, b, fa, fb float64) float64 {
 			a, b, fa, fb = b, a, fb, fa
 		}
 	}
-	return b
+	return b, slope()
 }

@@ -2,9 +2,17 @@ package engine
 
 import (
 	"math"
+	"sync/atomic"
 
 	"cairn/money"
 )
+
+// walks counts the walks made since the process started: the measure of a
+// solver's work that the walk-budget tests hold (see [Walks]).
+var walks atomic.Int64
+
+// Walks returns how many walks have been made since the process started.
+func Walks() int64 { return walks.Load() }
 
 // Between says what money arriving or leaving between two interest dates
 // earns until the next one (see plan.Between).
@@ -174,26 +182,26 @@ func Accrual(b Between, j, l, tau float64, out bool) float64 {
 }
 
 // The walk's rounding points. Each posting is a product x × m (+ plus),
-// computed in float64: roundPosting rounds it to the minor unit when the
-// float lies clearly off a half unit ([money.RoundFast], inlined), and
-// otherwise settles it by [money.RoundProduct] from the factor's exact form,
-// so that a product exactly halfway goes by the rule and not by float
-// noise. roundAmount is the same for an amount: the opening balance, or a
-// flow's amount times its growth. A credit of interest accrued at several
-// compounding dates, a sum of irrational terms, is never exactly halfway
-// and is rounded from its float sum (roundMinor).
+// computed in float64. The walk rounds it to the minor unit itself when the
+// float lies clearly off a half unit ([money.RoundFast], inlined: no call),
+// and otherwise calls roundPosting (interest, fees) or roundAmount (the
+// opening balance, a flow's amount times its growth), which settle it by
+// [money.RoundProduct] from the factor's exact form, so that a product
+// exactly halfway goes by the rule and not by float noise. A credit of
+// interest accrued at several compounding dates, a sum of irrational
+// terms, is never exactly halfway and is rounded from its float sum
+// (roundMinor).
 
-// roundPosting returns p = x × m + plus rounded to the minor unit under r.
-func roundPosting(p, x float64, m money.Multiplier, plus float64, r money.Rounding) float64 {
-	if q, sure := money.RoundFast(p); sure {
-		return q
-	}
+// roundPosting returns x × m + plus, a product near a half unit, rounded
+// to the minor unit under r.
+func roundPosting(x float64, m money.Multiplier, plus float64, r money.Rounding) float64 {
 	return money.RoundProduct(x, m, plus, r)
 }
 
-// roundAmount returns p = x × m rounded to the minor unit under r.
-func roundAmount(p, x float64, m money.Multiplier, r money.Rounding) float64 {
-	return roundPosting(p, x, m, 0, r)
+// roundAmount returns x × m, a product near a half unit, rounded to the
+// minor unit under r.
+func roundAmount(x float64, m money.Multiplier, r money.Rounding) float64 {
+	return money.RoundProduct(x, m, 0, r)
 }
 
 // rateOf returns the exact form of periodic rate j of rate step k: the
@@ -242,6 +250,7 @@ func roundMinor(x float64, r money.Rounding) float64 {
 // Loop-invariant settings are read through in and o where they are used,
 // which leaves the registers to the balances.
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
+	walks.Add(1)
 	var bal, base, acc, accrued, peak float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -255,7 +264,11 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	if !o.One || o.Source == 0 {
 		bal = in.Amounts[0] * scale
 		if o.Mode == Exact {
-			bal = roundAmount(bal, bal, money.One, in.Rounding)
+			if q, sure := money.RoundFast(bal); sure {
+				bal = q
+			} else {
+				bal = roundAmount(bal, money.One, in.Rounding)
+			}
 		}
 		base = bal
 	}
@@ -277,7 +290,11 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					continue
 				}
 				if o.Mode == Exact {
-					x = roundPosting(x, base, rateOf(in, e.Step, j), acc, in.Rounding)
+					if q, sure := money.RoundFast(x); sure {
+						x = q
+					} else {
+						x = roundPosting(base, rateOf(in, e.Step, j), acc, in.Rounding)
+					}
 				}
 				bal += x
 				base, acc = bal, 0
@@ -302,7 +319,12 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				if bal <= 0 {
 					continue
 				}
-				if f = roundPosting(f, bal, in.FeeM, 0, in.Rounding); f == 0 {
+				if q, sure := money.RoundFast(f); sure {
+					f = q
+				} else {
+					f = roundPosting(bal, in.FeeM, 0, in.Rounding)
+				}
+				if f == 0 {
 					continue
 				}
 			}
@@ -355,7 +377,11 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
 			} else if o.Mode == Exact {
-				x = roundAmount(x, a, s.unitOf(e), in.Rounding)
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
 			}
 			var short float64
 			if in.Out[e.Src] {
