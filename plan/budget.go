@@ -40,6 +40,10 @@ func (d *decoder) budget(p *Plan, n *yaml.Node) *Budget {
 	if given == nil {
 		return nil
 	}
+	if b.Stream.UntilReached {
+		d.errorf(given["until"], "budget.until", "reached is for a goal's deposits: the budget runs until its goals are reached (want a month)")
+		return nil
+	}
 	if !b.Stream.growSet { // an amount in today's money rises with inflation
 		b.Stream.GrowInflation = b.Stream.Today
 	}

@@ -137,6 +137,11 @@
 //     everything goes to the first goal until it is reached, then to the
 //     next.
 //
+// A deposit stream of a goal's own with until: reached pays through the
+// month the target is first reached and stops (found by walking the goal
+// with the stream open-ended: what it would pay later cannot change that
+// month); for a goal on the budget, the month its shares reach it.
+//
 // A goal is reached at the first month end its balance meets its target;
 // from the next budget date on (a date in a later month) it gets nothing
 // and its share goes to the goals after it. What no goal takes is

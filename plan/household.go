@@ -373,7 +373,8 @@ func SmallestBudget(p *Plan, top int) (*BudgetAnswer, error) {
 // deposit stream: the proof of when it is reached.
 func (a *Allocation) Ledger(i int, end Month) *Ledger {
 	h, m := a.h, a.h.goals[i]
-	s := compile(h.p, m.share, max(min(end, a.End), h.p.Start))
+	sh := a.Shares[i] // a deposit of its own that stops at the target stops when the shares reach it
+	s := compileStop(h.p, m.share, max(min(end, a.End), h.p.Start), sh.Month, sh.Reached)
 	pr := s.defaultParams()
 	pr.set, pr.setSrc = make([]float64, len(s.events)), 1
 	k := 0
@@ -383,7 +384,7 @@ func (a *Allocation) Ledger(i int, end Month) *Ledger {
 				k++
 			}
 			if k < len(h.ticks) && h.ticks[k] == e.Tick {
-				pr.set[idx] = float64(a.Shares[i].Amounts[k]) / h.scale
+				pr.set[idx] = float64(sh.Amounts[k]) / h.scale
 			}
 		}
 	}

@@ -1,6 +1,7 @@
 package plan_test
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"os"
@@ -270,5 +271,81 @@ func BenchmarkSmallestBudget10Goals40Years(b *testing.B) {
 		if _, err := plan.SmallestBudget(p, 0); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// A deposit stream with until: reached pays through the month the target is
+// first reached and nothing after; a stream without it goes on, and the
+// month reached is the one the open-ended stream reaches it in (common
+// practice, no source: the definition of the key).
+func TestUntilReached(t *testing.T) {
+	const body = `cairn: 1
+start: 2027-01
+goals:
+  - name: Car
+    rate: 3%%
+    target: 5000
+    by: 2030-12
+    deposits:
+      - {name: savings, amount: 300, every: month%s}
+      - {name: gift, amount: 50, every: month}
+`
+	open := mustParse(t, "open.yaml", fmt.Sprintf(body, ""))
+	stop := mustParse(t, "stop.yaml", fmt.Sprintf(body, ", until: reached"))
+	a, err := plan.Solve(open, open.Goals[0], plan.Question{For: plan.ForTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := plan.Solve(stop, stop.Goals[0], plan.Question{For: plan.ForTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.Month != b.Month {
+		t.Fatalf("reached in %s with until: reached, %s without", b.Month, a.Month)
+	}
+	l := mustProject(t, stop, stop.Goals[0], plan.MonthOf(2030, 12))
+	var after, gift int
+	for _, e := range l.Entries() {
+		switch {
+		case e.Source == "savings" && e.Month > b.Month:
+			after++
+		case e.Source == "gift" && e.Month > b.Month:
+			gift++
+		}
+	}
+	if after != 0 || gift == 0 {
+		t.Errorf("after %s: %d savings deposits (want none), %d gifts (want some)", b.Month, after, gift)
+	}
+}
+
+// until: reached is refused where it has no meaning.
+func TestUntilReached_Refused(t *testing.T) {
+	tests := []struct{ name, src, expect string }{
+		{"withdrawal", "cairn: 1\nstart: 2027-01\ngoals:\n  - {name: g, balance: 100, target: 50, withdrawals: [{amount: 1, every: month, until: reached}]}\n",
+			"goals[0].withdrawals[0].until: reached is for deposits"},
+		{"budget", "cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month, until: reached}\ngoals:\n  - {name: g, target: 50, priority: 1}\n",
+			"budget.until: reached is for a goal's deposits"},
+		{"budget rule", "cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month, rule: first}\ngoals:\n  - {name: g, target: 50, priority: 1}\n",
+			`budget.rule: unknown rule "first" (want priority or one-at-a-time)`},
+		{"priority without a budget", "cairn: 1\nstart: 2027-01\ngoals:\n  - {name: g, target: 50, priority: 1}\n",
+			"goals[0].priority: the goal draws on a budget, but the file has none"},
+		{"two goals, one priority", "cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month}\ngoals:\n  - {name: g, target: 50, priority: 1}\n  - {name: h, target: 50, priority: 1}\n",
+			`goals[1].priority: priority 1 is "g"'s too`},
+		{"until reached without a target", "cairn: 1\nstart: 2027-01\ngoals:\n  - {name: g, deposits: [{amount: 1, every: month, until: reached}]}\n",
+			"goals[0].deposits[0].until: reached needs the goal's target"},
+		{"no target", "cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month}\ngoals:\n  - {name: g, priority: 1}\n",
+			"goals[0].priority: a goal that draws on the budget needs a target"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, err := plan.Parse("f.yaml", []byte(tt.src), 0)
+			if err == nil || !strings.Contains(err.Error(), tt.expect) {
+				t.Errorf("Parse = %v, want an error containing %q", err, tt.expect)
+			}
+			var el plan.ErrorList
+			if !errors.As(err, &el) {
+				t.Errorf("Parse error %T, want a plan.ErrorList", err)
+			}
+		})
 	}
 }

@@ -73,6 +73,7 @@ const (
 	FormList                     // a list of mappings, each in the scope Items
 	FormMapping                  // one mapping in the scope Items
 	FormCount                    // a whole number from Min to Max
+	FormUntil                    // a FormMonth, or reached
 )
 
 // want says what a value of the form looks like, in error messages.
@@ -87,6 +88,7 @@ var want = map[Form]string{
 	FormLength:     "a length such as 30 years",
 	FormGrowth:     "a yearly rate such as 3% or inflation",
 	FormCount:      "a whole number such as 1",
+	FormUntil:      "a month such as 2031-12, or reached",
 }
 
 // A Choice is one word a FormChoice key accepts and the value it stands for.
@@ -157,6 +159,7 @@ type value struct {
 	n         int // a choice's value, a length in months
 	inflation bool
 	rates     []RateStep
+	reached   bool // FormUntil: reached, not a month
 }
 
 // Keys is every key of the goals file, in the order the help lists them.
@@ -321,9 +324,14 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "from", Scope: InStream, Form: FormMonth,
 		Default: "start", Help: "first month with a period",
 		put: func(t *target, v *value) { t.s.From = v.month }},
-	{Name: "until", Scope: InStream, Form: FormMonth,
-		Default: "none", Help: "last month with an amount (none: open-ended)",
-		put: func(t *target, v *value) { t.s.Until, t.s.HasUntil = v.month, true }},
+	{Name: "until", Scope: InStream, Form: FormUntil,
+		Default: "none",
+		Help: "last month with an amount (none: open-ended); reached\n" +
+			"(deposits only): through the month the target is first\n" +
+			"reached",
+		put: func(t *target, v *value) {
+			t.s.Until, t.s.HasUntil, t.s.UntilReached = v.month, !v.reached, v.reached
+		}},
 	{Name: "for", Scope: InWithdrawal, Form: FormLength,
 		Default: "none", Help: "withdrawals only, instead of until: \"30 years\", \"18 months\"",
 		put: func(t *target, v *value) { t.s.forMonths = v.n }},
@@ -529,6 +537,7 @@ var (
 			FormLength:       `^\s*\+?0*[1-9]\d*\s+` + words([]string{"year", "years", "month", "months"}) + `\s*$`,
 			FormGrowth:       `^(?:` + rate + `|\s*` + words([]string{"inflation"}) + `\s*)$`,
 			FormCount:        `^\s*\+?\d+\s*$`,
+			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|` + words([]string{"reached"}) + `)\s*$`,
 		}
 	}()
 )

@@ -136,6 +136,9 @@ type Stream struct {
 	Until  Month // last month with an amount; valid when HasUntil
 	// HasUntil is false for an open-ended stream, which runs to the horizon.
 	HasUntil bool
+	// UntilReached stops a deposit stream after the month its goal's target
+	// is first reached (until: reached); the stream is open-ended until then.
+	UntilReached bool
 	// Grow is the yearly rise of the amount, as a fraction; GrowInflation
 	// makes it the plan's inflation.
 	Grow          float64

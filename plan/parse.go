@@ -380,6 +380,14 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 				v.n, ok = m, true
 			}
 		}
+	case FormUntil:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok && strings.EqualFold(strings.TrimSpace(s), "reached") {
+			v.reached, ok = true, true
+		} else if sok {
+			if v.month, ok = d.month(n, path); ok {
+				ok = d.inHorizon(t.p, n, path, v.month)
+			}
+		}
 	case FormCount:
 		if s, sok := d.scalar(n, path, want[k.Form]); sok {
 			c, err := strconv.Atoi(strings.TrimSpace(strings.TrimPrefix(strings.TrimSpace(s), "+")))
@@ -608,6 +616,10 @@ func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out bool) 
 		return nil
 	}
 	untilNode, forNode := given["until"], given["for"]
+	if s.UntilReached && out {
+		d.errorf(untilNode, join(path, "until"), "reached is for deposits (want a month, or for:)")
+		s.UntilReached = false
+	}
 	if untilNode != nil && forNode != nil {
 		d.errorf(forNode, join(path, "for"), "give until or for, not both")
 	}

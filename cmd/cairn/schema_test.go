@@ -51,6 +51,7 @@ var schemaSamples = map[plan.Form]struct{ tried, refused []string }{
 	plan.FormGrowth: {[]string{"3%", "inflation", "Inflation", "2% apy", "-1%", " INFLATION "},
 		[]string{"inflate", "3", "", "inflation 2%"}},
 	plan.FormCount: {[]string{"1", "2", " 3 ", "+1", "100", "07"}, []string{"-1", "1.5", "one", "", "1e2", "1 2"}},
+	plan.FormUntil: {[]string{"2030-01", " 2031-12 ", "reached", " Reached "}, []string{"2027-1", "reach", "", "never", "2030-13"}},
 }
 
 // goalsFileWith returns a goals file with key k set to the text v (quoted,
