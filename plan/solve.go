@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 
 	"cairn/money"
@@ -76,6 +77,15 @@ type Answer struct {
 	// flows change sign more than once).
 	Rate  money.Rate
 	Rates []money.Rate
+	// ShownNominal is Rate as outputs show it, nominal in the goal's
+	// compounding: rounded up to the places shown (see [money.RateUp]),
+	// and further if need be, so that written back into the goal as its
+	// rate it meets the target. ShownEffective is the effective annual
+	// rate, rounded up likewise; written back, it meets the target when the
+	// goal credits monthly. (An effective rate credits monthly, so written
+	// back into a goal compounded otherwise it makes a different account,
+	// whose balance can differ by more than the rounding.)
+	ShownEffective, ShownNominal float64
 
 	// ForLasts and ForWithdrawal: whether the money lasts, and what is left
 	// after the last withdrawal.
@@ -565,8 +575,8 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		n = 1
 	}
 	var roots []float64
-	slope := math.NaN()                     // of f at roots[0], when the search found it
-	if d, ok := s.annuityRoot(target); ok { // a uniform annuity: its closed form
+	slope := math.NaN()                                           // of f at roots[0], when the search found it
+	if d, ok := s.annuityRoot(target); ok && d >= lo && d <= hi { // a uniform annuity: its closed form, in range
 		roots, n = []float64{d}, 0
 	} else if n == 1 {
 		// One root at most: bracket it from the goal's own rate outwards,
@@ -618,12 +628,6 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if n > 0 && prevF == 0 {
 		roots = append(roots, prevX)
 	}
-	if len(roots) == 0 {
-		if f(hi) < 0 {
-			return nil, noSolution(g, "even at %s a year the goal falls short of %s by the deadline", money.Percent(maxSolveRate, 0), target.Format(p.Currency, false))
-		}
-		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
-	}
 	// The lowest root of the smooth balance is near the answer: the exact
 	// balance differs from the smooth one by its roundings. Settle on the
 	// lowest rate whose exact balance meets the target, to within a rate
@@ -636,6 +640,39 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		pr.rate = &r
 		bal, _ := s.closing(pr)
 		return bal.Float(), bal.Cmp(target) >= 0
+	}
+	if n > 1 {
+		// Money goes out: where a withdrawal is larger than the balance the
+		// exact balance is floored at zero and the smooth one is not, so a
+		// root of the smooth balance is a rate only where the exact balance
+		// crosses the target.
+		roots = slices.DeleteFunc(roots, func(r float64) bool { return !crosses(meets, r) })
+	}
+	if len(roots) == 0 {
+		bLo, okLo := meets(lo)
+		bHi, okHi := meets(hi)
+		switch {
+		case !okHi:
+			return nil, noSolution(g, "even at %s a year the goal falls short of %s by the deadline", money.Percent(maxSolveRate, 0), target.Format(p.Currency, false))
+		case okLo && bLo == bHi:
+			return nil, noSolution(g, "every rate meets the target: the balance at the deadline is %s whatever the rate, so no rate is the answer", s.amount(bLo).Format(p.Currency, false))
+		case okLo:
+			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
+		}
+		// The exact balance crosses the target where the smooth one has no
+		// root: bisect it.
+		a, b := lo, hi
+		for range 200 {
+			if b-a <= 1e-12 {
+				break
+			}
+			if m := a + (b-a)/2; func() bool { _, ok := meets(m); return ok }() {
+				b = m
+			} else {
+				a = m
+			}
+		}
+		roots, slope = []float64{b}, math.NaN()
 	}
 	delta := roots[0]
 	if !(slope > 0) || math.IsInf(slope, 0) {
@@ -667,7 +704,7 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		next := x + (t-bx)/sl + tol/4
 		switch {
 		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
-			next = min(next, above-reach)
+			next = max(min(next, above-reach), lo) // but not past the search's range
 			reach *= 8
 		case math.IsInf(above, 1): // none does: step up likewise
 			next = max(next, below+reach)
@@ -679,6 +716,9 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 			break
 		}
 		bn, m := meets(next)
+		if m && next == lo { // the range's end meets it too
+			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
+		}
 		if math.IsInf(below, -1) || math.IsInf(above, 1) {
 			// still far: the secant of the exact balance; near the target
 			// its roundings make a secant noise, and the smooth slope is
@@ -695,10 +735,62 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		above = delta
 		hiBal, _ = meets(above)
 	}
-	bal := hiBal
+	// The answer is raised 1e-12 above the rate found to meet the target: a
+	// margin against the last bits a conversion of the rate to another form
+	// changes, so that the rate meets the target when used.
+	above += 1e-12
+	hiBal, _ = meets(above)
 	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(above), Periods: math.NaN(), Deadline: g.By, Target: target,
-		Balance: money.Minor(int64(math.Round(bal*s.scale())), s.places)}
+		Balance: s.amount(hiBal)}
 	return finishRate(s, a, pr, roots, full), nil
+}
+
+// amount returns bal, in currency units a whole number of minor units, as
+// an amount.
+func (s *schedule) amount(bal float64) money.Amount {
+	return money.Minor(int64(math.Round(bal*s.scale())), s.places)
+}
+
+// crosses reports whether the exact balance crosses the target at force
+// of interest r: whether it meets the target on one side of r and not on
+// the other, within a distance widened from 1e-7 to 1e-2 (the exact
+// balance moves in whole cents, so a small step may not move it).
+func crosses(meets func(float64) (float64, bool), r float64) bool {
+	for h := 1e-7; h <= 1e-2; h *= 10 {
+		_, okl := meets(r - h)
+		_, okh := meets(r + h)
+		if okl != okh {
+			return true
+		}
+	}
+	return false
+}
+
+// shownRate returns rate x, a fraction in the form that suffix names (""
+// for effective, " compounded monthly"), rounded up to the places it is
+// shown with, and raised a place at a time until the rate so written back
+// as the goal's one rate meets target: s walked at the rate read back from
+// its text, as the goals file reads it. s must compound as the form does
+// (an effective rate monthly). It meets at once unless a posting rounds
+// the other way.
+func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix string) float64 {
+	v := money.RateUp(x)
+	for range 100 {
+		r, err := money.ParseRate(money.Percent(v, 6) + suffix)
+		if err != nil {
+			return v
+		}
+		pr.rate = &r
+		if bal, _ := s.closing(pr); bal.Cmp(target) >= 0 {
+			return v
+		}
+		step := 1e-6 // a unit in the fourth place of a percentage, or the sixth below 1%
+		if math.Abs(v) < 0.01 {
+			step = 1e-8
+		}
+		v = money.RateUp(v + step/2)
+	}
+	return v
 }
 
 // finishRate completes a rate answer: the other roots, and the proof at the
@@ -706,6 +798,12 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) *Answer {
 	for _, r := range roots[1:] {
 		a.Rates = append(a.Rates, money.ForceRate(r))
+	}
+	comp := s.comp
+	a.ShownNominal = s.shownRate(pr, a.Target, a.Rate.Nominal(comp), " compounded "+comp.Adjective())
+	a.ShownEffective = money.RateUp(a.Rate.Effective())
+	if comp == money.Monthly { // an effective rate credits monthly: the same account
+		a.ShownEffective = s.shownRate(pr, a.Target, a.Rate.Effective(), "")
 	}
 	pr.rate = &a.Rate
 	s.prove(a, pr, full)

@@ -21,7 +21,7 @@ type Between uint8
 const (
 	Compound Between = iota // (1+j)^τ − 1
 	Simple                  // j·τ
-	None                    // nothing in; money out forgoes the period's interest
+	None                    // interest on the lowest balance held throughout the period
 )
 
 // Inputs are what a walk reads besides the schedule: everything a solver
@@ -252,6 +252,12 @@ func roundMinor(x float64, r money.Rounding) float64 {
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
 	var bal, base, acc, accrued, peak float64
+	// low is the lowest balance (with interest accrued) held since the
+	// interest period began, what rule None pays interest on: a flow or
+	// fee at the period's first tick sets it, any later one can only
+	// lower it.
+	var low float64
+	none := in.Between == None
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if o.Mode == Exact {
@@ -272,6 +278,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 		}
 		base = bal
 	}
+	low = base
 	var j float64 // the rate of the interest period
 	for i := range s.events {
 		e := &s.events[i]
@@ -283,21 +290,30 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				} else {
 					j = in.Rates[e.Step]
 				}
-				x := base*j + acc
+				b, plus := base, acc // the interest is b × j + plus
+				if none {
+					b, plus = low, 0
+					if o.Mode == Exact && low < 0 { // the carried fraction of a cent below an empty account
+						b = 0
+					}
+				}
+				x := b*j + plus
 				if s.accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
+					low = base
 					continue
 				}
 				if o.Mode == Exact {
 					if q, sure := money.RoundFast(x); sure {
 						x = q
 					} else {
-						x = roundPosting(base, rateOf(in, e.Step, j), acc, in.Rounding)
+						x = roundPosting(b, rateOf(in, e.Step, j), plus, in.Rounding)
 					}
 				}
 				bal += x
 				base, acc = bal, 0
+				low = base
 				if o.Log != nil && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0)
@@ -329,6 +345,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal -= f
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
 			if e.Tau == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if p := o.Paths; p == nil {
@@ -395,6 +414,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal += x
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
 			if e.Tau == 1 { // a whole period's interest: part of the next base
 				base += x
 			} else if p == nil {
@@ -413,6 +435,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	}
 	res.Closing, res.Peak = bal, peak
 	return res
+}
+
+// lowest returns the lowest balance of an interest period, low before and
+// bal after a flow or fee with a fraction tau of the period left: at the
+// period's first tick (tau 1) the period's balance is still being set.
+func lowest(low, bal, tau float64) float64 {
+	if tau == 1 {
+		return bal
+	}
+	return min(low, bal)
 }
 
 // Weights fills p.W for schedule s under rule b and the out flags of in:
