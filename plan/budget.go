@@ -1,105 +1,99 @@
 package plan
 
 import (
-	"fmt"
+	"gopkg.in/yaml.v3"
 
 	"cairn/money"
 )
 
-// The work budget. A command's work grows with the events of the schedules
-// it walks: each amount of each stream, each month end, and the interest
-// dates between them. The limits on a goals file (see limits.go) bound the
-// file, not how its streams multiply: 50 daily streams over 150 years are
-// 2.7 million amounts. So before a goal is compiled, the events of its
-// schedule through the plan's last month (the longest any command compiles)
-// are counted from its shape, and a goal over MaxEvents is refused with its
-// position, in every command alike; a simulation is refused when its paths
-// times its events pass MaxSimulationSteps. Both are counted, not timed, so
-// the answer does not depend on the machine.
+// A Budget is what the household can set aside, shared by the goals that
+// draw on it (those with a Priority): a stream of amounts like a deposit
+// stream, and the rule that splits each amount among the goals.
+type Budget struct {
+	Stream      // the amounts, their frequency, timing, dates and growth
+	Rule   Rule // how each amount is split
+
+	pos Position
+}
+
+// A Rule says how each amount of a [Budget] is split among the goals that
+// draw on it (see the package doc, # Household budget).
+type Rule int
+
 const (
-	// MaxEvents is the most events one goal's schedule may have through
-	// the plan's last month: a daily stream over the whole 150 years is
-	// about 110,000 (its amounts and the interest dates between them), a
-	// monthly one about 3,600. 500,000 events are 32 MB and a few
-	// milliseconds a walk.
-	MaxEvents = 500_000
-	// MaxFileEvents is the most events all of a file's goals may have
-	// together: a household status walks each goal's schedule about ten
-	// times.
-	MaxFileEvents = 2_000_000
-	// MaxSimulationSteps is the most paths × events a simulation may walk
-	// (a deposit search counted as simDepositPasses passes): at about 6 ns
-	// a step, some 3 seconds of one core.
-	MaxSimulationSteps = 500_000_000
-	// simDepositPasses is what [SolveDeposit] is counted as: its first
-	// guess takes two passes over every path, and its search of whole
-	// minor units from the guess usually three more (the example file's
-	// goals: five each).
-	simDepositPasses = 8
+	// ByPriority gives each goal, in priority order, the level deposit it
+	// needs to meet its deadline, and what is left flows to the next.
+	ByPriority Rule = iota
+	// OneAtATime gives everything to the first goal not yet reached.
+	OneAtATime
 )
 
-// eventsOf counts the events of goal g's schedule through the end of month
-// end without compiling it: every amount of every stream and one-time
-// amount, and per month its end, credit and fee, with a run of interest
-// dates before each of them (an upper bound, cheap to count).
-func eventsOf(p *Plan, g *Goal, end Month) int64 {
-	months := int64(end-p.Start) + 1
-	var flows int64
-	for _, st := range streams(g) {
-		last := end
-		if st.HasUntil {
-			last = min(last, st.Until)
-		}
-		if last < st.From {
+var ruleNames = []string{"priority", "one-at-a-time"}
+
+func (r Rule) String() string { return ruleNames[r] }
+
+// budget decodes the top-level budget: a stream's keys and its rule.
+func (d *decoder) budget(p *Plan, n *yaml.Node) *Budget {
+	b := &Budget{pos: d.pos(n)}
+	b.Stream.From = p.Start
+	given := d.keys(n, "budget", InBudget, &target{p: p, s: &b.Stream, b: b})
+	if given == nil {
+		return nil
+	}
+	if b.Stream.UntilReached {
+		d.errorf(given["until"], "budget.until", "reached is for a goal's deposits: the budget runs until its goals are reached (want a month)")
+		return nil
+	}
+	if !b.Stream.growSet { // an amount in today's money rises with inflation
+		b.Stream.GrowInflation = b.Stream.Today
+	}
+	if b.Stream.HasUntil && b.Stream.Until < b.Stream.From {
+		d.errorf(given["until"], "budget.until", "month %s is before from %s", b.Stream.Until, b.Stream.From)
+		return nil
+	}
+	return b
+}
+
+// checkBudget checks the budget against the goals that draw on it: each
+// such goal has a target and its own priority, and a budget has a goal to
+// draw on it. n is the budget's node, or nil.
+func (d *decoder) checkBudget(p *Plan, n *yaml.Node) {
+	seen := map[int]*Goal{}
+	drawn := false
+	for _, g := range p.Goals {
+		path := join(d.goals[g], "priority")
+		v := d.nodes[path]
+		if v == nil {
 			continue
 		}
-		flows += (int64(last-st.From)+1)*int64(st.Every.PerYear())/12 + 1
-	}
-	flows += int64(len(g.Once))
-	return 2*flows + 4*months + int64(len(g.Rates))
-}
-
-// checkWork reports an error if goal g's schedule through the plan's last
-// month would pass [MaxEvents].
-func (p *Plan) checkWork(g *Goal) error {
-	if n := eventsOf(p, g, horizonEnd(p)); n > MaxEvents {
-		return fmt.Errorf("goal %s: its amounts and interest dates come to about %s events over the plan's %d years, more than the %s one goal may have (one stream every day for all of them is about 110,000); combine streams that fall on the same dates, make them less frequent or give them an until",
-			money.Quote(g.Name), group(n), HorizonYears, group(MaxEvents))
-	}
-	return nil
-}
-
-// checkFileWork reports an error if a goal's schedule would pass
-// [MaxEvents] (see checkWork), or the schedules of all the plan's goals
-// through its last month would pass [MaxFileEvents] together; the error
-// names the goal at which the running count passes it.
-func (p *Plan) checkFileWork() (*Goal, error) {
-	var n int64
-	for _, g := range p.Goals {
-		if err := p.checkWork(g); err != nil {
-			return g, err
+		drawn = true // a priority refused is reported already
+		if g.Priority == 0 {
+			continue
 		}
-		if n += eventsOf(p, g, horizonEnd(p)); n > MaxFileEvents {
-			return g, fmt.Errorf("goal %s: with the goals before it, the plan's amounts and interest dates come to about %s events over its %d years, more than the %s one file may have; combine streams that fall on the same dates, make them less frequent or give them an until",
-				money.Quote(g.Name), group(n), HorizonYears, group(MaxFileEvents))
+		switch {
+		case n == nil:
+			d.errorf(v, path, "the goal draws on a budget, but the file has none (add budget: at the top)")
+		case !g.HasTarget:
+			d.errorf(v, path, "a goal that draws on the budget needs a target (add target:)")
+		case seen[g.Priority] != nil:
+			d.errorf(v, path, "priority %d is %s's too (want each goal its own)", g.Priority, money.Quote(seen[g.Priority].Name))
+		}
+		seen[g.Priority] = g
+	}
+	if n != nil && p.Budget != nil && !drawn && len(p.Goals) > 0 {
+		d.errorf(n, "budget", "no goal draws on the budget (give the goals that do a priority, 1 first)")
+	}
+}
+
+// BudgetGoals returns the goals that draw on the budget, in priority order.
+func (p *Plan) BudgetGoals() []*Goal {
+	var out []*Goal
+	for k := 1; k <= MaxGoals; k++ {
+		for _, g := range p.Goals {
+			if g.Priority == k {
+				out = append(out, g)
+			}
 		}
 	}
-	return nil, nil
-}
-
-// checkSimulation reports an error if simulating paths paths over schedule
-// s, passes times, would pass [MaxSimulationSteps] in all.
-func checkSimulation(s *schedule, paths, passes int) error {
-	steps := int64(paths) * int64(len(s.events)) * int64(passes)
-	if steps > MaxSimulationSteps {
-		return fmt.Errorf("simulating %s paths over %s events%s is %s steps, more than the %s one command may take; ask for fewer paths or a shorter plan",
-			group(int64(paths)), group(int64(len(s.events))), map[bool]string{true: fmt.Sprintf(" %d times over", passes), false: ""}[passes > 1],
-			group(steps), group(MaxSimulationSteps))
-	}
-	return nil
-}
-
-// group writes n with its thousands grouped: 2,700,000.
-func group(n int64) string {
-	return money.Units(n).Format(money.Currency{Places: 0}, false)
+	return out
 }
