@@ -415,7 +415,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 				}
 			}
 		case "leave":
-			g.Leave, _, _ = d.amount(v, kp, false, false)
+			g.Leave, g.LeaveToday, _ = d.amount(v, kp, true, false)
 		case "volatility":
 			g.Volatility, g.HasVolatility = d.volatility(v, kp)
 		}

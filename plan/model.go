@@ -103,6 +103,7 @@ type Goal struct {
 	Withdrawals []*Stream
 	Once        []Once
 	Leave       money.Amount // balance that must remain after the last withdrawal
+	LeaveToday  bool         // Leave is in today's money, grown by inflation to the last withdrawal
 	// Volatility is the yearly volatility of log-returns for [Simulate], as
 	// a fraction; HasVolatility says the file gave it.
 	Volatility    float64
@@ -201,6 +202,19 @@ func (p *Plan) TargetAt(g *Goal) money.Amount {
 	}
 	years := float64(g.By-p.Start+1) / 12
 	return g.Target.MulFloat(1+p.Inflation.Over(years)).Round(p.Currency.Places, p.Rounding)
+}
+
+// LeaveAt returns what goal g must leave after its last withdrawal, in
+// money of month end (the last withdrawal's month): the amount as written,
+// or for an amount in today's money, grown by inflation from the plan's
+// start to the end of that month, as a target in today's money grows to
+// its deadline.
+func (p *Plan) LeaveAt(g *Goal, end Month) money.Amount {
+	if !g.LeaveToday {
+		return g.Leave
+	}
+	years := float64(end-p.Start+1) / 12
+	return g.Leave.MulFloat(1+p.Inflation.Over(years)).Round(p.Currency.Places, p.Rounding)
 }
 
 // Today returns an amount at the end of month m expressed in today's money

@@ -77,9 +77,12 @@ type Answer struct {
 	Rate  money.Rate
 	Rates []money.Rate
 
-	// ForLasts and ForWithdrawal: whether the money lasts, and what is left
-	// after the last withdrawal.
+	// ForLasts and ForWithdrawal: whether the money lasts — every
+	// withdrawal paid in full and the goal's leave (Target) left after the
+	// last one — and what is left after the last withdrawal. Paid is set
+	// when every withdrawal is paid, lasting or not.
 	Lasts bool
+	Paid  bool
 	Left  money.Amount
 
 	Deadline Month        // the month the answer is measured at
@@ -92,6 +95,18 @@ type Answer struct {
 
 // horizonEnd is the last month a plan may reach.
 func horizonEnd(p *Plan) Month { return p.Start.Add(HorizonYears*12 - 1) }
+
+// firstWithdrawal returns the first month of goal g's withdrawal streams,
+// and whether it has any.
+func firstWithdrawal(g *Goal) (Month, bool) {
+	var m Month
+	for i, s := range g.Withdrawals {
+		if i == 0 || s.From < m {
+			m = s.From
+		}
+	}
+	return m, len(g.Withdrawals) > 0
+}
 
 // lastWithdrawal returns the last month with a withdrawal, or the horizon.
 func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
@@ -155,6 +170,12 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		return nil, err
 	}
 	end := horizonEnd(p)
+	// A goal with withdrawals is reached only before they begin: never at
+	// a month after the money first ran out and was refilled.
+	firstOut, drawdown := firstWithdrawal(g)
+	if drawdown {
+		end = min(end, max(firstOut-1, p.Start))
+	}
 	scale := math.Pow(10, float64(p.Currency.Places))
 	t0, force := g.Target.Float(), 0.0
 	if g.TargetToday {
@@ -174,7 +195,9 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 	var s *schedule
 	var pr *params
 	var r engine.Result
-	o := engine.Options{Reach: func(m int32, bal float64) bool { return reach(p.Start+Month(m), bal) }}
+	o := engine.Options{Reach: func(m int32, bal float64) bool {
+		return (!drawdown || p.Start+Month(m) < firstOut) && reach(p.Start+Month(m), bal)
+	}}
 	for _, years := range []int{40, HorizonYears} {
 		h := min(max(p.Start.Add(years*12-1), Horizon(p, g)), end)
 		s = compile(p, g, h)
@@ -184,9 +207,20 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 	}
 	if !r.Reached {
-		ends := make([]float64, end-p.Start+1)
+		if drawdown {
+			s = compile(p, g, horizonEnd(p))
+			pr = s.defaultParams()
+		}
+		ends := make([]float64, s.end-p.Start+1)
 		s.exact(pr, engine.Options{MonthEnds: ends})
-		return nil, noSolution(g, "%s", unreachableReason(p, g, ends))
+		why := unreachableReason(p, g, ends)
+		for m := firstOut; drawdown && m <= s.end; m++ {
+			if ends[m-p.Start] >= targetAtMonth(p, g, m).Float() { // only after they begin
+				why = fmt.Sprintf("the balance does not reach the target before withdrawals begin in %s", firstOut)
+				break
+			}
+		}
+		return nil, noSolution(g, "%s", why)
 	}
 	found := p.Start + Month(r.ReachMonth)
 	a := &Answer{Goal: g, For: ForTime, Month: found, Months: int(found-p.Start) + 1, Periods: math.NaN()}
@@ -457,10 +491,11 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	idx := s.sourceIndex(st)
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
+	leave := p.LeaveAt(g, end)
 	ok := func(c int64) bool { // every withdrawal paid, and leave left
 		set(c)
 		bal, r := s.closing(pr)
-		return !r.Short && bal.Cmp(g.Leave) >= 0
+		return !r.Short && bal.Cmp(leave) >= 0
 	}
 	// linear guess
 	pr1 := s.defaultParams()
@@ -474,15 +509,15 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 		return nil, noSolution(g, "the stream has no withdrawals on or before %s", end)
 	}
 	if !ok(0) {
-		return nil, noSolution(g, "even with no withdrawals the balance falls short of leave %s", g.Leave.Format(p.Currency, false))
+		return nil, noSolution(g, "even with no withdrawals the balance falls short of leave %s", leave.Format(p.Currency, false))
 	}
 	scale := math.Pow(10, float64(p.Currency.Places))
-	guess := max(int64((b0-g.Leave.Float())/per*scale), 0)
+	guess := max(int64((b0-leave.Float())/per*scale), 0)
 	c, _ := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), false)
 	set(c)
-	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true}
+	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true, Paid: true}
 	a.Balance, _ = s.closing(pr)
-	a.Left, a.Target = a.Balance, g.Leave
+	a.Left, a.Target = a.Balance, leave
 	a.FirstAmount = s.firstAmount(pr, idx)
 	s.prove(a, pr, full)
 	return a, nil
@@ -509,11 +544,17 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 		return a, nil
 	}
-	a.Lasts = true
-	a.Month, a.Months, a.Deadline = end, int(end-p.Start)+1, end
-	a.Balance, a.Left = bal, bal
+	a.Month, a.Months, a.Deadline, a.Paid = end, int(end-p.Start)+1, end, true
+	a.Balance, a.Left, a.Target = bal, bal, p.LeaveAt(g, end)
+	// Lasting means every withdrawal paid in full and leave left after
+	// the last one.
+	a.Lasts = bal.Cmp(a.Target) >= 0
+	if !a.Lasts {
+		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left after the last one, short of the %s to leave by %s",
+			bal.Format(p.Currency, false), a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
+	}
 	s.prove(a, pr, full)
-	if end == horizonEnd(p) {
+	if a.Lasts && end == horizonEnd(p) {
 		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
 	}
 	return a, nil

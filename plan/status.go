@@ -60,10 +60,14 @@ func StatusOf(p *Plan) *Status {
 			gs.TargetAt = g.Target
 		}
 		if g.HasTarget {
-			if a, err := solve(p, g, Question{For: ForTime}, false); err == nil {
-				gs.Reached = a.Month
-			} else {
+			if a, err := solve(p, g, Question{For: ForTime}, false); err != nil {
 				gs.Reach = err
+			} else if g.HasBy && !gs.OnTrack && a.Month <= g.By {
+				// reached, then fallen below by the deadline: a row never
+				// says both reached and short
+				gs.Reach = noSolution(g, "the balance reaches the target in %s but falls below it by the deadline", a.Month)
+			} else {
+				gs.Reached = a.Month
 			}
 		}
 		if len(g.Withdrawals) > 0 {

@@ -95,8 +95,8 @@ func (p *Plan) apply(g *Goal, stream string, o Override) error {
 			g.Balance = a
 		}
 	case "leave":
-		if a, _, ok := d.amount(n, path, false, false); ok {
-			g.Leave = a
+		if a, today, ok := d.amount(n, path, true, false); ok {
+			g.Leave, g.LeaveToday = a, today
 		}
 	case "target":
 		if a, today, ok := d.amount(n, path, true, false); ok {

@@ -112,6 +112,10 @@ func statusDoc(p *plan.Plan, st *plan.Status) *doc {
 				d.after = append(d.after, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, gs.Lasts.Month, amt(p, gs.Lasts.Left)))
 				jg["money_lasts"] = true
 				jg["lasts_through"] = gs.Lasts.Month.String()
+			} else if gs.Lasts.Paid {
+				d.after = append(d.after, fmt.Sprintf("%s: the money does not last: %s.", goal.Name, gs.Lasts.Note))
+				jg["money_lasts"] = false
+				jg["paid_through"] = gs.Lasts.Month.String()
 			} else {
 				d.after = append(d.after, fmt.Sprintf("%s: the money runs out in %s.", goal.Name, gs.Lasts.Month))
 				jg["money_lasts"] = false
@@ -196,6 +200,9 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 			}
 			return s
 		}
+		if a.Paid {
+			return fmt.Sprintf("%s: the money pays every withdrawal through %s but does not last: %s.", g.Name, a.Month, a.Note)
+		}
 		return fmt.Sprintf("%s runs out of money in %s, %d %s from %s.", g.Name, a.Month, a.Months, plural(a.Months, "month", "months"), p.Start)
 	}
 	return ""
@@ -223,6 +230,12 @@ func answerValue(p *plan.Plan, a *plan.Answer, machine bool) string {
 				return "lasts"
 			}
 			return "lasts (" + money(p, a.Left) + " left)"
+		}
+		if a.Paid {
+			if machine {
+				return "short of leave"
+			}
+			return "short of leave (" + money(p, a.Left) + " left)"
 		}
 		return a.Month.String()
 	}
@@ -286,6 +299,14 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *doc {
 			j["left"] = jamt(p, a.Left)
 			add("lasts through", a.Month.String())
 			add("left after the last withdrawal", amt(p, a.Left))
+		} else if a.Paid {
+			j["answer"] = nil
+			j["paid_through"] = a.Month.String()
+			j["left"] = jamt(p, a.Left)
+			j["leave"] = jamt(p, a.Target)
+			add("every withdrawal paid through", a.Month.String())
+			add("left after the last withdrawal", amt(p, a.Left))
+			add("to leave", amt(p, a.Target))
 		} else {
 			j["answer"] = a.Month.String()
 			j["months"] = a.Months

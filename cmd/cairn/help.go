@@ -60,7 +60,10 @@ EACH GOAL
                            - name: gift       (optional)
                              amount: 1,000
                              on: 2027-12      (at the end of that month)
-  leave       0          balance that must remain after the last withdrawal
+  leave       0          balance that must remain after the last withdrawal;
+                         "50k today" is in today's money, grown by inflation
+                         to the last withdrawal. The money lasts only when
+                         every withdrawal is paid in full and this is left.
 
 EACH STREAM (deposits and withdrawals)
   name        none       a label, used by --stream

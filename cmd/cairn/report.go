@@ -309,6 +309,8 @@ func goalFacts(p *plan.Plan, gs plan.GoalStatus) []fact {
 	if gs.Lasts != nil {
 		if gs.Lasts.Lasts {
 			add("The money", fmt.Sprintf("lasts through %s, leaving %s", gs.Lasts.Month, amt(p, gs.Lasts.Left)))
+		} else if gs.Lasts.Paid {
+			add("The money", "does not last: "+gs.Lasts.Note)
 		} else {
 			add("The money", "runs out in "+gs.Lasts.Month.String())
 		}
@@ -487,7 +489,11 @@ func assumptions(p *plan.Plan, g *plan.Goal) []fact {
 		add("One-time", fmt.Sprintf("%s: %s at the end of %s", name, amt(p, o.Amount), o.On))
 	}
 	if len(g.Withdrawals) > 0 {
-		add("To leave", amt(p, g.Leave)+" after the last withdrawal")
+		leave := amt(p, g.Leave)
+		if g.LeaveToday {
+			leave += " today"
+		}
+		add("To leave", leave+" after the last withdrawal")
 	}
 	add("Rounding", fmt.Sprintf("each posting to %d decimal places, %s", p.Currency.Places, p.Rounding))
 	add("Shown through", v.Horizon.String())

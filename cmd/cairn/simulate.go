@@ -285,6 +285,13 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc 
 		jw := map[string]any{"first": sim.FirstWithdrawal.String(), "last": sim.LastWithdrawal.String(),
 			"lasts": jsonRate(sim.Lasts), "lasts_paths": sim.LastsPaths, "runs_out_paths": sim.RunOutPaths, "runs_out": nil}
 		line := fmt.Sprintf("%s: the money lasts through the last withdrawal in %s in %s of the paths.", g.Name, sim.LastWithdrawal, shareText(sim.Lasts))
+		if !sim.Leave.IsZero() {
+			line = fmt.Sprintf("%s: the money lasts through the last withdrawal in %s, leaving at least %s, in %s of the paths.", g.Name, sim.LastWithdrawal, amt(p, sim.Leave), shareText(sim.Lasts))
+		}
+		if sim.LeaveShortPaths > 0 {
+			line += fmt.Sprintf(" On %s paths every withdrawal is paid but less is left.", count(sim.LeaveShortPaths))
+			jw["leave_short_paths"] = sim.LeaveShortPaths
+		}
 		if sim.RunOutPaths > 0 {
 			ro := sim.RunOut
 			line += fmt.Sprintf(" Where it runs out (%s of %s paths), it first falls short in %s at the median, in %s at the 5th percentile and in %s at the 95th.",
@@ -302,6 +309,10 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc 
 			span := b.From.String() + " to " + b.To.String()
 			rg.add([]string{"runs out " + span, count(b.Paths), shareText(b.Share)}, []string{span, strconv.Itoa(b.Paths), jsonRate(b.Share)})
 			buckets = append(buckets, map[string]any{"from": b.From.String(), "to": b.To.String(), "paths": b.Paths, "share": jsonRate(b.Share)})
+		}
+		if sim.LeaveShortPaths > 0 {
+			sh := float64(sim.LeaveShortPaths) / float64(sim.Paths)
+			rg.add([]string{"paid, short of leave", count(sim.LeaveShortPaths), shareText(sh)}, []string{"short of leave", strconv.Itoa(sim.LeaveShortPaths), jsonRate(sh)})
 		}
 		rg.add([]string{"lasts through " + sim.LastWithdrawal.String(), count(sim.LastsPaths), shareText(sim.Lasts)},
 			[]string{"lasts", strconv.Itoa(sim.LastsPaths), jsonRate(sim.Lasts)})

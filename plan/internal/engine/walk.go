@@ -37,7 +37,9 @@ const (
 	// credit, fee and amount is computed in float64 and rounded once to
 	// the minor unit; interest accrued between monthly credits is carried
 	// unrounded; a withdrawal larger than the balance is paid in part and
-	// the rest is short. Results are in minor units.
+	// the rest is short. From then on the account is spent: it stays at
+	// zero, earns nothing, credits no money in, and every later withdrawal
+	// is short in full. Results are in minor units.
 	Exact Mode = iota
 	// Smooth keeps the balance in currency units, unrounded and unclamped:
 	// a smooth function of the rate for root finding, and linear in every
@@ -312,8 +314,19 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
 				}
+			} else if res.Short && o.Mode == Exact {
+				continue // the account is spent: money in is not credited
 			}
 			bal += x
+			if res.Short && o.Mode == Exact {
+				// Spent: the balance stays at zero and earns nothing more
+				// (what the last payment earned before it left is forfeit).
+				base, acc, accrued = 0, 0, 0
+				if o.Log != nil {
+					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short)
+				}
+				continue
+			}
 			if p == nil {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 				if x < 0 {
