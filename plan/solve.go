@@ -19,9 +19,10 @@ const (
 	ForStart                      // the opening balance that meets it
 	ForWithdrawal                 // the largest sustainable withdrawal
 	ForLasts                      // the month the money runs out
+	ForCapital                    // the balance withdrawals need when they begin
 )
 
-var quantityNames = []string{"time", "deposit", "rate", "start", "withdrawal", "lasts"}
+var quantityNames = []string{"time", "deposit", "rate", "start", "withdrawal", "lasts", "capital"}
 
 func (q Quantity) String() string { return quantityNames[q] }
 
@@ -29,7 +30,7 @@ func (q Quantity) String() string { return quantityNames[q] }
 var Quantities = strings.Join(quantityNames, ", ")
 
 // ParseQuantity parses a quantity name: time, deposit, rate, start,
-// withdrawal or lasts.
+// withdrawal, lasts or capital.
 func ParseQuantity(s string) (Quantity, error) {
 	for i, n := range quantityNames {
 		if strings.EqualFold(strings.TrimSpace(s), n) {
@@ -85,11 +86,17 @@ type Answer struct {
 	Paid  bool
 	Left  money.Amount
 
+	// ForCapital: Amount is the capital needed at the end of Month (the
+	// deadline, or the month before the first withdrawal), Deadline the
+	// last withdrawal's month, Target the leave then; its Equation states
+	// the capital as the present value at Month of what it pays, and Left
+	// and Balance what is left after the last withdrawal.
+
 	Deadline Month        // the month the answer is measured at
 	Target   money.Amount // the target in money of that month
 	Balance  money.Amount // the ledger's balance then
 	Ledger   *Ledger      // the ledger under the answer
-	Equation *Equation    // the equation of value at Deadline under the answer
+	Equation *Equation    // the equation of value at Deadline (ForCapital: at Month) under the answer
 	Note     string       // a remark on the answer, in plain words
 }
 
@@ -140,6 +147,8 @@ func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 		return solveWithdrawal(p, g, q, full)
 	case ForLasts:
 		return solveLasts(p, g, full)
+	case ForCapital:
+		return solveCapital(p, g, full)
 	}
 	return nil, fmt.Errorf("unknown quantity %d", q.For)
 }
@@ -156,6 +165,23 @@ func needTarget(g *Goal, deadline bool) error {
 		return noSolution(g, "the goal has no deadline to solve for (add by: YYYY-MM)")
 	}
 	return nil
+}
+
+// goalTarget returns what goal g must hold at the end of month by: its
+// target at its deadline, or for a goal with withdrawals and no target, the
+// capital they need (see [ForCapital]).
+func goalTarget(p *Plan, g *Goal) (target money.Amount, by Month, err error) {
+	if !g.HasTarget && len(g.Withdrawals) > 0 {
+		a, err := solveCapital(p, g, false)
+		if err != nil {
+			return target, 0, err
+		}
+		return a.Amount, a.Month, nil
+	}
+	if err := needTarget(g, true); err != nil {
+		return target, 0, err
+	}
+	return p.TargetAt(g), g.By, nil
 }
 
 // targetAtMonth is the target in money of the end of month m.
@@ -388,10 +414,11 @@ func searchCents(ok func(c int64) bool, guess, limit int64, up bool) (int64, boo
 // solveAmount solves for the deposit of a stream (start false) or the
 // opening balance (start true).
 func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error) {
-	if err := needTarget(g, true); err != nil {
+	target, by, err := goalTarget(p, g)
+	if err != nil {
 		return nil, err
 	}
-	s := compile(p, g, g.By)
+	s := compile(p, g, by)
 	var st *Stream
 	idx := int32(0)
 	if !start {
@@ -404,7 +431,6 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 		}
 		idx = s.sourceIndex(st)
 	}
-	target := p.TargetAt(g)
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
 	meets := func(c int64) bool { // meets the target with every withdrawal paid
@@ -435,7 +461,7 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target")
 	}
 	set(c)
-	a := &Answer{Goal: g, For: ForDeposit, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: g.By, Target: target}
+	a := &Answer{Goal: g, For: ForDeposit, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: by, Target: target}
 	if start {
 		a.For = ForStart
 	}

@@ -23,6 +23,12 @@ type GoalStatus struct {
 	// MonthlyNow and MonthlyNeeded are the goal's deposits in the plan's
 	// first month, as a monthly equivalent, now and as needed.
 	MonthlyNow, MonthlyNeeded money.Amount
+	// Capital, for a goal with withdrawals and no target, is the capital
+	// they need (see [ForCapital]), when CapitalErr is nil: it stands as the
+	// goal's target at the end of Capital.Month, which TargetAt, Projected,
+	// OnTrack, Short and Needed measure.
+	Capital    *Answer
+	CapitalErr error
 	// Lasts is the drawdown answer for a goal with withdrawals.
 	Lasts    *Answer
 	LastsErr error
@@ -58,6 +64,24 @@ func StatusOf(p *Plan) *Status {
 			}
 		} else if g.HasTarget {
 			gs.TargetAt = g.Target
+		} else if first, ok := firstWithdrawal(g); ok && first > p.Start {
+			// no target: the capital the withdrawals need is the goal's
+			// (a drawdown under way from the start has its answer in Lasts)
+			gs.Capital, gs.CapitalErr = solve(p, g, Question{For: ForCapital}, true)
+			if gs.CapitalErr == nil {
+				at := gs.Capital.Month
+				gs.TargetAt = gs.Capital.Amount
+				l, _ := Project(p, g, at)
+				gs.Projected = l.BalanceAt(at)
+				gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
+				if !gs.OnTrack {
+					gs.Short = gs.TargetAt.Sub(gs.Projected)
+				}
+				gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
+				if gs.NeededErr == nil {
+					gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
+				}
+			}
 		}
 		if g.HasTarget {
 			if a, err := solve(p, g, Question{For: ForTime}, false); err != nil {

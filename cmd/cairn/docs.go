@@ -75,7 +75,15 @@ func statusDoc(p *plan.Plan, st *plan.Status) *doc {
 			deadline = goal.By.String()
 			jg["deadline"] = deadline
 		}
-		if goal.HasTarget && goal.HasBy {
+		if c := gs.Capital; c != nil {
+			target, deadline = "capital "+amt(p, c.Amount), c.Month.String()
+			jg["capital_needed"], jg["deadline"] = jamt(p, c.Amount), deadline
+			d.after = append(d.after, capitalLine(p, c))
+		} else if gs.CapitalErr != nil {
+			jg["capital_reason"] = reasonOf(gs.CapitalErr)
+			d.after = append(d.after, fmt.Sprintf("%s: no capital figure: %s.", goal.Name, reasonOf(gs.CapitalErr)))
+		}
+		if goal.HasTarget && goal.HasBy || gs.Capital != nil {
 			atDeadline, projected = amt(p, gs.TargetAt), amt(p, gs.Projected)
 			jg["target_at_deadline"], jg["projected"] = jamt(p, gs.TargetAt), jamt(p, gs.Projected)
 			jg["on_track"] = gs.OnTrack
@@ -160,6 +168,25 @@ func reasonOf(err error) string {
 	return err.Error()
 }
 
+// capitalLine states a capital answer with its equation of value: each
+// term's amount times its factors, or its value where no factor describes
+// it.
+func capitalLine(p *plan.Plan, a *plan.Answer) string {
+	var terms []string
+	for _, t := range a.Equation.Terms {
+		x := amt(p, t.Value)
+		if len(t.Factors) > 0 {
+			x = amt(p, t.Amount)
+			for _, f := range t.Factors {
+				x += " × " + f.String()
+			}
+		}
+		terms = append(terms, t.Label+" "+x)
+	}
+	return fmt.Sprintf("%s: the capital needed at the end of %s is %s, the value then of what it pays: %s.",
+		a.Goal.Name, a.Month, amt(p, a.Amount), strings.Join(terms, " + "))
+}
+
 // --- solve
 
 // sentence is the answer in one plain sentence.
@@ -179,6 +206,12 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 			s += " (" + a.Note + ".)"
 		}
 		return s
+	case plan.ForCapital:
+		s := fmt.Sprintf("%s needs %s at the end of %s to pay every withdrawal through %s", g.Name, amt(p, a.Amount), a.Month, a.Deadline)
+		if !a.Target.IsZero() {
+			s += " and leave " + amt(p, a.Target)
+		}
+		return s + "."
 	case plan.ForRate:
 		comp := g.Rates[0].Rate.Compounding()
 		return fmt.Sprintf("%s reaches %s by %s at %s a year effective (%s compounded %s).", g.Name, amt(p, a.Target), a.Deadline,
@@ -261,6 +294,13 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *doc {
 			j["closed_form_periods"] = strconv.FormatFloat(a.Periods, 'f', 4, 64)
 			j["period"] = a.Freq.String()
 		}
+	case plan.ForCapital:
+		j["answer"] = jamt(p, a.Amount)
+		j["capital_at"] = a.Month.String()
+		j["leave"] = jamt(p, a.Target)
+		add("capital needed at the end of "+a.Month.String(), amt(p, a.Amount))
+		add("last withdrawal", a.Deadline.String())
+		add("to leave", amt(p, a.Target))
 	case plan.ForDeposit, plan.ForStart, plan.ForWithdrawal:
 		j["answer"] = jamt(p, a.Amount)
 		if a.Stream != nil {
@@ -318,7 +358,7 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *doc {
 		j["left"] = jamt(p, a.Left)
 		add("left after the last withdrawal", amt(p, a.Left))
 	}
-	if g.HasTarget && a.For != plan.ForWithdrawal && a.For != plan.ForLasts {
+	if g.HasTarget && a.For != plan.ForWithdrawal && a.For != plan.ForLasts && a.For != plan.ForCapital {
 		label := "target at " + a.Deadline.String()
 		add(label, amt(p, a.Target))
 		j["target"] = jamt(p, a.Target)
@@ -336,8 +376,12 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *doc {
 		d.primary = 1
 		j["equation"] = rows
 		j["equation_sum"] = jamt(p, a.Equation.Sum)
-		d.after = append(d.after, fmt.Sprintf("The terms sum to %s; the ledger's balance is %s (each interest and fee posting is rounded to the cent).",
-			amt(p, a.Equation.Sum), amt(p, a.Equation.Balance)))
+		what := "the ledger's balance"
+		if a.For == plan.ForCapital {
+			what = "the capital the ledger needs"
+		}
+		d.after = append(d.after, fmt.Sprintf("The terms sum to %s; %s is %s (each interest and fee posting is rounded to the cent).",
+			amt(p, a.Equation.Sum), what, amt(p, a.Equation.Balance)))
 	}
 	return d
 }
