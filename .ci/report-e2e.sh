@@ -1,7 +1,10 @@
 #!/usr/bin/env bash
 # End-to-end check of `cairn report`: print the example household's report
 # to PDF in headless Chromium and check that it has a page for the summary
-# and one for each goal, and the text every report must carry.
+# and one for each goal, the text every report must carry, a first page
+# worth reading, no heading stranded at a page's foot and no path from the
+# author's machine. The pages are left as images in .ci/artefacts
+# (report-page-N.png) to be looked at.
 #
 # Installs Debian's chromium and poppler-utils with apt-get when they are
 # missing. Outside CI (CI unset, 0 or false) a machine where they cannot be
@@ -25,7 +28,7 @@ give_up() {
 
 missing=()
 command -v chromium >/dev/null 2>&1 || missing+=(chromium)
-if ! { command -v pdfinfo && command -v pdftotext; } >/dev/null 2>&1; then
+if ! { command -v pdfinfo && command -v pdftotext && command -v pdftoppm; } >/dev/null 2>&1; then
   missing+=(poppler-utils)
 fi
 if [ ${#missing[@]} -gt 0 ]; then
@@ -52,7 +55,10 @@ echo "== $(chromium --version 2>/dev/null || echo chromium); $(pdfinfo -v 2>&1 |
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
 go build -o "$tmp/cairn" ./cmd/cairn
-"$tmp/cairn" report examples/household.yaml --as-of 2026-12 --out "$tmp/plan.html"
+# By its absolute path, as an author would: the printed pages must name the
+# file only, never where it sits on the author's machine.
+goals_file="$PWD/examples/household.yaml"
+"$tmp/cairn" report "$goals_file" --as-of 2026-12 --out "$tmp/plan.html"
 
 mkdir "$tmp/profile"
 echo "== printing to PDF"
@@ -110,6 +116,42 @@ check "every goal carries the note (at least $((1 + ${#goals[@]})) times)" \
   test "$(grep -oF "$note" <<<"$all" | wc -l)" -ge $((1 + ${#goals[@]}))
 check "the yearly tables are printed" grep -qF "Yearly projection" <<<"$all"
 check "the assumptions are printed" grep -qF "Between interest dates" <<<"$all"
+
+# Page 1 is the household at a glance: its table, the monthly saving and
+# what to do next, one step for each goal.
+p1=$(page_text 1)
+check "page 1 holds the household table" grep -qF "goal target at deadline deadline projected" <<<"$p1"
+check "page 1 holds the monthly saving" grep -qF "Saving each month" <<<"$p1"
+check "page 1 holds what to do next" grep -qF "What to do next" <<<"$p1"
+for name in "${goals[@]}"; do
+  check "page 1 has a next step for \"$name\"" grep -q "^[^[:alnum:]]*$name: " <<<"$(pdftotext -q -f 1 -l 1 "$tmp/plan.pdf" -)"
+done
+
+# The footer names the file by its base name and no page shows a path.
+check "the footer names household.yaml" grep -qF "Household plan: household.yaml · a planning estimate, not advice" <<<"$all"
+check "no page shows the file's absolute path" bash -c '! grep -qF "$1" <<<"$2"' _ "$(dirname "$goals_file")" "$all"
+
+# No page ends with a heading: the last line of a page's text, above the
+# footer, is never a heading, a goal's name or its "Goal i of n" line.
+headings=("The household at a glance" "Saving each month" "What to do next" "Yearly projection" "Assumptions" "${goals[@]}")
+for ((pg = 1; pg <= pages; pg++)); do
+  last_line=$(pdftotext -q -f "$pg" -l "$pg" "$tmp/plan.pdf" - |
+    grep -v '^[[:space:]]*$' | grep -vF 'Household plan: household.yaml · ' | grep -vE '^page [0-9]+ of [0-9]+$' | tail -n 1 | sed 's/[[:space:]]*$//')
+  stranded=""
+  for h in "${headings[@]}"; do
+    if [ "$last_line" = "$h" ] || [[ "$last_line" == "Goal "*" of "*": $h" ]]; then stranded=$h; fi
+  done
+  check "page $pg does not end with a heading (last line: ${last_line:0:60})" test -z "$stranded"
+done
+
+# The pages as images, to look at: CI keeps .ci/artefacts.
+artefacts=.ci/artefacts
+mkdir -p "$artefacts"
+rm -f "$artefacts"/report-page-*.png
+pdftoppm -r 72 -png "$tmp/plan.pdf" "$artefacts/report-page"
+cp "$tmp/plan.pdf" "$artefacts/report.pdf"
+echo "== pages as images in $artefacts: $(cd "$artefacts" && echo report-page-*.png)"
+check "one image for each of the $pages pages" test "$(ls "$artefacts"/report-page-*.png | wc -l)" -eq "$pages"
 
 if [ -n "${REPORT_E2E_KEEP:-}" ]; then
   cp "$tmp/plan.pdf" "$tmp/plan.html" "$REPORT_E2E_KEEP"/

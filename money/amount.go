@@ -1,8 +1,10 @@
 package money
 
 import (
+	"bytes"
 	"fmt"
 	"math"
+	"math/big"
 	"strconv"
 	"strings"
 
@@ -61,6 +63,37 @@ func (a Amount) Abs() Amount { return Amount{a.d.Abs()} }
 
 // Mul returns a × k exactly, for an exact decimal k.
 func (a Amount) Mul(k decimal.Decimal) Amount { return Amount{a.d.Mul(k)} }
+
+// MulInt returns a × n exactly.
+func (a Amount) MulInt(n int64) Amount { return Amount{a.d.Mul(decimal.NewFromInt(n))} }
+
+// DivRound returns a ÷ n rounded to places decimal places under rule r,
+// from the exact quotient: 606.18 ÷ 12 = 50.515 is 50.52 half-even. It is
+// the one division of amounts; it never uses the decimal library's global
+// division precision. n must not be 0.
+func (a Amount) DivRound(n int64, places int, r Rounding) Amount {
+	q := new(big.Rat).Quo(a.d.Rat(), big.NewRat(n, 1))
+	q.Mul(q, new(big.Rat).SetInt(new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(places)), nil)))
+	return Minor(roundRat(q, r), places)
+}
+
+// MinorFloat returns a counted in minor units of a currency with the given
+// decimal places, as the nearest float64: 1.50 is 150 with places 2.
+func (a Amount) MinorFloat(places int) float64 { return a.d.Shift(int32(places)).InexactFloat64() }
+
+// MinorRounded returns x, a count of minor units held in a float64, as an
+// amount rounded to whole minor units under rule r, reading x as the
+// decimal it stands for (as [RoundProduct] does).
+func MinorRounded(x float64, places int, r Rounding) Amount {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return Zero
+	}
+	if math.Abs(x) >= 1<<62 { // a whole number, beyond an int64's reach
+		i, _ := new(big.Float).SetFloat64(x).Int(nil)
+		return Amount{decimal.NewFromBigInt(i, int32(-places))}
+	}
+	return Minor(int64(RoundProduct(x, One, 0, r)), places)
+}
 
 // MulFloat returns a × f, with f carried to 16 significant digits. The result
 // is not rounded; post it with [Amount.Round].
@@ -265,7 +298,7 @@ func ParseAmount(s string) (Amount, error) {
 			return bad("")
 		}
 	}
-	if len(digits) > 15 {
+	if len(bytes.TrimLeft(digits, "0"))+int(mult) > 15 { // the digits of the whole part, k and M counted
 		return bad("too large")
 	}
 	num := string(digits)

@@ -2,6 +2,7 @@ package money
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 )
 
@@ -52,4 +53,14 @@ func LookupCurrency(code string) (Currency, error) {
 		return Currency{}, fmt.Errorf("unknown currency %s (want an ISO 4217 code such as USD, EUR, GBP or JPY)", Quote(code))
 	}
 	return c, nil
+}
+
+// CurrencyCodes returns the ISO 4217 codes [LookupCurrency] knows, sorted.
+func CurrencyCodes() []string {
+	out := make([]string, 0, len(currencies))
+	for c := range currencies {
+		out = append(out, c)
+	}
+	slices.Sort(out)
+	return out
 }

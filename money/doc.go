@@ -33,6 +33,32 @@
 // Amounts stay decimal; a factor multiplies an amount and the product is
 // rounded to the cent where it is posted.
 //
+// # Exact rounding of products
+//
+// A product posted to the cent must round by the rule when it is exactly
+// halfway: 1,503 × 2%/12 = 2.505 is 2.50 half-even and 2.51 half-up, and
+// 75 × 1.025 = 76.875 is 76.88 under both. In float64 such a product lands a
+// hair to either side of the half. A [Multiplier] carries a factor's float
+// and, when the factor is rational, its exact form: a rate stated as a
+// decimal for one period of its own frequency or a whole multiple of it (a
+// nominal rate's x/m, a periodic rate, and (1 + x/m)^k − 1 for k whole), a
+// fee's twelfth, and a growth by a decimal rate over whole years, (1 + x)^n.
+// [RoundProduct] rounds the float product when it is clearly away from a
+// half and, only within a small margin of one, redoes the product exactly,
+// in 64- and 128-bit integers or, when those would overflow, big.Rat.
+// A decimal is read back from its float64 as the nearest decimal of 15
+// significant digits, which is the decimal a person wrote.
+//
+// The float product alone is exact enough for the irrational factors: an
+// effective rate per month ((1 + x)^(1/12) − 1), a continuously compounded
+// rate, inflation over part of a year, fractional-period accrual. Their
+// products with a whole number of cents are never exactly halfway, and a
+// float64 is good to about 16 significant digits, far below a cent.
+//
+// Division of amounts goes through [Amount.DivRound], from the exact
+// quotient with an explicit number of places and rule; the decimal
+// library's global division precision is never used.
+//
 // # Frequencies
 //
 // A [Frequency] is how often something happens in a year: day (365), week

@@ -123,3 +123,14 @@ func ParseFrequency(s string) (Frequency, error) {
 	}
 	return 0, fmt.Errorf("unknown frequency %s (want daily, weekly, every 2 weeks, twice a month, monthly, every 2 months, quarterly, twice a year or yearly)", Quote(s))
 }
+
+// FrequencyWords returns every word [ParseFrequency] accepts (in lower case,
+// words one space apart) with the frequency it stands for, so that a schema
+// of the goals file can list exactly what the parser reads.
+func FrequencyWords() map[string]Frequency {
+	out := make(map[string]Frequency, len(freqWords))
+	for w, f := range freqWords {
+		out[w] = f
+	}
+	return out
+}

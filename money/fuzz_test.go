@@ -12,7 +12,9 @@ import (
 // The parsers never panic, and what they accept reads back the same.
 
 func FuzzParseAmount(f *testing.F) {
-	for _, s := range []string{"1500", "1,500.00", "$1,500", "1.5k", "1.2M", "-1,200", "1_500", "12x", ""} {
+	for _, s := range []string{"1500", "1,500.00", "$1,500", "1.5k", "1.2M", "-1,200", "1_500", "12x", "",
+		// issue 13 item 14: a suffix past the digit cap, and fractions finer than a cent
+		"999999999999999k", "123456789012345.5M", "99,999,999,999,999M", "0.0000001k", "1.23456789M"} {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, s string) {
@@ -31,7 +33,9 @@ func FuzzParseAmount(f *testing.F) {
 }
 
 func FuzzParseRate(f *testing.F) {
-	for _, s := range []string{"4.1%", "4.1% apy", "3.9% compounded monthly", "5% compounded continuously", "0.35% per month", "-1.5%", "-100%", "4.1"} {
+	for _, s := range []string{"4.1%", "4.1% apy", "3.9% compounded monthly", "5% compounded continuously", "0.35% per month", "-1.5%", "-100%", "4.1",
+		// issue 13 item 14: more than six decimals
+		"4.1234567%", "12.3456785% compounded monthly", "0.00000049% per day", "0.0000001%", "-99.99999999%", "1.23456789012345678% per week"} {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, s string) {

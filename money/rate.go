@@ -32,6 +32,7 @@ type Rate struct {
 	stated float64   // the rate as stated, as a fraction
 	freq   Frequency // compounding (Nominal) or period (Periodic)
 	force  float64   // ln(1 + effective annual rate)
+	places int       // decimals of the percentage as written, when over six (see ParseRate)
 }
 
 // EffectiveRate returns the effective annual rate x (0.041 for 4.1%).
@@ -156,9 +157,11 @@ func Real(r, pi Rate) Rate { return ForceRate(r.force - pi.force) }
 
 // String returns the rate as it would be written in a goals file, with its
 // form always named: "4.1% effective", "3.9% compounded monthly", "5%
-// compounded continuously", "0.35% per month".
+// compounded continuously", "0.35% per month". The percentage has at most
+// six decimals, or, for a rate read with more, every decimal it was written
+// with (up to 30), so that it reads back as the same rate.
 func (r Rate) String() string {
-	p := Percent(r.stated, 6)
+	p := Percent(r.stated, max(6, r.places))
 	switch r.form {
 	case Nominal:
 		return p + " compounded " + r.freq.Adjective()
@@ -253,6 +256,12 @@ func ParseRate(s string) (Rate, error) {
 	}
 	if err := r.Check(); err != nil {
 		return Rate{}, fmt.Errorf("invalid rate %s: at or below -100%% a year", Quote(s))
+	}
+	if e := r.Effective(); math.IsInf(e, 0) || math.IsNaN(e) {
+		return Rate{}, fmt.Errorf("invalid rate %s: too large to work with", Quote(s))
+	}
+	if _, frac, _ := strings.Cut(numStr, "."); len(frac) > 6 {
+		r.places = min(len(frac), 30) // String writes what was read, not six decimals of it
 	}
 	return r, nil
 }

@@ -13,6 +13,13 @@
 // deposits and values beyond the limits (see [MaxFileSize], [MaxGoals],
 // [HorizonYears] and the other limits).
 //
+// One table, [Keys], says for every key where it may appear, how its value
+// is written and checked, where it goes in the model, its help text and
+// whether a what-if may change it. The decoder, [Plan.With] (--set and
+// --vary) and the help on the file all read it, and the rules across keys
+// (a target in today's money needs a deadline) run after parsing and after
+// every what-if, so a what-if the file would refuse is refused alike.
+//
 // # Time
 //
 // Time is exact. Every event sits on an integer tick of a year divided into
@@ -43,7 +50,15 @@
 // month on; each interest period uses the rate in force in the month it
 // begins. Each credit is rounded to the cent (the currency's minor unit)
 // with the file's rounding rule; so is each fee and each amount of a growing
-// stream. When compounding is more frequent than monthly (daily, weekly),
+// stream. A credit, fee or amount that is exactly halfway between two cents
+// (1,503 × 2%/12 = 2.505, 75 × 1.025 = 76.875) goes by the rule, not by
+// float noise: the walk rounds through [money.RoundProduct], which settles
+// near-halfway products in exact arithmetic. The monthly credit of interest
+// accrued more often than monthly is the float sum rounded: its exact value
+// has powers of the daily or weekly rate in its denominator and is never
+// halfway. So is interest that includes money moved part way through an
+// interest period: under compound it is irrational, under simple (j·τ) it
+// is rational but summed in float, a known limit. When compounding is more frequent than monthly (daily, weekly),
 // interest accrues unrounded at every compounding date, itself earning
 // interest, and is credited at each month end, as banks credit daily
 // interest and as Regulation DD's daily-rate examples assume. Fees ("fee: 0.25%", a year) are taken at each month end as a
@@ -72,7 +87,9 @@
 // # Ledger
 //
 // The [Ledger] is exact: every balance and posting is a whole number of the
-// currency's minor unit, reported as a decimal [money.Amount]. It records
+// currency's minor unit, reported as a decimal [money.Amount]. The package
+// does not use the decimal library directly: amounts are multiplied,
+// divided and rounded only through package money. It records
 // every movement — opening balance,
 // deposits, one-time amounts, withdrawals, interest, fees — with its tick,
 // month, amount and the balance after it. A withdrawal larger than the

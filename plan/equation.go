@@ -3,12 +3,8 @@ package plan
 import (
 	"math"
 
-	"github.com/shopspring/decimal"
-
 	"cairn/money"
 )
-
-func decimalInt(c int64) decimal.Decimal { return decimal.NewFromInt(c) }
 
 // A Term is one flow's part of the equation of value: its value at the
 // deadline and, where one chain of factors describes it, the factors.

@@ -5,8 +5,6 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/shopspring/decimal"
-
 	"cairn/money"
 	"cairn/plan"
 )
@@ -19,6 +17,20 @@ func mustParse(t testing.TB, name, src string) *plan.Plan {
 		t.Fatalf("Parse(%q) error:\n%v", name, err)
 	}
 	return p
+}
+
+// mustOverrides parses each KEY=VALUE with [plan.ParseOverride].
+func mustOverrides(t testing.TB, ss []string) []plan.Override {
+	t.Helper()
+	var ovs []plan.Override
+	for _, s := range ss {
+		o, err := plan.ParseOverride(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ovs = append(ovs, o)
+	}
+	return ovs
 }
 
 // mustProject projects goal g of p through month end.
@@ -66,6 +78,3 @@ func roundTo(x float64, places int) float64 {
 	s := math.Pow(10, float64(places))
 	return math.Round(x*s) / s
 }
-
-// decimalOf returns n as an exact decimal multiplier.
-func decimalOf(n int64) decimal.Decimal { return decimal.NewFromInt(n) }

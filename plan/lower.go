@@ -138,21 +138,19 @@ func (s *schedule) defaultParams() *params {
 	return pr
 }
 
-// rates returns the periodic rate of each step under pr.
-func (s *schedule) rates(pr *params) []float64 {
-	js := make([]float64, len(s.steps))
+// inputs returns what a walk of s reads under pr.
+func (s *schedule) inputs(pr *params) engine.Inputs {
+	fee := s.goal.Fee / 12
+	js, ms := make([]float64, len(s.steps)), make([]money.Multiplier, len(s.steps))
 	for i, r := range s.steps {
 		if pr.rate != nil {
 			r = *pr.rate
 		}
-		js[i] = r.PerPeriod(s.comp)
+		ms[i] = r.PeriodMultiplier(s.comp) // exact when rational (see engine.Inputs)
+		js[i] = ms[i].Float()
 	}
-	return js
-}
-
-// inputs returns what a walk of s reads under pr.
-func (s *schedule) inputs(pr *params) engine.Inputs {
-	return engine.Inputs{Rates: s.rates(pr), Amounts: pr.amountsF, Out: s.out, Fee: s.goal.Fee / 12,
+	return engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
+		Fee: fee, FeeM: money.RateMultiplier(fee, s.goal.Fee, 12, 1),
 		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding}
 }
 

@@ -2,7 +2,6 @@ package plan
 
 import (
 	"math"
-	"strings"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -20,14 +19,18 @@ type Plan struct {
 	// [Simulate], as a fraction; HasInflationVolatility says the file gave it.
 	InflationVolatility    float64
 	HasInflationVolatility bool
+	// Scenarios are the file's named alternatives; Applied is the name of
+	// the one [Plan.WithScenario] applied to this copy, or "".
+	Scenarios []*Scenario
+	Applied   string
 
 	cache *engine.Cache // its schedules by shape (see checkBounds); nil: none kept
 }
 
-// Goal returns the goal with the given name (case-insensitive), or nil.
+// Goal returns the goal with the given name (see sameName), or nil.
 func (p *Plan) Goal(name string) *Goal {
 	for _, g := range p.Goals {
-		if equalFold(g.Name, name) {
+		if sameName(g.Name, name) {
 			return g
 		}
 	}
@@ -132,6 +135,9 @@ type Stream struct {
 	Grow          float64
 	GrowInflation bool
 	Out           bool // a withdrawal
+
+	growSet   bool // grow was given; otherwise an amount in today's money grows with inflation
+	forMonths int  // a withdrawal's length as given by for:, which sets Until
 }
 
 // growth returns the stream's yearly growth rate under inflation pi.
@@ -177,7 +183,7 @@ func cloneStreams(ss []*Stream) []*Stream {
 	return out
 }
 
-// Stream returns the goal's stream with the given name (case-insensitive)
+// Stream returns the goal's stream with the given name (see sameName)
 // among its deposits (out false) or withdrawals (out true); an empty name
 // picks the first. It returns nil if there is none.
 func (g *Goal) Stream(name string, out bool) *Stream {
@@ -186,7 +192,7 @@ func (g *Goal) Stream(name string, out bool) *Stream {
 		ss = g.Withdrawals
 	}
 	for _, s := range ss {
-		if name == "" || equalFold(s.Name, name) {
+		if name == "" || sameName(s.Name, name) {
 			return s
 		}
 	}
@@ -223,5 +229,3 @@ func (p *Plan) Today(a money.Amount, m Month) money.Amount {
 	years := float64(m-p.Start+1) / 12
 	return a.MulFloat(math.Exp(-p.Inflation.Force()*years)).Round(p.Currency.Places, p.Rounding)
 }
-
-func equalFold(a, b string) bool { return strings.EqualFold(a, b) }

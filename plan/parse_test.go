@@ -156,7 +156,7 @@ func TestParse_Errors(t *testing.T) {
 		{"rates out of order", goalFile("rate:", "  - 5%", "  - {from: 2030-01, rate: 4%}", "  - {from: 2029-01, rate: 3%}"),
 			`t.yaml:8:16: goals[0].rate[2].from: month 2029-01 is not after the previous rate's 2030-01 (rates must be in date order)`},
 		{"invalid YAML", goalFile("x: : :"),
-			`t.yaml:5:1: invalid YAML:`},
+			`t.yaml:5:8: a value with ': ' in it must be put in quotes`}, // issue 13 item 8: the real column, in cairn's words
 		{"not UTF-8", hdr + "goals:\n  - name: caf\xe9\n",
 			`t.yaml:4:14: not a text file (want a YAML goals file in UTF-8)`},
 		{"CRLF line ends keep positions", strings.ReplaceAll(goalFile("by: 2027-13"), "\n", "\r\n"),

@@ -5,8 +5,6 @@ import (
 	"math"
 	"strconv"
 	"strings"
-
-	"gopkg.in/yaml.v3"
 )
 
 // ParsePercent parses a percentage written with a percent sign, "12%" or
@@ -33,18 +31,4 @@ func ParseVolatility(s string) (float64, error) {
 		return 0, fmt.Errorf("volatility %q is out of range (want 0%% to %d%% a year)", s, MaxVolatilityPercent)
 	}
 	return x, nil
-}
-
-// volatility decodes a volatility key of a goals file.
-func (d *decoder) volatility(n *yaml.Node, path string) (float64, bool) {
-	s, ok := d.scalar(n, path, "a volatility a year such as 12%")
-	if !ok {
-		return 0, false
-	}
-	x, err := ParseVolatility(s)
-	if err != nil {
-		d.errorf(n, path, "%v", err)
-		return 0, false
-	}
-	return x, true
 }

@@ -338,10 +338,10 @@ func TestProject_ZeroRateSumsFlows(t *testing.T) {
 		for i := range rapid.IntRange(0, 2).Draw(t, "withdrawals") {
 			w := drawStream(t, fmt.Sprintf("withdrawal %d", i), 0, 50_000, months)
 			w.until = rapid.IntRange(w.from, w.from+months).Draw(t, fmt.Sprintf("withdrawal %d until", i))
-			if n := int64(count(w, end)); n > 0 && w.amount.Mul(decimalOf(n)).Cmp(budget) > 0 {
+			if n := int64(count(w, end)); n > 0 && w.amount.MulInt(n).Cmp(budget) > 0 {
 				continue
 			}
-			budget = budget.Sub(w.amount.Mul(decimalOf(int64(count(w, end)))))
+			budget = budget.Sub(w.amount.MulInt(int64(count(w, end))))
 			s.outs = append(s.outs, w)
 		}
 		for i := range rapid.IntRange(0, 3).Draw(t, "once") {
@@ -360,10 +360,10 @@ func TestProject_ZeroRateSumsFlows(t *testing.T) {
 		// month end, counted from the stream's periods
 		want := s.balance
 		for _, d := range s.deposits {
-			want = want.Add(d.amount.Mul(decimalOf(int64(count(d, end)))))
+			want = want.Add(d.amount.MulInt(int64(count(d, end))))
 		}
 		for _, w := range s.outs {
-			want = want.Sub(w.amount.Mul(decimalOf(int64(count(w, end)))))
+			want = want.Sub(w.amount.MulInt(int64(count(w, end))))
 		}
 		for _, o := range s.once {
 			if o.on <= end {

@@ -132,15 +132,15 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 	}
 	c, found := searchCents(ok, guess, limit, true)
 	if !found {
-		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target in %s of the paths", money.Percent(level, 2))
+		return nil, noSolution(g, "no amount up to the %s limit meets the target in %s of the paths", amountLimit, money.Percent(level, 2))
 	}
 	ok(c)
-	unitAmt := money.FromDecimal(money.Cents(1).Decimal().Shift(int32(2 - s.places)))
-	ans := &SimDeposit{Stream: dep, Level: level, Amount: unitAmt.Mul(decimalInt(c)), SuccessPaths: counts[c]}
+	unitAmt := money.Minor(1, s.places)
+	ans := &SimDeposit{Stream: dep, Level: level, Amount: unitAmt.MulInt(int64(c)), SuccessPaths: counts[c]}
 	ans.Success = float64(ans.SuccessPaths) / float64(st.paths)
 	if c > 0 {
 		ok(c - 1)
-		ans.HasBelow, ans.Below, ans.BelowPaths = true, unitAmt.Mul(decimalInt(c-1)), counts[c-1]
+		ans.HasBelow, ans.Below, ans.BelowPaths = true, unitAmt.MulInt(int64(c-1)), counts[c-1]
 		ans.BelowSuccess = float64(ans.BelowPaths) / float64(st.paths)
 	}
 	ans.FirstAmount = ans.Amount

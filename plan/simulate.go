@@ -7,8 +7,6 @@ import (
 	"math/rand/v2"
 	"slices"
 
-	"github.com/shopspring/decimal"
-
 	"cairn/money"
 	"cairn/plan/internal/engine"
 	"cairn/plan/internal/par"
@@ -699,12 +697,12 @@ func (pg *simProgram) meets(bal, target float64) bool { return bal >= target-0.5
 
 // toMinor returns a in minor units (cents), exactly for an amount in them.
 func (pg *simProgram) toMinor(a money.Amount) float64 {
-	return a.Decimal().Shift(int32(pg.s.places)).InexactFloat64()
+	return a.MinorFloat(pg.s.places)
 }
 
 // amount returns x minor units as an amount rounded to them.
 func (pg *simProgram) amount(x float64) money.Amount {
-	return money.FromDecimal(decimal.NewFromFloat(x).Shift(-int32(pg.s.places))).Round(pg.s.places, pg.s.rounding)
+	return money.MinorRounded(x, pg.s.places, pg.s.rounding)
 }
 
 // successes counts the paths whose balance at the deadline meets their

@@ -458,7 +458,7 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	guess := int64(math.Ceil((target.Float() - b0) / per * scale))
 	c, ok := searchCents(meets, guess, int64(MaxAmountUnits)*int64(scale), true)
 	if !ok {
-		return nil, noSolution(g, "no amount up to the 1,000,000,000,000 limit meets the target")
+		return nil, noSolution(g, "no amount up to the %s limit meets the target", amountLimit)
 	}
 	set(c)
 	a := &Answer{Goal: g, For: ForDeposit, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: by, Target: target}

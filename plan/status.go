@@ -106,9 +106,9 @@ func StatusOf(p *Plan) *Status {
 
 // monthlyDeposits is the monthly equivalent of the goal's deposits in force
 // in the plan's first month, with stream s's amount replaced by amt when s
-// is set.
+// is set: a year's deposits, exactly, divided by 12 and rounded once.
 func monthlyDeposits(p *Plan, g *Goal, s *Stream, amt money.Amount) money.Amount {
-	total := money.Zero
+	year := money.Zero
 	for _, d := range g.Deposits {
 		if d.From != p.Start {
 			continue
@@ -117,7 +117,7 @@ func monthlyDeposits(p *Plan, g *Goal, s *Stream, amt money.Amount) money.Amount
 		if d == s {
 			a = amt
 		}
-		total = total.Add(a.Mul(decimalInt(int64(d.Every.PerYear()))).Mul(decimalInt(1).Div(decimalInt(12))))
+		year = year.Add(a.MulInt(int64(d.Every.PerYear())))
 	}
-	return total.Round(p.Currency.Places, p.Rounding)
+	return year.DivRound(12, p.Currency.Places, p.Rounding)
 }

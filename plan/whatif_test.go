@@ -62,6 +62,12 @@ func TestParseVary(t *testing.T) {
 		{"rate=3%,4%,5%", "rate", []string{"3%", "4%", "5%"}},
 		{"deposit=1,500;2,000", "deposit", []string{"1,500", "2,000"}},
 		{"by= 2030-01 , 2031-01 ,", "by", []string{"2030-01", "2031-01"}},
+		// commas that cannot group thousands separate values (common practice, no source)
+		{"deposit=50,75,1000", "deposit", []string{"50", "75", "1000"}},
+		{"leave=0,100k", "leave", []string{"0", "100k"}},
+		{"by=2049-12,2051-12", "by", []string{"2049-12", "2051-12"}},
+		{"deposit=1000,1500", "deposit", []string{"1000", "1500"}},
+		{"deposit=1,000;1,500;2,000.50", "deposit", []string{"1,000", "1,500", "2,000.50"}},
 	}
 	for _, tt := range tests {
 		t.Run(tt.in, func(t *testing.T) {
@@ -82,12 +88,48 @@ func TestParseVary_Errors(t *testing.T) {
 		{"rate= , ,", `invalid vary "rate= , ,"`},
 		{"rate", `invalid override "rate"`},
 		{"rat=3%,4%", `unknown override key "rat" (did you mean "rate"?)`},
+		// a comma that may group thousands is never split (issue 13 item 12)
+		{"deposit=1,000,1,500", `ambiguous list "1,000,1,500"`},
+		{"deposit=100,200", `ambiguous list "100,200"`},
+		{"deposit=1,000", `ambiguous list "1,000"`},
+		{"target=5,000 today,6000 today", `ambiguous list`},
+		{"deposit=2,000.50,3000", `ambiguous list`},
 	}
 	for _, tt := range tests {
 		t.Run(tt.in, func(t *testing.T) {
 			v, err := plan.ParseVary(tt.in)
 			if err == nil || !strings.Contains(err.Error(), tt.expect) {
 				t.Errorf("ParseVary(%q) = %+v, %v; want error containing %q", tt.in, v, err, tt.expect)
+			}
+		})
+	}
+}
+
+func TestCheckAxes(t *testing.T) {
+	ax := func(key string, vals ...string) plan.Vary { return plan.Vary{Key: key, Values: vals} }
+	tests := []struct {
+		name   string
+		axes   []plan.Vary
+		q      plan.Quantity
+		expect string // "" for accepted
+	}{
+		{"two keys", []plan.Vary{ax("rate", "5%"), ax("by", "2030-01")}, plan.ForDeposit, ""},
+		{"a key twice", []plan.Vary{ax("rate", "5%", "6%"), ax("rate", "7%")}, plan.ForDeposit, "rate is changed twice"},
+		{"deposit for deposit", []plan.Vary{ax("deposit", "100")}, plan.ForDeposit, "deposit is the quantity solved for (--for deposit)"},
+		{"rate for rate", []plan.Vary{ax("rate", "1%")}, plan.ForRate, "rate is the quantity solved for (--for rate)"},
+		{"balance for start", []plan.Vary{ax("balance", "0")}, plan.ForStart, "balance is the quantity solved for (--for start)"},
+		{"withdrawal for withdrawal", []plan.Vary{ax("withdrawal", "1k")}, plan.ForWithdrawal, "withdrawal is the quantity solved for"},
+		{"deposit for time", []plan.Vary{ax("deposit", "100")}, plan.ForTime, ""},
+		{"rate for deposit", []plan.Vary{ax("rate", "1%")}, plan.ForDeposit, ""},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			err := plan.CheckAxes(tt.axes, tt.q)
+			switch {
+			case tt.expect == "" && err != nil:
+				t.Errorf("CheckAxes = %v, want nil", err)
+			case tt.expect != "" && (err == nil || !strings.Contains(err.Error(), tt.expect)):
+				t.Errorf("CheckAxes = %v, want error containing %q", err, tt.expect)
 			}
 		})
 	}
@@ -150,14 +192,7 @@ func TestPlan_With(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(strings.Join(tt.ovs, " "), func(t *testing.T) {
-			var ovs []plan.Override
-			for _, s := range tt.ovs {
-				o, err := plan.ParseOverride(s)
-				if err != nil {
-					t.Fatal(err)
-				}
-				ovs = append(ovs, o)
-			}
+			ovs := mustOverrides(t, tt.ovs)
 			q, g, err := p.With(tt.goal, tt.stream, ovs)
 			if err != nil {
 				t.Fatalf("With(%q, %q, %v) error: %v", tt.goal, tt.stream, tt.ovs, err)
@@ -201,7 +236,9 @@ func TestPlan_With_Errors(t *testing.T) {
 		{"car", "", "deposit=-5", `deposit: negative amount "-5"`},
 		{"car", "lunch", "deposit=5", `deposit: goal "car" has no deposit stream named "lunch"`},
 		{"car", "", "withdrawal=5", `withdrawal: goal "car" has no withdrawal stream`},
-		{"car", "", "by=2026-01", `by: month 2026-01 is outside the plan (2027-01 to 2176-12)`},
+		// the file's message, one rule for both (issue 12: a what-if is refused like the file)
+		{"car", "", "by=2026-01", `by: month 2026-01 is before the plan's start 2027-01`},
+		{"car", "", "by=2177-01", `by: month 2177-01 is beyond the 150-year horizon (last month 2176-12)`},
 		{"car", "", "by=2026-13", `by: invalid month "2026-13"`},
 		{"car", "", "every=biweekly", `every: ambiguous frequency "biweekly"`},
 		{"car", "", "every=continuously", `every: continuous is for compounding only`},

@@ -5,9 +5,9 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"os"
 	"strings"
 	"time"
+	"unicode"
 
 	"github.com/urfave/cli/v2"
 
@@ -56,13 +56,20 @@ type env struct {
 // run runs cairn with the given arguments and returns its exit code. It is
 // main without the process: tests call it directly.
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer, now func() time.Time) int {
-	e := &env{stdin: stdin, stdout: stdout, stderr: stderr, now: now}
+	out := &outWriter{w: stdout}
+	e := &env{stdin: stdin, stdout: out, stderr: stderr, now: now}
+	if len(args) > 1 && args[1] == completeCommand {
+		return runComplete(e, args[2:])
+	}
 	app := newApp(e)
-	args, err := reorder(app, args)
+	err := plainArgs(args)
+	if err == nil {
+		args, err = reorder(app, args)
+	}
 	if err == nil {
 		err = app.Run(args)
 	}
-	return report(stderr, err)
+	return report(stderr, lostOutput(err, out))
 }
 
 // report prints err the way cairn prints errors and returns the exit code.
@@ -108,6 +115,34 @@ func report(w io.Writer, err error) int {
 	return exitBadInput
 }
 
+// plainArgs refuses an argument that holds a control character (a tab or
+// newline too) or an invisible one (see [plan.HiddenText]), naming where it
+// is without writing it to the terminal.
+func plainArgs(args []string) error {
+	for i := 1; i < len(args); i++ {
+		a := args[i]
+		what, at, ok := plan.HiddenText(a)
+		for j, r := range []rune(a) {
+			if unicode.IsControl(r) && (!ok || j < at) {
+				what, at, ok = fmt.Sprintf("control character U+%04X", r), j, true
+				break
+			}
+		}
+		if !ok {
+			continue
+		}
+		where := fmt.Sprintf("argument %d", i)
+		if name, _, eq := strings.Cut(a, "="); eq && strings.HasPrefix(a, "-") {
+			where, at = "the value of "+name, at-len([]rune(name))-1
+		} else if p := args[i-1]; i > 1 && strings.HasPrefix(p, "-") && !strings.Contains(p, "=") && !negativeNumber(p) {
+			where = "the value of " + p
+		}
+		return usagef("names and values on the command line are plain text: retype it rather than paste it",
+			"%s holds %s (character %d)", where, what, at+1)
+	}
+	return nil
+}
+
 // flagMessage rewords the flag package's messages in cairn's terms:
 // "flag provided but not defined: -x" becomes "unknown option --x", and
 // `invalid value "v" for flag -x: parse error` becomes `--x: invalid value "v"`.
@@ -119,6 +154,12 @@ func flagMessage(msg string) string {
 		if v, name, ok := strings.Cut(rest, " for flag "); ok {
 			name, _, _ = strings.Cut(name, ":")
 			return "--" + strings.TrimLeft(name, "-") + ": invalid value " + v
+		}
+	}
+	if rest, ok := strings.CutPrefix(msg, "invalid boolean value "); ok {
+		if v, name, ok := strings.Cut(rest, " for "); ok {
+			name, _, _ = strings.Cut(name, ":")
+			return "--" + strings.TrimLeft(name, "-") + " is on or off: give it alone (--" + strings.TrimLeft(name, "-") + "), or =true or =false, not " + v
 		}
 	}
 	if name, ok := strings.CutPrefix(msg, "flag needs an argument: "); ok {
@@ -182,11 +223,18 @@ func newApp(e *env) *cli.App {
 			convertCommand(e),
 			checkCommand(e),
 			initCommand(e),
+			completionCommand(e),
 			helpCommand(e),
 		},
 	}
 	for _, c := range app.Commands {
-		c.OnUsageError = app.OnUsageError
+		hint := "run `cairn " + c.Name + " --help` for usage"
+		c.OnUsageError = func(_ *cli.Context, err error, _ bool) error {
+			if errors.Is(err, flag.ErrHelp) {
+				return err
+			}
+			return usagef(hint, "%s", flagMessage(err.Error()))
+		}
 		c.HideHelpCommand = true // `cairn help COMMAND` is the help command's
 	}
 	return app
@@ -262,134 +310,4 @@ func reorder(app *cli.App, args []string) ([]string, error) {
 // an argument rather than a flag.
 func negativeNumber(a string) bool {
 	return len(a) > 1 && a[0] == '-' && (a[1] >= '0' && a[1] <= '9' || a[1] == '.')
-}
-
-// readPlan reads and parses the goals file named by the command's argument:
-// a path, "-" for standard input, or ./cairn.yaml when none is given.
-func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
-	asOf, err := asOfMonth(c, e)
-	if err != nil {
-		return nil, err
-	}
-	if c.NArg() > 1 {
-		return nil, usagef("give one goals file", "too many arguments: %s", strings.Join(c.Args().Slice(), " "))
-	}
-	name := c.Args().First()
-	var data []byte
-	switch name {
-	case "-":
-		name = "<stdin>"
-		data, err = io.ReadAll(io.LimitReader(e.stdin, plan.MaxFileSize+1))
-	case "":
-		name = "cairn.yaml"
-		if _, statErr := os.Stat(name); statErr != nil {
-			return nil, &inputError{err: errors.New("no goals file given and no cairn.yaml here"),
-				hint: "run `cairn init` to write an example cairn.yaml, or name a file: cairn status FILE"}
-		}
-		data, err = readFile(name)
-	default:
-		data, err = readFile(name)
-	}
-	if err != nil {
-		return nil, &inputError{err: err}
-	}
-	p, err := plan.Parse(name, data, asOf)
-	if err != nil {
-		return nil, &inputError{err: err, hint: "`cairn help file` lists every key with its default"}
-	}
-	sets, err := overrides(c)
-	if err != nil {
-		return nil, err
-	}
-	if len(sets) > 0 {
-		goal := c.String("goal")
-		if goal == "" && len(p.Goals) > 1 {
-			for _, o := range sets {
-				switch o.Key {
-				case "deposit", "withdrawal", "grow", "every":
-					return nil, usagef("name the goal with --goal", "--set %s needs --goal when the file has several goals", o.Key)
-				}
-			}
-		}
-		for _, g := range p.Goals {
-			if goal != "" && !strings.EqualFold(g.Name, goal) {
-				continue
-			}
-			if p, _, err = p.With(g.Name, streamFlag(c), sets); err != nil {
-				return nil, &inputError{err: fmt.Errorf("--set %v", err)}
-			}
-		}
-	}
-	return p, nil
-}
-
-func streamFlag(c *cli.Context) string {
-	if c.IsSet("stream") {
-		return c.String("stream")
-	}
-	return ""
-}
-
-func readFile(name string) ([]byte, error) {
-	f, err := os.Open(name)
-	if err != nil {
-		return nil, fmt.Errorf("cannot read goals file: %s", strings.TrimPrefix(err.Error(), "open "))
-	}
-	defer f.Close()
-	if st, err := f.Stat(); err == nil && st.IsDir() {
-		return nil, fmt.Errorf("%s is a directory, not a goals file", name)
-	}
-	data, err := io.ReadAll(io.LimitReader(f, plan.MaxFileSize+1))
-	if err != nil {
-		return nil, fmt.Errorf("cannot read goals file %s: %v", name, err)
-	}
-	return data, nil
-}
-
-func overrides(c *cli.Context) ([]plan.Override, error) {
-	var out []plan.Override
-	for _, s := range c.StringSlice("set") {
-		o, err := plan.ParseOverride(s)
-		if err != nil {
-			return nil, usagef("--set takes KEY=VALUE with KEY one of "+strings.Join(plan.OverrideKeys, ", "), "--set: %v", err)
-		}
-		out = append(out, o)
-	}
-	return out, nil
-}
-
-func asOfMonth(c *cli.Context, e *env) (plan.Month, error) {
-	if s := c.String("as-of"); s != "" {
-		m, err := plan.ParseMonth(s)
-		if err != nil {
-			return 0, usagef("", "--as-of: %v", err)
-		}
-		return m, nil
-	}
-	t := e.now()
-	return plan.MonthOf(t.Year(), t.Month()), nil
-}
-
-// goalOf returns the goal named by --goal.
-func goalOf(c *cli.Context, p *plan.Plan) (*plan.Goal, error) {
-	name := c.String("goal")
-	if name == "" {
-		if len(p.Goals) == 1 {
-			return p.Goals[0], nil
-		}
-		return nil, usagef("the goals are: "+goalNames(p), "--goal is required (the file has %d goals)", len(p.Goals))
-	}
-	g := p.Goal(name)
-	if g == nil {
-		return nil, usagef("the goals are: "+goalNames(p), "no goal named %q", name)
-	}
-	return g, nil
-}
-
-func goalNames(p *plan.Plan) string {
-	var ns []string
-	for _, g := range p.Goals {
-		ns = append(ns, fmt.Sprintf("%q", g.Name))
-	}
-	return strings.Join(ns, ", ")
 }

@@ -1,86 +1,26 @@
 package main
 
-// fileHelp documents every key of the goals file with its default.
-const fileHelp = `THE GOALS FILE (format version 1)
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"github.com/urfave/cli/v2"
+
+	"cairn/cmd/cairn/internal/render"
+	"cairn/plan"
+)
+
+// fileHelp documents every key of the goals file with its default; the
+// keys, defaults and meanings come from plan's table of keys.
+var fileHelp = `THE GOALS FILE (format version 1)
 
 A household's goals, in one YAML file. Indent with spaces. Amounts are written
 as people write them: 1500, 1,500.00, 1_500, $1,500, 1.5k, 1.2M. Months are
 YYYY-MM; a deadline month means the end of that month. Run ` + "`cairn init`" + ` to get
 an example to edit, and ` + "`cairn check FILE`" + ` to see what cairn understood.
 
-TOP LEVEL
-  cairn       required   the format version: 1
-  start       the month after --as-of (today)
-                         first month of the plan; t = 0 is its start, balances
-                         are as of then, and "today's money" means money then
-  currency    USD        ISO 4217 code (USD, EUR, GBP, JPY, ...), for display
-                         and for the places postings round to (JPY: 0)
-  inflation   0%         a year; grows "today" amounts, gives today's-money figures
-  inflation_volatility
-              0%         for cairn simulate: the volatility of inflation a year,
-                         such as 1% (see SIMULATION)
-  rounding    half-even  how each interest, fee and growing amount rounds to the
-                         cent: half-even or half-up
-  goals       required   a list of goals
-
-EACH GOAL
-  name        required   unique within the file
-  balance     0          already saved at the start
-  rate        0%         a rate, or a schedule of rates:
-                           rate: 4.1%                       (effective a year)
-                           rate: 4.1% apy                   (the same)
-                           rate: 3.9% compounded monthly    (nominal)
-                           rate: 5% compounded continuously
-                           rate: 0.35% per month            (periodic)
-                           rate:
-                             - 6.5%
-                             - from: 2045-01
-                               rate: 4.5%
-                         A bare rate is the effective annual rate. Interest is
-                         credited at the first rate's compounding dates: every
-                         1/m year for "compounded m", each period for "per",
-                         monthly for effective and continuous rates.
-  between     compound   what money arriving or leaving between two interest
-                         dates earns until the next one:
-                           compound  fractional-period compounding (the
-                                     effective rate per deposit period)
-                           simple    simple interest for the fraction
-                           none      nothing for deposits; withdrawals earn
-                                     nothing for that period
-  fee         0%         a year, taken monthly (a twelfth) from the balance
-  volatility  none       for cairn simulate: the volatility of returns a year,
-                         such as 12%, from 0% to 100% (see SIMULATION); none
-                         means returns are fixed
-  target      none       an amount, or "400k today" in today's money (grown by
-                         inflation to the deadline; needs by)
-  by          none       the deadline: the end of that month
-  deposits    none       a list of streams (below)
-  withdrawals none       a list of streams, plus for:
-  once        none       one-time amounts: positive in, negative out
-                           - name: gift       (optional)
-                             amount: 1,000
-                             on: 2027-12      (at the end of that month)
-  leave       0          balance that must remain after the last withdrawal;
-                         "50k today" is in today's money, grown by inflation
-                         to the last withdrawal. The money lasts only when
-                         every withdrawal is paid in full and this is left.
-
-EACH STREAM (deposits and withdrawals)
-  name        none       a label, used by --stream
-  amount      required   per period, 0 or more; "250 today" is in today's money
-                         and rises with inflation unless grow says otherwise
-  every       required   day, week, 2 weeks (fortnightly), half month (twice a
-                         month, semimonthly), month, 2 months, quarter, half
-                         year (twice a year, semiannually), year (annually).
-                         "biweekly" and "bimonthly" are refused: each means two
-                         different things.
-  timing      end        end or start of each period
-  from        start      first month with a period
-  until       none       last month with an amount (none: open-ended)
-  for         none       withdrawals only, instead of until: "30 years", "18 months"
-  grow        0%         a yearly rise of the amount, or "inflation"
-
-SIMULATION (cairn simulate)
+` + keySections() + `SIMULATION (cairn simulate)
   cairn simulate runs the plan many times (--paths, default 10,000) with
   random returns, and otherwise exactly as the ledger: the same streams,
   growth, fees, between rule, shortfalls and rounding. Each month draws one
@@ -104,10 +44,14 @@ SIMULATION (cairn simulate)
   results on every run and on any number of processors.
 
 LIMITS
-  a file of at most 1 MiB, 100 goals, 50 streams and 1,000 one-time amounts a
-  goal, 200 rate steps; dates within 150 years of the start; amounts up to
-  1,000,000,000,000; rates from -99% to 100% a year effective; fees up to 20%;
-  inflation from -50% to 50%.
+` + fmt.Sprintf("  a file of at most %d MiB, %d goals, %d streams and %s one-time amounts a\n"+
+	"  goal, %d rate steps; dates within %d years of the start; amounts up to\n"+
+	"  %s; rates from %d%% to %d%% a year effective; fees up to %d%%;\n"+
+	"  inflation from %d%% to %d%%.",
+	plan.MaxFileSize>>20, plan.MaxGoals, plan.MaxStreams, render.Grouped(plan.MaxOnce),
+	plan.MaxRateSteps, plan.HorizonYears, render.Grouped(plan.MaxAmountUnits),
+	plan.MinRatePercent, plan.MaxRatePercent, plan.MaxFeePercent,
+	-plan.MaxInflationPct, plan.MaxInflationPct) + `
 
 EXAMPLE
   cairn: 1
@@ -127,3 +71,90 @@ EXAMPLE
 cairn is a planning aid: its results are estimates, not financial, tax or
 investment advice.
 `
+
+// keySections lists the keys of the goals file by where they appear, each
+// with its default and meaning, from [plan.Keys].
+func keySections() string {
+	var b strings.Builder
+	for _, sec := range []struct {
+		title  string
+		scopes []plan.Scope
+	}{
+		{"TOP LEVEL", []plan.Scope{plan.InPlan}},
+		{"EACH GOAL", []plan.Scope{plan.InGoal}},
+		{"EACH STREAM (deposits and withdrawals)", []plan.Scope{plan.InStream, plan.InWithdrawal}},
+		{"EACH SCENARIO (under scenarios:)", []plan.Scope{plan.InScenario}},
+		{"EACH CHANGE OF A SCENARIO (under changes:; values as --set takes them)", []plan.Scope{plan.InChange}},
+	} {
+		b.WriteString(sec.title + "\n")
+		for _, k := range plan.Keys {
+			if !slices.Contains(sec.scopes, k.Scope) {
+				continue
+			}
+			const nameW, defW = 12, 11
+			line := "  " + k.Name
+			if len(k.Name) >= nameW {
+				b.WriteString(line + "\n")
+				line = ""
+			}
+			line = pad(line, 2+nameW) + k.Default
+			if len(k.Default) >= defW {
+				b.WriteString(line + "\n")
+				line = ""
+			}
+			for i, h := range strings.Split(k.Help, "\n") {
+				if i > 0 {
+					line = ""
+				}
+				b.WriteString(pad(line, 2+nameW+defW) + h + "\n")
+			}
+		}
+		b.WriteString("\n")
+	}
+	return b.String()
+}
+
+func pad(s string, w int) string { return s + strings.Repeat(" ", max(0, w-len(s))) }
+
+func helpCommand(e *env) *cli.Command {
+	return &cli.Command{
+		Name:      "help",
+		Usage:     "help on a command, or on the goals file: cairn help file",
+		ArgsUsage: "[COMMAND|file]",
+		Description: "cairn help file documents the goals file; --format schema writes it as a JSON Schema\n" +
+			"for editors instead. cairn help COMMAND --format schema writes the JSON Schema of the\n" +
+			"command's --format json output. cairn help --format man writes the manual as a man page.",
+		Flags: []cli.Flag{
+			&cli.StringFlag{Name: "format", Aliases: []string{"f"}, Value: "text", Usage: "`FORMAT`: text; schema (of the goals file or a command's JSON); man (the manual)"},
+		},
+		Action: func(c *cli.Context) error {
+			topic := c.Args().First()
+			format := c.String("format")
+			switch {
+			case format == "man" && topic == "":
+				_, err := e.stdout.Write(manPage(c.App))
+				return err
+			case format == "schema" && topic == "file":
+				_, err := e.stdout.Write(goalsSchema())
+				return err
+			case format == "schema" && jsonOutputs[topic] != nil:
+				_, err := e.stdout.Write(outputSchema(topic))
+				return err
+			case format != "text":
+				return usagef("cairn help file --format schema gives the goals file's schema, cairn help COMMAND --format schema a command's JSON output's; cairn help --format man the manual",
+					"help: unknown format %q for %s", format, strings.TrimSpace("help "+topic))
+			}
+			switch topic {
+			case "":
+				return cli.ShowAppHelp(c)
+			case "file":
+				fmt.Fprint(e.stdout, fileHelp)
+				return nil
+			}
+			if c.App.Command(topic) == nil {
+				return usagef("run `cairn --help` for the commands", "no help topic %q", topic)
+			}
+			return cli.ShowCommandHelp(c, topic)
+		},
+	}
+}

@@ -46,6 +46,11 @@ func TestRun_ExitCodes(t *testing.T) {
 	if err := os.WriteFile(hh, examples.Household, 0o644); err != nil {
 		t.Fatal(err)
 	}
+	// a goal without a deadline: a target in today's money is refused
+	nodeadline := filepath.Join(dir, "nodeadline.yaml")
+	if err := os.WriteFile(nodeadline, []byte("cairn: 1\ngoals:\n  - name: car\n    balance: 1,000\n    target: 5,000\n    deposits:\n      - {amount: 100, every: month}\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
 	bad := filepath.Join(dir, "bad.yaml")
 	if err := os.WriteFile(bad, []byte("cairn: 1\ngoals:\n  - name: x\n    targte: 5\n"), 0o644); err != nil {
 		t.Fatal(err)
@@ -67,10 +72,15 @@ func TestRun_ExitCodes(t *testing.T) {
 		{"unknown flag", []string{"status", "--bogus", hh}, 2},
 		{"flag without value", []string{"solve", hh, "--goal"}, 2},
 		{"unknown goal", []string{"solve", hh, "--goal", "Boat"}, 2},
+		{"unknown scenario", []string{"solve", hh, "--goal", "Retirement", "--scenario", "retire later"}, 2},
+		{"several scenarios where one is answered", []string{"solve", hh, "--goal", "Retirement", "--scenario", "lower returns", "--scenario", "bigger paycheck deposit"}, 2},
+		{"scenarios side by side", []string{"status", hh, "--scenarios"}, 0},
 		{"bad quantity", []string{"solve", hh, "--goal", "Education", "--for", "speed"}, 2},
 		{"bad format", []string{"status", hh, "--format", "xml"}, 2},
 		{"bad set", []string{"status", hh, "--set", "rate"}, 2},
 		{"bad set value", []string{"solve", hh, "--goal", "Education", "--set", "rate=fast"}, 2},
+		{"set refused like the file", []string{"solve", nodeadline, "--set", "target=5000 today"}, 2},
+		{"set with its deadline", []string{"solve", nodeadline, "--set", "target=5000 today", "--set", "by=2030-12"}, 0},
 		{"bad as-of", []string{"status", hh, "--as-of", "2026-13"}, 2},
 		{"convert", []string{"convert", "4.1%"}, 0},
 		{"convert bad", []string{"convert", "4.1"}, 2},

@@ -4,12 +4,14 @@ import (
 	"bytes"
 	"fmt"
 	"html/template"
+	"path/filepath"
 	"strconv"
 	"strings"
 
 	"github.com/urfave/cli/v2"
 
 	"cairn/cmd/cairn/internal/chart"
+	"cairn/cmd/cairn/internal/render"
 	"cairn/money"
 	"cairn/plan"
 )
@@ -33,9 +35,10 @@ func reportCommand(e *env) *cli.Command {
 			"open in a browser and print: A4 or Letter, each goal on a new page. It never overwrites a\n" +
 			"file unless --force is given; --out - writes the HTML to standard output.\n\n" +
 			"Example:\n   cairn report examples/household.yaml --out plan.html\n" +
-			"   cairn report examples/household.yaml --goal Retirement --out retirement.html --force",
+			"   cairn report examples/household.yaml --goal Retirement --out retirement.html --force\n\n" +
+			"With --scenario NAME the report is of the plan with the file's scenario NAME applied.",
 		Flags: []cli.Flag{
-			goalFlag(false),
+			goalFlag(false), scenarioFlag,
 			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Value: "plan.html", Usage: "write the report to `FILE`; - for standard output"},
 			&cli.BoolFlag{Name: "force", Usage: "overwrite an existing file"},
 			&cli.StringFlag{Name: "as-of", Usage: "today's `MONTH` (YYYY-MM); the plan starts the month after unless the file says start:"},
@@ -46,19 +49,18 @@ func reportCommand(e *env) *cli.Command {
 				return err
 			}
 			if name := c.String("goal"); name != "" {
-				g := p.Goal(name)
-				if g == nil {
+				if p.Goal(name) == nil {
 					return usagef("the goals are: "+goalNames(p), "no goal named %q", name)
 				}
 				q := *p
-				q.Goals = []*plan.Goal{g}
+				q.Goals = []*plan.Goal{p.Goal(name)}
 				p = &q
 			}
 			name := c.String("out")
 			if name == "" {
 				return usagef("for example --out plan.html, or --out - for standard output", "--out needs a file name")
 			}
-			data, drawdown, err := buildReport(p)
+			data, notices, err := buildReport(p)
 			if err != nil {
 				return err
 			}
@@ -68,15 +70,11 @@ func reportCommand(e *env) *cli.Command {
 				}
 				return nil
 			}
-			if err := writeFileAtomic(name, data, c.Bool("force")); err != nil {
+			if err := writeFileAtomic(name, data, c.Bool("force"), goalsFile(c)); err != nil {
 				return err
 			}
-			fmt.Fprintf(e.stdout, "wrote %s\n\n", name)
-			fmt.Fprint(e.stdout, wrap("Note: "+noteText, 80))
-			if drawdown {
-				fmt.Fprint(e.stdout, wrap("Caution: "+cautionText, 80))
-			}
-			return nil
+			d := &render.Doc{Blocks: []render.Block{render.Pre{Text: "wrote " + name + "\n"}}, Notices: notices}
+			return d.Write(e.stdout, e.stderr, render.FormatText)
 		},
 	}
 }
@@ -107,9 +105,10 @@ type simBand struct {
 	Points              []bandPoint
 }
 
-// goalBand returns the band of goal g from [plan.Simulate], or nil when
-// neither the goal's returns nor the plan's inflation have a volatility.
-func goalBand(p *plan.Plan, g *plan.Goal) (*simBand, error) {
+// goalSim returns the simulation of goal g from [plan.Simulate], or nil
+// when neither the goal's returns nor the plan's inflation have a
+// volatility.
+func goalSim(p *plan.Plan, g *plan.Goal) (*plan.Simulation, error) {
 	if !(g.HasVolatility && g.Volatility > 0) && !(p.HasInflationVolatility && p.InflationVolatility > 0) {
 		return nil, nil
 	}
@@ -117,6 +116,11 @@ func goalBand(p *plan.Plan, g *plan.Goal) (*simBand, error) {
 	if err != nil {
 		return nil, &inputError{err: fmt.Errorf("%s: simulation: %v", g.Name, err)}
 	}
+	return sim, nil
+}
+
+// bandOf is the 5–95 % band of simulation sim.
+func bandOf(g *plan.Goal, sim *plan.Simulation) (*simBand, error) {
 	b := &simBand{Paths: sim.Paths, Seed: sim.Seed, Volatility: sim.Volatility, InflationVolatility: sim.InflationVolatility}
 	lo, hi := -1, -1
 	for i, q := range plan.SimLevels {
@@ -136,146 +140,199 @@ func goalBand(p *plan.Plan, g *plan.Goal) (*simBand, error) {
 	return b, nil
 }
 
-// reportData is what the page template reads.
-type reportData struct {
-	Title    string
-	Footer   template.CSS // Title as a CSS string, for the running footer
-	Version  string
-	Meta     string
-	Note     string
-	Caution  string
-	Drawdown bool
-	Status   htmlTable
-	Remarks  []string
-	Goals    []goalPage
-}
-
-type goalPage struct {
-	ID          string
-	Kicker      string // "Goal 1 of 4: Emergency fund", the first text of its page
-	Name        string
-	Facts       []fact
-	Chart       template.HTML
-	ChartNote   string
-	Projection  htmlTable
-	Remarks     []string
-	Assumptions []fact
-	Drawdown    bool
-	Band        *simBand
-}
-
-type fact struct{ Term, Detail string }
-
-// An htmlTable is a table whose first column heads its rows.
-type htmlTable struct {
-	Class   string
-	Caption string
-	Head    []htmlCell
-	Rows    [][]htmlCell
-	Total   []htmlCell
-}
-
-type htmlCell struct {
-	Text string
-	Num  bool
-}
-
-// tableOf turns a grid of the text renderer into an HTML table, leaving out
-// hidden columns.
-func tableOf(g *grid, class, caption string) htmlTable {
-	t := htmlTable{Class: class, Caption: caption}
-	keep := func(row []string) []htmlCell {
-		var out []htmlCell
-		for i, s := range row {
-			if i < len(g.cols) && !g.cols[i].hidden {
-				out = append(out, htmlCell{Text: s, Num: g.cols[i].numeric})
-			}
-		}
-		return out
-	}
-	var head []string
-	for _, c := range g.cols {
-		head = append(head, c.head)
-	}
-	t.Head = keep(head)
-	for _, r := range g.rows {
-		t.Rows = append(t.Rows, keep(r))
-	}
-	if g.total != nil {
-		t.Total = keep(g.total)
-	}
-	return t
-}
-
-// buildReport renders the report of every goal of p, and says whether any
-// goal draws money down.
-func buildReport(p *plan.Plan) ([]byte, bool, error) {
+// buildReport renders the report of every goal of p from the documents
+// status and project print, and returns it with the notices of its first
+// page. Under a scenario, the sentence under the title says which and what
+// it changes.
+func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 	st := plan.StatusOf(p)
 	sd := statusDoc(p, st)
-	rd := reportData{
-		Title:   "Household plan: " + p.File,
-		Footer:  cssString("Household plan: " + p.File + " · a planning estimate, not advice"),
+	// The file's name only: a path from the author's machine means nothing
+	// to the reader of a printed page, and says more than it should.
+	file := filepath.Base(p.File)
+	pg := render.Page{
+		Title:   "Household plan: " + file,
+		Footer:  "Household plan: " + file + " · a planning estimate, not advice",
 		Version: Version,
 		Meta: fmt.Sprintf("From %s: %d %s from %s, amounts in %s, inflation %s a year; “today’s money” is money of %s.",
-			p.File, len(p.Goals), plural(len(p.Goals), "goal", "goals"), p.Start, p.Currency.Code, pct(p.Inflation.Effective()), p.Start),
-		Note:    noteText,
-		Caution: cautionText,
-		Status:  tableOf(sd.grids[0], "status", "Every goal: its target, the balance projected at its deadline, and the deposit that makes the deadline."),
-		Remarks: sd.after,
+			file, len(p.Goals), plural(len(p.Goals), "goal", "goals"), p.Start, p.Currency.Code, pct(p.Inflation.Effective()), p.Start),
+		Status:        sd.Tables()[0],
+		StatusCaption: "Every goal: its target, the balance projected at its deadline, and the deposit that makes the deadline.",
+		Remarks:       sd.After,
+		Budget:        budgetFacts(p, st),
 	}
+	drawdown := false
 	for i, gs := range st.Goals {
-		gp, err := goalReport(p, gs, i, len(st.Goals))
+		gf, err := figuresOf(p, gs)
 		if err != nil {
-			return nil, false, err
+			return nil, nil, err
 		}
-		rd.Drawdown = rd.Drawdown || gp.Drawdown
-		rd.Goals = append(rd.Goals, gp)
+		s, err := goalReport(p, gf, i, len(st.Goals))
+		if err != nil {
+			return nil, nil, err
+		}
+		drawdown = drawdown || hasDrawdown(gs.Goal)
+		pg.Goals = append(pg.Goals, s)
+		pg.Next = append(pg.Next, nextSteps(p, gf)...)
 	}
+	if p.Applied != "" {
+		pg.Meta += fmt.Sprintf(" Under the scenario “%s”: %s.", p.Applied, scenarioText(p.Scenario(p.Applied)))
+	}
+	pg.Notices = notices(drawdown)
 	var b bytes.Buffer
-	if err := reportPage.Execute(&b, rd); err != nil {
-		return nil, false, fmt.Errorf("writing the report: %v", err)
+	if err := pg.Write(&b); err != nil {
+		return nil, nil, err
 	}
-	return b.Bytes(), rd.Drawdown, nil
+	return b.Bytes(), pg.Notices, nil
 }
 
-func goalReport(p *plan.Plan, gs plan.GoalStatus, i, n int) (goalPage, error) {
-	g := gs.Goal
-	gp := goalPage{
-		ID:       "goal-" + strconv.Itoa(i+1),
-		Kicker:   fmt.Sprintf("Goal %d of %d: %s", i+1, n, g.Name),
-		Name:     g.Name,
-		Drawdown: hasDrawdown(g),
-	}
-	end := plan.Horizon(p, g)
-	l, err := plan.Project(p, g, end)
-	if err != nil {
-		return gp, err
-	}
-	band, err := goalBand(p, g)
-	if err != nil {
-		return gp, err
-	}
-	gp.Band = band
-	gp.Facts = goalFacts(p, gs)
-	rows := l.Rows(plan.ByYear, true)
-	gp.Chart, gp.ChartNote = goalChart(p, g, l, rows[:len(rows)-1], band, gp.ID)
-	gp.Projection = projectionTable(p, l, rows)
-	gp.Remarks = projectDoc(p, g, l, plan.ByYear).after
-	gp.Assumptions = assumptions(p, g)
-	return gp, nil
+// budgetFacts is the household's monthly saving: what every goal sets
+// aside now and what would make every deadline, the status figures. When
+// the plan gains a household budget, its lines belong here.
+func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
+	fs := &render.Facts{}
+	fs.Add("Set aside now, all goals", render.Text(amt(p, st.MonthlyNow)+" a month"))
+	fs.Add("Needed to make every deadline", render.Text(amt(p, st.MonthlyNeeded)+" a month"))
+	return fs
 }
 
-// goalFacts is the goal at a glance, from its status.
-func goalFacts(p *plan.Plan, gs plan.GoalStatus) []fact {
-	g := gs.Goal
-	var fs []fact
-	add := func(t, d string) { fs = append(fs, fact{t, d}) }
+// goalFigures are the answers the report shows for one goal, each asked
+// of the plan package once.
+type goalFigures struct {
+	plan.GoalStatus
+	Sim       *plan.Simulation // nil when the goal's returns are fixed
+	Income    *plan.Answer     // the largest sustainable withdrawal, for a goal with withdrawals
+	IncomeErr error
+}
+
+func figuresOf(p *plan.Plan, gs plan.GoalStatus) (goalFigures, error) {
+	gf := goalFigures{GoalStatus: gs}
+	var err error
+	if gf.Sim, err = goalSim(p, gs.Goal); err != nil {
+		return gf, err
+	}
+	if hasDrawdown(gs.Goal) {
+		gf.Income, gf.IncomeErr = plan.Solve(p, gs.Goal, plan.Question{For: plan.ForWithdrawal})
+	}
+	return gf, nil
+}
+
+// nextSteps says, for page 1, what the figures of one goal point to: the
+// deposit that makes its deadline, and for a drawdown how long the
+// withdrawals last and what the balance sustains.
+func nextSteps(p *plan.Plan, gf goalFigures) []string {
+	g := gf.Goal
+	var out []string
+	reached := "as planned it is not reached"
+	if gf.Reach == nil {
+		reached = "as planned it is reached in " + gf.Reached.String()
+	}
+	switch {
+	case !g.HasTarget:
+	case !g.HasBy:
+		out = append(out, fmt.Sprintf("%s: no deadline; %s.", g.Name, reached))
+	case gf.NeededErr != nil && !gf.OnTrack:
+		out = append(out, fmt.Sprintf("%s: short by %s at %s, and no deposit makes it (%s): move the deadline or change the target.", g.Name, amt(p, gf.Short), g.By, reasonOf(gf.NeededErr)))
+	case gf.NeededErr != nil:
+		out = append(out, fmt.Sprintf("%s: on track for %s by %s; %s.", g.Name, amt(p, gf.TargetAt), g.By, reached))
+	case !gf.OnTrack:
+		a := gf.Needed
+		s := fmt.Sprintf("%s: raise %s from %s to %s %s to reach %s by the end of %s; %s.", g.Name, streamLabel(a.Stream),
+			streamAmount(p, a.Stream), amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), amt(p, gf.TargetAt), g.By, reached)
+		if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+			s += " (" + fy + ".)"
+		}
+		out = append(out, s)
+	default:
+		a := gf.Needed
+		out = append(out, fmt.Sprintf("%s: on track; keep %s at %s %s (%s would do); %s.", g.Name, streamLabel(a.Stream),
+			streamAmount(p, a.Stream), every(a.Stream), amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), reached))
+	}
+	if hasDrawdown(g) {
+		s := g.Name + ": " + lastsWords(p, gf)
+		if gf.Income != nil {
+			s += "; the balance sustains " + incomeWords(p, gf.Income)
+		}
+		out = append(out, s+".")
+	}
+	return out
+}
+
+// streamAmount is the amount of stream s as the file gives it.
+func streamAmount(p *plan.Plan, s *plan.Stream) string {
+	if s.Today {
+		return amt(p, s.Amount) + " in today’s money"
+	}
+	return amt(p, s.Amount)
+}
+
+// lastsWords says how long the planned withdrawals last.
+func lastsWords(p *plan.Plan, gf goalFigures) string {
+	switch {
+	case gf.Lasts != nil && gf.Lasts.Lasts:
+		return fmt.Sprintf("the planned withdrawals last through %s, leaving %s", gf.Lasts.Month, amt(p, gf.Lasts.Left))
+	case gf.Lasts != nil && gf.Lasts.Paid:
+		return "the planned withdrawals are paid but do not last: " + gf.Lasts.Note
+	case gf.Lasts != nil:
+		return "the planned withdrawals run out in " + gf.Lasts.Month.String()
+	case gf.LastsErr != nil:
+		return "the planned withdrawals: " + reasonOf(gf.LastsErr)
+	}
+	return ""
+}
+
+// incomeWords says the largest sustainable withdrawal of answer a.
+func incomeWords(p *plan.Plan, a *plan.Answer) string {
+	s := fmt.Sprintf("%s of %s %s from %s through %s, leaving %s", streamLabel(a.Stream),
+		amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), a.Stream.From, a.Deadline, amt(p, a.Left))
+	if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+		s += " (" + fy + ")"
+	}
+	return s
+}
+
+// goalReport is the page of goal i of n: its facts, the chart, the table and
+// remarks of its yearly projection, and its assumptions.
+func goalReport(p *plan.Plan, gf goalFigures, i, n int) (render.Section, error) {
+	g := gf.Goal
+	s := render.Section{
+		ID:     "goal-" + strconv.Itoa(i+1),
+		Kicker: fmt.Sprintf("Goal %d of %d: %s", i+1, n, g.Name),
+		Name:   g.Name,
+	}
+	l, err := plan.Project(p, g, plan.Horizon(p, g))
+	if err != nil {
+		return s, err
+	}
+	var band *simBand
+	if gf.Sim != nil {
+		if band, err = bandOf(g, gf.Sim); err != nil {
+			return s, err
+		}
+	}
+	pd := projectDoc(p, g, l, plan.ByYear)
+	s.Notices = pd.Notices
+	s.Facts = goalFacts(p, gf)
+	s.Figure = goalChart(p, g, l, l.Rows(plan.ByYear, false), band, s.ID)
+	s.Projection = pd.Tables()[0]
+	s.ProjectionCaption = fmt.Sprintf("%s by year, %s to %s, in %s; the last column is the closing balance in money of %s.", g.Name, l.Start, l.End, p.Currency.Code, p.Start)
+	s.Remarks = pd.After
+	s.Assumptions = assumptions(p, g)
+	return s, nil
+}
+
+// goalFacts is the goal at a glance, from its status, and for a drawdown
+// what the balance sustains and how many simulated paths last.
+func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
+	g := gf.Goal
+	fs := &render.Facts{}
+	add := func(t, d string) { fs.Add(t, render.Text(d)) }
 	if g.HasTarget {
 		t := amt(p, g.Target)
 		if g.TargetToday {
 			t += " in today’s money"
 			if g.HasBy {
-				t += fmt.Sprintf(" (%s in money of %s)", amt(p, gs.TargetAt), g.By)
+				t += fmt.Sprintf(" (%s in money of %s)", amt(p, gf.TargetAt), g.By)
 			}
 		}
 		add("Target", t)
@@ -284,49 +341,83 @@ func goalFacts(p *plan.Plan, gs plan.GoalStatus) []fact {
 		add("Deadline", "the end of "+g.By.String())
 	}
 	if g.HasTarget && g.HasBy {
-		s := amt(p, gs.Projected) + ": on track"
-		if !gs.OnTrack {
-			s = amt(p, gs.Projected) + ": short by " + amt(p, gs.Short)
+		s := amt(p, gf.Projected) + ": on track"
+		if !gf.OnTrack {
+			s = amt(p, gf.Projected) + ": short by " + amt(p, gf.Short)
 		}
 		add("Projected at the deadline", s)
-		if gs.NeededErr == nil {
-			a := gs.Needed
-			add("Needed to make the deadline", fmt.Sprintf("%s %s (%s)", amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), streamLabel(a.Stream)))
+		if gf.NeededErr == nil {
+			a := gf.Needed
+			need := fmt.Sprintf("%s %s (%s)", amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), streamLabel(a.Stream))
+			if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+				need += "; " + fy
+			}
+			add("Needed to make the deadline", need)
 		} else {
-			add("Needed to make the deadline", "no deposit makes it: "+reasonOf(gs.NeededErr))
+			add("Needed to make the deadline", "no deposit makes it: "+reasonOf(gf.NeededErr))
 		}
 	}
 	if g.HasTarget {
-		if gs.Reach == nil {
-			add("Target reached", gs.Reached.String())
+		if gf.Reach == nil {
+			add("Target reached", gf.Reached.String())
 		} else {
-			add("Target reached", "not reached: "+reasonOf(gs.Reach))
+			add("Target reached", "not reached: "+reasonOf(gf.Reach))
 		}
 	}
 	if len(g.Deposits) > 0 {
-		add("Set aside now", amt(p, gs.MonthlyNow)+" a month")
+		add("Set aside now", amt(p, gf.MonthlyNow)+" a month")
 	}
-	if gs.Lasts != nil {
-		if gs.Lasts.Lasts {
-			add("The money", fmt.Sprintf("lasts through %s, leaving %s", gs.Lasts.Month, amt(p, gs.Lasts.Left)))
-		} else if gs.Lasts.Paid {
-			add("The money", "does not last: "+gs.Lasts.Note)
-		} else {
-			add("The money", "runs out in "+gs.Lasts.Month.String())
-		}
-	} else if gs.LastsErr != nil {
-		add("The money", reasonOf(gs.LastsErr))
+	if sim := gf.Sim; sim != nil && sim.HasTarget {
+		add("Simulated paths reaching the target", fmt.Sprintf("%s of %s at the deadline%s", share(sim.Success), render.Grouped(sim.Paths), simWords(sim)))
+	}
+	if !hasDrawdown(g) {
+		return fs
+	}
+	switch {
+	case gf.Lasts != nil && gf.Lasts.Lasts:
+		add("Planned withdrawals", fmt.Sprintf("last through %s", gf.Lasts.Month))
+		add("Left after the last withdrawal", amt(p, gf.Lasts.Left))
+	case gf.Lasts != nil && gf.Lasts.Paid:
+		add("Planned withdrawals", fmt.Sprintf("paid through %s, but short of what is to be left", gf.Lasts.Month))
+		add("Left after the last withdrawal", amt(p, gf.Lasts.Left)+", short of "+amt(p, gf.Lasts.Target))
+	case gf.Lasts != nil:
+		add("Planned withdrawals", "run out in "+gf.Lasts.Month.String())
+		add("Left after the last withdrawal", "nothing: the balance runs out first")
+	case gf.LastsErr != nil:
+		add("Planned withdrawals", reasonOf(gf.LastsErr))
+	}
+	if gf.Income != nil {
+		add("Sustainable income", incomeWords(p, gf.Income))
+	} else if gf.IncomeErr != nil {
+		add("Sustainable income", reasonOf(gf.IncomeErr))
+	}
+	if sim := gf.Sim; sim != nil && sim.HasWithdrawals {
+		add("Simulated paths that last", fmt.Sprintf("%s of %s pay every planned withdrawal through %s%s", share(sim.Lasts), render.Grouped(sim.Paths), sim.LastWithdrawal, simWords(sim)))
+	} else {
+		add("Simulated paths that last", "not simulated: the file gives fixed returns (no volatility), so the lines above are the only path")
 	}
 	return fs
+}
+
+// share is a share of simulated paths, one decimal: "62.3%".
+func share(x float64) string { return render.Share(x, 1).String() }
+
+// simWords says how the paths of sim were drawn.
+func simWords(sim *plan.Simulation) string {
+	s := fmt.Sprintf(" (seed %d, volatility of returns %s a year", sim.Seed, pct(sim.Volatility))
+	if sim.InflationVolatility > 0 {
+		s += fmt.Sprintf(", of inflation %s", pct(sim.InflationVolatility))
+	}
+	return s + ")"
 }
 
 // yearEnd is the time-axis position of the end of month m.
 func yearEnd(m plan.Month) float64 { return float64(m.Year()) + float64(m.Calendar())/12 }
 
 // goalChart draws the balance by year end: in money of each date and in
-// today's money, the target and the deadline, and the simulation's band. It
-// returns the chart and its caption.
-func goalChart(p *plan.Plan, g *plan.Goal, l *plan.Ledger, rows []plan.Row, band *simBand, id string) (template.HTML, string) {
+// today's money, the target and the deadline, and the simulation's band,
+// with its caption.
+func goalChart(p *plan.Plan, g *plan.Goal, l *plan.Ledger, rows []plan.Row, band *simBand, id string) render.Figure {
 	start := float64(p.Start.Year()) + float64(p.Start.Calendar()-1)/12
 	nominal := chart.Series{Label: "balance", Dash: chart.Solid, Width: 2.75, X: []float64{start}, Y: []float64{l.Opening.Float()}}
 	today := chart.Series{Label: "balance in today’s money", Dash: chart.Dashed, Width: 1.5, X: []float64{start}, Y: []float64{l.Opening.Float()}}
@@ -385,73 +476,19 @@ func goalChart(p *plan.Plan, g *plan.Goal, l *plan.Ledger, rows []plan.Row, band
 			vol += fmt.Sprintf(" and of inflation of %s a year", pct(band.InflationVolatility))
 		}
 		s := fmt.Sprintf("Grey band: the 5th to 95th percentile of the balance over %s simulated paths (seed %d), with %s.",
-			groupInt(band.Paths), band.Seed, vol)
+			render.Grouped(band.Paths), band.Seed, vol)
 		desc = append(desc, s)
 		caption += " " + s + " " + simCaution
 	}
 	c.Desc = strings.Join(desc, " ")
-	return template.HTML(c.SVG()), caption
-}
-
-// cssString quotes s as a CSS string, escaping every character that could
-// end the string or the style element.
-func cssString(s string) template.CSS {
-	var b strings.Builder
-	b.WriteByte('"')
-	for _, r := range s {
-		switch {
-		case r == '"' || r == '\\' || r == '<' || r == '>' || r == '&' || r < 0x20 || r == 0x7f:
-			fmt.Fprintf(&b, "\\%x ", r)
-		default:
-			b.WriteRune(r)
-		}
-	}
-	b.WriteByte('"')
-	return template.CSS(b.String())
-}
-
-func groupInt(n int) string { return money.Units(int64(n)).Format(money.Currency{Places: 0}, false) }
-
-// projectionTable is the yearly projection with cents, leaving out the fee
-// and withdrawal columns of a goal that has none.
-func projectionTable(p *plan.Plan, l *plan.Ledger, rows []plan.Row) htmlTable {
-	var hasFees, hasOut bool
-	for _, r := range rows {
-		hasFees = hasFees || !r.Fees.IsZero()
-		hasOut = hasOut || !r.Withdrawals.IsZero()
-	}
-	t := htmlTable{Class: "projection",
-		Caption: fmt.Sprintf("%s by year, %s to %s, in %s; the last column is the closing balance in money of %s.", l.Goal.Name, l.Start, l.End, p.Currency.Code, p.Start)}
-	cells := func(r plan.Row) []htmlCell {
-		cs := []htmlCell{{Text: r.Label}, {amt(p, r.Opening), true}, {amt(p, r.Deposits), true}, {amt(p, r.Interest), true}}
-		if hasFees {
-			cs = append(cs, htmlCell{amt(p, r.Fees), true})
-		}
-		if hasOut {
-			cs = append(cs, htmlCell{amt(p, r.Withdrawals), true})
-		}
-		return append(cs, htmlCell{amt(p, r.Closing), true}, htmlCell{amt(p, r.ClosingToday), true})
-	}
-	t.Head = []htmlCell{{Text: "year"}, {"opening", true}, {"deposits", true}, {"interest", true}}
-	if hasFees {
-		t.Head = append(t.Head, htmlCell{"fees", true})
-	}
-	if hasOut {
-		t.Head = append(t.Head, htmlCell{"withdrawals", true})
-	}
-	t.Head = append(t.Head, htmlCell{"closing", true}, htmlCell{"in today’s money", true})
-	for _, r := range rows[:len(rows)-1] {
-		t.Rows = append(t.Rows, cells(r))
-	}
-	t.Total = cells(rows[len(rows)-1])
-	return t
+	return render.Figure{SVG: template.HTML(c.SVG()), Caption: caption}
 }
 
 // assumptions says, in words, what the projection of g assumes.
-func assumptions(p *plan.Plan, g *plan.Goal) []fact {
+func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 	v := plan.Describe(p, g)
-	var fs []fact
-	add := func(t, d string) { fs = append(fs, fact{t, d}) }
+	fs := &render.Facts{}
+	add := func(t, d string) { fs.Add(t, render.Text(d)) }
 	var rates, credits []string
 	for i, st := range g.Rates {
 		s := st.Rate.String()
@@ -463,10 +500,10 @@ func assumptions(p *plan.Plan, g *plan.Goal) []fact {
 			from = "from " + st.From.String()
 		}
 		rates = append(rates, s+", "+from)
-		credits = append(credits, pct(v.PerCredit[i])+" a credit "+from)
+		credits = append(credits, pct(v.PerCredit[i])+" per compounding period "+from)
 	}
 	add("Rate", strings.Join(rates, "; "))
-	add("Interest credited", v.Compounding.Adjective()+": "+strings.Join(credits, "; "))
+	add("Interest", interestWords(v.Compounding)+": "+strings.Join(credits, "; "))
 	add("Between interest dates", fmt.Sprintf("%s: %s", g.Between, g.Between.Words()))
 	if g.Fee > 0 {
 		add("Fee", pct(g.Fee)+" a year of the balance, a twelfth taken at each month end")
@@ -522,160 +559,3 @@ func streamWords(p *plan.Plan, sv plan.StreamView) string {
 	}
 	return w
 }
-
-// reportPage is the page. Its CSS prints on A4 and on Letter alike: size
-// auto takes the printer's paper, and the margins (15 mm, 16 mm at the
-// foot) leave a text block of 180 × 266 mm on A4 (210 × 297 mm) and
-// 186 × 248 mm on Letter (216 × 279 mm); the layout is fluid, so it fits
-// either. The @page margin boxes hold our own footer, which also keeps
-// Chromium from printing its date and file address there. Series are told
-// apart by dash and weight, the band by a grey fill, so that greyscale
-// printing loses nothing.
-var reportPage = template.Must(template.Must(template.New("report").Parse(`<!DOCTYPE html>
-<html xmlns="http://www.w3.org/1999/xhtml" lang="en">
-<head>
-<meta charset="utf-8"/>
-<meta name="viewport" content="width=device-width, initial-scale=1"/>
-<meta name="generator" content="cairn {{.Version}}"/>
-<title>{{.Title}}</title>
-<style>
-@page {
-  size: auto;
-  margin: 15mm 15mm 16mm 15mm;
-  @top-left { content: ""; }
-  @bottom-left { content: {{.Footer}}; font: 7.5pt "DejaVu Sans", Arial, sans-serif; }
-  @bottom-right { content: "page " counter(page) " of " counter(pages); font: 7.5pt "DejaVu Sans", Arial, sans-serif; }
-}
-html { color: #000; background: #fff; }
-body { font-family: "DejaVu Serif", Georgia, "Times New Roman", serif; font-size: 10.5pt; line-height: 1.4; max-width: 50rem; margin: 1.5rem auto; padding: 0 1rem; }
-h1, h2, h3, caption, th, .kicker, dt { font-family: "DejaVu Sans", "Helvetica Neue", Arial, sans-serif; }
-h1 { font-size: 20pt; margin: 0 0 0.2rem; }
-h2 { font-size: 16pt; margin: 0.1rem 0 0.6rem; }
-h3 { font-size: 11.5pt; margin: 1.2rem 0 0.4rem; }
-.kicker { font-size: 9pt; letter-spacing: 0.02em; margin: 0; }
-.meta { margin: 0 0 1rem; }
-.note { border-top: 0.75pt solid #000; border-bottom: 0.75pt solid #000; padding: 0.35rem 0; font-size: 9.5pt; }
-.note p { margin: 0.15rem 0; }
-table { border-collapse: collapse; width: 100%; font-size: 9pt; font-variant-numeric: tabular-nums; margin: 0.3rem 0 0.6rem; }
-caption { caption-side: top; text-align: left; font-size: 9pt; padding: 0 0 0.3rem; }
-th, td { padding: 0.12rem 0.4rem; border-bottom: 0.5pt solid #9a9a9a; vertical-align: top; text-align: left; }
-.num { text-align: right; white-space: nowrap; }
-thead th { border-bottom: 1.25pt solid #000; font-weight: bold; }
-tbody th { font-weight: normal; }
-tfoot th, tfoot td { border-top: 1.25pt solid #000; border-bottom: none; font-weight: bold; }
-table.status td, table.status th { font-size: 8.5pt; }
-figure { margin: 0.6rem 0; }
-svg.chart { display: block; width: 100%; height: auto; }
-figcaption { font-size: 9pt; }
-figcaption p { margin: 0.1rem 0; }
-dl { display: grid; grid-template-columns: max-content auto; gap: 0.1rem 1rem; margin: 0.4rem 0; font-size: 9.5pt; }
-dt { font-weight: bold; font-size: 9pt; }
-dd { margin: 0; }
-ul.remarks { padding-left: 1.2rem; }
-@media print {
-  body { max-width: none; margin: 0; padding: 0; font-size: 10pt; }
-  section.goal { break-before: page; page-break-before: always; }
-  thead { display: table-header-group; }
-  tfoot { display: table-row-group; }
-  tr, figure, dl.facts, .note { break-inside: avoid; page-break-inside: avoid; }
-  dt { break-after: avoid; page-break-after: avoid; }
-  h2, h3, caption, .kicker { break-after: avoid; page-break-after: avoid; }
-  a { color: inherit; text-decoration: none; }
-}
-</style>
-</head>
-<body>
-<header>
-<h1>Household plan</h1>
-<p class="meta">{{.Meta}}</p>
-</header>
-<main>
-<section id="status" class="summary" aria-labelledby="status-h">
-<h2 id="status-h">The household at a glance</h2>
-{{template "table" .Status}}
-{{- if .Remarks}}
-<ul class="remarks">
-{{- range .Remarks}}
-<li>{{.}}</li>
-{{- end}}
-</ul>
-{{- end}}
-<nav aria-label="goals">
-<p>Each goal follows on its own page:</p>
-<ol>
-{{- range .Goals}}
-<li><a href="#{{.ID}}">{{.Name}}</a></li>
-{{- end}}
-</ol>
-</nav>
-{{template "note" .}}
-</section>
-{{- range .Goals}}
-<section id="{{.ID}}" class="goal" aria-labelledby="{{.ID}}-h">
-<p class="kicker">{{.Kicker}}</p>
-<h2 id="{{.ID}}-h">{{.Name}}</h2>
-<dl class="facts">
-{{- range .Facts}}
-<dt>{{.Term}}</dt><dd>{{.Detail}}</dd>
-{{- end}}
-</dl>
-<figure class="balance">
-{{.Chart}}
-<figcaption>{{.ChartNote}}</figcaption>
-</figure>
-<h3>Yearly projection</h3>
-{{template "table" .Projection}}
-{{- range .Remarks}}
-<p class="remark">{{.}}</p>
-{{- end}}
-<h3>Assumptions</h3>
-<dl class="assumptions">
-{{- range .Assumptions}}
-<dt>{{.Term}}</dt><dd>{{.Detail}}</dd>
-{{- end}}
-</dl>
-<div class="note">
-<p><strong>Note:</strong> {{$.Note}}</p>
-{{- if .Drawdown}}
-<p class="caution"><strong>Caution:</strong> {{$.Caution}}</p>
-{{- end}}
-</div>
-</section>
-{{- end}}
-</main>
-</body>
-</html>
-`)).Parse(`
-{{define "table" -}}
-<table class="{{.Class}}">
-<caption>{{.Caption}}</caption>
-<thead>
-<tr>
-{{- range .Head}}<th scope="col"{{if .Num}} class="num"{{end}}>{{.Text}}</th>{{end -}}
-</tr>
-</thead>
-<tbody>
-{{- range .Rows}}
-<tr>
-{{- range $i, $c := .}}{{if eq $i 0}}<th scope="row">{{$c.Text}}</th>{{else}}<td{{if $c.Num}} class="num"{{end}}>{{$c.Text}}</td>{{end}}{{end -}}
-</tr>
-{{- end}}
-</tbody>
-{{- if .Total}}
-<tfoot>
-<tr>
-{{- range $i, $c := .Total}}{{if eq $i 0}}<th scope="row">{{$c.Text}}</th>{{else}}<td{{if $c.Num}} class="num"{{end}}>{{$c.Text}}</td>{{end}}{{end -}}
-</tr>
-</tfoot>
-{{- end}}
-</table>
-{{- end}}
-{{define "note" -}}
-<div class="note">
-<p><strong>Note:</strong> {{.Note}}</p>
-{{- if .Drawdown}}
-<p class="caution"><strong>Caution:</strong> {{.Caution}}</p>
-{{- end}}
-</div>
-{{- end}}
-`))

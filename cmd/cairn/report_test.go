@@ -14,6 +14,7 @@ import (
 	"strings"
 	"testing"
 
+	"cairn/cmd/cairn/internal/render"
 	"cairn/examples"
 	"cairn/plan"
 )
@@ -423,7 +424,7 @@ func TestReport_Rules(t *testing.T) {
 				if want := g.HasVolatility && g.Volatility > 0 || p.HasInflationVolatility && p.InflationVolatility > 0; band != want {
 					t.Errorf("%s: band drawn %v, want %v (volatility %v)", g.Name, band, want, g.Volatility)
 				}
-				if band && !strings.Contains(st, fmt.Sprintf("%s simulated paths (seed %d)", groupInt(reportPaths), reportSeed)) {
+				if band && !strings.Contains(st, fmt.Sprintf("%s simulated paths (seed %d)", render.Grouped(reportPaths), reportSeed)) {
 					t.Errorf("%s: the band does not state its paths and seed", g.Name)
 				}
 			}
@@ -451,15 +452,17 @@ func TestReport_Figures(t *testing.T) {
 	if len(status) != 1 {
 		t.Fatalf("%d status tables, want 1", len(status))
 	}
-	want := tableOf(statusDoc(p, plan.StatusOf(p)).grids[0], "", "")
+	want := statusDoc(p, plan.StatusOf(p)).Tables()[0]
 	rows := status[0].find(func(n *node) bool { return n.name == "tr" && n.parent.name == "tbody" })
 	if len(rows) != len(want.Rows) {
 		t.Fatalf("status table: %d rows, want %d", len(rows), len(want.Rows))
 	}
 	for i, r := range rows {
 		var w []string
-		for _, c := range want.Rows[i] {
-			w = append(w, c.Text)
+		for k, c := range want.Rows[i] {
+			if !want.Cols[k].Hidden {
+				w = append(w, c.String())
+			}
 		}
 		if got := cells(r); strings.Join(got, "|") != strings.Join(w, "|") {
 			t.Errorf("status row %d = %q, want %q (as cairn status prints it)", i+1, got, w)
@@ -521,7 +524,7 @@ func TestReport_Writes(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("report: exit %d", code)
 	}
-	if want := "wrote " + out + "\n\n" + wrap("Note: "+noteText, 80) + wrap("Caution: "+cautionText, 80); stdout != want {
+	if want := "wrote " + out + "\n\n" + render.Wrap("Note: "+noteText, render.LineWidth) + render.Wrap("Caution: "+cautionText, render.LineWidth); stdout != want {
 		t.Errorf("stdout = %q, want %q", stdout, want)
 	}
 	first, err := os.ReadFile(out)
@@ -667,5 +670,84 @@ func TestReport_PDF(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestReport_HandOver checks what makes the report fit to hand over (issue
+// 17): the file is named by its base name only, page 1 holds the
+// household's monthly saving and what to do next, a drawdown goal shows the
+// income the balance sustains, what is left and the share of simulated
+// paths that last, and no label is a vague "The money".
+func TestReport_HandOver(t *testing.T) {
+	dir := t.TempDir()
+	abs := filepath.Join(dir, "nested", "household.yaml")
+	if err := os.MkdirAll(filepath.Dir(abs), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(abs, examples.Household, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var stdout, stderr bytes.Buffer
+	if code := run([]string{"cairn", "report", abs, "--out", "-", "--as-of", "2026-12"}, strings.NewReader(""), &stdout, &stderr, fixedNow); code != 0 {
+		t.Fatalf("report: exit %d\n%s", code, stderr.String())
+	}
+	data := stdout.String()
+	if strings.Contains(data, dir) {
+		t.Errorf("the report holds the absolute path %s", dir)
+	}
+	if !strings.Contains(data, `content: "Household plan: household.yaml · a planning estimate, not advice"`) {
+		t.Errorf("the footer does not name household.yaml")
+	}
+	root := parseXHTML(t, stdout.Bytes())
+	summary := root.find(func(n *node) bool { return n.attrs["id"] == "status" })
+	if len(summary) != 1 {
+		t.Fatalf("%d summary sections", len(summary))
+	}
+	p, err := plan.Parse("household.yaml", examples.Household, plan.MonthOf(2026, 12))
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := plan.StatusOf(p)
+	first := summary[0].allText()
+	for _, want := range []string{
+		"Saving each month", "Set aside now, all goals " + amt(p, st.MonthlyNow) + " a month",
+		"Needed to make every deadline " + amt(p, st.MonthlyNeeded) + " a month",
+		"What to do next",
+		// the status figures, worded: examples/household.yaml's status (cairn status)
+		"Emergency fund: raise paycheck from 150.00 to 160.00 every 2 weeks to reach 15,000.00 by the end of 2029-06; as planned it is reached in 2029-08.",
+		"Retirement: the planned withdrawals run out in 2071-02; the balance sustains income of 2,917.31 in today's money",
+	} {
+		if !strings.Contains(first, want) {
+			t.Errorf("page 1 lacks %q:\n%s", want, first)
+		}
+	}
+	retirement := root.find(func(n *node) bool { return n.attrs["id"] == "goal-4" })
+	if len(retirement) != 1 {
+		t.Fatal("no section for the fourth goal")
+	}
+	g := p.Goal("Retirement")
+	income, err := plan.Solve(p, g, plan.Question{For: plan.ForWithdrawal})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sim, err := plan.Simulate(p, g, plan.SimOptions{Paths: reportPaths, Seed: reportSeed})
+	if err != nil {
+		t.Fatal(err)
+	}
+	rt := retirement[0].allText()
+	for _, want := range []string{
+		"Sustainable income income of " + amt(p, income.Amount) + " in today's money",
+		"Left after the last withdrawal nothing: the balance runs out first",
+		"Planned withdrawals run out in 2071-02",
+		fmt.Sprintf("Simulated paths that last %s of 2,000 pay every planned withdrawal through 2081-12", render.Share(sim.Lasts, 1)),
+	} {
+		if !strings.Contains(rt, want) {
+			t.Errorf("the Retirement page lacks %q:\n%s", want, rt)
+		}
+	}
+	for _, dt := range root.find(func(n *node) bool { return n.name == "dt" }) {
+		if strings.HasPrefix(dt.allText(), "The money") {
+			t.Errorf("label %q is not plain: say what it is", dt.allText())
+		}
 	}
 }

@@ -1,21 +1,19 @@
 package main
 
 import (
-	"bytes"
 	"fmt"
 	"strconv"
 	"strings"
 
 	"github.com/urfave/cli/v2"
 
-	"cairn/money"
+	"cairn/cmd/cairn/internal/render"
 	"cairn/plan"
 )
 
-// simCautionText is the caution every simulation carries, besides the note.
-const simCautionText = "Simulated returns are assumptions, not a forecast; past volatility does not bound the future."
-
-// --- simulate
+// simNotice is the caution every simulation carries, besides the note.
+var simNotice = render.Notice{Kind: render.Caution, Key: "caution_simulation",
+	Text: "Simulated returns are assumptions, not a forecast; past volatility does not bound the future."}
 
 func simulateCommand(e *env) *cli.Command {
 	return &cli.Command{
@@ -40,11 +38,7 @@ func simulateCommand(e *env) *cli.Command {
 			&cli.StringFlag{Name: "stream", Usage: "the deposit stream to solve for, by `NAME` (default: the first)"},
 		),
 		Action: func(c *cli.Context) error {
-			p, err := readPlan(c, e)
-			if err != nil {
-				return err
-			}
-			g, err := goalOf(c, p)
+			p, g, err := planAndGoal(c, e)
 			if err != nil {
 				return err
 			}
@@ -64,23 +58,23 @@ func simulateCommand(e *env) *cli.Command {
 				if err != nil {
 					return usagef("", "%v", err)
 				}
-				return simOut(c, e, simulateDoc(p, sim, nil))
+				return out(c, e, simulateDoc(p, sim, nil))
 			}
 			a, err := plan.SolveDeposit(p, g, c.String("stream"), level, opts)
 			if err != nil {
 				if plan.IsNoSolution(err) {
-					d := &doc{drawdown: hasDrawdown(g), json: planJSON(p)}
+					d := simDoc(p, g)
 					reason := reasonOf(err)
-					d.lead = []string{fmt.Sprintf("%s: no deposit meets the target in %s of the paths: %s.", g.Name, shareText(level), reason)}
-					d.json["goal"], d.json["for"], d.json["success_level"], d.json["answer"], d.json["reason"] = g.Name, "deposit", jsonRate(level), nil, reason
-					if werr := simOut(c, e, d); werr != nil {
+					d.Lead = []string{fmt.Sprintf("%s: no deposit meets the target in %s of the paths: %s.", g.Name, shareText(level), reason)}
+					d.Data["goal"], d.Data["for"], d.Data["success_level"], d.Data["answer"], d.Data["reason"] = g.Name, "deposit", jsonRate(level), nil, reason
+					if werr := out(c, e, d); werr != nil {
 						return werr
 					}
 					return &noAnswer{err}
 				}
 				return usagef("", "%v", err)
 			}
-			return simOut(c, e, simulateDoc(p, a.Sim, a))
+			return out(c, e, simulateDoc(p, a.Sim, a))
 		},
 	}
 }
@@ -88,8 +82,8 @@ func simulateCommand(e *env) *cli.Command {
 // simOptions reads --paths, --seed, --volatility and --inflation-volatility.
 func simOptions(c *cli.Context) (plan.SimOptions, error) {
 	opts := plan.SimOptions{Paths: c.Int("paths"), Seed: c.Uint64("seed")}
-	if opts.Paths < plan.MinPaths || opts.Paths > plan.MaxPaths {
-		return opts, usagef("", "--paths: %d is out of range (want %d to %d)", opts.Paths, plan.MinPaths, plan.MaxPaths)
+	if err := plan.CheckPaths(opts.Paths); err != nil {
+		return opts, usagef("", "--paths: %v", err)
 	}
 	for _, f := range []struct {
 		name string
@@ -120,40 +114,19 @@ func simQuestion(c *cli.Context) (level float64, solve bool, err error) {
 	case !c.IsSet("success"):
 		return 0, false, usagef("for example --for deposit --success 90%", "--for deposit needs --success, the share of paths that must meet the target")
 	}
-	x, err := plan.ParsePercent(c.String("success"))
+	x, err := plan.ParseSuccess(c.String("success"))
 	if err != nil {
 		return 0, false, usagef("for example --success 90%", "--success: %v", err)
-	}
-	if !(x > 0 && x <= 1) {
-		return 0, false, usagef("for example --success 90%", "--success: %q is out of range (want more than 0%% and at most 100%%)", c.String("success"))
 	}
 	return x, true, nil
 }
 
-// simOut writes d with the simulation caution: in the footer of a table or
-// Markdown, under "caution_simulation" in JSON, on standard error for CSV.
-func simOut(c *cli.Context, e *env, d *doc) error {
-	f, err := parseFormat(c)
-	if err != nil {
-		return err
-	}
-	d.json["caution_simulation"] = simCautionText
-	var b bytes.Buffer
-	if err := d.write(&b, e.stderr, f); err != nil {
-		return fmt.Errorf("writing output: %v", err)
-	}
-	switch f {
-	case formatTable:
-		b.WriteString(wrap("Caution: "+simCautionText, 80))
-	case formatMarkdown:
-		fmt.Fprintf(&b, "\n*Caution: %s*\n", simCautionText)
-	case formatCSV:
-		fmt.Fprintf(e.stderr, "cairn: caution: %s\n", simCautionText)
-	}
-	if _, err := e.stdout.Write(b.Bytes()); err != nil {
-		return fmt.Errorf("writing output: %v", err)
-	}
-	return nil
+// simDoc is a document about a simulation of goal g, with the simulation's
+// caution after the note (and the drawdown caution).
+func simDoc(p *plan.Plan, g *plan.Goal) *render.Doc {
+	d := newDoc(p, hasDrawdown(g))
+	d.Notices = append(d.Notices, simNotice)
+	return d
 }
 
 // shareText is a share of paths in a sentence: 23.4%, or 89.95% when one
@@ -161,9 +134,6 @@ func simOut(c *cli.Context, e *env, d *doc) error {
 func shareText(x float64) string { return strconv.FormatFloat(x*100, 'f', 1, 64) + "%" }
 
 func shareText2(x float64) string { return strconv.FormatFloat(x*100, 'f', 2, 64) + "%" }
-
-// count is a number of paths with thousands separators.
-func count(n int) string { return money.Units(int64(n)).Format(money.Currency{Places: 0}, false) }
 
 // ratesText describes the goal's rates: "6.5% a year effective, then 4.5%
 // from 2045-01".
@@ -185,15 +155,17 @@ func volatilityWords(src plan.VolatilitySource, flag string) string {
 	return "none set"
 }
 
-func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc {
+// simulateDoc is simulation sim, and with dep the deposit that meets the
+// target in the share of paths asked for.
+func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *render.Doc {
 	g := sim.Goal
-	d := &doc{drawdown: hasDrawdown(g), json: planJSON(p)}
-	j := d.json
+	d := simDoc(p, g)
+	j := d.Data
 	j["goal"], j["paths"], j["seed"] = g.Name, sim.Paths, sim.Seed
 	j["volatility"], j["volatility_source"] = jsonRate(sim.Volatility), sim.VolatilitySource.String()
 	j["inflation_volatility"], j["inflation_volatility_source"] = jsonRate(sim.InflationVolatility), sim.InflationSource.String()
 	j["from"], j["to"] = sim.Start.String(), sim.End.String()
-	paths := fmt.Sprintf("%s simulated paths (seed %d)", count(sim.Paths), sim.Seed)
+	paths := fmt.Sprintf("%s simulated paths (seed %d)", render.Grouped(sim.Paths), sim.Seed)
 
 	// the answer first
 	switch {
@@ -201,13 +173,13 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc 
 		s := dep.Stream
 		first := fmt.Sprintf("%s needs a deposit of %s %s (%s) to meet its target by %s in at least %s of %s: %s of %s paths meet it at that amount",
 			g.Name, amountPhrase(p, s, dep.Amount, dep.FirstAmount), every(s), streamLabel(s), sim.Deadline, shareText2(dep.Level), paths,
-			count(dep.SuccessPaths), count(sim.Paths))
+			render.Grouped(dep.SuccessPaths), render.Grouped(sim.Paths))
 		if dep.HasBelow {
-			first += fmt.Sprintf(", %s at %s", count(dep.BelowPaths), amt(p, dep.Below))
+			first += fmt.Sprintf(", %s at %s", render.Grouped(dep.BelowPaths), amt(p, dep.Below))
 		} else {
 			first += " (the target is met that often without it)"
 		}
-		d.lead = append(d.lead, first+".")
+		d.Lead = append(d.Lead, first+".")
 		jd := map[string]any{"stream": streamLabel(s), "every": s.Every.String(), "in_todays_money": s.Today,
 			"success_level": jsonRate(dep.Level), "amount": jamt(p, dep.Amount), "first_amount": jamt(p, dep.FirstAmount),
 			"success": jsonRate(dep.Success), "success_paths": dep.SuccessPaths}
@@ -215,27 +187,28 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc 
 			jd["below"], jd["below_success"], jd["below_paths"] = jamt(p, dep.Below), jsonRate(dep.BelowSuccess), dep.BelowPaths
 		}
 		j["for"], j["deposit"] = "deposit", jd
-		det := &grid{title: "Details", cols: []column{{head: "item", key: "item"}, {head: "value", key: "value", numeric: true}}}
-		det.add([]string{"stream", streamLabel(s) + ", " + every(s)}, []string{"stream", streamLabel(s) + ", " + every(s)})
-		det.add([]string{"amount", amt(p, dep.Amount)}, []string{"amount", jamt(p, dep.Amount)})
+		det := &render.Facts{Title: "Details"}
+		det.Add("stream", render.Text(streamLabel(s)+", "+every(s)))
+		det.Add("amount", cash(p, dep.Amount))
 		if s.Today {
-			det.add([]string{"first amount, in " + s.From.String(), amt(p, dep.FirstAmount)}, []string{"first amount", jamt(p, dep.FirstAmount)})
+			det.Items = append(det.Items, render.Fact{Item: render.Label("first amount, in "+s.From.String(), "first amount"), Value: cash(p, dep.FirstAmount)})
 		}
-		det.add([]string{"success level", shareText2(dep.Level)}, []string{"success level", jsonRate(dep.Level)})
-		det.add([]string{"paths meeting the target", count(dep.SuccessPaths) + " of " + count(sim.Paths)}, []string{"paths meeting the target", strconv.Itoa(dep.SuccessPaths)})
+		det.Add("success level", render.Share(dep.Level, 2))
+		ofAll := " of " + render.Grouped(sim.Paths)
+		det.Add("paths meeting the target", render.Count(dep.SuccessPaths).Then(ofAll))
 		if dep.HasBelow {
 			less := "one unit less"
 			if p.Currency.Places == 2 {
 				less = "one cent less"
 			}
-			det.add([]string{less, amt(p, dep.Below)}, []string{less, jamt(p, dep.Below)})
-			det.add([]string{"paths meeting it then", count(dep.BelowPaths) + " of " + count(sim.Paths)}, []string{"paths meeting it then", strconv.Itoa(dep.BelowPaths)})
+			det.Add(less, cash(p, dep.Below))
+			det.Add("paths meeting it then", render.Count(dep.BelowPaths).Then(ofAll))
 		}
-		d.grids = append(d.grids, det)
+		d.Blocks = append(d.Blocks, det)
 	case sim.HasTarget:
-		d.lead = append(d.lead, fmt.Sprintf("%s meets its target in %s of %s.", g.Name, shareText(sim.Success), paths))
+		d.Lead = append(d.Lead, fmt.Sprintf("%s meets its target in %s of %s.", g.Name, shareText(sim.Success), paths))
 	default:
-		d.lead = append(d.lead, fmt.Sprintf("%s: the balance over %s.", g.Name, paths))
+		d.Lead = append(d.Lead, fmt.Sprintf("%s: the balance over %s.", g.Name, paths))
 	}
 
 	// what was assumed
@@ -251,7 +224,7 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc 
 	} else {
 		assume += fmt.Sprintf("; inflation: fixed at %s a year.", pct(p.Inflation.Effective()))
 	}
-	d.lead = append(d.lead, assume)
+	d.Lead = append(d.Lead, assume)
 
 	// the deadline
 	if sim.HasDeadline {
@@ -272,13 +245,13 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc 
 		} else if g.HasTarget {
 			s += " The target has no deadline to be met by."
 		}
-		d.lead = append(d.lead, s)
+		d.Lead = append(d.Lead, s)
 	} else if g.HasTarget {
-		d.lead = append(d.lead, "The goal has no deadline (by:), so no share of paths meeting its target.")
+		d.Lead = append(d.Lead, "The goal has no deadline (by:), so no share of paths meeting its target.")
 	}
 
 	// percentiles by year
-	d.grids = append(d.grids, yearsGrid(p, sim, d))
+	d.Blocks = append(d.Blocks, yearsTable(p, sim, d))
 
 	// withdrawals
 	if sim.HasWithdrawals {
@@ -289,36 +262,34 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *doc 
 			line = fmt.Sprintf("%s: the money lasts through the last withdrawal in %s, leaving at least %s, in %s of the paths.", g.Name, sim.LastWithdrawal, amt(p, sim.Leave), shareText(sim.Lasts))
 		}
 		if sim.LeaveShortPaths > 0 {
-			line += fmt.Sprintf(" On %s paths every withdrawal is paid but less is left.", count(sim.LeaveShortPaths))
+			line += fmt.Sprintf(" On %s paths every withdrawal is paid but less is left.", render.Grouped(sim.LeaveShortPaths))
 			jw["leave_short_paths"] = sim.LeaveShortPaths
 		}
 		if sim.RunOutPaths > 0 {
 			ro := sim.RunOut
 			line += fmt.Sprintf(" Where it runs out (%s of %s paths), it first falls short in %s at the median, in %s at the 5th percentile and in %s at the 95th.",
-				count(sim.RunOutPaths), count(sim.Paths), ro[2], ro[0], ro[4])
+				render.Grouped(sim.RunOutPaths), render.Grouped(sim.Paths), ro[2], ro[0], ro[4])
 			m := map[string]any{}
 			for i, q := range plan.SimLevels {
 				m["p"+strconv.Itoa(q)] = ro[i].String()
 			}
 			jw["runs_out"] = m
 		}
-		d.after = append(d.after, line)
-		rg := &grid{title: "When the money runs out", cols: []column{{head: "months", key: "months"}, {head: "paths", key: "paths", numeric: true}, {head: "share", key: "share", numeric: true}}}
+		d.After = append(d.After, line)
+		rt := &render.Table{Title: "When the money runs out", Cols: []render.Column{{Head: "months", Key: "months"}, {Head: "paths", Key: "paths", Numeric: true}, {Head: "share", Key: "share", Numeric: true}}}
 		var buckets []map[string]any
 		for _, b := range sim.RunOutBy {
 			span := b.From.String() + " to " + b.To.String()
-			rg.add([]string{"runs out " + span, count(b.Paths), shareText(b.Share)}, []string{span, strconv.Itoa(b.Paths), jsonRate(b.Share)})
+			rt.Add(render.Label("runs out "+span, span), render.Count(b.Paths), render.Share(b.Share, 1))
 			buckets = append(buckets, map[string]any{"from": b.From.String(), "to": b.To.String(), "paths": b.Paths, "share": jsonRate(b.Share)})
 		}
 		if sim.LeaveShortPaths > 0 {
-			sh := float64(sim.LeaveShortPaths) / float64(sim.Paths)
-			rg.add([]string{"paid, short of leave", count(sim.LeaveShortPaths), shareText(sh)}, []string{"short of leave", strconv.Itoa(sim.LeaveShortPaths), jsonRate(sh)})
+			rt.Add(render.Label("paid, short of leave", "short of leave"), render.Count(sim.LeaveShortPaths), render.Share(float64(sim.LeaveShortPaths)/float64(sim.Paths), 1))
 		}
-		rg.add([]string{"lasts through " + sim.LastWithdrawal.String(), count(sim.LastsPaths), shareText(sim.Lasts)},
-			[]string{"lasts", strconv.Itoa(sim.LastsPaths), jsonRate(sim.Lasts)})
+		rt.Add(render.Label("lasts through "+sim.LastWithdrawal.String(), "lasts"), render.Count(sim.LastsPaths), render.Share(sim.Lasts, 1))
 		jw["by_decade"] = buckets
 		j["withdrawals"] = jw
-		d.grids = append(d.grids, rg)
+		d.Blocks = append(d.Blocks, rt)
 	}
 	return d
 }
@@ -331,69 +302,36 @@ func pctJSON(p *plan.Plan, ps plan.Percentiles) map[string]any {
 	return m
 }
 
-// yearsGrid is the table of percentiles at each year end, in whole units
-// when cents would not fit in 80 columns.
-func yearsGrid(p *plan.Plan, sim *plan.Simulation, d *doc) *grid {
-	cols := []column{{head: "year", key: "year"}, {head: "month", key: "month", hidden: true}, {head: "deadline", key: "deadline", hidden: true}}
+// yearsTable is the table of percentiles at each year end, in whole units
+// when cents would not fit in a terminal's width.
+func yearsTable(p *plan.Plan, sim *plan.Simulation, d *render.Doc) *render.Table {
+	cols := []render.Column{{Head: "year", Key: "year"}, {Head: "month", Key: "month", Hidden: true}, {Head: "deadline", Key: "deadline", Hidden: true}}
 	for _, q := range plan.SimLevels {
-		cols = append(cols, column{head: "p" + strconv.Itoa(q), key: "p" + strconv.Itoa(q), numeric: true})
+		cols = append(cols, render.Column{Head: "p" + strconv.Itoa(q), Key: "p" + strconv.Itoa(q), Numeric: true})
 	}
-	label := func(r plan.SimRow) string {
-		s := strconv.Itoa(r.Month.Year())
+	t := &render.Table{Title: fmt.Sprintf("Balance at each year end, by percentile of %s paths", render.Grouped(sim.Paths)), Cols: cols}
+	var years []map[string]any
+	for _, r := range sim.Rows {
+		label := strconv.Itoa(r.Month.Year())
 		if !r.YearEnd {
-			s = r.Month.String()
+			label = r.Month.String()
 		}
 		if r.IsDeadline {
-			s += " (deadline)"
+			label += " (deadline)"
 		}
-		return s
-	}
-	cells := func(f func(money.Amount) string) [][]string {
-		var out [][]string
-		for _, r := range sim.Rows {
-			row := []string{label(r), "", ""}
-			for _, a := range r.P {
-				row = append(row, f(a))
-			}
-			out = append(out, row)
-		}
-		return out
-	}
-	cents := func(a money.Amount) string { return amt(p, a) }
-	units := func(a money.Amount) string { return a.Format(money.Currency{Code: p.Currency.Code, Places: 0}, false) }
-	text := cells(cents)
-	if gridWidth(cols, text) > 80 {
-		text = cells(units)
-		d.lead = append(d.lead, "Amounts in the table are rounded to whole units; --format csv or json gives cents.")
-	}
-	g := &grid{title: fmt.Sprintf("Balance at each year end, by percentile of %s paths", count(sim.Paths)), cols: cols}
-	var years []map[string]any
-	for i, r := range sim.Rows {
-		raw := []string{strconv.Itoa(r.Month.Year()), r.Month.String(), strconv.FormatBool(r.IsDeadline)}
+		cells := []render.Cell{render.Label(label, strconv.Itoa(r.Month.Year())), render.Month(r.Month), render.Bool(r.IsDeadline)}
 		jr := map[string]any{"year": r.Month.Year(), "month": r.Month.String(), "deadline": r.IsDeadline}
 		for k, a := range r.P {
-			raw = append(raw, jamt(p, a))
+			cells = append(cells, cash(p, a))
 			jr["p"+strconv.Itoa(plan.SimLevels[k])] = jamt(p, a)
 		}
-		g.add(text[i], raw)
+		t.Add(cells...)
 		years = append(years, jr)
 	}
-	d.json["years"] = years
-	return g
-}
-
-// gridWidth is the width of a plain table of rows under cols.
-func gridWidth(cols []column, rows [][]string) int {
-	total := 0
-	for i, c := range cols {
-		if c.hidden {
-			continue
-		}
-		w := len([]rune(c.head))
-		for _, r := range rows {
-			w = max(w, len([]rune(r[i])))
-		}
-		total += w + 2
+	if t.Width() > render.LineWidth {
+		t.WholeUnits = true
+		d.Lead = append(d.Lead, "Amounts in the table are rounded to whole units; --format csv or json gives cents.")
 	}
-	return total - 2
+	d.Data["years"] = years
+	return t
 }

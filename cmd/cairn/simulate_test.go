@@ -30,7 +30,8 @@ func TestSimulate_ExitCodes(t *testing.T) {
 	}{
 		{"simulate", []string{"--goal", "Education", "--volatility", "10%"}, 0},
 		{"deposit", []string{"--goal", "Education", "--volatility", "10%", "--for", "deposit", "--success", "80%"}, 0},
-		{"no such stream", []string{"--goal", "Education", "--for", "deposit", "--success", "80%", "--stream", "nope"}, 1},
+		{"no such stream", []string{"--goal", "Education", "--for", "deposit", "--success", "80%", "--stream", "nope"}, 2}, // issue 13 item 14: a usage error
+		{"a withdrawal named as the deposit", []string{"--goal", "Retirement", "--for", "deposit", "--success", "80%", "--stream", "income"}, 1},
 		{"no target", []string{"--goal", "Savings", "--for", "deposit", "--success", "80%"}, 1},
 		{"too few paths", []string{"--goal", "Education", "--paths", "99"}, 2},
 		{"too many paths", []string{"--goal", "Education", "--paths", "100001"}, 2},

@@ -40,19 +40,20 @@ const (
 // credits and month ends are regular and the walk makes them.
 type Event struct {
 	Tick   int64
-	Kind   Kind
+	Tau    float64 // flows and fees: fraction of the interest period left until its credit
+	Unit   float64 // flows: amount per unit of the source's amount (growth, indexing)
 	Src    int32   // flows: the source (see [Shape]); others: 0
 	Step   int32   // the rate step in force for the interest period the event is in
 	Period int32   // that period's index (interest: the period ending)
 	Ti     int32   // flows and fees: index of Tau among the schedule's distinct values
-	Tau    float64 // flows and fees: fraction of the interest period left until its credit
-	Unit   float64 // flows: amount per unit of the source's amount (growth, indexing)
 	Count  int32   // interest: how many interest dates in a row, one period apart (at least 1)
 	Month  int32   // the month the event is shown in, counted from the start (0)
+	Year   int32   // flows: whole years of growth in Unit
 	// Flows in money indexed to inflation: the amount is multiplied by the
 	// inflation index at the start of month IA over that at month IB, both
 	// 1 at fixed inflation. A random-inflation walk reads them.
 	IA, IB int32
+	Kind   Kind
 }
 
 // A Shape is what a schedule's events depend on, and nothing else: package
@@ -95,6 +96,11 @@ type Schedule struct {
 	fees     int     // and fees
 	taus     []float64
 	sources  int
+	// grow is, per source, the yearly growth of its amounts when each
+	// event's Unit is exactly (1 + grow)^Year, NaN when it is not (an
+	// amount in today's money, first indexed over part of a year); the
+	// opening balance and one-time amounts: 0, a unit of 1.
+	grow []float64
 }
 
 // Events returns the schedule's events in order; the caller must not
@@ -147,11 +153,16 @@ func Compile(sh *Shape) *Schedule {
 	s.period = TicksPerYear / int64(sh.PerYear)
 	s.accrue = sh.PerYear > 12
 	s.sources = 1 + len(sh.Streams) + len(sh.Once)
+	s.grow = make([]float64, s.sources)
 	// Each stream's amounts are laid down in tick order as a run of their
 	// own; the runs are then merged, which is cheaper than sorting the whole.
 	var runs [][]Event
 	for k, st := range sh.Streams {
 		src := int32(1 + k)
+		s.grow[src] = st.Grow
+		if st.First != 1 {
+			s.grow[src] = math.NaN()
+		}
 		P := TicksPerYear / int64(st.PerYear)
 		from := int64(st.From) * TicksPerMonth
 		lg := math.Log1p(st.Grow)
@@ -174,7 +185,7 @@ func Compile(sh *Shape) *Schedule {
 			if year != lastYear && st.Grow != 0 {
 				lastYear, u = year, st.First*math.Exp(float64(year)*lg)
 			}
-			e := Event{Tick: t, Kind: kd, Src: src, Unit: u, Month: label}
+			e := Event{Tick: t, Kind: kd, Src: src, Unit: u, Year: int32(year), Month: label}
 			anniv := st.From + 12*int32(year)
 			switch {
 			case st.GrowInflation && st.Today:

@@ -19,10 +19,15 @@ const (
 // Inputs are what a walk reads besides the schedule: everything a solver
 // may vary without compiling again.
 type Inputs struct {
-	Rates    []float64 // periodic rate of each rate step
-	Amounts  []float64 // each source's amount, in currency units (before Event.Unit)
-	Out      []bool    // each source: money out (made negative; clamped to the balance when exact)
-	Fee      float64   // fraction of the balance taken each month
+	Rates   []float64 // periodic rate of each rate step
+	Amounts []float64 // each source's amount, in currency units (before Event.Unit)
+	Out     []bool    // each source: money out (made negative; clamped to the balance when exact)
+	Fee     float64   // fraction of the balance taken each month
+	// RateM and FeeM are Rates and Fee with their exact forms, which an
+	// exact walk reads only to settle a product lying near a half unit
+	// (see [money.RoundProduct]); RateM[k].Float() is Rates[k].
+	RateM    []money.Multiplier
+	FeeM     money.Multiplier
 	Between  Between
 	Places   int            // decimal places of the minor unit
 	Rounding money.Rounding // rule for every rounding to the minor unit
@@ -35,11 +40,13 @@ const (
 	// Exact keeps every balance and posting as a whole number of minor
 	// units (exact integers in float64, to 2⁵³ of them): each interest
 	// credit, fee and amount is computed in float64 and rounded once to
-	// the minor unit; interest accrued between monthly credits is carried
-	// unrounded; a withdrawal larger than the balance is paid in part and
-	// the rest is short. From then on the account is spent: it stays at
-	// zero, earns nothing, credits no money in, and every later withdrawal
-	// is short in full. Results are in minor units.
+	// the minor unit, a product lying near a half unit settled in exact
+	// arithmetic so that a tie goes by the rule (see roundPosting);
+	// interest accrued between monthly credits is carried unrounded; a
+	// withdrawal larger than the balance is paid in part and the rest is
+	// short. From then on the account is spent: it stays at zero, earns
+	// nothing, credits no money in, and every later withdrawal is short in
+	// full. Results are in minor units.
 	Exact Mode = iota
 	// Smooth keeps the balance in currency units, unrounded and unclamped:
 	// a smooth function of the rate for root finding, and linear in every
@@ -163,12 +170,47 @@ func Accrual(b Between, j, l, tau float64, out bool) float64 {
 	return math.Expm1(tau * l)
 }
 
-// roundPosting rounds an interest credit or a fee to the minor unit.
-func roundPosting(x float64, r money.Rounding) float64 { return roundMinor(x, r) }
+// The walk's rounding points. Each posting is a product x × m (+ plus),
+// computed in float64: roundPosting rounds it to the minor unit when the
+// float lies clearly off a half unit ([money.RoundFast], inlined), and
+// otherwise settles it by [money.RoundProduct] from the factor's exact form,
+// so that a product exactly halfway goes by the rule and not by float
+// noise. roundAmount is the same for an amount: the opening balance, or a
+// flow's amount times its growth. A credit of interest accrued at several
+// compounding dates, a sum of irrational terms, is never exactly halfway
+// and is rounded from its float sum (roundMinor).
 
-// roundAmount rounds an amount — the opening balance, or a flow's amount
-// times its growth and indexing — to the minor unit.
-func roundAmount(x float64, r money.Rounding) float64 { return roundMinor(x, r) }
+// roundPosting returns p = x × m + plus rounded to the minor unit under r.
+func roundPosting(p, x float64, m money.Multiplier, plus float64, r money.Rounding) float64 {
+	if q, sure := money.RoundFast(p); sure {
+		return q
+	}
+	return money.RoundProduct(x, m, plus, r)
+}
+
+// roundAmount returns p = x × m rounded to the minor unit under r.
+func roundAmount(p, x float64, m money.Multiplier, r money.Rounding) float64 {
+	return roundPosting(p, x, m, 0, r)
+}
+
+// rateOf returns the exact form of periodic rate j of rate step k: the
+// input's, when j is that step's rate (a simulated path's rate may be
+// another), else the float alone.
+func rateOf(in *Inputs, k int32, j float64) money.Multiplier {
+	if int(k) < len(in.RateM) && in.RateM[k].Float() == j {
+		return in.RateM[k]
+	}
+	return money.FloatMultiplier(j)
+}
+
+// unitOf returns the exact form of flow event e's unit: a whole number of
+// years' growth at the source's decimal rate, when it is one.
+func (s *Schedule) unitOf(e *Event) money.Multiplier {
+	if g := s.grow[e.Src]; !math.IsNaN(g) {
+		return money.GrowthMultiplier(e.Unit, g, int(e.Year))
+	}
+	return money.FloatMultiplier(e.Unit)
+}
 
 // roundMinor is [money.RoundMinor] in a form the compiler inlines, so that
 // the walk makes no call for it: the same value for every x (the zero of
@@ -210,7 +252,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	if !o.One || o.Source == 0 {
 		bal = in.Amounts[0] * scale
 		if o.Mode == Exact {
-			bal = roundAmount(bal, in.Rounding)
+			bal = roundAmount(bal, bal, money.One, in.Rounding)
 		}
 		base = bal
 	}
@@ -232,7 +274,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					continue
 				}
 				if o.Mode == Exact {
-					x = roundPosting(x, in.Rounding)
+					x = roundPosting(x, base, rateOf(in, e.Step, j), acc, in.Rounding)
 				}
 				bal += x
 				base, acc = bal, 0
@@ -244,7 +286,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 		case Credit:
 			x := accrued
 			if o.Mode == Exact {
-				x = roundPosting(x, in.Rounding)
+				x = roundMinor(x, in.Rounding)
 			}
 			bal += x
 			accrued -= x
@@ -257,12 +299,14 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				if bal <= 0 {
 					continue
 				}
-				if f = roundPosting(f, in.Rounding); f == 0 {
+				if f = roundPosting(f, bal, in.FeeM, 0, in.Rounding); f == 0 {
 					continue
 				}
 			}
 			bal -= f
-			if p := o.Paths; p == nil {
+			if e.Tau == 1 { // a whole period's interest: part of the next base
+				base -= f
+			} else if p := o.Paths; p == nil {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
 			} else {
 				acc -= f * p.W[i]
@@ -296,13 +340,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			if o.One && e.Src != o.Source {
 				continue
 			}
-			x := in.Amounts[e.Src] * scale * e.Unit
+			a := in.Amounts[e.Src] * scale
+			x := a * e.Unit
 			p := o.Paths
 			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
 				x = x * p.Infl[e.IA] / p.Infl[e.IB]
-			}
-			if o.Mode == Exact {
-				x = roundAmount(x, in.Rounding)
+				if o.Mode == Exact {
+					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
+				}
+			} else if o.Mode == Exact {
+				x = roundAmount(x, a, s.unitOf(e), in.Rounding)
 			}
 			var short float64
 			if in.Out[e.Src] {
@@ -327,7 +374,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				continue
 			}
-			if p == nil {
+			if e.Tau == 1 { // a whole period's interest: part of the next base
+				base += x
+			} else if p == nil {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 				if x < 0 {
 					i++

@@ -87,6 +87,67 @@ func TestBars_Small(t *testing.T) {
 	}
 }
 
+// TestBars_Marks is TestBars_Small with a level at 7.5 and the third bar
+// marked, worked out by hand: 7.5 is nearest the top edge of the second row
+// (7.5), so the dotted line runs there; the mark is the middle of the third
+// bar's three characters, above its bar and on the baseline.
+func TestBars_Marks(t *testing.T) {
+	c := Bars{Values: []float64{0, 3, 5, 10}, Labels: []string{"a", "b", "c", "d"}, Width: 20, Rows: 4,
+		Level: &Level{Label: "t", Value: 7.5}, Column: &Column{Label: "d", Index: 2}}
+	want := "" +
+		"10 ┤         ┆  ███\n" +
+		"   │┄┄┄┄┄┄┄┄┄┆┄┄███┄\n" +
+		" 5 ┤    ▂▂▂ ███ ███\n" +
+		"   │    ███ ███ ███\n" +
+		" 0 └─────────┴──────\n" +
+		"    a   b   c   d\n" +
+		"    ┄ t   ┆ d\n"
+	if got := c.String(); got != want {
+		t.Errorf("Bars.String() =\n%s\nwant\n%s", got, want)
+	}
+}
+
+// TestBars_Readable checks, over many ranges and widths, that the Y axis
+// labels at least three values, that a level above every bar is still
+// drawn, that the marked column shows on the baseline, and that every line
+// fits the width without escape codes.
+func TestBars_Readable(t *testing.T) {
+	for _, hi := range []float64{0, 0.4, 1, 8.1, 10, 99, 1234.5, 55000, 64226.59, 2.2e6, 7e9} {
+		for _, n := range []int{1, 3, 12, 55, 200} {
+			for _, width := range []int{40, 80} {
+				c := Bars{Width: width, Rows: 8, Level: &Level{Label: "target", Value: hi * 1.3}, Column: &Column{Label: "deadline", Index: n / 2}}
+				for i := 0; i < n; i++ {
+					c.Values = append(c.Values, hi*float64(i+1)/float64(n))
+					c.Labels = append(c.Labels, strconv.Itoa(2000+i))
+				}
+				s := c.String()
+				lines := strings.Split(strings.TrimSuffix(s, "\n"), "\n")
+				labels := 0
+				for _, l := range lines {
+					if strings.Contains(l, "┤") || strings.Contains(l, "└") {
+						labels++
+					}
+					if w := utf8.RuneCountInString(l); w > width {
+						t.Errorf("hi %v, %d values, width %d: line of %d characters: %q", hi, n, width, w, l)
+					}
+				}
+				if labels < 3 {
+					t.Errorf("hi %v, %d values: %d Y labels, want at least 3:\n%s", hi, n, labels, s)
+				}
+				if hi > 0 && !strings.Contains(s, "┄┄") {
+					t.Errorf("hi %v, %d values: the level is not drawn:\n%s", hi, n, s)
+				}
+				if !strings.Contains(s, "┴") || !strings.Contains(s, "┆ deadline") {
+					t.Errorf("hi %v, %d values: the column is not marked:\n%s", hi, n, s)
+				}
+				if strings.ContainsRune(s, 0x1b) {
+					t.Errorf("escape code in the chart")
+				}
+			}
+		}
+	}
+}
+
 func TestBars_Fits(t *testing.T) {
 	var vals []float64
 	var labels []string

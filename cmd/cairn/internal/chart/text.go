@@ -22,6 +22,24 @@ type Bars struct {
 	// more values than columns, smallest first (e.g. 3, 6, 12 for months);
 	// when none is large enough, or Runs is empty, the smallest run that fits.
 	Runs []int
+	// Level marks a value across the chart with a dotted line, such as the
+	// target; the scale reaches it. Column marks one value's bar with a
+	// dotted line above it and a tick on the baseline, such as the
+	// deadline. Each is named in a key line under the X labels.
+	Level  *Level
+	Column *Column
+}
+
+// A Level is a value marked across a bar chart.
+type Level struct {
+	Label string // the key's words, e.g. "target 55,000.00"
+	Value float64
+}
+
+// A Column marks the bar of one value.
+type Column struct {
+	Label string // the key's words, e.g. "deadline 2040-08"
+	Index int    // into Values
 }
 
 // eighths are the blocks one to seven eighths high.
@@ -38,6 +56,7 @@ type barLayout struct {
 	rows, per         int
 	labelW, colW, bar int
 	k                 int
+	mark              int // the bar marked by Column, or -1
 	values            []float64
 	labels            []string
 	keys              []int
@@ -57,13 +76,17 @@ func (c Bars) layout() barLayout {
 	for _, v := range c.Values {
 		hi = math.Max(hi, v)
 	}
+	if c.Level != nil {
+		hi = math.Max(hi, c.Level.Value)
+	}
 	lo.ticks, lo.step = Ticks(0, hi, 4)
 	// Each row is a whole fraction 1/per of the tick step, and there are
 	// just enough rows for the highest value: labels fall on row edges.
 	intervals := len(lo.ticks) - 1
 	lo.per = max(1, int(math.Round(float64(rows)/float64(intervals))))
 	rowH := lo.step / float64(lo.per)
-	lo.rows = max(1, int(math.Ceil(hi/rowH-1e-9)))
+	// at least two tick steps, so that the Y axis labels three values
+	lo.rows = max(2*lo.per, int(math.Ceil(hi/rowH-1e-9)))
 	lo.top = rowH * float64(lo.rows)
 	lo.ticks = lo.ticks[:min(len(lo.ticks), lo.rows/lo.per+1)]
 	for _, t := range lo.ticks {
@@ -76,6 +99,11 @@ func (c Bars) layout() barLayout {
 		lo.k = IntStep(float64(lo.k), c.Runs)
 	}
 	lo.values, lo.labels, lo.keys = c.Values, c.Labels, c.Keys
+	lo.mark = -1
+	if c.Column != nil && c.Column.Index >= 0 && c.Column.Index < n {
+		// the bar whose run holds the value: runs end at (n-1)%k + j·k
+		lo.mark = max(0, (c.Column.Index-(n-1)%lo.k+lo.k-1)/lo.k)
+	}
 	if lo.k > 1 {
 		lo.values, lo.labels, lo.keys = nil, nil, nil
 		for i := (n - 1) % lo.k; i < n; i += lo.k {
@@ -114,6 +142,11 @@ func (c Bars) String() string {
 	rows, per, top, step, labelW, colW, bar := lo.rows, lo.per, lo.top, lo.step, lo.labelW, lo.colW, lo.bar
 	ticks := lo.ticks
 	n := len(lo.values)
+	levelRow := -1 // the row holding the level, 0 at the top
+	if c.Level != nil && c.Level.Value > 0 && top > 0 {
+		// the row whose top edge is nearest the level
+		levelRow = min(rows-1, max(0, rows-max(1, int(math.Round(c.Level.Value/top*float64(rows))))))
+	}
 	lines := make([]strings.Builder, rows)
 	for r := 0; r < rows; r++ {
 		l := &lines[r]
@@ -125,21 +158,31 @@ func (c Bars) String() string {
 			l.WriteString(strings.Repeat(" ", labelW))
 			l.WriteString(" │")
 		}
-		for _, v := range lo.values {
+		for i, v := range lo.values {
 			h := 0
 			if v > 0 && top > 0 {
 				h = int(math.Round(v / top * float64(rows*8)))
 			}
 			fill := h - (rows-r-1)*8 // eighths of this row's cell that are filled
-			ch := " "
+			ch := ' '
 			switch {
 			case fill >= 8:
-				ch = "█"
+				ch = '█'
 			case fill > 0:
-				ch = string(eighths[fill-1])
+				ch = eighths[fill-1]
 			}
-			l.WriteString(strings.Repeat(ch, bar))
-			l.WriteString(strings.Repeat(" ", colW-bar))
+			for j := 0; j < colW; j++ {
+				switch {
+				case j < bar && ch != ' ':
+					l.WriteRune(ch)
+				case i == lo.mark && j == bar/2:
+					l.WriteRune('┆')
+				case r == levelRow:
+					l.WriteRune('┄')
+				default:
+					l.WriteByte(' ')
+				}
+			}
 		}
 	}
 	var b strings.Builder
@@ -149,7 +192,11 @@ func (c Bars) String() string {
 	}
 	b.WriteString(pad("0", labelW))
 	b.WriteString(" └")
-	b.WriteString(strings.Repeat("─", n*colW))
+	base := []rune(strings.Repeat("─", n*colW))
+	if lo.mark >= 0 {
+		base[lo.mark*colW+bar/2] = '┴'
+	}
+	b.WriteString(string(base))
 	b.WriteString("\n")
 
 	// X labels, left-aligned under their bar, never overlapping.
@@ -178,6 +225,23 @@ func (c Bars) String() string {
 	}
 	b.WriteString(strings.TrimRight(string(axis), " "))
 	b.WriteString("\n")
+
+	// The key names the marks, each on the line when both do not fit.
+	var key []string
+	if levelRow >= 0 {
+		key = append(key, "┄ "+c.Level.Label)
+	}
+	if lo.mark >= 0 {
+		key = append(key, "┆ "+c.Column.Label)
+	}
+	indent := strings.Repeat(" ", labelW+2)
+	if line := indent + strings.Join(key, "   "); len(key) > 0 && utf8.RuneCountInString(line) <= width {
+		b.WriteString(line + "\n")
+	} else {
+		for _, k := range key {
+			b.WriteString(indent + k + "\n")
+		}
+	}
 	return b.String()
 }
 

@@ -1,0 +1,178 @@
+package main
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/urfave/cli/v2"
+
+	"cairn/cmd/cairn/internal/chart"
+	"cairn/cmd/cairn/internal/render"
+	"cairn/plan"
+)
+
+func projectCommand(e *env) *cli.Command {
+	return &cli.Command{
+		Name:      "project",
+		Usage:     "the projection table of one goal, by year or by month",
+		ArgsUsage: "[FILE]",
+		Description: "Period, opening balance, deposits, interest, fees, withdrawals, closing balance and the\n" +
+			"closing balance in today's money, with a totals row.\n\n" +
+			"Example:\n   cairn project examples/household.yaml --goal Education\n" +
+			"   cairn project examples/household.yaml --goal \"Emergency fund\" --by month --until 2027-12",
+		Flags: append(fileFlags(true), goalFlag(true),
+			&cli.StringFlag{Name: "by", Value: "year", Usage: "one row per `PERIOD`: year or month"},
+			&cli.StringFlag{Name: "until", Usage: "last `MONTH` shown (YYYY-MM; default: the goal's horizon)"},
+			&cli.BoolFlag{Name: "chart", Usage: "draw the closing balance as a bar chart under the table (table format only)"},
+		),
+		Action: func(c *cli.Context) error {
+			p, g, err := planAndGoal(c, e)
+			if err != nil {
+				return err
+			}
+			by := plan.ByYear
+			switch strings.ToLower(c.String("by")) {
+			case "year", "yearly":
+			case "month", "monthly":
+				by = plan.ByMonth
+			default:
+				return usagef("", "--by: unknown period %q (want year or month)", c.String("by"))
+			}
+			end := plan.Horizon(p, g)
+			if s := c.String("until"); s != "" {
+				m, err := plan.ParseMonth(s)
+				if err != nil {
+					return usagef("", "--until: %v", err)
+				}
+				if m < p.Start {
+					return usagef("", "--until: month %s is before the plan's start %s", m, p.Start)
+				}
+				end = m
+			}
+			f, err := parseFormat(c)
+			if err != nil {
+				return err
+			}
+			if c.Bool("chart") && f != render.FormatText {
+				return usagef("leave out --chart, or use --format table", "--chart draws in the terminal and is for --format table, not %s", strings.ToLower(c.String("format")))
+			}
+			l, err := plan.Project(p, g, end)
+			if err != nil {
+				return err
+			}
+			d := projectDoc(p, g, l, by)
+			if c.Bool("chart") {
+				d.Blocks = append(d.Blocks, render.Pre{Text: projectChart(p, g, l.Rows(by, false), by)})
+			}
+			return out(c, e, d)
+		},
+	}
+}
+
+// projectDoc is the projection of goal g in ledger l by year or by month,
+// with a totals row; its table and remarks are also each goal's page of the
+// report.
+func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *render.Doc {
+	rows := l.Rows(by, true)
+	d := newDoc(p, hasDrawdown(g))
+	period := "year"
+	if by == plan.ByMonth {
+		period = "month"
+	}
+	d.Lead = []string{fmt.Sprintf("%s: projection by %s, %s to %s, in %s; \"today\" is the closing balance in money of %s.", g.Name, period, l.Start, l.End, p.Currency.Code, p.Start)}
+	var hasFees, hasOut, short bool
+	for _, r := range rows {
+		hasFees = hasFees || !r.Fees.IsZero()
+		hasOut = hasOut || !r.Withdrawals.IsZero()
+		short = short || !r.Short.IsZero()
+	}
+	t := &render.Table{Cols: []render.Column{{Head: period, Key: "period"}, {Head: "opening", Key: "opening", Numeric: true},
+		{Head: "deposits", Key: "deposits", Numeric: true}, {Head: "interest", Key: "interest", Numeric: true},
+		{Head: "fees", Key: "fees", Numeric: true, Hidden: !hasFees}, {Head: "withdrawals", Key: "withdrawals", Numeric: true, Hidden: !hasOut},
+		{Head: "closing", Key: "closing", Numeric: true}, {Head: "today", Long: "in today’s money", Key: "closing_today", Numeric: true}}}
+	var jrows []map[string]any
+	for k, r := range rows {
+		cells := []render.Cell{render.Text(r.Label), cash(p, r.Opening), cash(p, r.Deposits), cash(p, r.Interest), cash(p, r.Fees),
+			cash(p, r.Withdrawals), cash(p, r.Closing), cash(p, r.ClosingToday)}
+		jr := map[string]any{}
+		for i, c := range t.Cols {
+			jr[c.Key] = cells[i].Plain()
+		}
+		if short {
+			jr["short"] = jamt(p, r.Short)
+		}
+		if k == len(rows)-1 {
+			t.Total = cells
+			d.Data["totals"] = jr
+			continue
+		}
+		t.Add(cells...)
+		jrows = append(jrows, jr)
+	}
+	// Whole units when cents would not fit in a terminal's width.
+	if t.Width() > render.LineWidth {
+		t.WholeUnits = true
+		d.Lead = append(d.Lead, "Amounts are rounded to whole units here; --format csv or json gives cents.")
+	}
+	d.Blocks = []render.Block{t}
+	d.Data["goal"], d.Data["by"], d.Data["rows"] = g.Name, period, jrows
+	if m, ok := l.FirstShort(); ok {
+		tot := rows[len(rows)-1]
+		d.After = append(d.After, fmt.Sprintf("The money runs out in %s: %s of withdrawals could not be paid.", m, amt(p, tot.Short)))
+		d.Data["runs_out"] = m.String()
+	}
+	return d
+}
+
+// `cairn project --chart` draws the closing balance of each row of the
+// projection as a bar chart in Unicode block characters, under the table.
+// The balances are the ledger's rows; the chart only scales them.
+
+// projectChart returns the terminal chart of rows (a projection's rows
+// without the totals row), by year or by month, at most 80 columns wide.
+func projectChart(p *plan.Plan, g *plan.Goal, rows []plan.Row, by plan.Period) string {
+	if len(rows) == 0 {
+		return ""
+	}
+	c := chart.Bars{Width: render.LineWidth, Rows: 8}
+	for _, r := range rows {
+		c.Values = append(c.Values, r.Closing.Float())
+		c.Labels = append(c.Labels, r.Label)
+		if by == plan.ByYear {
+			c.Keys = append(c.Keys, r.From.Year())
+		} else {
+			c.Keys = append(c.Keys, int(r.From))
+		}
+	}
+	period, periods := "year", "years"
+	if by == plan.ByMonth {
+		period, periods = "month", "months"
+		c.Steps = []int{1, 2, 3, 6, 12, 24, 60, 120, 240, 600}
+		c.Runs = []int{2, 3, 4, 6, 12, 24, 36, 60, 120, 240, 600}
+	} else {
+		c.Steps = []int{1, 2, 5, 10, 20, 25, 50}
+		c.Runs = []int{2, 3, 4, 5, 10}
+	}
+	head := fmt.Sprintf("%s: closing balance by %s, %s to %s, in %s.", g.Name, period, rows[0].Label, rows[len(rows)-1].Label, p.Currency.Code)
+	if g.HasTarget {
+		label := "target " + amt(p, p.TargetAt(g))
+		if g.HasBy {
+			label += " at the deadline"
+		}
+		c.Level = &chart.Level{Label: label, Value: p.TargetAt(g).Float()}
+	}
+	if g.HasBy {
+		for i, r := range rows {
+			if r.From <= g.By && g.By <= r.To {
+				c.Column = &chart.Column{Label: "deadline, the end of " + g.By.String(), Index: i}
+			}
+		}
+		if c.Column == nil {
+			head += fmt.Sprintf(" The deadline, %s, is outside the chart.", g.By)
+		}
+	}
+	if k := c.PerBar(); k > 1 {
+		head += fmt.Sprintf(" Each bar is the balance at the end of a run of %d %s.", k, periods)
+	}
+	return render.Wrap(head, render.LineWidth) + c.String()
+}

@@ -1,0 +1,253 @@
+package main
+
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"github.com/urfave/cli/v2"
+
+	"cairn/cmd/cairn/internal/render"
+	"cairn/plan"
+)
+
+func statusCommand(e *env) *cli.Command {
+	return &cli.Command{
+		Name:      "status",
+		Usage:     "the household at a glance: every goal, its deadline, and whether it is on track",
+		ArgsUsage: "[FILE]",
+		Description: "For every goal: the target as written and at its deadline, the balance projected at the\n" +
+			"deadline, the month the target is reached, on track or short by how much, and the deposit\n" +
+			"per period needed to make the deadline; then the total set aside a month now and needed.\n\n" +
+			"--set changes every goal, or only the one named by --goal; a change to a stream (deposit,\n" +
+			"withdrawal, grow, every) needs --goal when the file has several goals.\n\n" +
+			"Example:\n   cairn status examples/household.yaml\n   cairn status examples/household.yaml --set inflation=3% --format json\n" +
+			"   cairn status examples/household.yaml --goal Education --set deposit=200\n" +
+			"   cairn status examples/household.yaml --scenarios\n\n" +
+			"--scenario NAME applies one of the file's scenarios; with --scenarios (or --scenario given more\n" +
+			"than once) each goal's key figures are shown under the plan as written and each scenario,\n" +
+			"side by side, one row a goal and case.",
+		Flags: append(fileFlags(true), scenariosFlag,
+			&cli.StringFlag{Name: "goal", Aliases: []string{"g"}, Usage: "the goal that --set changes, by `NAME` (every goal is still shown)"},
+			&cli.StringFlag{Name: "stream", Usage: "the stream that --set changes, by `NAME` (the goal's first when not given)"},
+		),
+		Action: func(c *cli.Context) error {
+			cases, err := readCases(c, e)
+			if err != nil {
+				return err
+			}
+			p := cases[0].Plan
+			if c.IsSet("goal") {
+				if _, err := goalOf(c, p); err != nil {
+					return err
+				}
+			}
+			if _, err := parseFormat(c); err != nil {
+				return err
+			}
+			switch len(cases) {
+			case 1:
+				return out(c, e, statusDoc(p, plan.StatusOf(p)))
+			case 2:
+				p = cases[1].Plan
+				return out(c, e, statusDoc(p, plan.StatusOf(p)))
+			}
+			return out(c, e, casesDoc(cases))
+		},
+	}
+}
+
+// statusDoc is every goal of p at a glance; its table and remarks are also
+// the first page of the report.
+func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
+	d := newDoc(p, false)
+	t := &render.Table{Cols: []render.Column{
+		{Head: "goal", Key: "goal"}, {Head: "target", Key: "target", Numeric: true}, {Head: "at deadline", Key: "target_at_deadline", Numeric: true},
+		{Head: "deadline", Key: "deadline"}, {Head: "projected", Key: "projected", Numeric: true}, {Head: "reached", Key: "reached"},
+		{Head: "status", Key: "status"}, {Head: "short by", Key: "short_by", Numeric: true, Hidden: true},
+		{Head: "needed", Key: "needed"}, {Head: "every", Key: "needed_every", Hidden: true},
+		{Head: "grows", Key: "needed_grows", Hidden: true}, {Head: "in today's money", Key: "target_in_todays_money", Hidden: true},
+	}}
+	var goals []map[string]any
+	drawdown := false
+	for _, gs := range st.Goals {
+		goal := gs.Goal
+		target, atDeadline, deadline, projected, reached := render.None(), render.None(), render.None(), render.None(), render.None()
+		status, shortBy, needed, neededEvery, neededGrows := render.None(), render.Text(""), render.None(), render.Text(""), render.Text("")
+		today := render.Text("")
+		jg := map[string]any{"goal": goal.Name}
+		if goal.HasTarget {
+			target = cash(p, goal.Target)
+			if goal.TargetToday {
+				target = target.Then(" today")
+			}
+			jg["target"] = jamt(p, goal.Target)
+			jg["target_in_todays_money"] = goal.TargetToday
+			today = render.Bool(goal.TargetToday)
+		}
+		if goal.HasBy {
+			deadline = render.Month(goal.By)
+			jg["deadline"] = goal.By.String()
+		}
+		if c := gs.Capital; c != nil {
+			target, deadline = render.Label("capital "+amt(p, c.Amount), jamt(p, c.Amount)), render.Month(c.Month)
+			jg["capital_needed"], jg["deadline"] = jamt(p, c.Amount), c.Month.String()
+			d.After = append(d.After, capitalLine(p, c))
+		} else if gs.CapitalErr != nil {
+			jg["capital_reason"] = reasonOf(gs.CapitalErr)
+			d.After = append(d.After, fmt.Sprintf("%s: no capital figure: %s.", goal.Name, reasonOf(gs.CapitalErr)))
+		}
+		if goal.HasTarget && goal.HasBy || gs.Capital != nil {
+			atDeadline, projected = cash(p, gs.TargetAt), cash(p, gs.Projected)
+			jg["target_at_deadline"], jg["projected"] = jamt(p, gs.TargetAt), jamt(p, gs.Projected)
+			jg["on_track"] = gs.OnTrack
+			if gs.OnTrack {
+				status = render.Text("on track")
+			} else {
+				status = render.Label("short by "+amt(p, gs.Short), "short")
+				shortBy = cash(p, gs.Short)
+				jg["short_by"] = jamt(p, gs.Short)
+			}
+			if gs.NeededErr == nil {
+				a := gs.Needed
+				needed = cash(p, a.Amount).Then(" " + every(a.Stream))
+				neededEvery = render.Text(a.Stream.Every.String())
+				jn := map[string]any{"amount": jamt(p, a.Amount), "every": a.Stream.Every.String(), "stream": streamLabel(a.Stream), "in_todays_money": a.Stream.Today}
+				if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
+					needed = needed.Then(" *")
+					neededGrows = render.Label(growthText(a.Stream), growthPlain(a.Stream))
+					jn["grow"], jn["amount_is"] = growthJSON(a.Stream), "first year"
+					d.After = append(d.After, fmt.Sprintf("%s: * %s.", goal.Name, fy))
+				}
+				jg["needed"] = jn
+			} else {
+				jg["needed_reason"] = reasonOf(gs.NeededErr)
+				d.After = append(d.After, fmt.Sprintf("%s: no deposit makes the deadline: %s.", goal.Name, reasonOf(gs.NeededErr)))
+			}
+		}
+		if goal.HasTarget {
+			if gs.Reach == nil {
+				reached = render.Month(gs.Reached)
+				jg["reached"] = gs.Reached.String()
+			} else {
+				reached = render.Label("not reached", "")
+				jg["reached"] = nil
+				jg["not_reached_reason"] = reasonOf(gs.Reach)
+				d.After = append(d.After, fmt.Sprintf("%s: the target is not reached: %s.", goal.Name, reasonOf(gs.Reach)))
+			}
+		}
+		if gs.Lasts != nil {
+			drawdown = true
+			if gs.Lasts.Lasts {
+				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, gs.Lasts.Month, amt(p, gs.Lasts.Left)))
+				jg["money_lasts"] = true
+				jg["lasts_through"] = gs.Lasts.Month.String()
+			} else if gs.Lasts.Paid {
+				d.After = append(d.After, fmt.Sprintf("%s: the money does not last: %s.", goal.Name, gs.Lasts.Note))
+				jg["money_lasts"] = false
+				jg["paid_through"] = gs.Lasts.Month.String()
+			} else {
+				d.After = append(d.After, fmt.Sprintf("%s: the money runs out in %s.", goal.Name, gs.Lasts.Month))
+				jg["money_lasts"] = false
+				jg["runs_out"] = gs.Lasts.Month.String()
+			}
+		}
+		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
+		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
+		goals = append(goals, jg)
+	}
+	d.Notices = notices(drawdown)
+	d.Blocks = []render.Block{t}
+	d.After = append(d.After, fmt.Sprintf("Set aside now: %s a month; needed to make every deadline: %s a month.",
+		amt(p, st.MonthlyNow), amt(p, st.MonthlyNeeded)))
+	d.Data["goals"] = goals
+	d.Data["monthly_now"] = jamt(p, st.MonthlyNow)
+	d.Data["monthly_needed"] = jamt(p, st.MonthlyNeeded)
+	return d
+}
+
+// caseColumns are the status columns shown for each case side by side.
+var caseColumns = []string{"target_at_deadline", "projected", "reached", "status", "short_by", "needed", "needed_every", "needed_grows"}
+
+// casesDoc is every goal under each case (the plan as written, then each
+// scenario) side by side: one row a goal and case, the goals in file order
+// and the cases under each in order, with each case's own status document
+// in the JSON form. It is also the report's page of scenarios.
+func casesDoc(cases []plan.Case) *render.Doc {
+	base := cases[0].Plan
+	d := newDoc(base, false)
+	d.Lead = []string{"Each goal under the plan as written (base) and under each scenario, side by side;",
+		"a scenario's remarks follow where they differ from the base's."}
+	for _, c := range cases[1:] {
+		d.Lead = append(d.Lead, fmt.Sprintf("%s: %s.", c.Name, scenarioText(base.Scenario(c.Name))))
+	}
+	docs := make([]*render.Doc, len(cases))
+	for i, c := range cases {
+		docs[i] = statusDoc(c.Plan, plan.StatusOf(c.Plan))
+	}
+	st := docs[0].Tables()[0]
+	cols := []render.Column{{Head: "goal", Key: "goal"}, {Head: "case", Key: "case"}}
+	var idx []int
+	for _, k := range caseColumns {
+		i := slices.IndexFunc(st.Cols, func(c render.Column) bool { return c.Key == k })
+		cols, idx = append(cols, st.Cols[i]), append(idx, i)
+	}
+	t := &render.Table{Cols: cols}
+	for g := range base.Goals {
+		for i, c := range cases {
+			row := []render.Cell{render.Text(base.Goals[g].Name), render.Text(c.Name)}
+			for _, j := range idx {
+				row = append(row, docs[i].Tables()[0].Rows[g][j])
+			}
+			t.Add(row...)
+		}
+	}
+	var jcases []map[string]any
+	drawdown := false
+	for i, c := range cases {
+		for _, n := range docs[i].Notices {
+			drawdown = drawdown || n == drawdownNotice
+		}
+		for _, a := range docs[i].After {
+			if i == 0 || !slices.Contains(docs[0].After, a) {
+				d.After = append(d.After, c.Name+": "+a)
+			}
+		}
+		jc := map[string]any{"case": c.Name}
+		for _, k := range []string{"goals", "monthly_now", "monthly_needed"} {
+			jc[k] = docs[i].Data[k]
+		}
+		jcases = append(jcases, jc)
+	}
+	d.Notices = notices(drawdown)
+	d.Blocks = []render.Block{t}
+	for _, k := range []string{"goals", "monthly_now", "monthly_needed"} {
+		d.Data[k] = docs[0].Data[k]
+	}
+	d.Data["cases"] = jcases
+	return d
+}
+
+// scenarioText says what a scenario changes, as --set would write it:
+// "Retirement: rate=5.5%; every goal: inflation=3%".
+func scenarioText(sc *plan.Scenario) string {
+	if sc == nil {
+		return "as planned"
+	}
+	var parts []string
+	for _, ch := range sc.Changes {
+		who := "every goal"
+		if ch.Goal != "" {
+			who = ch.Goal
+		}
+		if ch.Stream != "" {
+			who += " (" + ch.Stream + ")"
+		}
+		var sets []string
+		for _, o := range ch.Sets {
+			sets = append(sets, o.String())
+		}
+		parts = append(parts, who+": "+strings.Join(sets, ", "))
+	}
+	return strings.Join(parts, "; ")
+}

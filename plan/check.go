@@ -1,0 +1,46 @@
+package plan
+
+import "fmt"
+
+// A problem is a rule across keys that a goal breaks: the goals file refuses
+// it at the key it names, and a what-if (--set, --vary) refuses it with the
+// same message.
+type problem struct {
+	goal     *Goal
+	at       string   // the key it is positioned at, relative to the goal; "" for the goal itself
+	key      string   // the key the message names, relative to the goal; "" for the goal itself
+	involves []string // keys whose own refusal makes the problem moot
+	msg      string
+}
+
+// settle fills in what one key implies for another: an amount in today's
+// money rises with inflation unless grow says otherwise. It runs after
+// parsing and after every what-if change.
+func (p *Plan) settle() {
+	for _, g := range p.Goals {
+		for _, ss := range [][]*Stream{g.Deposits, g.Withdrawals} {
+			for _, s := range ss {
+				if !s.growSet {
+					s.Grow, s.GrowInflation = 0, s.Today
+				}
+			}
+		}
+	}
+}
+
+// problems runs the cross-field checks over every goal of the plan. They run
+// after parsing and after every what-if change. (Unique goal names are the
+// decoder's: they are about the list as written, and no what-if renames.)
+func (p *Plan) problems() []problem {
+	var out []problem
+	for _, g := range p.Goals {
+		if n := len(g.Deposits) + len(g.Withdrawals); n > MaxStreams {
+			out = append(out, problem{goal: g, msg: fmt.Sprintf("%d streams, over the limit of %d a goal", n, MaxStreams)})
+		}
+		if g.TargetToday && !g.HasBy {
+			out = append(out, problem{goal: g, at: "target", key: "target", involves: []string{"target", "by"},
+				msg: "a target in today's money needs a deadline (want by: YYYY-MM)"})
+		}
+	}
+	return out
+}
