@@ -10,3 +10,10 @@ import _ "embed"
 //
 //go:embed household.yaml
 var Household []byte
+
+// Retirement is examples/retirement.yaml: retirement income with a pension,
+// part-time work and a bequest, and no target (the capital it needs is the
+// answer).
+//
+//go:embed retirement.yaml
+var Retirement []byte

@@ -68,7 +68,7 @@ func streamLabelOf(s *Stream) string {
 
 // capitalSource is the capital's source in a drawdown goal's schedule: the
 // first one-time amount.
-func capitalSource(h *Goal) int32 { return int32(1 + len(h.Deposits) + len(h.Withdrawals)) }
+func capitalSource(h *Goal) int32 { return int32(1 + len(streams(h))) }
 
 // solveCapital answers ForCapital: the least balance at the end of the
 // capital month that pays every withdrawal and leaves leave.
@@ -179,7 +179,7 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"
 		}
-		if st := src.stream; plain && st != nil && (h.Between == Compound || s.onCredits(int32(i))) {
+		if st := src.stream; plain && st != nil && !st.Income && (h.Between == Compound || s.onCredits(int32(i))) {
 			t.Factors = annuityFactors(st, rate, units, first, last, atTick)
 		}
 		eq.Terms = append(eq.Terms, t)

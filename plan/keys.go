@@ -28,7 +28,7 @@ var where = map[Scope]string{
 	InPlan:       "the top level of the file",
 	InGoal:       "each goal (under goals:)",
 	InStream:     "each stream (under deposits: or withdrawals:)",
-	InWithdrawal: "each withdrawal stream (under withdrawals:)",
+	InWithdrawal: "each withdrawal or income stream (under withdrawals: or income:)",
 	InOnce:       "each one-time amount (under once:)",
 	InRateStep:   "each step of a rate schedule (under rate:)",
 	InScenario:   "each scenario (under scenarios:)",
@@ -264,6 +264,14 @@ var Keys = withChangeKeys([]*Key{
 		Default: "none", Help: "a list of streams (below)"},
 	{Name: "withdrawals", Scope: InGoal, Form: FormList, Items: InWithdrawal, MaxItems: MaxStreams,
 		Default: "none", Help: "a list of streams, plus for:"},
+	{Name: "income", Scope: InGoal, Form: FormList, Items: InWithdrawal, MaxItems: MaxStreams,
+		Default: "none",
+		Help: "streams paid from outside the account (a pension, a\n" +
+			"benefit, part-time work), written as withdrawals are.\n" +
+			"Each amount pays the withdrawals of the month it is\n" +
+			"paid in and the account pays the rest; what a month's\n" +
+			"withdrawals do not need is not deposited. Never counted\n" +
+			"as money set aside."},
 	{Name: "once", Scope: InGoal, Form: FormList, Items: InOnce, MaxItems: MaxOnce,
 		Default: "none",
 		Help: "one-time amounts: positive in, negative out\n" +

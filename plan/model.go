@@ -104,9 +104,14 @@ type Goal struct {
 	HasBy       bool
 	Deposits    []*Stream
 	Withdrawals []*Stream
-	Once        []Once
-	Leave       money.Amount // balance that must remain after the last withdrawal
-	LeaveToday  bool         // Leave is in today's money, grown by inflation to the last withdrawal
+	// Income are streams paid from outside the account (a pension, a
+	// benefit, part-time work): each amount pays the withdrawals of the
+	// month it is paid in, and the account pays the rest; what a month's
+	// withdrawals do not need is not deposited. Never money set aside.
+	Income     []*Stream
+	Once       []Once
+	Leave      money.Amount // balance that must remain after the last withdrawal
+	LeaveToday bool         // Leave is in today's money, grown by inflation to the last withdrawal
 	// Volatility is the yearly volatility of log-returns for [Simulate], as
 	// a fraction; HasVolatility says the file gave it.
 	Volatility    float64
@@ -135,6 +140,7 @@ type Stream struct {
 	Grow          float64
 	GrowInflation bool
 	Out           bool // a withdrawal
+	Income        bool // income from outside the account (see Goal.Income)
 
 	growSet   bool // grow was given; otherwise an amount in today's money grows with inflation
 	forMonths int  // a withdrawal's length as given by for:, which sets Until
@@ -171,6 +177,7 @@ func (g *Goal) clone() *Goal {
 	h.Once = append([]Once(nil), g.Once...)
 	h.Deposits = cloneStreams(g.Deposits)
 	h.Withdrawals = cloneStreams(g.Withdrawals)
+	h.Income = cloneStreams(g.Income)
 	return &h
 }
 

@@ -482,11 +482,8 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		g.Rates = []RateStep{{From: p.Start, Rate: money.EffectiveRate(0)}}
 	}
 	var streams named
-	for _, out := range []bool{false, true} {
-		key := "deposits"
-		if out {
-			key = "withdrawals"
-		}
+	for _, key := range []string{"deposits", "withdrawals", "income"} {
+		out := key == "withdrawals"
 		v := given[key]
 		if v == nil {
 			continue
@@ -495,13 +492,16 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		items, _ := d.list(v, kp, "streams")
 		for i, sn := range items {
 			sp := fmt.Sprintf("%s[%d]", kp, i)
-			if s := d.stream(p, g, resolve(sn), sp, out); s != nil {
+			if s := d.stream(p, g, resolve(sn), sp, out, key == "income"); s != nil {
 				if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
 					d.errorf(sn, join(sp, "name"), "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
 				}
-				if out {
+				switch key {
+				case "withdrawals":
 					g.Withdrawals = append(g.Withdrawals, s)
-				} else {
+				case "income":
+					g.Income = append(g.Income, s)
+				default:
 					g.Deposits = append(g.Deposits, s)
 				}
 			}
@@ -583,11 +583,11 @@ func (d *decoder) rates(k *Key, p *Plan, v *yaml.Node, path string) []RateStep {
 	return steps
 }
 
-func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out bool) *Stream {
-	s := &Stream{Out: out, From: p.Start}
+func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out, income bool) *Stream {
+	s := &Stream{Out: out, Income: income, From: p.Start}
 	scope := InStream
-	if out {
-		scope = InWithdrawal
+	if out || income {
+		scope = InWithdrawal // until or for
 	}
 	given := d.keys(n, path, scope, &target{p: p, g: g, s: s})
 	if given == nil {

@@ -513,10 +513,17 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 	add("Inflation", fmt.Sprintf("%s a year; today’s money is money of %s", pct(p.Inflation.Effective()), p.Start))
 	for _, sv := range v.Streams {
 		term := "Deposits"
-		if sv.Stream.Out {
+		switch {
+		case sv.Stream.Out:
 			term = "Withdrawals"
+		case sv.Stream.Income:
+			term = "Income from outside the account"
 		}
-		add(term, streamWords(p, sv))
+		words := streamWords(p, sv)
+		if sv.Stream.Income {
+			words += "; it pays part of each month's withdrawals and is not deposited"
+		}
+		add(term, words)
 	}
 	for _, o := range g.Once {
 		name := o.Name

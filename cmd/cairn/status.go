@@ -136,6 +136,9 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 				d.After = append(d.After, fmt.Sprintf("%s: the target is not reached: %s.", goal.Name, reasonOf(gs.Reach)))
 			}
 		}
+		if len(goal.Income) > 0 {
+			d.After = append(d.After, outsideIncomeWords(goal))
+		}
 		if gs.Lasts != nil {
 			drawdown = true
 			if gs.Lasts.Lasts {
