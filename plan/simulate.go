@@ -666,9 +666,12 @@ func (pg *simProgram) runAll(st simSetup, amounts []float64) *simRaw {
 		raw.rows[r] = make([]float64, st.paths)
 		byMonth[m-pg.s.plan.Start] = raw.rows[r]
 	}
+	shared := false       // raw.left is a row's, which its percentiles sort
 	if pg.firstOut >= 0 { // what is left after the last withdrawal
 		if byMonth[pg.lastOut] == nil {
 			byMonth[pg.lastOut] = make([]float64, st.paths)
+		} else {
+			shared = true
 		}
 		raw.left = byMonth[pg.lastOut]
 	}
@@ -689,6 +692,9 @@ func (pg *simProgram) runAll(st simSetup, amounts []float64) *simRaw {
 			}
 		}
 	})
+	if shared {
+		raw.left = slices.Clone(raw.left)
+	}
 	return raw
 }
 
