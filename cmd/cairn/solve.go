@@ -125,19 +125,25 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 // term's amount times its factors, or its value where no factor describes
 // it.
 func capitalLine(p *plan.Plan, a *plan.Answer) string {
-	var terms []string
-	for _, t := range a.Equation.Terms {
-		x := amt(p, t.Value)
+	var b strings.Builder
+	for i, t := range a.Equation.Terms {
+		x := amt(p, t.Value.Abs())
 		if len(t.Factors) > 0 {
-			x = amt(p, t.Amount)
+			x = amt(p, t.Amount.Abs())
 			for _, f := range t.Factors {
 				x += " × " + f.String()
 			}
 		}
-		terms = append(terms, t.Label+" "+x)
+		switch {
+		case t.Value.Sign() < 0:
+			b.WriteString(" − ")
+		case i > 0:
+			b.WriteString(" + ")
+		}
+		b.WriteString(t.Label + " " + x)
 	}
 	return fmt.Sprintf("%s: the capital needed at the end of %s is %s, the value then of what it pays: %s.",
-		a.Goal.Name, a.Month, amt(p, a.Amount), strings.Join(terms, " + "))
+		a.Goal.Name, a.Month, amt(p, a.Amount), strings.TrimSpace(b.String()))
 }
 
 // span says how long the plan runs until the month of answer a, counting
