@@ -265,3 +265,30 @@ func ParseRate(s string) (Rate, error) {
 	}
 	return r, nil
 }
+
+// PercentUp returns the least fraction that is a whole number of
+// 10^−places percent and no less than x: a rate rounded up to the places
+// it is shown with. A solved rate shown rounded up meets its target when
+// written back (the balance never falls as the rate rises), where rounded
+// to nearest it can fall short. The result, formatted to places or more
+// and parsed again as [ParseRate] does, is again no less than x.
+func PercentUp(x float64, places int) float64 {
+	s := strconv.FormatFloat(x*100, 'f', places, 64) // nearest
+	v, _ := strconv.ParseFloat(s, 64)
+	if v/100 < x {
+		step := math.Pow(10, -float64(places))
+		s = strconv.FormatFloat(v+step, 'f', places, 64)
+		v, _ = strconv.ParseFloat(s, 64)
+	}
+	return v / 100
+}
+
+// RateUp returns x rounded up to the places [RateText] shows it with (four,
+// six below 1%): how a solved rate is shown, so that the rate read from any
+// output and written back meets the target it was solved for.
+func RateUp(x float64) float64 {
+	if math.Abs(x) < 0.01 {
+		return PercentUp(x, 6)
+	}
+	return PercentUp(x, 4)
+}

@@ -74,8 +74,12 @@
 //   - compound (the default): (1+j)^τ − 1, fractional-period compounding;
 //     this equals compounding at the effective rate per deposit period.
 //   - simple: j·τ, simple interest for the fraction, credited at the date.
-//   - none: nothing for a deposit until the next interest date; money
-//     withdrawn between dates earns nothing for that whole period.
+//   - none: interest on the lowest balance held throughout the interest
+//     period. A deposit earns nothing until the period ends; money
+//     withdrawn earns nothing for that period; flows within a period offset
+//     first, so a withdrawal takes from the period's deposits before the
+//     balance the period began with. At a non-negative rate this interest
+//     is never negative.
 //
 // A worked example: 4% compounded quarterly (j = 1%) and 1,000 deposited one
 // month into a quarter (τ = 2/3). At the quarter's end, compound credits
@@ -83,6 +87,66 @@
 // 2/3 = 6.666… → 6.67; none credits 0.00. A 1,000 withdrawal from a balance
 // of 5,000 one month into the quarter leaves 4,000 earning, under none,
 // 40.00 for the quarter instead of compound's 5,000 × 0.01 − 6.66 = 43.34.
+// And 1,000 in at the end of January and out at the end of February, on an
+// empty account: the lowest balance of the quarter is 0.00, so none credits
+// 0.00 (the two flows offset; neither is charged against the other).
+//
+// Under none the walk is not linear in the amounts — the lowest balance of
+// a sum is not the sum of the lowest balances — so the values of the flows
+// each taken alone add up to the balance only when no interest period
+// holds, after its first instant, money both in and out or a fee. Otherwise
+// the equation of value shows the difference as a term of its own, "flows
+// offsetting within interest periods".
+//
+// # Order at one instant
+//
+// Several things can happen at one tick. They happen in this order: the
+// interest credit for the period ending then (and, for daily or weekly
+// compounding, the month's credit of what has accrued); the month's fee;
+// the amounts due at the end of a period — money in (deposits, one-time
+// amounts in) before money out (withdrawals, one-time amounts out); the
+// month-end balance; then the amounts due at the start of a period, again
+// money in before money out. So money that arrives at an instant can pay
+// what leaves at it: a one-time 1,000 at the end of the month a 1,000
+// withdrawal falls due pays it, even on an empty account. The month-end
+// balance is the one a statement for that month shows: it excludes the
+// next month's start-of-period amounts, which fall at the same tick.
+//
+// # Conventions
+//
+// What to know to check cairn against a statement:
+//
+//   - A rate "x%" or "x% per year" is effective: what a year's interest
+//     adds, compounding included. "x% compounded monthly" is nominal, 12
+//     credits of x/12; "x% per month" is periodic.
+//   - Compounding dates count from the plan's start, not the calendar: a
+//     rate compounded quarterly in a plan starting in February credits at
+//     the ends of April, July, October and January.
+//   - Daily compounding has 365 interest dates a year, one every 365th of
+//     a year, and a month is a twelfth of a year (30 5/12 days), so a
+//     month's credit covers the whole days that end within it: 30 or 31,
+//     in the pattern 30, 30, 31, 30, 31, 30, 30, 31, 30, 31, 30, 31 from
+//     the plan's start (182 in the first six months, 365 in a year). The
+//     fraction of a day at a month's end is carried: it is paid with the
+//     next month's first day.
+//   - Interest accrued at daily or weekly dates is credited at the month
+//     end rounded to the cent; the fraction of a cent left over is carried
+//     to the next month's credit, and earns interest meanwhile (it can
+//     round a later credit up or down by a cent).
+//   - Every interest credit, fee and amount is rounded once, to the cent,
+//     with the file's rounding rule (half-even unless "rounding: half-up").
+//   - "every 2 weeks" is 26 amounts a year, exactly half of the 52 weekly
+//     ones: the time grid divides a year into 26 equal two-week periods,
+//     not into 14-day periods (which would make about 26.07). "twice a
+//     month" is 24.
+//   - The fee ("fee: 0.25%", a year) is taken at each month end as a
+//     twelfth of the rate times the balance then: after that month's
+//     interest credit and before the amounts due at that instant.
+//   - The leave of a withdrawal goal ("leave: 10,000") is the balance at
+//     the end of the month of the last withdrawal (the latest until of its
+//     withdrawal streams), after that month's interest and fee.
+//   - A deadline "by: 2029-06" is the end of June 2029, and includes the
+//     amounts due then.
 //
 // # Ledger
 //
@@ -108,6 +172,17 @@
 // ledger shows: a deposit solved for meets the target and one cent less
 // misses. Only root finding for a rate uses the smooth, unrounded balance,
 // and the exact walk then settles the last cent.
+//
+// No balance goes below zero (a withdrawal larger than the balance is paid
+// in part), so the balance at a deadline never falls as the rate rises: the
+// rates that meet a target are one range, and the answer is its lowest. A
+// root of the smooth balance where the exact balance does not cross the
+// target (the smooth one goes negative where the exact one stops at zero)
+// is not a rate; when the balance at the deadline is the same at every rate
+// and meets the target, the answer is that every rate meets it (a
+// [SolveError], not a rate). A solved rate is shown rounded up to the places
+// shown, so that written back it meets the target (see
+// [Answer.ShownNominal]).
 //
 // [Compare] solves one question over a grid of what-if overrides, and
 // [StatusOf] gives every goal at a glance.

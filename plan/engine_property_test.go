@@ -153,10 +153,15 @@ func TestSmoothWalkWithinRoundingOfLedger(t *testing.T) {
 
 // The one-source values (the equation of value's terms, unrounded) add up
 // to the smooth balance of every source together: the smooth walk is
-// linear in the amounts (within float64 rounding of the sum).
+// linear in the amounts (within float64 rounding of the sum) — except
+// under between none where an interest period holds, after its first
+// instant, a fee or money both in and out (see [linearUnderNone]).
 func TestOneSourceValuesSumToSmoothBalance(t *testing.T) {
 	eachRandomPlan(t, 2, func(t *testing.T, src string, p *Plan, g *Goal) {
 		s := compile(p, g, g.By)
+		if g.Between == None && !linearUnderNone(s) {
+			return
+		}
 		pr := s.defaultParams()
 		all := s.smooth(pr, false, 0)
 		sum, size := 0.0, math.Abs(all)
@@ -170,6 +175,76 @@ func TestOneSourceValuesSumToSmoothBalance(t *testing.T) {
 		}
 	})
 }
+
+// linearUnderNone reports whether the smooth walk of s under between none
+// is linear in the amounts: whether no interest period holds, after its
+// first tick, a fee or money both in and out. Then within each period
+// every source's balance moves one way only, all the same way, so each
+// reaches its lowest at the same instant and the lowest balance of the sum
+// is the sum of the lowest balances. (A fee breaks it: valued alone, a
+// withdrawal's negative balance is raised by its fee, the rest lowered.)
+func linearUnderNone(s *schedule) bool {
+	in, out := map[int32]bool{}, map[int32]bool{}
+	for _, e := range s.events {
+		if e.Kind == engine.Interest || e.Kind == engine.Credit || e.Kind == engine.Mark || e.Tau == 1 {
+			continue
+		}
+		if e.Kind == engine.Fee {
+			return false
+		}
+		if s.out[e.Src] {
+			out[e.Period] = true
+		} else {
+			in[e.Period] = true
+		}
+		if in[e.Period] && out[e.Period] {
+			return false
+		}
+	}
+	return true
+}
+
+// Under between none the sum of one-source values is the smooth balance
+// only when linearUnderNone says so: a deposit and a withdrawal inside one
+// period offset first, which no source valued alone sees. The issue's
+// case (1,000 in at the end of January, out at the end of February, 4%
+// compounded quarterly) pays 0.00 interest in all, while the deposit alone
+// earns 0.00 and the withdrawal alone −10.00 (derived: 1,000 × 1%).
+func TestOneSourceValuesUnderNoneNeedOneWayPeriods(t *testing.T) {
+	p, err := Parse("none.yaml", []byte(noneOffsetFile), 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := p.Goals[0]
+	s := compile(p, g, g.By)
+	if linearUnderNone(s) {
+		t.Fatalf("linearUnderNone = true for a quarter with money in and out")
+	}
+	pr := s.defaultParams()
+	all := s.smooth(pr, false, 0)
+	sum := 0.0
+	for i := range s.sources {
+		sum += s.smooth(pr, true, int32(i))
+	}
+	if math.Abs(all-0) > 1e-9 || math.Abs(sum-(-10)) > 1e-9 {
+		t.Fatalf("smooth balance %.9f, one-source sum %.9f; want 0 and -10 (derived by hand)", all, sum)
+	}
+}
+
+// noneOffsetFile is issue 13's case for between none: 1,000 in at the end
+// of January and out at the end of February, 4% compounded quarterly.
+const noneOffsetFile = `cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    balance: 0
+    rate: 4% compounded quarterly
+    between: none
+    by: 2027-03
+    once:
+      - {amount: 1000, on: 2027-01}
+      - {amount: -1000, on: 2027-02}
+`
 
 // With no volatility (of returns or of inflation) every simulated path is
 // the ledger, to the cent: at every recorded month end, at the deadline and

@@ -94,6 +94,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		}
 		return true
 	}
+	var sumV float64 // the terms' values, unrounded
 	for i, src := range s.sources {
 		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
 			continue // no flow, no term
@@ -115,6 +116,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 			}
 		}
 		v := s.smooth(prv, true, int32(i))
+		sumV += v
 		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding)}
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"
@@ -143,6 +145,15 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		}
 		eq.Terms = append(eq.Terms, t)
 		eq.Sum = eq.Sum.Add(t.Value)
+	}
+	// Under between none the walk is not linear in the amounts: flows that
+	// offset within an interest period earn what no flow valued alone
+	// shows. That difference is a term of its own.
+	if g.Between == None {
+		if d := money.FromFloat(s.smooth(pr, false, 0)-sumV).Round(s.places, s.rounding); !d.IsZero() {
+			eq.Terms = append(eq.Terms, Term{Label: "flows offsetting within interest periods (between none)", Kind: Interest, Value: d})
+			eq.Sum = eq.Sum.Add(d)
+		}
 	}
 	return eq
 }

@@ -231,8 +231,9 @@ var Keys = withChangeKeys([]*Key{
 			"  compound  fractional-period compounding (the\n" +
 			"            effective rate per deposit period)\n" +
 			"  simple    simple interest for the fraction\n" +
-			"  none      nothing for deposits; withdrawals earn\n" +
-			"            nothing for that period",
+			"  none      interest on the lowest balance held\n" +
+			"            through the period: deposits earn nothing\n" +
+			"            until it ends, withdrawals nothing for it",
 		Set: "between",
 		put: func(t *target, v *value) { t.g.Between = Between(v.n) }},
 	{Name: "fee", Scope: InGoal, Form: FormRate, Min: 0, Max: MaxFeePercent,

@@ -70,7 +70,7 @@ func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
 			first = 1 + p.Inflation.Over(float64(st.From-p.Start)/12)
 		}
 		ss := engine.StreamShape{PerYear: st.Every.PerYear(), Begin: st.Timing == Begin, From: int32(st.From - p.Start),
-			HasUntil: st.HasUntil, First: first, Grow: st.growth(p.Inflation), Today: st.Today, GrowInflation: st.GrowInflation, Income: st.Income}
+			HasUntil: st.HasUntil, Out: st.Out, First: first, Grow: st.growth(p.Inflation), Today: st.Today, GrowInflation: st.GrowInflation, Income: st.Income}
 		if st.HasUntil {
 			ss.Until = int32(st.Until - p.Start)
 		}
@@ -78,6 +78,7 @@ func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
 	}
 	for _, o := range g.Once {
 		sh.Once = append(sh.Once, int32(o.On-p.Start))
+		sh.OnceOut = append(sh.OnceOut, o.Amount.Sign() < 0)
 	}
 	return sh
 }

@@ -48,8 +48,12 @@ const (
 	Compound Between = iota
 	// Simple gives it simple interest, j·τ, credited at the interest date.
 	Simple
-	// None gives deposits nothing until the next interest date, and money
-	// withdrawn mid-period earns nothing for that period.
+	// None pays interest on the lowest balance held throughout the
+	// interest period: deposits earn nothing until the period ends, money
+	// withdrawn earns nothing for that period, and flows within a period
+	// offset first (a withdrawal takes from the period's deposits before
+	// the balance it began with). At a non-negative rate its interest is
+	// never negative.
 	None
 )
 
@@ -63,7 +67,7 @@ func (b Between) Words() string {
 	case Simple:
 		return "money arriving between interest dates earns simple interest until the next one"
 	case None:
-		return "money arriving between interest dates earns nothing until the next one; money withdrawn between them earns nothing for that period"
+		return "interest is paid on the lowest balance held throughout each interest period: money arriving earns nothing until the period ends, money withdrawn nothing for that period"
 	}
 	return "money arriving between interest dates earns compound interest for the fraction of the period (the effective rate per deposit period)"
 }

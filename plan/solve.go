@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 
 	"cairn/money"
@@ -77,6 +78,15 @@ type Answer struct {
 	// flows change sign more than once).
 	Rate  money.Rate
 	Rates []money.Rate
+	// ShownNominal is Rate as outputs show it, nominal in the goal's
+	// compounding: rounded up to the places shown (see [money.RateUp]),
+	// and further if need be, so that written back into the goal as its
+	// rate it meets the target. ShownEffective is the effective annual
+	// rate, rounded up likewise; written back, it meets the target when the
+	// goal credits monthly. (An effective rate credits monthly, so written
+	// back into a goal compounded otherwise it makes a different account,
+	// whose balance can differ by more than the rounding.)
+	ShownEffective, ShownNominal float64
 
 	// ForLasts and ForWithdrawal: whether the money lasts — every
 	// withdrawal paid in full and the goal's leave (Target) left after the
@@ -615,7 +625,8 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		n = 1
 	}
 	var roots []float64
-	if d, ok := s.annuityRoot(target); ok { // a uniform annuity: its closed form
+	slope := math.NaN()                                           // of f at roots[0], when the search found it
+	if d, ok := s.annuityRoot(target); ok && d >= lo && d <= hi { // a uniform annuity: its closed form, in range
 		roots, n = []float64{d}, 0
 	} else if n == 1 {
 		// One root at most: bracket it from the goal's own rate outwards,
@@ -635,7 +646,11 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 				if f1 == 0 {
 					roots = []float64{x1}
 				} else {
-					roots = []float64{brent(f, x0, x1, f0, f1)}
+					// within a thousandth of the target: the exact walks
+					// settle the rest by secant steps, whose error over so
+					// short a step is below a minor unit
+					r, sl := brentWithin(f, x0, x1, f0, f1, max(100/s.scale(), target.Float()/1000))
+					roots, slope = []float64{r}, sl
 				}
 				n = 0
 				break
@@ -663,69 +678,169 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if n > 0 && prevF == 0 {
 		roots = append(roots, prevX)
 	}
-	if len(roots) == 0 {
-		if f(hi) < 0 {
-			return nil, noSolution(g, "even at %s a year the goal falls short of %s by the deadline", money.Percent(maxSolveRate, 0), target.Format(p.Currency, false))
-		}
-		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
-	}
-	// The lowest root of the smooth balance is within rounding of the
-	// answer: bracket the lowest rate whose exact balance meets the target
-	// around it, then bisect.
-	meets := func(delta float64) (money.Amount, bool) {
+	// The lowest root of the smooth balance is near the answer: the exact
+	// balance differs from the smooth one by its roundings. Settle on the
+	// lowest rate whose exact balance meets the target, to within a rate
+	// step worth one minor unit of balance (tol): a rate below that does
+	// not meet it and one above that does, above − below ≤ tol. Secant steps along the exact
+	// balance close in (each aiming a quarter unit past the target), and
+	// bisection finishes once the roundings' noise stalls them.
+	meets := func(delta float64) (float64, bool) {
 		r := money.ForceRate(delta)
 		pr.rate = &r
 		bal, _ := s.closing(pr)
-		return bal, bal.Cmp(target) >= 0
+		return bal.Float(), bal.Cmp(target) >= 0
+	}
+	if n > 1 {
+		// Money goes out: where a withdrawal is larger than the balance the
+		// exact balance is floored at zero and the smooth one is not, so a
+		// root of the smooth balance is a rate only where the exact balance
+		// crosses the target.
+		roots = slices.DeleteFunc(roots, func(r float64) bool { return !crosses(meets, r) })
+	}
+	if len(roots) == 0 {
+		bLo, okLo := meets(lo)
+		bHi, okHi := meets(hi)
+		switch {
+		case !okHi:
+			return nil, noSolution(g, "even at %s a year the goal falls short of %s by the deadline", money.Percent(maxSolveRate, 0), target.Format(p.Currency, false))
+		case okLo && bLo == bHi:
+			return nil, noSolution(g, "every rate meets the target: the balance at the deadline is %s whatever the rate, so no rate is the answer", s.amount(bLo).Format(p.Currency, false))
+		case okLo:
+			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
+		}
+		// The exact balance crosses the target where the smooth one has no
+		// root: bisect it.
+		a, b := lo, hi
+		for range 200 {
+			if b-a <= 1e-12 {
+				break
+			}
+			if m := a + (b-a)/2; func() bool { _, ok := meets(m); return ok }() {
+				b = m
+			} else {
+				a = m
+			}
+		}
+		roots, slope = []float64{b}, math.NaN()
 	}
 	delta := roots[0]
-	bal, ok := meets(delta)
-	// Usually one step along the smooth balance's slope lands on the
-	// boundary: accept it when it meets and 1e-12 less does not.
-	{
+	if !(slope > 0) || math.IsInf(slope, 0) {
 		h := 1e-7
-		slope := (f(delta+h) - f(delta-h)) / (2 * h)
-		if slope > 0 {
-			d := delta + (target.Float()-bal.Float())/slope + 1e-13
-			if b, m := meets(d); m {
-				if _, m2 := meets(d - 1e-12); !m2 {
-					a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(d), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: b}
-					return finishRate(s, a, pr, roots, full), nil
-				}
-			}
-		}
+		slope = (f(delta+h) - f(delta-h)) / (2 * h)
 	}
-	lo2, hi2 := delta, delta
-	for step := 1e-9; ; step *= 8 {
-		if ok {
-			lo2 = hi2 - step
-			if _, m := meets(lo2); !m || step > 1 {
-				break
-			}
-			hi2 = lo2
+	if !(slope > 0) || math.IsInf(slope, 0) {
+		slope = 1 / s.scale() / 1e-12
+	}
+	// (and at most 1e-9, about the force one minor unit is worth on a
+	// goal of a million; a goal that hardly depends on the rate would make
+	// a minor unit worth a wide range)
+	tol := min(max(1e-12, 1/s.scale()/slope), 1e-9)
+	t := target.Float()
+	below, above := math.Inf(-1), math.Inf(1) // below does not meet the target, above does
+	hiBal := 0.0
+	x, sl := delta, slope
+	reach := tol // how far to step at least while one side is open
+	bx, meet := meets(x)
+	for range 64 {
+		if meet {
+			above, hiBal = x, bx
 		} else {
-			hi2 = lo2 + step
-			if _, ok = meets(hi2); ok || step > 1 {
-				break
-			}
-			lo2 = hi2
+			below = x
 		}
-	}
-	for range 60 {
-		if hi2-lo2 <= 1e-12 {
+		if above-below <= tol {
 			break
 		}
-		mid := lo2 + (hi2-lo2)/2
-		if _, m := meets(mid); m {
-			hi2 = mid
+		next := x + (t-bx)/sl + tol/4
+		switch {
+		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
+			next = max(min(next, above-reach), lo) // but not past the search's range
+			reach *= 8
+		case math.IsInf(above, 1): // none does: step up likewise
+			next = max(next, below+reach)
+			reach *= 8
+		case !(next > below && next < above):
+			next = below + (above-below)/2
+		}
+		if next == x || math.IsNaN(next) || reach > 8 {
+			break
+		}
+		bn, m := meets(next)
+		if m && next == lo { // the range's end meets it too
+			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
+		}
+		if math.IsInf(below, -1) || math.IsInf(above, 1) {
+			// still far: the secant of the exact balance; near the target
+			// its roundings make a secant noise, and the smooth slope is
+			// the better guide
+			if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) {
+				sl = d
+			}
 		} else {
-			lo2 = mid
+			sl = slope
+		}
+		x, bx, meet = next, bn, m
+	}
+	if math.IsInf(above, 1) { // no rate in range meets it exactly: keep the smooth root
+		above = delta
+		hiBal, _ = meets(above)
+	}
+	// The answer is raised 1e-12 above the rate found to meet the target: a
+	// margin against the last bits a conversion of the rate to another form
+	// changes, so that the rate meets the target when used.
+	above += 1e-12
+	hiBal, _ = meets(above)
+	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(above), Periods: math.NaN(), Deadline: g.By, Target: target,
+		Balance: s.amount(hiBal)}
+	return finishRate(s, a, pr, roots, full), nil
+}
+
+// amount returns bal, in currency units a whole number of minor units, as
+// an amount.
+func (s *schedule) amount(bal float64) money.Amount {
+	return money.Minor(int64(math.Round(bal*s.scale())), s.places)
+}
+
+// crosses reports whether the exact balance crosses the target at force
+// of interest r: whether it meets the target on one side of r and not on
+// the other, within a distance widened from 1e-7 to 1e-2 (the exact
+// balance moves in whole cents, so a small step may not move it).
+func crosses(meets func(float64) (float64, bool), r float64) bool {
+	for h := 1e-7; h <= 1e-2; h *= 10 {
+		_, okl := meets(r - h)
+		_, okh := meets(r + h)
+		if okl != okh {
+			return true
 		}
 	}
-	delta = hi2
-	bal, _ = meets(delta)
-	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(delta), Periods: math.NaN(), Deadline: g.By, Target: target, Balance: bal}
-	return finishRate(s, a, pr, roots, full), nil
+	return false
+}
+
+// shownRate returns rate x, a fraction in the form that suffix names (""
+// for effective, " compounded monthly"), rounded up to the places it is
+// shown with, and raised a place at a time until the rate so written back
+// as the goal's one rate meets target: s walked at the rate read back from
+// its text, as the goals file reads it. s must compound as the form does
+// (an effective rate monthly). It meets at once unless a posting rounds
+// the other way.
+func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix string) float64 {
+	v := money.RateUp(x)
+	for range 100 {
+		r, err := money.ParseRate(money.Percent(v, 6) + suffix)
+		if err != nil {
+			return v
+		}
+		pr.rate = &r
+		if bal, _ := s.closing(pr); bal.Cmp(target) >= 0 {
+			return v
+		}
+		step := 1e-6 // a unit in the fourth place of a percentage, or the sixth below 1%
+		if math.Abs(v) < 0.01 {
+			step = 1e-8
+		}
+		v = money.RateUp(v + step/2)
+	}
+	return v
 }
 
 // finishRate completes a rate answer: the other roots, and the proof at the
@@ -733,6 +848,12 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) *Answer {
 	for _, r := range roots[1:] {
 		a.Rates = append(a.Rates, money.ForceRate(r))
+	}
+	comp := s.comp
+	a.ShownNominal = s.shownRate(pr, a.Target, a.Rate.Nominal(comp), " compounded "+comp.Adjective())
+	a.ShownEffective = money.RateUp(a.Rate.Effective())
+	if comp == money.Monthly { // an effective rate credits monthly: the same account
+		a.ShownEffective = s.shownRate(pr, a.Target, a.Rate.Effective(), "")
 	}
 	pr.rate = &a.Rate
 	s.prove(a, pr, full)
@@ -788,15 +909,25 @@ func anyOut(os []Once) bool {
 // brent finds a root of f in [a, b], where f(a) and f(b) differ in sign, by
 // Brent's method (inverse quadratic interpolation safeguarded by bisection).
 func brent(f func(float64) float64, a, b, fa, fb float64) float64 {
+	x, _ := brentWithin(f, a, b, fa, fb, 0)
+	return x
+}
+
+// brentWithin is [brent] stopping as soon as |f| ≤ ftol, which spares the
+// steps that only refine the root past what the caller needs. It also
+// returns the slope of f there, from the last two points (NaN when they
+// coincide).
+func brentWithin(f func(float64) float64, a, b, fa, fb, ftol float64) (float64, float64) {
 	if math.Abs(fa) < math.Abs(fb) {
 		a, b, fa, fb = b, a, fb, fa
 	}
 	c, fc := a, fa
 	d := b - a
 	mflag := true
+	slope := func() float64 { return (fb - fc) / (b - c) }
 	for it := 0; it < 200; it++ {
-		if fb == 0 || math.Abs(b-a) < 1e-13 {
-			return b
+		if fb == 0 || math.Abs(b-a) < 1e-13 || math.Abs(fb) <= ftol {
+			return b, slope()
 		}
 		var s float64
 		if fa != fc && fb != fc {
@@ -825,5 +956,5 @@ func brent(f func(float64) float64, a, b, fa, fb float64) float64 {
 			a, b, fa, fb = b, a, fb, fa
 		}
 	}
-	return b
+	return b, slope()
 }

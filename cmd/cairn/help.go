@@ -20,7 +20,32 @@ as people write them: 1500, 1,500.00, 1_500, $1,500, 1.5k, 1.2M. Months are
 YYYY-MM; a deadline month means the end of that month. Run ` + "`cairn init`" + ` to get
 an example to edit, and ` + "`cairn check FILE`" + ` to see what cairn understood.
 
-` + keySections() + `SIMULATION (cairn simulate)
+` + keySections() + `ORDER AT ONE INSTANT
+  At one moment: the interest credit for the period ending (and the month's
+  credit of daily or weekly interest), then the month's fee, then amounts due
+  at the end of a period - money in (deposits, one-time amounts in) before
+  money out (withdrawals, one-time amounts out) - then the month-end balance,
+  then amounts due at the start of a period, again in before out. So money
+  arriving at an instant can pay what leaves at it.
+
+CONVENTIONS
+  A rate "x%" or "x% per year" is effective; "x% compounded monthly" is
+  nominal (12 credits of x/12); "x% per month" is periodic. Compounding dates
+  count from the plan's start, not the calendar (quarterly from February
+  credits at the ends of April, July, October, January). Daily compounding
+  has 365 dates a year and a month is a twelfth of a year, so a month's credit
+  covers the whole days ending in it: 30 or 31 (30, 30, 31, 30, 31, 30, ...
+  from the start); the fraction of a day at a month end is paid with the next
+  month's first day. Daily or weekly interest is credited at each month end
+  rounded to the cent; the fraction of a cent left is carried to the next
+  credit. Every credit, fee and amount is rounded once, to the cent. "every 2
+  weeks" is 26 a year (half of 52 weeks), not 365/14. The fee is a twelfth of
+  its yearly rate times the balance at the month end, after that month's
+  interest and before the amounts due then. leave is the balance at the end
+  of the month of the last withdrawal, after its interest and fee. The full
+  statement is in the plan package's documentation (# Conventions).
+
+SIMULATION (cairn simulate)
   cairn simulate runs the plan many times (--paths, default 10,000) with
   random returns, and otherwise exactly as the ledger: the same streams,
   growth, fees, between rule, shortfalls and rounding. Each month draws one

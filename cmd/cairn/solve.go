@@ -81,7 +81,7 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 	case plan.ForRate:
 		comp := g.Rates[0].Rate.Compounding()
 		s := fmt.Sprintf("%s reaches %s by %s at %s a year effective (%s compounded %s).", g.Name, amt(p, a.Target), a.Deadline,
-			pct(a.Rate.Effective()), pct(a.Rate.Nominal(comp)), comp.Adjective())
+			pct(a.ShownEffective), pct(a.ShownNominal), comp.Adjective())
 		if g.Fee != 0 {
 			s += fmt.Sprintf(" The rate is before the goal's fee of %s a year, which is taken as well.", pct(g.Fee))
 		}
@@ -176,7 +176,7 @@ func answerValue(p *plan.Plan, a *plan.Answer) render.Cell {
 	case plan.ForDeposit, plan.ForStart, plan.ForWithdrawal, plan.ForCapital:
 		return cash(p, a.Amount)
 	case plan.ForRate:
-		return render.Rate(a.Rate.Effective())
+		return render.Rate(a.ShownEffective) // rounded toward meeting the target
 	case plan.ForLasts:
 		if a.Lasts {
 			return render.Label("lasts ("+amt(p, a.Left)+" left)", "lasts")
@@ -239,12 +239,14 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		add("to leave", cash(p, a.Target))
 	case plan.ForRate:
 		comp := g.Rates[0].Rate.Compounding()
-		j["answer"] = jsonRate(a.Rate.Effective())
-		j["nominal"] = jsonRate(a.Rate.Nominal(comp))
+		// each form as shown: either one written back meets the target
+		eff, nom := a.ShownEffective, a.ShownNominal
+		j["answer"] = jsonRate(eff)
+		j["nominal"] = jsonRate(nom)
 		j["compounding"] = comp.Adjective()
 		// rates are written to CSV as shown, with their percent sign
-		add("effective annual rate", render.Text(pct(a.Rate.Effective())))
-		add("nominal, compounded "+comp.Adjective(), render.Text(pct(a.Rate.Nominal(comp))))
+		add("effective annual rate", render.Text(pct(eff)))
+		add("nominal, compounded "+comp.Adjective(), render.Text(pct(nom)))
 		if g.Fee != 0 {
 			j["before_fee"] = jsonRate(g.Fee)
 			add("both before the fee of", render.Text(pct(g.Fee)+" a year"))

@@ -23,7 +23,9 @@ const TicksPerYear = 113880
 const TicksPerMonth = TicksPerYear / 12
 
 // A Kind is the kind of an event. The kinds are a closed set; at one tick
-// they happen in this order.
+// they happen in this order, and amounts of one kind at one tick come in
+// before they go out (Event.Out), so that money arriving at an instant can
+// pay what leaves at it.
 type Kind uint8
 
 const (
@@ -55,6 +57,7 @@ type Event struct {
 	// 1 at fixed inflation. A random-inflation walk reads them.
 	IA, IB int32
 	Kind   Kind
+	Out    bool // flows: money out (after the same kind's money in at the tick)
 }
 
 // A Shape is what a schedule's events depend on, and nothing else: package
@@ -68,6 +71,7 @@ type Shape struct {
 	Fee      bool    // a monthly fee is taken
 	Streams  []StreamShape
 	Once     []int32 // the month (at its end) of each one-time amount
+	OnceOut  []bool  // each one-time amount: money out
 }
 
 // A StreamShape is the timing and growth of one stream of amounts.
@@ -77,6 +81,7 @@ type StreamShape struct {
 	From     int32 // first month with a period
 	Until    int32 // last month with an amount, when HasUntil
 	HasUntil bool
+	Out      bool    // money out (a withdrawal)
 	First    float64 // multiplier of the amounts of the first year (money indexed to today)
 	Grow     float64 // yearly growth of the amount
 	// Today and GrowInflation say the amount follows inflation: a walk
@@ -189,7 +194,7 @@ func Compile(sh *Shape) *Schedule {
 			if year != lastYear && st.Grow != 0 {
 				lastYear, u = year, st.First*math.Exp(float64(year)*lg)
 			}
-			e := Event{Tick: t, Kind: kd, Src: src, Unit: u, Year: int32(year), Month: label}
+			e := Event{Tick: t, Kind: kd, Src: src, Out: st.Out, Unit: u, Year: int32(year), Month: label}
 			if st.Income { // income is pooled for its month's withdrawals from the month's start
 				e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
 			}
@@ -214,7 +219,7 @@ func Compile(sh *Shape) *Schedule {
 			continue
 		}
 		src := int32(1 + len(sh.Streams) + k)
-		ev = append(ev, Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: src, Unit: 1, Month: on})
+		ev = append(ev, Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: src, Out: sh.OnceOut[k], Unit: 1, Month: on})
 	}
 	slices.SortFunc(ev, eventOrder) // one-time amounts may be written in any order
 	runs = append(runs, ev)
@@ -309,14 +314,21 @@ func Compile(sh *Shape) *Schedule {
 	return s
 }
 
-// eventOrder orders events by tick, then kind, then source; the three
-// together are unique to an event, so the order is total.
+// eventOrder orders events by tick, then kind, then money in before money
+// out, then source; tick, kind and source together are unique to an event,
+// so the order is total.
 func eventOrder(a, b Event) int {
 	if c := cmp.Compare(a.Tick, b.Tick); c != 0 {
 		return c
 	}
 	if c := cmp.Compare(a.Kind, b.Kind); c != 0 {
 		return c
+	}
+	if a.Out != b.Out {
+		if b.Out {
+			return -1
+		}
+		return 1
 	}
 	return cmp.Compare(a.Src, b.Src)
 }
@@ -360,6 +372,9 @@ func before(x, y *Event) bool {
 	}
 	if x.Kind != y.Kind {
 		return x.Kind < y.Kind
+	}
+	if x.Out != y.Out {
+		return y.Out
 	}
 	return x.Src < y.Src
 }

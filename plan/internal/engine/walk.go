@@ -2,9 +2,17 @@ package engine
 
 import (
 	"math"
+	"sync/atomic"
 
 	"cairn/money"
 )
+
+// walks counts the walks made since the process started: the measure of a
+// solver's work that the walk-budget tests hold (see [Walks]).
+var walks atomic.Int64
+
+// Walks returns how many walks have been made since the process started.
+func Walks() int64 { return walks.Load() }
 
 // Between says what money arriving or leaving between two interest dates
 // earns until the next one (see plan.Between).
@@ -13,7 +21,7 @@ type Between uint8
 const (
 	Compound Between = iota // (1+j)^τ − 1
 	Simple                  // j·τ
-	None                    // nothing in; money out forgoes the period's interest
+	None                    // interest on the lowest balance held throughout the period
 )
 
 // Inputs are what a walk reads besides the schedule: everything a solver
@@ -44,9 +52,9 @@ const (
 	// arithmetic so that a tie goes by the rule (see roundPosting);
 	// interest accrued between monthly credits is carried unrounded; a
 	// withdrawal larger than the balance is paid in part and the rest is
-	// short. From then on the account is spent: it stays at zero, earns
-	// nothing, credits no money in, and every later withdrawal is short in
-	// full. Results are in minor units.
+	// short; what the emptied account earned in that interest period
+	// before the money left is forfeit, so it stays at zero until money
+	// comes in. Results are in minor units.
 	Exact Mode = iota
 	// Smooth keeps the balance in currency units, unrounded and unclamped:
 	// a smooth function of the rate for root finding, and linear in every
@@ -173,26 +181,26 @@ func Accrual(b Between, j, l, tau float64, out bool) float64 {
 }
 
 // The walk's rounding points. Each posting is a product x × m (+ plus),
-// computed in float64: roundPosting rounds it to the minor unit when the
-// float lies clearly off a half unit ([money.RoundFast], inlined), and
-// otherwise settles it by [money.RoundProduct] from the factor's exact form,
-// so that a product exactly halfway goes by the rule and not by float
-// noise. roundAmount is the same for an amount: the opening balance, or a
-// flow's amount times its growth. A credit of interest accrued at several
-// compounding dates, a sum of irrational terms, is never exactly halfway
-// and is rounded from its float sum (roundMinor).
+// computed in float64. The walk rounds it to the minor unit itself when the
+// float lies clearly off a half unit ([money.RoundFast], inlined: no call),
+// and otherwise calls roundPosting (interest, fees) or roundAmount (the
+// opening balance, a flow's amount times its growth), which settle it by
+// [money.RoundProduct] from the factor's exact form, so that a product
+// exactly halfway goes by the rule and not by float noise. A credit of
+// interest accrued at several compounding dates, a sum of irrational
+// terms, is never exactly halfway and is rounded from its float sum
+// (roundMinor).
 
-// roundPosting returns p = x × m + plus rounded to the minor unit under r.
-func roundPosting(p, x float64, m money.Multiplier, plus float64, r money.Rounding) float64 {
-	if q, sure := money.RoundFast(p); sure {
-		return q
-	}
+// roundPosting returns x × m + plus, a product near a half unit, rounded
+// to the minor unit under r.
+func roundPosting(x float64, m money.Multiplier, plus float64, r money.Rounding) float64 {
 	return money.RoundProduct(x, m, plus, r)
 }
 
-// roundAmount returns p = x × m rounded to the minor unit under r.
-func roundAmount(p, x float64, m money.Multiplier, r money.Rounding) float64 {
-	return roundPosting(p, x, m, 0, r)
+// roundAmount returns x × m, a product near a half unit, rounded to the
+// minor unit under r.
+func roundAmount(x float64, m money.Multiplier, r money.Rounding) float64 {
+	return money.RoundProduct(x, m, 0, r)
 }
 
 // rateOf returns the exact form of periodic rate j of rate step k: the
@@ -241,8 +249,15 @@ func roundMinor(x float64, r money.Rounding) float64 {
 // Loop-invariant settings are read through in and o where they are used,
 // which leaves the registers to the balances.
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
+	walks.Add(1)
 	var bal, base, acc, accrued, peak float64
 	var pool float64 // the month's income not yet paid out
+	// low is the lowest balance (with interest accrued) held since the
+	// interest period began, what rule None pays interest on: a flow or
+	// fee at the period's first tick sets it, any later one can only
+	// lower it.
+	var low float64
+	none := in.Between == None
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if o.Mode == Exact {
@@ -255,10 +270,15 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	if !o.One || o.Source == 0 {
 		bal = in.Amounts[0] * scale
 		if o.Mode == Exact {
-			bal = roundAmount(bal, bal, money.One, in.Rounding)
+			if q, sure := money.RoundFast(bal); sure {
+				bal = q
+			} else {
+				bal = roundAmount(bal, money.One, in.Rounding)
+			}
 		}
 		base = bal
 	}
+	low = base
 	var j float64 // the rate of the interest period
 	for i := range s.events {
 		e := &s.events[i]
@@ -270,17 +290,30 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				} else {
 					j = in.Rates[e.Step]
 				}
-				x := base*j + acc
+				b, plus := base, acc // the interest is b × j + plus
+				if none {
+					b, plus = low, 0
+					if o.Mode == Exact && low < 0 { // the carried fraction of a cent below an empty account
+						b = 0
+					}
+				}
+				x := b*j + plus
 				if s.accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
+					low = base
 					continue
 				}
 				if o.Mode == Exact {
-					x = roundPosting(x, base, rateOf(in, e.Step, j), acc, in.Rounding)
+					if q, sure := money.RoundFast(x); sure {
+						x = q
+					} else {
+						x = roundPosting(b, rateOf(in, e.Step, j), plus, in.Rounding)
+					}
 				}
 				bal += x
 				base, acc = bal, 0
+				low = base
 				if o.Log != nil && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -302,11 +335,19 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				if bal <= 0 {
 					continue
 				}
-				if f = roundPosting(f, bal, in.FeeM, 0, in.Rounding); f == 0 {
+				if q, sure := money.RoundFast(f); sure {
+					f = q
+				} else {
+					f = roundPosting(bal, in.FeeM, 0, in.Rounding)
+				}
+				if f == 0 {
 					continue
 				}
 			}
 			bal -= f
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
 			if e.Tau == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if p := o.Paths; p == nil {
@@ -354,6 +395,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				bal += pool
 				pool = 0
+				if none {
+					low = lowest(low, bal+accrued, e.Tau)
+				}
 			}
 			if o.One && e.Src != o.Source {
 				continue
@@ -367,7 +411,11 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
 			} else if o.Mode == Exact {
-				x = roundAmount(x, a, s.unitOf(e), in.Rounding)
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
@@ -391,18 +439,20 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
 				}
-			} else if res.Short && o.Mode == Exact {
-				continue // the account is spent: money in is not credited
 			}
 			bal += x
-			if res.Short && o.Mode == Exact {
-				// Spent: the balance stays at zero and earns nothing more
-				// (what the last payment earned before it left is forfeit).
-				base, acc, accrued = 0, 0, 0
+			if short > 0 {
+				// Emptied: what the money earned in this period before it
+				// left is forfeit, so the balance stays at zero until money
+				// comes in.
+				base, acc, accrued, low = 0, 0, 0, 0
 				if o.Log != nil {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
+			}
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
 			}
 			if e.Tau == 1 { // a whole period's interest: part of the next base
 				base += x
@@ -422,6 +472,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	}
 	res.Closing, res.Peak = bal, peak
 	return res
+}
+
+// lowest returns the lowest balance of an interest period, low before and
+// bal after a flow or fee with a fraction tau of the period left: at the
+// period's first tick (tau 1) the period's balance is still being set.
+func lowest(low, bal, tau float64) float64 {
+	if tau == 1 {
+		return bal
+	}
+	return min(low, bal)
 }
 
 // Weights fills p.W for schedule s under rule b and the out flags of in:
