@@ -59,3 +59,24 @@ func TestSimWithdrawalShare(t *testing.T) {
 		t.Errorf("50%% answer %s not above the 90%% answer %s", even.Amount, sure.Amount)
 	}
 }
+
+// Without a target, the simulated deposit builds the capital the
+// withdrawals need; with no volatility it is the ledger's deposit for it.
+func TestSimDepositForCapital(t *testing.T) {
+	p := mustParse(t, "capital", goalFile("balance: 10,000", "rate: 5%", "by: 2036-12",
+		"deposits:", "  - { name: pay, amount: 500, every: month, until: 2036-12 }",
+		"withdrawals:", "  - { name: income, amount: 1500, every: month, timing: start, from: 2037-01, for: 20 years }"))
+	g := p.Goals[0]
+	want, err := plan.Solve(p, g, plan.Question{For: plan.ForDeposit})
+	if err != nil {
+		t.Fatal(err)
+	}
+	vol := 0.0
+	a, err := plan.SolveDeposit(p, g, "", 0.9, plan.SimOptions{Paths: 100, Volatility: &vol})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.Amount.Cmp(want.Amount) != 0 || a.Sim.Target.Cmp(want.Target) != 0 {
+		t.Errorf("simulated deposit %s for %s, ledger %s for %s", a.Amount, a.Sim.Target, want.Amount, want.Target)
+	}
+}
