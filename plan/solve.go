@@ -125,6 +125,10 @@ func firstWithdrawal(g *Goal) (Month, bool) {
 	return m, len(g.Withdrawals) > 0
 }
 
+// LastWithdrawal returns the month of goal g's last withdrawal, and false
+// when its withdrawals are open-ended (or it has none).
+func (p *Plan) LastWithdrawal(g *Goal) (Month, bool) { return lastWithdrawal(p, g) }
+
 // lastWithdrawal returns the last month with a withdrawal, or the horizon.
 func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
 	var m Month

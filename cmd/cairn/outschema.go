@@ -90,6 +90,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"rows", "array", true, "opening, deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
 		{"totals", "object", false, "the sums of the rows"},
 		{"runs_out", "string", false, "the month the money runs out, if it does"},
+		{"leave_short_by", "string", false, "how much less than leave is left after the last withdrawal, when every withdrawal is paid but it is"},
 	},
 	"compare": {
 		{"goal", "string", true, "the goal's name"},

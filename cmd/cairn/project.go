@@ -127,6 +127,18 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	if hasIncome {
 		d.After = append(d.After, outsideIncomeWords(g))
 	}
+	if last, ok := p.LastWithdrawal(g); ok && last <= l.End {
+		if _, short := l.FirstShort(); !short {
+			left, leave := l.BalanceAt(last), p.LeaveAt(g, last)
+			if left.Cmp(leave) < 0 {
+				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid, but %s is left after the last one in %s, short of the %s to leave: the money does not last.",
+					amt(p, left), last, amt(p, leave)))
+				d.Data["leave_short_by"] = jamt(p, leave.Sub(left))
+			} else if !leave.IsZero() {
+				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid and %s is left after the last one in %s, at least the %s to leave.", amt(p, left), last, amt(p, leave)))
+			}
+		}
+	}
 	if m, ok := l.FirstShort(); ok {
 		tot := rows[len(rows)-1]
 		d.After = append(d.After, fmt.Sprintf("The money runs out in %s: %s of withdrawals could not be paid.", m, amt(p, tot.Short)))

@@ -108,7 +108,7 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 			return s
 		}
 		if a.Paid {
-			return fmt.Sprintf("%s: the money pays every withdrawal through %s but does not last: %s.", g.Name, a.Month, a.Note)
+			return fmt.Sprintf("%s: the money does not last: %s (the last in %s).", g.Name, a.Note, a.Month)
 		}
 		return fmt.Sprintf("%s runs out of money in %s, after %s.", g.Name, a.Month, span(p, a))
 	case plan.ForCapital:
