@@ -20,6 +20,7 @@ const (
 	InRateStep                // each step of a rate schedule
 	InScenario                // each named scenario
 	InChange                  // each change of a scenario: a goal, a stream and what-if keys
+	InPerson                  // each of the household's people
 )
 
 // where says where in the file a key of each scope is written, in errors
@@ -33,6 +34,7 @@ var where = map[Scope]string{
 	InRateStep:   "each step of a rate schedule (under rate:)",
 	InScenario:   "each scenario (under scenarios:)",
 	InChange:     "each change of a scenario (under changes:)",
+	InPerson:     "each person (under people:)",
 }
 
 // scopesOf says where the key name belongs, for every scope that has it
@@ -131,12 +133,13 @@ func (k *Key) NeedsGoal() bool { return k.Scope == InStream || k.Scope == InWith
 // A target is where a key's value goes: the plan and, inside it, the goal,
 // stream, one-time amount or rate step being decoded or changed.
 type target struct {
-	p  *Plan
-	g  *Goal
-	s  *Stream
-	o  *Once
-	st *RateStep
-	sc *Scenario
+	p   *Plan
+	g   *Goal
+	s   *Stream
+	o   *Once
+	st  *RateStep
+	sc  *Scenario
+	who *Person
 }
 
 // A value is a parsed value of any form.
@@ -190,6 +193,13 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true, MaxItems: MaxGoals,
 		Missing: "want a list of goals",
 		Default: "required", Help: "a list of goals"},
+	{Name: "people", Scope: InPlan, Form: FormList, Items: InPerson, MaxItems: MaxPeople,
+		Default: "none",
+		Help: "the household's people, each a name and a birth month:\n" +
+			"  - name: Alex\n" +
+			"    born: 1962-05\n" +
+			"Any month may then be written as an age: \"Alex at 67\"\n" +
+			"is Alex's 67th birthday month; output shows ages"},
 	{Name: "scenarios", Scope: InPlan, Form: FormList, Items: InScenario, MaxItems: MaxScenarios,
 		Default: "none",
 		Help: "named alternatives, each a list of what-if changes\n" +
@@ -349,6 +359,13 @@ var Keys = withChangeKeys([]*Key{
 		Missing: "every scenario needs a name",
 		Default: "required", Help: "unique within the file; --scenario NAME picks it",
 		put: func(t *target, v *value) { t.sc.Name = v.text }},
+	{Name: "name", Scope: InPerson, Form: FormName, Required: true,
+		Default: "required", Help: "a role or first name, used in ages such as \"Alex at 67\"",
+		put: func(t *target, v *value) { t.who.Name = v.text }},
+	{Name: "born", Scope: InPerson, Form: FormMonth, Required: true,
+		Default: "required", Help: "the birth month, YYYY-MM",
+		put: func(t *target, v *value) { t.who.Born = v.month }},
+
 	{Name: "changes", Scope: InScenario, Form: FormList, Items: InChange, Required: true, MaxItems: MaxChanges,
 		Missing: "want a list of changes, such as - goal: Retirement",
 		Default: "required", Help: "a list of changes, applied in order"},
@@ -501,7 +518,7 @@ var (
 		amount := func(sign string) string { return `\s*` + sign + `(?:[$€£¥]\s*)?` + digits }
 		return map[Form]string{
 			FormVersion:      `^1$`,
-			FormMonth:        `^\s*(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])\s*$`,
+			FormMonth:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|\S.*\s[aA][tT]\s+\d{1,3})\s*$`,
 			FormCurrency:     `^\s*` + words(money.CurrencyCodes()) + `\s*$`,
 			FormRounding:     `^\s*` + words(roundingWords) + `\s*$`,
 			FormRate:         `^` + rate + `$`,

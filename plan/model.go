@@ -15,6 +15,9 @@ type Plan struct {
 	Inflation money.Rate     // a year; "today" amounts grow by it
 	Rounding  money.Rounding // rule for every posting
 	Goals     []*Goal
+	// People are the household's people, by the name the file gives them,
+	// with their birth months; months may be written as their ages.
+	People []Person
 	// InflationVolatility is the yearly volatility of log-inflation for
 	// [Simulate], as a fraction; HasInflationVolatility says the file gave it.
 	InflationVolatility    float64

@@ -247,12 +247,12 @@ func (d *decoder) rate(n *yaml.Node, path string, lo, hi float64) (money.Rate, b
 	return r, true
 }
 
-func (d *decoder) month(n *yaml.Node, path string) (Month, bool) {
+func (d *decoder) month(p *Plan, n *yaml.Node, path string) (Month, bool) {
 	s, ok := d.scalar(n, path, "a month such as 2027-01")
 	if !ok {
 		return 0, false
 	}
-	m, err := ParseMonth(s)
+	m, err := p.MonthOf(s)
 	if err != nil {
 		d.errorf(n, path, "%v", err)
 		return 0, false
@@ -309,7 +309,7 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 			return false
 		}
 	case FormMonth:
-		if v.month, ok = d.month(n, path); ok && k.Scope != InPlan {
+		if v.month, ok = d.month(t.p, n, path); ok && k.Scope != InPlan && k.Scope != InPerson {
 			ok = d.inHorizon(t.p, n, path, v.month)
 		}
 	case FormCurrency:
@@ -431,6 +431,21 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 		p.Start = asOf + 1
 		if asOf == 0 {
 			d.bad["start"] = true // reported as missing
+		}
+	}
+	if v := given["people"]; v != nil {
+		items, _ := d.list(v, "people", "people")
+		for i, pn := range items {
+			pp := fmt.Sprintf("people[%d]", i)
+			var who Person
+			if given := d.keys(resolve(pn), pp, InPerson, &target{p: p, who: &who}); given != nil &&
+				given["name"] != nil && given["born"] != nil && !d.bad[pp+".name"] && !d.bad[pp+".born"] {
+				if p.Person(who.Name) != nil {
+					d.errorf(pn, join(pp, "name"), "duplicate person %s", money.Quote(who.Name))
+					continue
+				}
+				p.People = append(p.People, who)
+			}
 		}
 	}
 	if v := given["scenarios"]; v != nil {

@@ -110,15 +110,24 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 		if a.Paid {
 			return fmt.Sprintf("%s: the money does not last: %s (the last in %s).", g.Name, a.Note, a.Month)
 		}
-		return fmt.Sprintf("%s runs out of money in %s, after %s.", g.Name, a.Month, span(p, a))
+		return fmt.Sprintf("%s runs out of money in %s, after %s.", g.Name, monthAges(p, a.Month), span(p, a))
 	case plan.ForCapital:
-		s := fmt.Sprintf("%s needs %s at the end of %s to pay every withdrawal through %s", g.Name, amt(p, a.Amount), a.Month, a.Deadline)
+		s := fmt.Sprintf("%s needs %s at the end of %s to pay every withdrawal through %s", g.Name, amt(p, a.Amount), monthAges(p, a.Month), monthAges(p, a.Deadline))
 		if !a.Target.IsZero() {
 			s += " and leave " + amt(p, a.Target)
 		}
 		return s + "."
 	}
 	return ""
+}
+
+// monthAges is month m with the household's ages then, where the file
+// names its people: "2071-02 (when Alex is 88)".
+func monthAges(p *plan.Plan, m plan.Month) string {
+	if w := p.AgesAt(m); w != "" {
+		return m.String() + " (" + w + ")"
+	}
+	return m.String()
 }
 
 // capitalLine states a capital answer with its equation of value: each

@@ -142,7 +142,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 		if gs.Lasts != nil {
 			drawdown = true
 			if gs.Lasts.Lasts {
-				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, gs.Lasts.Month, amt(p, gs.Lasts.Left)))
+				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, monthAges(p, gs.Lasts.Month), amt(p, gs.Lasts.Left)))
 				jg["money_lasts"] = true
 				jg["lasts_through"] = gs.Lasts.Month.String()
 			} else if gs.Lasts.Paid {
@@ -150,7 +150,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 				jg["money_lasts"] = false
 				jg["paid_through"] = gs.Lasts.Month.String()
 			} else {
-				d.After = append(d.After, fmt.Sprintf("%s: the money runs out in %s.", goal.Name, gs.Lasts.Month))
+				d.After = append(d.After, fmt.Sprintf("%s: the money runs out in %s.", goal.Name, monthAges(p, gs.Lasts.Month)))
 				jg["money_lasts"] = false
 				jg["runs_out"] = gs.Lasts.Month.String()
 			}
