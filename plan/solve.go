@@ -265,7 +265,7 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		s.exact(pr, engine.Options{MonthEnds: ends})
 		why := unreachableReason(p, g, ends)
 		for m := firstOut; drawdown && m <= s.end; m++ {
-			if ends[m-p.Start] >= targetAtMonth(p, g, m).Float() { // only after they begin
+			if reach(m, ends[m-p.Start]) { // only after they begin
 				why = fmt.Sprintf("the balance does not reach the target before withdrawals begin in %s", firstOut)
 				break
 			}
