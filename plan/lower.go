@@ -221,6 +221,19 @@ func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 	return money.Minor(int64(r.Closing), s.places), r
 }
 
+// A Cache keeps compiled schedules for plans read with [ParseCached], so
+// that a shape several plans share (or one plan read again) is compiled
+// once. It is bounded by the events it holds, and safe for concurrent use;
+// the zero value is ready.
+type Cache struct{ c engine.Cache }
+
+// Reset empties the cache: the next use of a shape compiles it again.
+func (c *Cache) Reset() { c.c.Reset() }
+
+// ResetCache empties the plan's schedule cache (shared with its what-if
+// clones), as if it had just been read: what a cold benchmark starts from.
+func (p *Plan) ResetCache() { p.cache.Reset() }
+
 // checkBounds reports an error if goal g's target or projected balance
 // would pass [MaxBalanceUnits], beyond which cairn does not promise cents.
 // It runs on every plan read (Parse) and every what-if (With) before the
@@ -229,6 +242,9 @@ func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 func (p *Plan) checkBounds(g *Goal) error {
 	if p.cache == nil {
 		p.cache = new(engine.Cache)
+	}
+	if err := p.checkWork(g); err != nil {
+		return err
 	}
 	limit := money.Units(MaxBalanceUnits)
 	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {

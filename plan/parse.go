@@ -18,6 +18,13 @@ import (
 // starts the month after). Every problem in the file is reported at once, as
 // an [ErrorList] of positioned errors.
 func Parse(name string, data []byte, asOf Month) (*Plan, error) {
+	return ParseCached(name, data, asOf, nil)
+}
+
+// ParseCached is [Parse] with the plan's compiled schedules kept in c, which
+// a caller reading several files (or the same one again) passes to each so
+// that a shape is compiled once; nil gives the plan a cache of its own.
+func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) {
 	d := newDecoder(name)
 	if len(data) > MaxFileSize {
 		d.errs = append(d.errs, &Error{Pos: Position{File: name}, Msg: fmt.Sprintf("file is %d bytes, over the %d-byte limit for a goals file", len(data), MaxFileSize)})
@@ -43,9 +50,17 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 		return nil, d.errs
 	}
 	if p := d.plan(root.Content[0], asOf); p != nil {
+		if c != nil {
+			p.cache = &c.c
+		}
 		p.settle()
 		for _, pr := range p.problems() {
 			d.report(pr)
+		}
+		if len(d.errs) == 0 {
+			if g, err := p.checkFileWork(); err != nil {
+				d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
+			}
 		}
 		if len(d.errs) == 0 {
 			for _, g := range p.Goals {

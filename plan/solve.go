@@ -239,17 +239,21 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		end = min(end, max(firstOut-1, p.Start))
 	}
 	reach := reaches(p, g)
-	// Most goals are reached within decades: walk a short horizon first and
-	// go to the plan's end only when the target is not met by then. A
-	// schedule compiled to a nearer end is the prefix of a longer one.
+	// Most goals are reached by their own horizon, and nearly all within
+	// decades: walk the goal's horizon first, then 40 years, and go to the
+	// plan's end only when the target is not met by then. A schedule
+	// compiled to a nearer end is the prefix of a longer one.
 	var s *schedule
 	var pr *params
 	var r engine.Result
 	o := engine.Options{Reach: func(m int32, bal float64) bool {
 		return (!drawdown || p.Start+Month(m) < firstOut) && reach(p.Start+Month(m), bal)
 	}}
-	for _, years := range []int{40, HorizonYears} {
-		h := min(max(p.Start.Add(years*12-1), Horizon(p, g)), end)
+	own := min(Horizon(p, g), end)
+	for _, h := range []Month{own, min(max(p.Start.Add(40*12-1), own), end), end} {
+		if s != nil && h <= s.end {
+			continue
+		}
 		s = compile(p, g, h)
 		pr = s.defaultParams()
 		if r = s.exact(pr, o); r.Reached || h == end {

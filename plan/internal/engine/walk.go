@@ -494,19 +494,14 @@ func lowest(low, bal, tau float64) float64 {
 
 // Weights fills p.W for schedule s under rule b and the out flags of in:
 // what one unit of each flow or fee earns by its credit at the realised
-// rate of its period, J and L.
+// rate of its period, J and L. Only the events part way through a period
+// have a weight: one a whole period before its credit joins the interest
+// base instead, and the walk reads no weight for it.
 func (s *Schedule) Weights(p *Paths, in *Inputs) {
-	for i := range s.events {
+	for _, i := range s.partial {
 		e := &s.events[i]
-		switch e.Kind {
-		case Fee, FlowEnd, FlowBegin:
-			k := e.Period
-			if e.Tau == 1 {
-				p.W[i] = p.J[k]
-			} else {
-				p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
-			}
-		}
+		k := e.Period
+		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
 	}
 }
 
