@@ -20,6 +20,7 @@ const (
 	InRateStep                // each step of a rate schedule
 	InScenario                // each named scenario
 	InChange                  // each change of a scenario: a goal, a stream and what-if keys
+	InActual                  // each actual balance of a goal
 )
 
 // where says where in the file a key of each scope is written, in errors
@@ -33,6 +34,7 @@ var where = map[Scope]string{
 	InRateStep:   "each step of a rate schedule (under rate:)",
 	InScenario:   "each scenario (under scenarios:)",
 	InChange:     "each change of a scenario (under changes:)",
+	InActual:     "each actual balance (under actuals:)",
 }
 
 // scopesOf says where the key name belongs, for every scope that has it
@@ -137,6 +139,7 @@ type target struct {
 	o  *Once
 	st *RateStep
 	sc *Scenario
+	a  *Actual
 }
 
 // A value is a parsed value of any form.
@@ -190,6 +193,13 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true, MaxItems: MaxGoals,
 		Missing: "want a list of goals",
 		Default: "required", Help: "a list of goals"},
+	{Name: "actuals_file", Scope: InPlan, Form: FormName,
+		Default: "none",
+		Help: "a CSV of actual balances, one a line: month, goal,\n" +
+			"balance (such as 2028-06,Emergency fund,7412.30; a first\n" +
+			"line month,goal,balance is a header), relative to the\n" +
+			"goals file; added to each goal's actuals",
+		put: func(t *target, v *value) { t.p.ActualsFile = v.text }},
 	{Name: "scenarios", Scope: InPlan, Form: FormList, Items: InScenario, MaxItems: MaxScenarios,
 		Default: "none",
 		Help: "named alternatives, each a list of what-if changes\n" +
@@ -271,6 +281,13 @@ var Keys = withChangeKeys([]*Key{
 			"  - name: gift       (optional)\n" +
 			"    amount: 1,000\n" +
 			"    on: 2027-12      (at the end of that month)"},
+	{Name: "actuals", Scope: InGoal, Form: FormList, Items: InActual, MaxItems: MaxActuals,
+		Default: "none",
+		Help: "balances statements showed, at the end of a month, from\n" +
+			"the plan's start to today (--as-of); status compares\n" +
+			"the latest with the plan and re-plans from it\n" +
+			"  - month: 2028-06\n" +
+			"    balance: 7,412.30"},
 	{Name: "leave", Scope: InGoal, Form: FormAmount,
 		Default: "0", Help: "balance that must remain after the last withdrawal",
 		Set: "leave",
@@ -331,6 +348,14 @@ var Keys = withChangeKeys([]*Key{
 		put: func(t *target, v *value) { t.st.From = v.month }},
 	{Name: "rate", Scope: InRateStep, Form: FormRate, Min: MinRatePercent, Max: MaxRatePercent, Required: true,
 		put: func(t *target, v *value) { t.st.Rate = v.rate }},
+
+	// each actual balance (documented under the goal's actuals)
+	{Name: "month", Scope: InActual, Form: FormMonth, Required: true,
+		Missing: "want the month of the statement, such as month: 2028-06",
+		put:     func(t *target, v *value) { t.a.Month = v.month }},
+	{Name: "balance", Scope: InActual, Form: FormAmount, Required: true,
+		Missing: "want the balance at the end of that month, such as balance: 7,412.30",
+		put:     func(t *target, v *value) { t.a.Balance = v.amount }},
 
 	// each scenario
 	{Name: "name", Scope: InScenario, Form: FormName, Required: true,

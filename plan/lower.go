@@ -74,6 +74,9 @@ func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
 		if st.HasUntil {
 			ss.Until = int32(st.Until - p.Start)
 		}
+		if st.resume != 0 {
+			ss.Resume = int32(st.resume - p.Start)
+		}
 		sh.Streams = append(sh.Streams, ss)
 	}
 	for _, o := range g.Once {

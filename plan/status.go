@@ -41,39 +41,45 @@ type Status struct {
 func StatusOf(p *Plan) *Status {
 	st := &Status{Plan: p}
 	for _, g := range p.Goals {
-		gs := GoalStatus{Goal: g}
-		gs.MonthlyNow = monthlyDeposits(p, g, nil, money.Zero)
-		gs.MonthlyNeeded = gs.MonthlyNow
-		if g.HasTarget && g.HasBy {
-			gs.TargetAt = p.TargetAt(g)
-			l, _ := Project(p, g, g.By)
-			gs.Projected = l.BalanceAt(g.By)
-			gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
-			if !gs.OnTrack {
-				gs.Short = gs.TargetAt.Sub(gs.Projected)
-			}
-			gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
-			if gs.NeededErr == nil {
-				gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
-			}
-		} else if g.HasTarget {
-			gs.TargetAt = g.Target
-		}
-		if g.HasTarget {
-			if a, err := solve(p, g, Question{For: ForTime}, false); err == nil {
-				gs.Reached = a.Month
-			} else {
-				gs.Reach = err
-			}
-		}
-		if len(g.Withdrawals) > 0 {
-			gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
-		}
+		gs := goalStatus(p, g)
 		st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
 		st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNeeded)
 		st.Goals = append(st.Goals, gs)
 	}
 	return st
+}
+
+// goalStatus is goal g of plan p at a glance.
+func goalStatus(p *Plan, g *Goal) GoalStatus {
+	gs := GoalStatus{Goal: g}
+	gs.MonthlyNow = monthlyDeposits(p, g, nil, money.Zero)
+	gs.MonthlyNeeded = gs.MonthlyNow
+	if g.HasTarget && g.HasBy {
+		gs.TargetAt = p.TargetAt(g)
+		l, _ := Project(p, g, g.By)
+		gs.Projected = l.BalanceAt(g.By)
+		gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
+		if !gs.OnTrack {
+			gs.Short = gs.TargetAt.Sub(gs.Projected)
+		}
+		gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
+		if gs.NeededErr == nil {
+			gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
+		}
+	} else if g.HasTarget {
+		gs.TargetAt = g.Target
+	}
+	if g.HasTarget {
+		if a, err := solve(p, g, Question{For: ForTime}, false); err == nil {
+			gs.Reached = a.Month
+		} else {
+			gs.Reach = err
+		}
+	}
+	if len(g.Withdrawals) > 0 {
+		gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
+	}
+	return gs
 }
 
 // monthlyDeposits is the monthly equivalent of the goal's deposits in force

@@ -144,8 +144,9 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
 		goals = append(goals, jg)
 	}
-	d.Notices = notices(drawdown)
 	d.Blocks = []render.Block{t}
+	drawdown = progress(d, p, goals) || drawdown
+	d.Notices = notices(drawdown)
 	d.After = append(d.After, fmt.Sprintf("Set aside now: %s a month; needed to make every deadline: %s a month.",
 		amt(p, st.MonthlyNow), amt(p, st.MonthlyNeeded)))
 	d.Data["goals"] = goals

@@ -86,6 +86,10 @@ type StreamShape struct {
 	// Today and GrowInflation say the amount follows inflation: a walk
 	// with random inflation indexes it (Event.IA, Event.IB).
 	Today, GrowInflation bool
+	// Resume leaves out the amounts labelled before this month: the later
+	// part of a stream split there, whose periods and yearly growth still
+	// count from From. Zero leaves none out.
+	Resume int32
 }
 
 // A Schedule is a shape compiled onto the tick grid: its events in order.
@@ -189,6 +193,9 @@ func Compile(sh *Shape) *Schedule {
 			year := (ps - from) / TicksPerYear
 			if year != lastYear && st.Grow != 0 {
 				lastYear, u = year, st.First*math.Exp(float64(year)*lg)
+			}
+			if label < st.Resume {
+				continue
 			}
 			e := Event{Tick: t, Kind: kd, Src: src, Out: st.Out, Unit: u, Year: int32(year), Month: label}
 			anniv := st.From + 12*int32(year)
