@@ -10,3 +10,9 @@ import _ "embed"
 //
 //go:embed household.yaml
 var Household []byte
+
+// Budget is examples/budget.yaml: an invented young couple with one budget
+// from every paycheck shared by three goals in priority order.
+//
+//go:embed budget.yaml
+var Budget []byte

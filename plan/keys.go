@@ -21,6 +21,7 @@ const (
 	InScenario                // each named scenario
 	InChange                  // each change of a scenario: a goal, a stream and what-if keys
 	InActual                  // each actual balance of a goal
+	InBudget                  // the budget: a stream's keys and its rule
 )
 
 // where says where in the file a key of each scope is written, in errors
@@ -35,6 +36,7 @@ var where = map[Scope]string{
 	InScenario:   "each scenario (under scenarios:)",
 	InChange:     "each change of a scenario (under changes:)",
 	InActual:     "each actual balance (under actuals:)",
+	InBudget:     "the budget (under budget:)",
 }
 
 // scopesOf says where the key name belongs, for every scope that has it
@@ -71,6 +73,9 @@ const (
 	FormLength                   // a number of years or months
 	FormGrowth                   // a yearly rate between Min and Max %, or "inflation"
 	FormList                     // a list of mappings, each in the scope Items
+	FormMapping                  // one mapping in the scope Items
+	FormCount                    // a whole number from Min to Max
+	FormUntil                    // a FormMonth, or reached
 )
 
 // want says what a value of the form looks like, in error messages.
@@ -84,6 +89,8 @@ var want = map[Form]string{
 	FormFrequency:  "a frequency such as month",
 	FormLength:     "a length such as 30 years",
 	FormGrowth:     "a yearly rate such as 3% or inflation",
+	FormCount:      "a whole number such as 1",
+	FormUntil:      "a month such as 2031-12, or reached",
 }
 
 // A Choice is one word a FormChoice key accepts and the value it stands for.
@@ -140,6 +147,7 @@ type target struct {
 	st *RateStep
 	sc *Scenario
 	a  *Actual
+	b  *Budget
 }
 
 // A value is a parsed value of any form.
@@ -154,6 +162,7 @@ type value struct {
 	n         int // a choice's value, a length in months
 	inflation bool
 	rates     []RateStep
+	reached   bool // FormUntil: reached, not a month
 }
 
 // Keys is every key of the goals file, in the order the help lists them.
@@ -204,6 +213,11 @@ var Keys = withChangeKeys([]*Key{
 		Default: "none",
 		Help: "named alternatives, each a list of what-if changes\n" +
 			"(see EACH SCENARIO); --scenario NAME applies one"},
+	{Name: "budget", Scope: InPlan, Form: FormMapping, Items: InBudget,
+		Default: "none",
+		Help: "what the household can set aside, shared by the goals\n" +
+			"with a priority: a stream's keys and a rule (see THE\n" +
+			"BUDGET)"},
 
 	// each goal
 	{Name: "name", Scope: InGoal, Form: FormName, Required: true,
@@ -292,6 +306,11 @@ var Keys = withChangeKeys([]*Key{
 		Default: "0", Help: "balance that must remain after the last withdrawal",
 		Set: "leave",
 		put: func(t *target, v *value) { t.g.Leave = v.amount }},
+	{Name: "priority", Scope: InGoal, Form: FormCount, Min: 1, Max: MaxGoals,
+		Default: "none",
+		Help: "the goal draws on the budget, 1 first; each goal its\n" +
+			"own; its deposits are its own, not the budget",
+		put: func(t *target, v *value) { t.g.Priority = v.n }},
 
 	// each stream
 	{Name: "name", Scope: InStream, Form: FormName,
@@ -323,9 +342,14 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "from", Scope: InStream, Form: FormMonth,
 		Default: "start", Help: "first month with a period",
 		put: func(t *target, v *value) { t.s.From = v.month }},
-	{Name: "until", Scope: InStream, Form: FormMonth,
-		Default: "none", Help: "last month with an amount (none: open-ended)",
-		put: func(t *target, v *value) { t.s.Until, t.s.HasUntil = v.month, true }},
+	{Name: "until", Scope: InStream, Form: FormUntil,
+		Default: "none",
+		Help: "last month with an amount (none: open-ended); reached\n" +
+			"(deposits only): through the month the target is first\n" +
+			"reached",
+		put: func(t *target, v *value) {
+			t.s.Until, t.s.HasUntil, t.s.UntilReached = v.month, !v.reached, v.reached
+		}},
 	{Name: "for", Scope: InWithdrawal, Form: FormLength,
 		Default: "none", Help: "withdrawals only, instead of until: \"30 years\", \"18 months\"",
 		put: func(t *target, v *value) { t.s.forMonths = v.n }},
@@ -356,6 +380,18 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "balance", Scope: InActual, Form: FormAmount, Required: true,
 		Missing: "want the balance at the end of that month, such as balance: 7,412.30",
 		put:     func(t *target, v *value) { t.a.Balance = v.amount }},
+	// the budget, besides a stream's keys
+	{Name: "rule", Scope: InBudget, Form: FormChoice,
+		Choices: []Choice{{"priority", int(ByPriority)}, {"one-at-a-time", int(OneAtATime)}},
+		Noun:    "rule", Want: "priority or one-at-a-time",
+		Default: "priority",
+		Help: "how each amount is split among the goals:\n" +
+			"  priority       each goal in priority order gets the\n" +
+			"                 level amount it needs to meet its\n" +
+			"                 deadline; what is left flows on\n" +
+			"  one-at-a-time  everything to the first goal until it\n" +
+			"                 is reached, then the next",
+		put: func(t *target, v *value) { t.b.Rule = Rule(v.n) }},
 
 	// each scenario
 	{Name: "name", Scope: InScenario, Form: FormName, Required: true,
@@ -417,7 +453,7 @@ func withChangeKeys(keys []*Key) []*Key {
 func keysIn(s Scope) []*Key {
 	var out []*Key
 	for _, k := range Keys {
-		if k.Scope == s || s == InWithdrawal && k.Scope == InStream {
+		if k.Scope == s || (s == InWithdrawal || s == InBudget) && k.Scope == InStream {
 			out = append(out, k)
 		}
 	}
@@ -433,7 +469,7 @@ func keyNames(ks []*Key) []string {
 }
 
 // KeysIn returns the keys that may appear in a mapping of scope s, in table
-// order: a withdrawal has the stream's keys and its own.
+// order: a withdrawal and the budget have the stream's keys and their own.
 func KeysIn(s Scope) []*Key { return keysIn(s) }
 
 // Pattern returns how a value of k is written, as text, in a regular
@@ -525,6 +561,8 @@ var (
 			FormFrequency:    `^\s*` + words(payment) + `\s*$`,
 			FormLength:       `^\s*\+?0*[1-9]\d*\s+` + words([]string{"year", "years", "month", "months"}) + `\s*$`,
 			FormGrowth:       `^(?:` + rate + `|\s*` + words([]string{"inflation"}) + `\s*)$`,
+			FormCount:        `^\s*\+?\d+\s*$`,
+			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|` + words([]string{"reached"}) + `)\s*$`,
 		}
 	}()
 )

@@ -31,6 +31,10 @@ type Plan struct {
 	actualsPos Position // where actuals_file is written
 	asOf       Month    // today's month as Parse was given it; 0: not known
 
+	// Budget is what the household can set aside for the goals with a
+	// Priority, or nil.
+	Budget *Budget
+
 	cache *engine.Cache // its schedules by shape (see checkBounds); nil: none kept
 }
 
@@ -124,6 +128,9 @@ type Goal struct {
 	// Actuals are the balances statements showed, in month order, at most
 	// one a month (see [Actual]).
 	Actuals []Actual
+	// Priority, from 1 (first), says the goal draws on the plan's Budget;
+	// 0 says it does not.
+	Priority int
 
 	pos Position
 }
@@ -159,6 +166,9 @@ type Stream struct {
 	Until  Month // last month with an amount; valid when HasUntil
 	// HasUntil is false for an open-ended stream, which runs to the horizon.
 	HasUntil bool
+	// UntilReached stops a deposit stream after the month its goal's target
+	// is first reached (until: reached); the stream is open-ended until then.
+	UntilReached bool
 	// Grow is the yearly rise of the amount, as a fraction; GrowInflation
 	// makes it the plan's inflation.
 	Grow          float64

@@ -31,10 +31,12 @@ type Progress struct {
 }
 
 // ProgressOf returns goal g's plan against reality, or nil when the goal
-// has no actual balance.
+// has no actual balance, or draws on the household's budget (its planned
+// balance holds shares of the budget that re-basing one goal does not
+// cover yet).
 func ProgressOf(p *Plan, g *Goal) *Progress {
 	a, ok := g.Latest()
-	if !ok {
+	if !ok || g.Priority > 0 {
 		return nil
 	}
 	l, _ := Project(p, g, a.Month)

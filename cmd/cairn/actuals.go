@@ -27,6 +27,9 @@ func progress(d *render.Doc, p *plan.Plan, goals []map[string]any) bool {
 	for i, g := range p.Goals {
 		pg := plan.ProgressOf(p, g)
 		if pg == nil {
+			if len(g.Actuals) > 0 {
+				d.After = append(d.After, g.Name+": its actual balances are not compared with the plan: it draws on the budget, which re-planning from an actual does not cover yet.")
+			}
 			continue
 		}
 		a, now := pg.Actual, pg.Now

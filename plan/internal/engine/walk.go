@@ -39,6 +39,11 @@ type Inputs struct {
 	Between  Between
 	Places   int            // decimal places of the minor unit
 	Rounding money.Rounding // rule for every rounding to the minor unit
+	// Set, when not nil, gives each amount of source SetSrc, in currency
+	// units before its Unit, by the index of its event: amounts decided
+	// date by date (a household budget's share), in place of Amounts.
+	Set    []float64
+	SetSrc int32
 }
 
 // A Mode is the arithmetic of a walk.
@@ -380,6 +385,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
+			if in.Set != nil && e.Src == in.SetSrc {
+				a = in.Set[i] * scale
+			}
 			x := a * e.Unit
 			p := o.Paths
 			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
