@@ -27,6 +27,14 @@ func TestReplan_ActualEqualToPlanChangesNothing(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	sameAnswers(t, p)
+	// a deposit that stops once the target is reached, split by Replan
+	sameAnswers(t, mustParse(t, "reached.yaml", goalFile("rate: 5%", "target: 9000", "by: 2030-12",
+		"deposits: [{amount: 250, every: month, until: reached}, {amount: 20, every: 2 weeks}]")))
+}
+
+func sameAnswers(t *testing.T, p *plan.Plan) {
+	t.Helper()
 	before := plan.StatusOf(p)
 	for i, g := range p.Goals {
 		for _, after := range []int{0, 5, 23, 40} {
