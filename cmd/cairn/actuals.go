@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"strings"
 
+	"cairn/cmd/cairn/internal/chart"
 	"cairn/cmd/cairn/internal/render"
 	"cairn/money"
 	"cairn/plan"
@@ -175,4 +176,91 @@ func equationText(p *plan.Plan, e *plan.Earned) string {
 		s += fmt.Sprintf(" (%d terms)", n)
 	}
 	return s + " = " + amt(p, e.To.Balance)
+}
+
+// realityPaths are a goal's plan against reality as points at month ends:
+// the planned balance from the start, the actuals, and the balance
+// re-planned from the latest actual, through the end of month end.
+type realityPaths struct {
+	pg                        *plan.Progress
+	planned, actual, replaned []plan.Month
+	plannedY, actualY, replY  []float64
+}
+
+func realityOf(p *plan.Plan, g *plan.Goal, end plan.Month) *realityPaths {
+	pg := plan.ProgressOf(p, g)
+	if pg == nil {
+		return nil
+	}
+	end = max(end, pg.Actual.Month)
+	r := &realityPaths{pg: pg}
+	l, _ := plan.Project(p, g, end)
+	rl, _ := plan.Project(pg.Plan, pg.Replanned, end)
+	for m := p.Start; m <= end; m++ {
+		r.planned, r.plannedY = append(r.planned, m), append(r.plannedY, l.BalanceAt(m).Float())
+		if m >= pg.Actual.Month {
+			r.replaned, r.replY = append(r.replaned, m), append(r.replY, rl.BalanceAt(m).Float())
+		}
+	}
+	for _, a := range g.Actuals {
+		r.actual, r.actualY = append(r.actual, a.Month), append(r.actualY, a.Balance.Float())
+	}
+	return r
+}
+
+// realityPlot is the terminal chart of goal g's plan against reality
+// through month end, with its heading, or "" when the goal has no actuals.
+func realityPlot(p *plan.Plan, g *plan.Goal, end plan.Month) string {
+	r := realityOf(p, g, end)
+	if r == nil {
+		return ""
+	}
+	xs := func(ms []plan.Month) []int {
+		out := make([]int, len(ms))
+		for i, m := range ms {
+			out[i] = int(m)
+		}
+		return out
+	}
+	c := chart.Plot{Width: render.LineWidth, Rows: 10,
+		Year: func(x int) (int, bool) { m := plan.Month(x); return m.Year(), m.Calendar() == 1 },
+		Series: []chart.PlotSeries{
+			{Label: "planned", Rune: '·', X: xs(r.planned), Y: r.plannedY},
+			{Label: "re-planned from " + r.pg.Actual.Month.String(), Rune: '*', X: xs(r.replaned), Y: r.replY},
+			{Label: "actual", Rune: 'o', X: xs(r.actual), Y: r.actualY},
+		}}
+	head := fmt.Sprintf("%s: plan against reality, the balance at each month end, %s to %s, in %s; the latest actual is %s.",
+		g.Name, p.Start, r.planned[len(r.planned)-1], p.Currency.Code, againstPlan(p, r.pg.Ahead))
+	return render.Wrap(head, render.LineWidth) + c.String()
+}
+
+// realitySeries turns the report's chart of goal g into plan against
+// reality when the goal has actuals: the planned balance at each month end
+// (solid) and, in place of the balance in today's money, the balance
+// re-planned from the latest actual (dashed), with the actuals as rings.
+// It returns the chart's description and caption, and false when the goal
+// has no actuals.
+func realitySeries(p *plan.Plan, g *plan.Goal, end plan.Month, c *chart.Line) (string, string, bool) {
+	r := realityOf(p, g, end)
+	if r == nil {
+		return "", "", false
+	}
+	xs := func(ms []plan.Month) []float64 {
+		out := make([]float64, len(ms))
+		for i, m := range ms {
+			out[i] = yearEnd(m)
+		}
+		return out
+	}
+	start := float64(p.Start.Year()) + float64(p.Start.Calendar()-1)/12
+	c.Series = []chart.Series{
+		{Label: "planned balance", Dash: chart.Solid, Width: 2.75, X: append([]float64{start}, xs(r.planned)...), Y: append([]float64{g.Balance.Float()}, r.plannedY...)},
+		{Label: "re-planned from " + r.pg.Actual.Month.String(), Dash: chart.Dashed, Width: 1.5, X: xs(r.replaned), Y: r.replY},
+		{Label: "actual balance", Marks: true, X: xs(r.actual), Y: r.actualY},
+	}
+	c.Title = fmt.Sprintf("%s: plan against reality, the balance at each month end, %s to %s", g.Name, p.Start, r.planned[len(r.planned)-1])
+	desc := fmt.Sprintf("Line chart. Solid line: the planned balance at the end of each month. Rings: the %d actual balances, the latest %s at the end of %s, %s. Dashed line: the balance re-planned from it, %s at the end of %s.",
+		len(r.actual), amt(p, r.pg.Actual.Balance), r.pg.Actual.Month, againstPlan(p, r.pg.Ahead), amt(p, money.FromFloat(r.replY[len(r.replY)-1])), r.replaned[len(r.replaned)-1])
+	caption := fmt.Sprintf("The planned balance at each month end (solid line), the actual balances (rings) and the balance re-planned from the latest, %s (dashed line)", r.pg.Actual.Month)
+	return desc, caption, true
 }
