@@ -11,6 +11,13 @@ import _ "embed"
 //go:embed household.yaml
 var Household []byte
 
+// Retirement is examples/retirement.yaml: retirement income with a pension,
+// part-time work and a bequest, and no target (the capital it needs is the
+// answer).
+//
+//go:embed retirement.yaml
+var Retirement []byte
+
 // Budget is examples/budget.yaml: an invented young couple with one budget
 // from every paycheck shared by three goals in priority order.
 //

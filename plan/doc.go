@@ -11,7 +11,10 @@
 // Unknown keys are errors (with a "did you mean" hint), and so are wrong
 // types, bad dates, dates out of order, ambiguous frequencies, negative
 // deposits and values beyond the limits (see [MaxFileSize], [MaxGoals],
-// [HorizonYears] and the other limits).
+// [HorizonYears] and the other limits), and so is a file whose streams
+// multiply past the work budget ([MaxEvents] a goal, [MaxFileEvents] a
+// file; a simulation [MaxSimulationSteps]), counted from the file before
+// anything is compiled.
 //
 // One table, [Keys], says for every key where it may appear, how its value
 // is written and checked, where it goes in the model, its help text and

@@ -53,10 +53,10 @@ type schedule struct {
 	rounding money.Rounding
 }
 
-// streams returns goal g's streams in source order: deposits, then
-// withdrawals.
+// streams returns goal g's streams in source order: deposits, withdrawals,
+// then income.
 func streams(g *Goal) []*Stream {
-	return append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...)
+	return append(append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...), g.Income...)
 }
 
 // shapeOf returns the shape of goal g through the end of month end; its
@@ -73,7 +73,7 @@ func shapeOf(p *Plan, g *Goal, end, stop Month, hasStop bool) engine.Shape {
 			first = 1 + p.Inflation.Over(float64(st.From-p.Start)/12)
 		}
 		ss := engine.StreamShape{PerYear: st.Every.PerYear(), Begin: st.Timing == Begin, From: int32(st.From - p.Start),
-			HasUntil: st.HasUntil, Out: st.Out, First: first, Grow: st.growth(p.Inflation), Today: st.Today, GrowInflation: st.GrowInflation}
+			HasUntil: st.HasUntil, Out: st.Out, First: first, Grow: st.growth(p.Inflation), Today: st.Today, GrowInflation: st.GrowInflation, Income: st.Income}
 		if st.HasUntil {
 			ss.Until = int32(st.Until - p.Start)
 		}
@@ -143,13 +143,16 @@ func compileStop(p *Plan, g *Goal, end, stop Month, hasStop bool) *schedule {
 }
 
 // sourcesOf lists goal g's flow sources in schedule order: the opening
-// balance, deposits, withdrawals, one-time amounts.
+// balance, deposits, withdrawals, income, one-time amounts.
 func sourcesOf(g *Goal) []source {
 	out := []source{{kind: Opening, name: "opening balance", base: g.Balance}}
 	for _, st := range streams(g) {
 		kind := Deposit
-		if st.Out {
+		switch {
+		case st.Out:
 			kind = Withdrawal
+		case st.Income:
+			kind = Income
 		}
 		out = append(out, source{kind: kind, name: st.Name, base: st.Amount, stream: st, out: st.Out})
 	}
@@ -225,6 +228,19 @@ func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 	return money.Minor(int64(r.Closing), s.places), r
 }
 
+// A Cache keeps compiled schedules for plans read with [ParseCached], so
+// that a shape several plans share (or one plan read again) is compiled
+// once. It is bounded by the events it holds, and safe for concurrent use;
+// the zero value is ready.
+type Cache struct{ c engine.Cache }
+
+// Reset empties the cache: the next use of a shape compiles it again.
+func (c *Cache) Reset() { c.c.Reset() }
+
+// ResetCache empties the plan's schedule cache (shared with its what-if
+// clones), as if it had just been read: what a cold benchmark starts from.
+func (p *Plan) ResetCache() { p.cache.Reset() }
+
 // checkBounds reports an error if goal g's target or projected balance
 // would pass [MaxBalanceUnits], beyond which cairn does not promise cents.
 // It runs on every plan read (Parse) and every what-if (With) before the
@@ -233,6 +249,9 @@ func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 func (p *Plan) checkBounds(g *Goal) error {
 	if p.cache == nil {
 		p.cache = new(engine.Cache)
+	}
+	if err := p.checkWork(g); err != nil {
+		return err
 	}
 	limit := money.Units(MaxBalanceUnits)
 	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {
@@ -246,7 +265,7 @@ func (p *Plan) checkBounds(g *Goal) error {
 	return nil
 }
 
-// flowOf reports whether e is an amount of source src.
+// flowOf reports whether e is an amount of source src (income included).
 func flowOf(e *engine.Event, src int32) bool {
-	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin) && e.Src == src
+	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin || e.Kind == engine.Income) && e.Src == src
 }

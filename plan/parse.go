@@ -18,6 +18,13 @@ import (
 // starts the month after). Every problem in the file is reported at once, as
 // an [ErrorList] of positioned errors.
 func Parse(name string, data []byte, asOf Month) (*Plan, error) {
+	return ParseCached(name, data, asOf, nil)
+}
+
+// ParseCached is [Parse] with the plan's compiled schedules kept in c, which
+// a caller reading several files (or the same one again) passes to each so
+// that a shape is compiled once; nil gives the plan a cache of its own.
+func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) {
 	d := newDecoder(name)
 	if len(data) > MaxFileSize {
 		d.errs = append(d.errs, &Error{Pos: Position{File: name}, Msg: fmt.Sprintf("file is %d bytes, over the %d-byte limit for a goals file", len(data), MaxFileSize)})
@@ -43,9 +50,17 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 		return nil, d.errs
 	}
 	if p := d.plan(root.Content[0], asOf); p != nil {
+		if c != nil {
+			p.cache = &c.c
+		}
 		p.settle()
 		for _, pr := range p.problems() {
 			d.report(pr)
+		}
+		if len(d.errs) == 0 {
+			if g, err := p.checkFileWork(); err != nil {
+				d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
+			}
 		}
 		if len(d.errs) == 0 {
 			for _, g := range p.Goals {
@@ -247,12 +262,12 @@ func (d *decoder) rate(n *yaml.Node, path string, lo, hi float64) (money.Rate, b
 	return r, true
 }
 
-func (d *decoder) month(n *yaml.Node, path string) (Month, bool) {
+func (d *decoder) month(p *Plan, n *yaml.Node, path string) (Month, bool) {
 	s, ok := d.scalar(n, path, "a month such as 2027-01")
 	if !ok {
 		return 0, false
 	}
-	m, err := ParseMonth(s)
+	m, err := p.MonthOf(s)
 	if err != nil {
 		d.errorf(n, path, "%v", err)
 		return 0, false
@@ -309,7 +324,7 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 			return false
 		}
 	case FormMonth:
-		if v.month, ok = d.month(n, path); ok && k.Scope != InPlan {
+		if v.month, ok = d.month(t.p, n, path); ok && k.Scope != InPlan && k.Scope != InPerson {
 			ok = d.inHorizon(t.p, n, path, v.month)
 		}
 	case FormCurrency:
@@ -384,7 +399,7 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 		if s, sok := d.scalar(n, path, want[k.Form]); sok && strings.EqualFold(strings.TrimSpace(s), "reached") {
 			v.reached, ok = true, true
 		} else if sok {
-			if v.month, ok = d.month(n, path); ok {
+			if v.month, ok = d.month(t.p, n, path); ok {
 				ok = d.inHorizon(t.p, n, path, v.month)
 			}
 		}
@@ -453,6 +468,21 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 			d.bad["start"] = true // reported as missing
 		}
 	}
+	if v := given["people"]; v != nil {
+		items, _ := d.list(v, "people", "people")
+		for i, pn := range items {
+			pp := fmt.Sprintf("people[%d]", i)
+			var who Person
+			if given := d.keys(resolve(pn), pp, InPerson, &target{p: p, who: &who}); given != nil &&
+				given["name"] != nil && given["born"] != nil && !d.bad[pp+".name"] && !d.bad[pp+".born"] {
+				if p.Person(who.Name) != nil {
+					d.errorf(pn, join(pp, "name"), "duplicate person %s", money.Quote(who.Name))
+					continue
+				}
+				p.People = append(p.People, who)
+			}
+		}
+	}
 	if v := given["scenarios"]; v != nil {
 		d.scenarios(p, v)
 	}
@@ -507,11 +537,8 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		g.Rates = []RateStep{{From: p.Start, Rate: money.EffectiveRate(0)}}
 	}
 	var streams named
-	for _, out := range []bool{false, true} {
-		key := "deposits"
-		if out {
-			key = "withdrawals"
-		}
+	for _, key := range []string{"deposits", "withdrawals", "income"} {
+		out := key == "withdrawals"
 		v := given[key]
 		if v == nil {
 			continue
@@ -520,13 +547,16 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		items, _ := d.list(v, kp, "streams")
 		for i, sn := range items {
 			sp := fmt.Sprintf("%s[%d]", kp, i)
-			if s := d.stream(p, g, resolve(sn), sp, out); s != nil {
+			if s := d.stream(p, g, resolve(sn), sp, out, key == "income"); s != nil {
 				if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
 					d.errorf(sn, join(sp, "name"), "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
 				}
-				if out {
+				switch key {
+				case "withdrawals":
 					g.Withdrawals = append(g.Withdrawals, s)
-				} else {
+				case "income":
+					g.Income = append(g.Income, s)
+				default:
 					g.Deposits = append(g.Deposits, s)
 				}
 			}
@@ -634,11 +664,11 @@ func (d *decoder) rates(k *Key, p *Plan, v *yaml.Node, path string) []RateStep {
 	return steps
 }
 
-func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out bool) *Stream {
-	s := &Stream{Out: out, From: p.Start}
+func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out, income bool) *Stream {
+	s := &Stream{Out: out, Income: income, From: p.Start}
 	scope := InStream
-	if out {
-		scope = InWithdrawal
+	if out || income {
+		scope = InWithdrawal // until or for
 	}
 	given := d.keys(n, path, scope, &target{p: p, g: g, s: s})
 	if given == nil {

@@ -74,7 +74,10 @@ var jsonOutputs = map[string][]jsonField{
 		{"months", "integer", false, "the months until the target is reached or the money runs out"},
 		{"lasts", "boolean", false, "for lasts: whether the money lasts through the last withdrawal"},
 		{"lasts_through", "string", false, "for lasts: the last month paid in full"},
-		{"left", "string", false, "for withdrawal: the balance left after the last withdrawal"},
+		{"left", "string", false, "for withdrawal and lasts: the balance left after the last withdrawal"},
+		{"paid_through", "string", false, "for lasts: every withdrawal is paid through this month, but less than leave is left"},
+		{"leave", "string", false, "for lasts and capital: what must be left after the last withdrawal, in money of then"},
+		{"capital_at", "string", false, "for capital: the month at whose end the capital is needed"},
 		{"stream", "string", false, "the stream solved for"},
 		{"every", "string", false, "the stream's frequency"},
 		{"first_amount", "string", false, "the first payment, when amounts grow"},
@@ -94,9 +97,10 @@ var jsonOutputs = map[string][]jsonField{
 	"project": {
 		{"goal", "string", true, "the goal's name"},
 		{"by", "string", true, "year or month: one row each"},
-		{"rows", "array", true, "opening, deposits, interest, fees, withdrawals and closing balance each period"},
+		{"rows", "array", true, "opening, deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
 		{"totals", "object", false, "the sums of the rows"},
 		{"runs_out", "string", false, "the month the money runs out, if it does"},
+		{"leave_short_by", "string", false, "how much less than leave is left after the last withdrawal, when every withdrawal is paid but it is"},
 	},
 	"compare": {
 		{"goal", "string", true, "the goal's name"},
@@ -109,7 +113,7 @@ var jsonOutputs = map[string][]jsonField{
 	},
 	"simulate": {
 		{"goal", "string", true, "the goal's name"},
-		{"for", "string", false, "deposit, when solving for the deposit"},
+		{"for", "string", false, "deposit or withdrawal, when solving for one"},
 		{"answer", "string|null", false, "with --for: the answer, or null when there is none"},
 		{"reason", "string", false, "why there is no answer"},
 		{"success_level", "string", false, "with --for: the share of paths asked for"},
@@ -130,6 +134,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"at_deadline", "object", false, "percentiles of the balance at the deadline"},
 		{"years", "array", false, "percentiles of the balance at each year's end"},
 		{"deposit", "object", false, "with --for deposit: the deposit found and its paths"},
+		{"withdrawal", "object", false, "with --for withdrawal: the withdrawal found that lasts in the share asked for, and its paths"},
 		{"withdrawals", "object", false, "how often withdrawals were paid in full"},
 	},
 	"convert": {

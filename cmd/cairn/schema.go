@@ -53,6 +53,7 @@ var scopeDefs = map[plan.Scope]string{
 	plan.InScenario:   "scenario",
 	plan.InChange:     "change",
 	plan.InActual:     "actual",
+	plan.InPerson:     "person",
 	plan.InBudget:     "budget",
 }
 
