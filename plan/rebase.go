@@ -75,6 +75,9 @@ func Rebase(p *Plan, data []byte) ([]byte, Month, error) {
 		if g.TargetToday {
 			setKey(gm, "target", amount(grown(g.Target, today), true), "")
 		}
+		if g.LeaveToday {
+			setKey(gm, "leave", amount(grown(g.Leave, today), true), "")
+		}
 		if rn := mapValue(gm, "rate"); rn != nil && rn.Kind == yaml.SequenceNode {
 			k := 0
 			for j, st := range g.Rates {
@@ -93,15 +96,12 @@ func Rebase(p *Plan, data []byte) ([]byte, Month, error) {
 				deleteKey(gm, "once")
 			}
 		}
-		for _, key := range []string{"deposits", "withdrawals"} {
+		for _, key := range []string{"deposits", "withdrawals", "income"} {
 			sn := mapValue(gm, key)
 			if sn == nil {
 				continue
 			}
-			ss := g.Deposits
-			if key == "withdrawals" {
-				ss = g.Withdrawals
-			}
+			ss := map[string][]*Stream{"deposits": g.Deposits, "withdrawals": g.Withdrawals, "income": g.Income}[key]
 			sn.Content = keep(sn.Content, func(j int) bool {
 				s, m := ss[j], resolve(sn.Content[j])
 				if s.HasUntil && s.Until < start {

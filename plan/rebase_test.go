@@ -85,3 +85,35 @@ func TestRebase_Example(t *testing.T) {
 		t.Errorf("Rebase without actuals = %v, want it refused", err)
 	}
 }
+
+// Every example re-bases two years on, from actuals equal to its plan, to a
+// file that reads back (Rebase reads it back itself), or is refused with a
+// reason: a household budget, a deadline before the new start.
+func TestRebase_EveryExample(t *testing.T) {
+	for _, name := range []string{"household.yaml", "retirement.yaml", "budget.yaml", "actuals.yaml"} {
+		t.Run(name, func(t *testing.T) {
+			data, err := os.ReadFile("../examples/" + name)
+			if err != nil {
+				t.Fatal(err)
+			}
+			p, err := plan.Parse(name, data, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			m := p.Start.Add(23)
+			for _, g := range p.Goals {
+				l := mustProject(t, p, g, m)
+				g.Actuals = []plan.Actual{{Month: m, Balance: l.BalanceAt(m)}}
+			}
+			_, start, err := plan.Rebase(p, data)
+			switch {
+			case err != nil && (strings.Contains(err.Error(), "budget") || strings.Contains(err.Error(), "is before the new start")):
+				t.Logf("refused: %v", err)
+			case err != nil:
+				t.Errorf("Rebase: %v", err)
+			case start != m+1:
+				t.Errorf("new start %s, want %s", start, m+1)
+			}
+		})
+	}
+}
