@@ -228,6 +228,7 @@ func newApp(e *env) *cli.App {
 			solveCommand(e),
 			projectCommand(e),
 			reportCommand(e),
+			rebaseCommand(e),
 			compareCommand(e),
 			simulateCommand(e),
 			convertCommand(e),

@@ -287,8 +287,9 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
 		goals = append(goals, jg)
 	}
-	d.Notices = notices(drawdown)
 	d.Blocks = []render.Block{t}
+	drawdown = progress(d, p, goals) || drawdown
+	d.Notices = notices(drawdown)
 	d.After = append(d.After, householdLine(p, st)...)
 	if st.Budget != nil {
 		d.Data["budget"] = budgetJSON(p, st)
