@@ -100,6 +100,12 @@ func readCases(c *cli.Context, e *env) ([]plan.Case, error) {
 	if err != nil {
 		return nil, err
 	}
+	return casesOf(c, p)
+}
+
+// casesOf is plan p as written and then each scenario named by --scenario
+// (every scenario with --scenarios), each with --set applied after it.
+func casesOf(c *cli.Context, p *plan.Plan) ([]plan.Case, error) {
 	names, err := scenarioNames(c, p)
 	if err != nil {
 		return nil, err
@@ -177,8 +183,14 @@ func parsePlan(c *cli.Context, e *env) (*plan.Plan, error) {
 	if c.NArg() > 1 {
 		return nil, usagef("give one goals file", "too many arguments: %s", strings.Join(c.Args().Slice(), " "))
 	}
-	name := c.Args().First()
+	return readGoalsFile(e, c.Args().First(), asOf, nil)
+}
+
+// readGoalsFile reads and parses the goals file name ("-" for standard
+// input, "" for ./cairn.yaml), its schedules kept in cache (nil: its own).
+func readGoalsFile(e *env, name string, asOf plan.Month, cache *plan.Cache) (*plan.Plan, error) {
 	var data []byte
+	var err error
 	switch name {
 	case "-":
 		name = "<stdin>"
@@ -196,7 +208,7 @@ func parsePlan(c *cli.Context, e *env) (*plan.Plan, error) {
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
-	p, err := plan.Parse(name, data, asOf)
+	p, err := plan.ParseCached(name, data, asOf, cache)
 	if err != nil {
 		return nil, &inputError{err: err, hint: "`cairn help file` lists every key with its default"}
 	}
