@@ -32,9 +32,8 @@ goals:
 // The walks each solver makes, counted (engine.Walks), not timed: a search
 // that needs more walks than its budget here has regressed. The budgets
 // are what the solvers make today on the benchmark plan; issue 14 asks for
-// rate ≤ 8 and deposit ≤ 4, which the searches do not reach yet (the rate
-// search's last steps settle the exact boundary among the roundings'
-// noise). With the ledger and equation, the ledger is one walk more and the
+// rate ≤ 8, which the rate search does not reach yet (its last steps
+// settle the exact boundary among the roundings' noise), and deposit ≤ 4. With the ledger and equation, the ledger is one walk more and the
 // equation of value another, every source valued in the same pass.
 func TestWalkBudget(t *testing.T) {
 	p, err := Parse("bench.yaml", []byte(walkBenchPlan), 0)
@@ -51,7 +50,11 @@ func TestWalkBudget(t *testing.T) {
 		// and effective, written back (issue 13 item 3) are proved
 		// without a walk when money only comes in
 		{ForRate, 12, 12 + 1 + 1},
-		{ForDeposit, 7, 7 + 1 + 1},
+		// one smooth walk at a unit amount values the deposit and the
+		// rest; three exact walks: the guess, then the cent on either
+		// side (the exact balance wanders some dollars off the smooth
+		// one, about a cent's worth of deposit on this plan)
+		{ForDeposit, 4, 4 + 1 + 1},
 		{ForTime, 1, 1 + 1 + 1},
 	}
 	for _, tt := range tests {
