@@ -2,8 +2,10 @@ package plan
 
 import (
 	"math"
+	"slices"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 )
 
 // A Term is one flow's part of the equation of value: its value at the
@@ -95,9 +97,16 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		return true
 	}
 	var sumV float64 // the terms' values, unrounded
+	ruled := -1      // the first source whose amounts its rule decides
 	for i, src := range s.sources {
 		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
 			continue // no flow, no term
+		}
+		if s.rules != nil && s.rules[i].Kind != engine.RuleFixed {
+			if ruled < 0 {
+				ruled = len(eq.Terms)
+			}
+			continue
 		}
 		amt := pr.amounts[i]
 		if src.out {
@@ -149,6 +158,15 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	// Under between none the walk is not linear in the amounts: flows that
 	// offset within an interest period earn what no flow valued alone
 	// shows. That difference is a term of its own.
+	// A rule decides its amounts from the whole balance, so no flow valued
+	// alone shows them: the withdrawals under rules are valued together, as
+	// what the walk of every source leaves beyond the other terms.
+	if ruled >= 0 {
+		d := money.FromFloat(s.smooth(pr, false, 0)-sumV).Round(s.places, s.rounding)
+		eq.Terms = slices.Insert(eq.Terms, ruled, Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: d})
+		eq.Sum = eq.Sum.Add(d)
+		return eq
+	}
 	if g.Between == None {
 		if d := money.FromFloat(s.smooth(pr, false, 0)-sumV).Round(s.places, s.rounding); !d.IsZero() {
 			eq.Terms = append(eq.Terms, Term{Label: "flows offsetting within interest periods (between none)", Kind: Interest, Value: d})
