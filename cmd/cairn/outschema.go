@@ -97,7 +97,7 @@ var jsonOutputs = map[string][]jsonField{
 	"project": {
 		{"goal", "string", true, "the goal's name"},
 		{"by", "string", true, "year or month: one row each"},
-		{"rows", "array", true, "opening, deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
+		{"rows", "array", true, "ages at the period's end (when the file names people), opening, deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
 		{"totals", "object", false, "the sums of the rows"},
 		{"runs_out", "string", false, "the month the money runs out, if it does"},
 		{"leave_short_by", "string", false, "how much less than leave is left after the last withdrawal, when every withdrawal is paid but it is"},
