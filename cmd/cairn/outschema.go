@@ -113,7 +113,7 @@ var jsonOutputs = map[string][]jsonField{
 	},
 	"simulate": {
 		{"goal", "string", true, "the goal's name"},
-		{"for", "string", false, "deposit or withdrawal, when solving for one"},
+		{"for", "string", false, "deposit, withdrawal or start, when solving for one"},
 		{"answer", "string|null", false, "with --for: the answer, or null when there is none"},
 		{"reason", "string", false, "why there is no answer"},
 		{"success_level", "string", false, "with --for: the share of paths asked for"},
@@ -135,6 +135,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"years", "array", false, "percentiles of the balance at each year's end"},
 		{"deposit", "object", false, "with --for deposit: the deposit found and its paths"},
 		{"withdrawal", "object", false, "with --for withdrawal: the withdrawal found that lasts in the share asked for, and its paths"},
+		{"opening_balance", "object", false, "with --for start: the opening balance found that succeeds in the share asked for, and its paths"},
 		{"withdrawals", "object", false, "how often withdrawals were paid in full"},
 	},
 	"convert": {
