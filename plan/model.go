@@ -26,6 +26,13 @@ type Plan struct {
 	// the one [Plan.WithScenario] applied to this copy, or "".
 	Scenarios []*Scenario
 	Applied   string
+	// ActualsFile names a CSV of actual balances (month, goal, balance),
+	// relative to the goals file, or is "" for none; the caller reads it
+	// and hands it to [Plan.ReadActuals].
+	ActualsFile string
+
+	actualsPos Position // where actuals_file is written
+	asOf       Month    // today's month as Parse was given it; 0: not known
 
 	// Budget is what the household can set aside for the goals with a
 	// Priority, or nil.
@@ -127,11 +134,30 @@ type Goal struct {
 	// a fraction; HasVolatility says the file gave it.
 	Volatility    float64
 	HasVolatility bool
+	// Actuals are the balances statements showed, in month order, at most
+	// one a month (see [Actual]).
+	Actuals []Actual
 	// Priority, from 1 (first), says the goal draws on the plan's Budget;
 	// 0 says it does not.
 	Priority int
 
 	pos Position
+}
+
+// An Actual is a goal's real balance at the end of a month, as a statement
+// showed it: what the plan is compared with and re-planned from.
+type Actual struct {
+	Month   Month
+	Balance money.Amount
+	Pos     Position // where it is written: the goals file or the CSV
+}
+
+// Latest returns the goal's latest actual, and false when it has none.
+func (g *Goal) Latest() (Actual, bool) {
+	if len(g.Actuals) == 0 {
+		return Actual{}, false
+	}
+	return g.Actuals[len(g.Actuals)-1], true
 }
 
 // Pos returns the position of the goal in its file.
@@ -162,8 +188,9 @@ type Stream struct {
 	// the amount as written).
 	Rule WithdrawalRule
 
-	growSet   bool // grow was given; otherwise an amount in today's money grows with inflation
-	forMonths int  // a withdrawal's length as given by for:, which sets Until
+	growSet   bool  // grow was given; otherwise an amount in today's money grows with inflation
+	resume    Month // its amounts before this month are left out (see replan); 0: none
+	forMonths int   // a withdrawal's length as given by for:, which sets Until
 }
 
 // growth returns the stream's yearly growth rate under inflation pi.
@@ -195,6 +222,7 @@ func (g *Goal) clone() *Goal {
 	h := *g
 	h.Rates = append([]RateStep(nil), g.Rates...)
 	h.Once = append([]Once(nil), g.Once...)
+	h.Actuals = append([]Actual(nil), g.Actuals...)
 	h.Deposits = cloneStreams(g.Deposits)
 	h.Withdrawals = cloneStreams(g.Withdrawals)
 	h.Income = cloneStreams(g.Income)

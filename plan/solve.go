@@ -446,6 +446,30 @@ func searchCentsFrom(ok func(c int64) bool, guess, step, limit int64, up bool) (
 	return lo, true
 }
 
+// settleCents is searchCents (up) from a guess within a few cents of the
+// answer: it steps a cent at a time for three steps before the search
+// doubles its steps, so that a guess a cent off costs one walk more, not
+// three. ok should remember its answers: a cent is asked about twice.
+func settleCents(ok func(c int64) bool, guess, limit int64) (int64, bool) {
+	c := min(max(guess, 0), limit)
+	for range 3 {
+		switch {
+		case ok(c):
+			if c == 0 || !ok(c-1) {
+				return c, true
+			}
+			c--
+		case c == limit:
+			return 0, false
+		case ok(c + 1):
+			return c + 1, true
+		default:
+			c++
+		}
+	}
+	return searchCents(ok, c, limit, true)
+}
+
 // solveAmount solves for the deposit of a stream (start false) or the
 // opening balance (start true).
 func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error) {
@@ -468,30 +492,57 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	}
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
-	meets := func(c int64) bool { // meets the target with every withdrawal paid
-		set(c)
-		bal, r := s.closing(pr)
-		return !r.Short && bal.Cmp(target) >= 0
+	type walked struct {
+		bal   money.Amount
+		short bool
 	}
-	// linear guess from the value of one unit
+	closings := map[int64]walked{} // the exact walks made, by amount
+	walk := func(c int64) walked {
+		w, ok := closings[c]
+		if !ok {
+			set(c)
+			bal, r := s.closing(pr)
+			w = walked{bal, r.Short}
+			closings[c] = w
+		}
+		return w
+	}
+	meets := func(c int64) bool { // meets the target with every withdrawal paid
+		w := walk(c)
+		return !w.short && w.bal.Cmp(target) >= 0
+	}
+	// The smooth walk is linear in the amount: one walk at an amount of
+	// one unit, every source valued alone in it, gives the value of a unit
+	// and of everything else, and so the amount that meets the target but
+	// for the roundings, which the exact walks then settle.
 	pr1 := s.defaultParams()
 	pr1.amountsF[idx] = 1
-	per := s.smooth(pr1, true, idx)
-	set(0)
-	b0 := s.exact(pr, engine.Options{}).Closing / s.scale()
+	in := s.inputs(pr1)
+	alone := make([]float64, len(s.sources))
+	rest := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
+	per := alone[idx]
+	rest -= per
 	if per <= 0 {
 		what := "the stream has no deposits on or before the deadline"
 		if start {
 			what = "the opening balance does not grow to the deadline"
 		}
-		if b0 >= target.Float() {
+		if meets(0) {
 			return nil, noSolution(g, "the target is met without it (%s)", what)
 		}
 		return nil, noSolution(g, "%s", what)
 	}
 	scale := math.Pow(10, float64(p.Currency.Places))
-	guess := int64(math.Ceil((target.Float() - b0) / per * scale))
-	c, ok := searchCents(meets, guess, int64(MaxAmountUnits)*int64(scale), true)
+	guess := int64(math.Ceil((target.Float() - rest) / per * scale))
+	guess = min(max(guess, 0), int64(MaxAmountUnits)*int64(scale))
+	// The roundings move the exact balance off the smooth one by more than
+	// a cent's worth at times: one exact walk at the guess measures how
+	// far, and the guess moves by that (the search then proves the cent on
+	// either side, the guess's walk among them when it is one).
+	if w := walk(guess); !w.short {
+		guess += int64(math.Ceil((target.Float() - w.bal.Float()) / per * scale))
+	}
+	c, ok := settleCents(meets, guess, int64(MaxAmountUnits)*int64(scale))
 	if !ok {
 		return nil, noSolution(g, "no amount up to the %s limit meets the target", amountLimit)
 	}
@@ -500,7 +551,7 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	if start {
 		a.For = ForStart
 	}
-	a.Balance, _ = s.closing(pr)
+	a.Balance = walk(c).bal // walked by the search
 	a.FirstAmount = s.firstAmount(pr, idx)
 	s.prove(a, pr, full)
 	if c == 0 {
@@ -648,8 +699,9 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// With money only coming in, the balance rises with the rate and there
 	// is at most one root: no scan is needed. Money going out as well can
 	// make several (the cash flows change sign), so scan for brackets.
+	rising := len(g.Withdrawals) == 0 && !anyOut(g.Once)
 	n := 48
-	if len(g.Withdrawals) == 0 && !anyOut(g.Once) {
+	if rising {
 		n = 1
 	}
 	var roots []float64
@@ -713,8 +765,13 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// not meet it and one above that does, above − below ≤ tol. Secant steps along the exact
 	// balance close in (each aiming a quarter unit past the target), and
 	// bisection finishes once the roundings' noise stalls them.
+	//
+	// Each exact walk is made at the rate asked raised by margin, the
+	// margin the answer keeps (below), so that the walk at the rate found
+	// is the walk at the answer: no walk to repeat it.
+	const margin = 1e-12
 	meets := func(delta float64) (float64, bool) {
-		r := money.ForceRate(delta)
+		r := money.ForceRate(delta + margin)
 		pr.rate = &r
 		bal, _ := s.closing(pr)
 		return bal.Float(), bal.Cmp(target) >= 0
@@ -813,14 +870,14 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		above = delta
 		hiBal, _ = meets(above)
 	}
-	// The answer is raised 1e-12 above the rate found to meet the target: a
-	// margin against the last bits a conversion of the rate to another form
-	// changes, so that the rate meets the target when used.
-	above += 1e-12
-	hiBal, _ = meets(above)
+	// The answer is raised by the margin above the rate found to meet the
+	// target (hiBal is the balance walked there): a margin against the last
+	// bits a conversion of the rate to another form changes, so that the
+	// rate meets the target when used.
+	above += margin
 	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(above), Periods: math.NaN(), Deadline: g.By, Target: target,
 		Balance: s.amount(hiBal)}
-	return finishRate(s, a, pr, roots, full), nil
+	return finishRate(s, a, pr, roots, rising, full), nil
 }
 
 // amount returns bal, in currency units a whole number of minor units, as
@@ -851,8 +908,17 @@ func crosses(meets func(float64) (float64, bool), r float64) bool {
 // its text, as the goals file reads it. s must compound as the form does
 // (an effective rate monthly). It meets at once unless a posting rounds
 // the other way.
-func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix string) float64 {
+//
+// With money only coming in (rising), the exact balance does not fall as
+// the rate rises — each posting's rounding is monotone in the balance and
+// the rate, and a fee's posting rises at most a minor unit for each minor
+// unit of balance — so a shown rate clearly above x, which is known to
+// meet target, meets it too and is not walked again.
+func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix string, rising bool) float64 {
 	v := money.RateUp(x)
+	if rising && v-x > 1e-12 {
+		return v
+	}
 	for range 100 {
 		r, err := money.ParseRate(money.Percent(v, 6) + suffix)
 		if err != nil {
@@ -873,15 +939,16 @@ func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix 
 
 // finishRate completes a rate answer: the other roots, and the proof at the
 // answer's rate.
-func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) *Answer {
+// rising says the goal's money only comes in (see [schedule.shownRate]).
+func finishRate(s *schedule, a *Answer, pr *params, roots []float64, rising, full bool) *Answer {
 	for _, r := range roots[1:] {
 		a.Rates = append(a.Rates, money.ForceRate(r))
 	}
 	comp := s.comp
-	a.ShownNominal = s.shownRate(pr, a.Target, a.Rate.Nominal(comp), " compounded "+comp.Adjective())
+	a.ShownNominal = s.shownRate(pr, a.Target, a.Rate.Nominal(comp), " compounded "+comp.Adjective(), rising)
 	a.ShownEffective = money.RateUp(a.Rate.Effective())
 	if comp == money.Monthly { // an effective rate credits monthly: the same account
-		a.ShownEffective = s.shownRate(pr, a.Target, a.Rate.Effective(), "")
+		a.ShownEffective = s.shownRate(pr, a.Target, a.Rate.Effective(), "", rising)
 	}
 	pr.rate = &a.Rate
 	s.prove(a, pr, full)

@@ -161,6 +161,10 @@ type Options struct {
 	// Result.AtDeadline.
 	HasDeadline bool
 	Deadline    int32
+	// Each, when set (smooth, without Paths), receives each source's
+	// closing balance valued alone, as One would give it, every source in
+	// the same pass: Each[k] for source k, one per amount of Inputs.
+	Each []float64
 }
 
 // A Result is what a walk reports, in the walk's units (see [Mode]).
@@ -325,6 +329,12 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	if o.Paths == nil {
 		w = s.weights(in.Rates, in.Between)
 	}
+	var ea *each // every source alone (Options.Each)
+	if o.Each != nil {
+		ea = newEach(len(o.Each))
+		ea.bal[0] = in.Amounts[0]
+		ea.base[0], ea.low[0] = ea.bal[0], ea.bal[0]
+	}
 	if !o.One || o.Source == 0 {
 		bal = in.Amounts[0] * scale
 		if o.Mode == Exact {
@@ -366,6 +376,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 				}
 				x := b*j + plus
+				if ea != nil {
+					ea.interest(j, none, s.accrue)
+				}
 				if s.accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
@@ -388,6 +401,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 		case Credit:
+			if ea != nil {
+				ea.credit()
+			}
 			x := accrued
 			if o.Mode == Exact {
 				x = roundMinor(x, in.Rounding)
@@ -398,6 +414,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
 			}
 		case Fee:
+			if ea != nil {
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+			}
 			f := bal * in.Fee
 			if o.Mode == Exact {
 				if bal <= 0 {
@@ -428,6 +447,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 		case Mark:
 			pool = 0 // income its month's withdrawals did not need is not deposited
+			if ea != nil {
+				clear(ea.pool)
+			}
 			peak = max(peak, bal)
 			m := e.Month
 			if o.Log != nil {
@@ -450,6 +472,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				return res
 			}
 		case FlowEnd, FlowBegin, Income:
+			if ea != nil && e.Kind != Income && in.Out[e.Src] {
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+			}
 			if pool != 0 && o.Mode == Smooth && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
 				// withdrawal: linear in every amount, so that income is
@@ -501,6 +526,17 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					x = q
 				} else {
 					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
+			}
+			if ea != nil {
+				y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
+				if in.Out[e.Src] {
+					y, wi = -math.Abs(x), wi+1
+				}
+				if e.Kind == Income {
+					ea.pool[e.Src] += y
+				} else {
+					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
@@ -555,6 +591,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 			}
 		}
+	}
+	if ea != nil {
+		copy(o.Each, ea.bal)
 	}
 	res.Closing, res.Peak = bal, peak
 	return res
