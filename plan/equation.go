@@ -156,18 +156,18 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		eq.Terms = append(eq.Terms, t)
 		eq.Sum = eq.Sum.Add(t.Value)
 	}
-	// Under between none the walk is not linear in the amounts: flows that
-	// offset within an interest period earn what no flow valued alone
-	// shows. That difference is a term of its own.
 	// A rule decides its amounts from the whole balance, so no flow valued
 	// alone shows them: the withdrawals under rules are valued together, as
 	// what the walk of every source leaves beyond the other terms.
 	if ruled >= 0 {
-		d := money.FromFloat(s.smooth(pr, false, 0)-sumV).Round(s.places, s.rounding)
+		d := money.FromFloat(all-sumV).Round(s.places, s.rounding)
 		eq.Terms = slices.Insert(eq.Terms, ruled, Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: d})
 		eq.Sum = eq.Sum.Add(d)
 		return eq
 	}
+	// Under between none the walk is not linear in the amounts: flows that
+	// offset within an interest period earn what no flow valued alone
+	// shows. That difference is a term of its own.
 	if g.Between == None {
 		if d := money.FromFloat(all-sumV).Round(s.places, s.rounding); !d.IsZero() {
 			eq.Terms = append(eq.Terms, Term{Label: "flows offsetting within interest periods (between none)", Kind: Interest, Value: d})
