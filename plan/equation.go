@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 
 	"cairn/money"
@@ -114,9 +115,16 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	all := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
 	var sumV float64       // the terms' values, unrounded
 	var uncredited float64 // what the terms with factors earned after the last interest date
+	ruled := -1            // the first source whose amounts its rule decides
 	for i, src := range s.sources {
 		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
 			continue // no flow, no term
+		}
+		if s.rules != nil && s.rules[i].Kind != engine.RuleFixed {
+			if ruled < 0 {
+				ruled = len(eq.Terms)
+			}
+			continue
 		}
 		amt := pr.amounts[i]
 		if src.out {
@@ -177,6 +185,16 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		eq.Terms = append(eq.Terms, Term{Label: "earned, not yet credited", Kind: Interest, Value: d.Neg(),
 			Why: "interest since the last interest date, credited after " + at.String()})
 		eq.Sum = eq.Sum.Add(d.Neg())
+	}
+	// A rule decides its amounts from the whole balance, so no flow valued
+	// alone shows them: the withdrawals under rules are valued together, as
+	// what the walk of every source leaves beyond the other terms.
+	if ruled >= 0 {
+		d := money.FromFloat(all-sumV).Round(s.places, s.rounding)
+		eq.Terms = slices.Insert(eq.Terms, ruled, Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: d,
+			Why: "each amount is decided by its rule from the whole balance"})
+		eq.Sum = eq.Sum.Add(d)
+		return eq
 	}
 	// Under between none the walk is not linear in the amounts: flows that
 	// offset within an interest period earn what no flow valued alone
