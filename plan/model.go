@@ -184,6 +184,9 @@ type Stream struct {
 	GrowInflation bool
 	Out           bool // a withdrawal
 	Income        bool // income from outside the account (see Goal.Income)
+	// Rule decides a withdrawal's amount year by year (the zero value:
+	// the amount as written).
+	Rule WithdrawalRule
 
 	growSet   bool  // grow was given; otherwise an amount in today's money grows with inflation
 	resume    Month // its amounts before this month are left out (see replan); 0: none

@@ -98,12 +98,25 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	if hasIncome {
 		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "income", Long: "income paying withdrawals", Key: "income", Numeric: true})
 	}
+	// the household's ages at the end of each row, where the file names people
+	names, _ := p.AgeList(l.End)
+	if names != "" {
+		t.Cols = slices.Insert(t.Cols, 1, render.Column{Head: "ages", Long: "ages at the period's end (" + names + ")", Key: "ages"})
+		d.Lead = append(d.Lead, fmt.Sprintf("Ages are %s's at the end of each %s.", names, period))
+	}
 	var jrows []map[string]any
 	for k, r := range rows {
 		cells := []render.Cell{render.Text(r.Label), cash(p, r.Opening), cash(p, r.Deposits), cash(p, r.Interest), cash(p, r.Fees),
 			cash(p, r.Withdrawals), cash(p, r.Closing), cash(p, r.ClosingToday)}
 		if hasIncome { // income paying withdrawals, beside what the account paid
 			cells = slices.Insert(cells, 5, cash(p, r.Income))
+		}
+		if names != "" {
+			_, ages := p.AgeList(r.To)
+			if k == len(rows)-1 {
+				ages = ""
+			}
+			cells = slices.Insert(cells, 1, render.Text(ages))
 		}
 		jr := map[string]any{}
 		for i, c := range t.Cols {
