@@ -165,6 +165,10 @@ type Options struct {
 	// closing balance valued alone, as One would give it, every source in
 	// the same pass: Each[k] for source k, one per amount of Inputs.
 	Each []float64
+	// DRates, when set (smooth, without Paths or Each), is the derivative
+	// of each of Inputs.Rates with respect to one parameter: the walk
+	// reports the closing balance's derivative in Result.DClosing.
+	DRates []float64
 }
 
 // A Result is what a walk reports, in the walk's units (see [Mode]).
@@ -177,6 +181,7 @@ type Result struct {
 	Reached    bool // Options.Reach accepted ReachMonth
 	ReachMonth int32
 	AtDeadline float64
+	DClosing   float64 // the closing balance's derivative (Options.DRates)
 }
 
 // A PostKind is what a posting of a [Log] is.
@@ -329,6 +334,10 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	if o.Paths == nil {
 		w = s.weights(in.Rates, in.Between)
 	}
+	var dv *deriv // the derivatives (Options.DRates)
+	if o.DRates != nil {
+		dv = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
+	}
 	var ea *each // every source alone (Options.Each)
 	if o.Each != nil {
 		ea = newEach(len(o.Each))
@@ -376,6 +385,21 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 				}
 				x := b*j + plus
+				if dv != nil {
+					db, dplus := dv.base, dv.acc
+					if none {
+						db, dplus = dv.low, 0
+					}
+					dx := db*j + b*o.DRates[e.Step] + dplus
+					if s.accrue {
+						dv.accrued += dx
+						dv.base = dv.bal + dv.accrued
+					} else {
+						dv.bal += dx
+						dv.base = dv.bal
+					}
+					dv.acc, dv.low = 0, dv.base
+				}
 				if ea != nil {
 					ea.interest(j, none, s.accrue)
 				}
@@ -405,6 +429,10 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				ea.credit()
 			}
 			x := accrued
+			if dv != nil {
+				dv.bal += dv.accrued
+				dv.accrued = 0
+			}
 			if o.Mode == Exact {
 				x = roundMinor(x, in.Rounding)
 			}
@@ -432,6 +460,19 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal -= f
+			if dv != nil {
+				wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
+				df := dv.bal * in.Fee
+				dv.bal -= df
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau == 1 {
+					dv.base -= df
+				} else {
+					dv.acc -= df*w[wi] + f*dv.dw[wi]
+				}
+			}
 			if none {
 				low = lowest(low, bal+accrued, e.Tau)
 			}
@@ -479,6 +520,14 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				// the month's income, unclamped, as money in at its first
 				// withdrawal: linear in every amount, so that income is
 				// valued alone like any other source
+				if dv != nil {
+					if none {
+						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					}
+					if e.Tau != 1 {
+						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+					}
+				}
 				if e.Tau == 1 {
 					base += pool
 				} else if o.Paths == nil {
@@ -573,6 +622,18 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				continue
 			}
+			if dv != nil {
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau != 1 {
+					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+					if x < 0 {
+						wi++
+					}
+					dv.acc += x * dv.dw[wi]
+				}
+			}
 			if none {
 				low = lowest(low, bal+accrued, e.Tau)
 			}
@@ -596,6 +657,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 		copy(o.Each, ea.bal)
 	}
 	res.Closing, res.Peak = bal, peak
+	if dv != nil {
+		res.DClosing = dv.bal
+	}
 	return res
 }
 
