@@ -41,6 +41,14 @@ func (p *Plan) problems() []problem {
 			out = append(out, problem{goal: g, at: "target", key: "target", involves: []string{"target", "by"},
 				msg: "a target in today's money needs a deadline (want by: YYYY-MM)"})
 		}
+		if g.Tax == Untaxed && (g.TaxRate != 0 || g.HasTaxLater) {
+			out = append(out, problem{goal: g, at: "tax_rate", key: "tax_rate", involves: []string{"tax", "tax_rate", "tax_later"},
+				msg: "a tax rate needs a tax treatment (want tax: as-it-grows, on-the-way-out or never)"})
+		}
+		if g.HasTaxLater && g.Tax != OnTheWayOut {
+			out = append(out, problem{goal: g, at: "tax_later", key: "tax_later", involves: []string{"tax", "tax_later"},
+				msg: "tax_later is the rate on withdrawals of an account taxed on the way out (want tax: on-the-way-out)"})
+		}
 	}
 	return out
 }

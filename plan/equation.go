@@ -30,6 +30,11 @@ type Equation struct {
 	Terms   []Term
 	Sum     money.Amount
 	Balance money.Amount
+	// TaxOnGrowth is the rate each year's interest is taxed at, paid from
+	// the account (see [AsItGrows]), 0 for none; AfterTax is then the
+	// effective annual rate the balance grows at after that tax,
+	// r(1 − TaxOnGrowth) for the first rate's effective annual rate r.
+	TaxOnGrowth, AfterTax float64
 }
 
 // EquationOf returns the equation of value of goal g at the end of month at.
@@ -47,7 +52,7 @@ func equation(p *Plan, g *Goal, at Month, pr *params) *Equation {
 // every flow's value then; l is the ledger of s under pr.
 func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	g, at := s.goal, s.end
-	eq := &Equation{At: at, Balance: l.Closing}
+	eq := &Equation{At: at, Balance: l.Closing, TaxOnGrowth: g.RateOnGrowth()}
 	counts := make([]int, len(s.sources))
 	first := make([]int64, len(s.sources))
 	last := make([]int64, len(s.sources))
@@ -74,7 +79,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	}
 	counts[0] = 1
 	// One rate over the whole horizon and no fee: factors describe the flows.
-	constRate := g.Fee == 0
+	constRate := g.Fee == 0 && eq.TaxOnGrowth == 0
 	for _, st := range g.Rates[1:] {
 		if st.From <= at {
 			constRate = false
@@ -84,6 +89,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	if pr.rate != nil {
 		rate = *pr.rate
 	}
+	eq.AfterTax = rate.Effective() * (1 - eq.TaxOnGrowth)
 	lastCredit := (s.endTick / s.period) * s.period
 	onCredits := func(i int) bool { // every flow of source i lies on an interest date
 		for k := range s.events {

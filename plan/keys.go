@@ -69,6 +69,7 @@ const (
 	FormLength                   // a number of years or months
 	FormGrowth                   // a yearly rate between Min and Max %, or "inflation"
 	FormList                     // a list of mappings, each in the scope Items
+	FormTaxRate                  // a percentage, 0% or more and below 100%
 )
 
 // want says what a value of the form looks like, in error messages.
@@ -82,6 +83,7 @@ var want = map[Form]string{
 	FormFrequency:  "a frequency such as month",
 	FormLength:     "a length such as 30 years",
 	FormGrowth:     "a yearly rate such as 3% or inflation",
+	FormTaxRate:    "a tax rate such as 25%",
 }
 
 // A Choice is one word a FormChoice key accepts and the value it stands for.
@@ -271,6 +273,34 @@ var Keys = withChangeKeys([]*Key{
 			"  - name: gift       (optional)\n" +
 			"    amount: 1,000\n" +
 			"    on: 2027-12      (at the end of that month)"},
+	{Name: "tax", Scope: InGoal, Form: FormChoice,
+		Choices: []Choice{{"none", int(Untaxed)}, {"as-it-grows", int(AsItGrows)}, {"on-the-way-out", int(OnTheWayOut)}, {"never", int(Never)}},
+		Noun:    "tax treatment", Want: "none, as-it-grows, on-the-way-out or never",
+		Default: "none",
+		Help: "how the account is taxed, at the flat rates given (no\n" +
+			"brackets, credits or any country's rules):\n" +
+			"  as-it-grows     each year's interest is taxed at\n" +
+			"                  tax_rate at the year's end (a year\n" +
+			"                  from the start), paid from the account\n" +
+			"  on-the-way-out  deposits come from pay before tax\n" +
+			"                  (each costs the deposit less tax_rate);\n" +
+			"                  withdrawals are taxed at tax_later\n" +
+			"  never           deposits from pay after tax; growth\n" +
+			"                  and withdrawals are not taxed again\n" +
+			"  none            tax is not modelled",
+		Set: "tax",
+		put: func(t *target, v *value) { t.g.Tax = Treatment(v.n) }},
+	{Name: "tax_rate", Scope: InGoal, Form: FormTaxRate,
+		Default: "0%",
+		Help: "the tax rate now: on each year's interest (as-it-grows),\n" +
+			"or on the pay a deposit comes from (on-the-way-out)",
+		Set: "tax_rate",
+		put: func(t *target, v *value) { t.g.TaxRate = v.x }},
+	{Name: "tax_later", Scope: InGoal, Form: FormTaxRate,
+		Default: "tax_rate",
+		Help:    "on-the-way-out: the tax rate on withdrawals",
+		Set:     "tax_later",
+		put:     func(t *target, v *value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
 	{Name: "leave", Scope: InGoal, Form: FormAmount,
 		Default: "0", Help: "balance that must remain after the last withdrawal",
 		Set: "leave",
@@ -309,6 +339,15 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "until", Scope: InStream, Form: FormMonth,
 		Default: "none", Help: "last month with an amount (none: open-ended)",
 		put: func(t *target, v *value) { t.s.Until, t.s.HasUntil = v.month, true }},
+	{Name: "net", Scope: InWithdrawal, Form: FormChoice,
+		Choices: []Choice{{"no", 0}, {"yes", 1}},
+		Noun:    "answer", Want: "yes or no",
+		Default: "no",
+		Help: "withdrawals only: yes when amount is what the household\n" +
+			"receives after the tax on withdrawals (the account pays\n" +
+			"amount ÷ (1 − tax_later)); no when it is what the\n" +
+			"account pays",
+		put: func(t *target, v *value) { t.s.Net = v.n == 1 }},
 	{Name: "for", Scope: InWithdrawal, Form: FormLength,
 		Default: "none", Help: "withdrawals only, instead of until: \"30 years\", \"18 months\"",
 		put: func(t *target, v *value) { t.s.forMonths = v.n }},
@@ -500,6 +539,7 @@ var (
 			FormFrequency:    `^\s*` + words(payment) + `\s*$`,
 			FormLength:       `^\s*\+?0*[1-9]\d*\s+` + words([]string{"year", "years", "month", "months"}) + `\s*$`,
 			FormGrowth:       `^(?:` + rate + `|\s*` + words([]string{"inflation"}) + `\s*)$`,
+			FormTaxRate:      `^\s*\+?0*(?:\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 		}
 	}()
 )

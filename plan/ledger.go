@@ -18,9 +18,10 @@ const (
 	OneTime                     // a one-time amount, in or out
 	Interest                    // interest credited at an interest date
 	Fee                         // the monthly fee
+	Tax                         // the tax on a year's interest, paid from the account (see [AsItGrows])
 )
 
-var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee"}
+var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "tax"}
 
 func (k EntryKind) String() string { return entryNames[k] }
 
@@ -70,6 +71,8 @@ func (l *Ledger) Entries() []Entry {
 			switch r.Kind {
 			case engine.PostFee:
 				e.Kind = Fee
+			case engine.PostTax:
+				e.Kind = Tax
 			case engine.PostFlow:
 				e.Kind, e.Source = l.sources[r.Src].kind, l.sources[r.Src].name
 			}
@@ -142,6 +145,7 @@ type Row struct {
 	Withdrawals  money.Amount // stream withdrawals and one-time amounts out, as a positive sum
 	Interest     money.Amount
 	Fees         money.Amount // as a positive sum
+	Tax          money.Amount // tax on interest paid from the account, as a positive sum
 	Closing      money.Amount
 	ClosingToday money.Amount // the closing balance in today's money
 	Short        money.Amount // withdrawals that could not be paid
@@ -193,6 +197,8 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 			r.Interest = r.Interest.Add(e.Amount)
 		case e.Kind == Fee:
 			r.Fees = r.Fees.Sub(e.Amount)
+		case e.Kind == Tax:
+			r.Tax = r.Tax.Sub(e.Amount)
 		case e.Amount.Sign() >= 0:
 			r.Deposits = r.Deposits.Add(e.Amount)
 		default:
@@ -207,6 +213,7 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		tot.Withdrawals = tot.Withdrawals.Add(r.Withdrawals)
 		tot.Interest = tot.Interest.Add(r.Interest)
 		tot.Fees = tot.Fees.Add(r.Fees)
+		tot.Tax = tot.Tax.Add(r.Tax)
 		tot.Short = tot.Short.Add(r.Short)
 	}
 	if totals && len(rows) > 0 {

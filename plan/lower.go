@@ -60,7 +60,8 @@ func streams(g *Goal) []*Stream {
 
 // shapeOf returns the shape of goal g through the end of month end.
 func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
-	sh := engine.Shape{Months: int32(end-p.Start) + 1, PerYear: g.Rates[0].Rate.Compounding().PerYear(), Fee: g.Fee > 0}
+	sh := engine.Shape{Months: int32(end-p.Start) + 1, PerYear: g.Rates[0].Rate.Compounding().PerYear(), Fee: g.Fee > 0,
+		Tax: g.RateOnGrowth() > 0}
 	for _, st := range g.Rates {
 		sh.StepFrom = append(sh.StepFrom, int32(st.From-p.Start))
 	}
@@ -94,7 +95,7 @@ func compile(p *Plan, g *Goal, end Month) *schedule {
 	for _, st := range g.Rates {
 		s.steps = append(s.steps, st.Rate)
 	}
-	s.sources = sourcesOf(g)
+	s.sources = sourcesOf(p, g)
 	s.out = make([]bool, len(s.sources))
 	for i, src := range s.sources {
 		s.out[i] = src.out
@@ -103,15 +104,20 @@ func compile(p *Plan, g *Goal, end Month) *schedule {
 }
 
 // sourcesOf lists goal g's flow sources in schedule order: the opening
-// balance, deposits, withdrawals, one-time amounts.
-func sourcesOf(g *Goal) []source {
+// balance, deposits, withdrawals, one-time amounts. A withdrawal stated
+// net of tax is the gross amount the account pays ([Plan.Gross]).
+func sourcesOf(p *Plan, g *Goal) []source {
 	out := []source{{kind: Opening, name: "opening balance", base: g.Balance}}
 	for _, st := range streams(g) {
 		kind := Deposit
 		if st.Out {
 			kind = Withdrawal
 		}
-		out = append(out, source{kind: kind, name: st.Name, base: st.Amount, stream: st, out: st.Out})
+		base := st.Amount
+		if st.Out && st.Net {
+			base = p.Gross(g, base)
+		}
+		out = append(out, source{kind: kind, name: st.Name, base: base, stream: st, out: st.Out})
 	}
 	for _, o := range g.Once {
 		name := o.Name
@@ -142,6 +148,7 @@ func (s *schedule) defaultParams() *params {
 // inputs returns what a walk of s reads under pr.
 func (s *schedule) inputs(pr *params) engine.Inputs {
 	fee := s.goal.Fee / 12
+	tax := s.goal.RateOnGrowth()
 	js, ms := make([]float64, len(s.steps)), make([]money.Multiplier, len(s.steps))
 	for i, r := range s.steps {
 		if pr.rate != nil {
@@ -152,6 +159,7 @@ func (s *schedule) inputs(pr *params) engine.Inputs {
 	}
 	return engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
 		Fee: fee, FeeM: money.RateMultiplier(fee, s.goal.Fee, 12, 1),
+		Tax: tax, TaxM: money.RateMultiplier(tax, tax, 1, 1),
 		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding}
 }
 

@@ -340,6 +340,15 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 			}
 			v.x, ok = x, true
 		}
+	case FormTaxRate:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			x, err := ParseTaxRate(s)
+			if err != nil {
+				d.errorf(n, path, "%v", err)
+				return false
+			}
+			v.x, ok = x, true
+		}
 	case FormName:
 		v.text, ok = d.name(n, path)
 	case FormAmount, FormAmountToday, FormSignedAmount:

@@ -98,6 +98,14 @@ type Answer struct {
 	Ledger   *Ledger      // the ledger under the answer
 	Equation *Equation    // the equation of value at Deadline under the answer
 	Note     string       // a remark on the answer, in plain words
+
+	// What the answer means after tax, for a goal with a tax treatment
+	// (see [Treatment]); each equals its figure above when none applies.
+	// FromPay is what the deposit Amount costs from take-home pay (ForDeposit),
+	// Net what the withdrawal Amount leaves after the tax on withdrawals
+	// (ForWithdrawal), and BalanceAfterTax what Balance would leave if paid
+	// out (an account taxed on the way out).
+	FromPay, Net, BalanceAfterTax money.Amount
 }
 
 // horizonEnd is the last month a plan may reach.
@@ -122,6 +130,14 @@ func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q
 // solve answers q; with full unset it leaves out the answer's Ledger and
 // Equation, which what-if grids and the household status do not show.
 func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
+	a, err := solveFor(p, g, q, full)
+	if err == nil {
+		a.FromPay, a.Net, a.BalanceAfterTax = p.FromPay(g, a.Amount), p.AfterTax(g, a.Amount), p.AfterTax(g, a.Balance)
+	}
+	return a, err
+}
+
+func solveFor(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	switch q.For {
 	case ForTime:
 		return solveTime(p, g, full)

@@ -26,6 +26,11 @@ type GoalStatus struct {
 	// Lasts is the drawdown answer for a goal with withdrawals.
 	Lasts    *Answer
 	LastsErr error
+	// After tax (see [Treatment]): what Projected would leave if paid out,
+	// and what MonthlyNow and MonthlyNeeded cost from take-home pay; each
+	// equals its figure when the goal has no tax treatment.
+	ProjectedAfterTax                       money.Amount
+	MonthlyNowFromPay, MonthlyNeededFromPay money.Amount
 }
 
 // A Status is the household at a glance.
@@ -35,6 +40,10 @@ type Status struct {
 	// MonthlyNow is the total set aside a month now, over every goal with
 	// deposits; MonthlyNeeded what would be needed to make every deadline.
 	MonthlyNow, MonthlyNeeded money.Amount
+	// MonthlyNowFromPay and MonthlyNeededFromPay are those totals as they
+	// cost the household's take-home pay: deposits from pay before tax
+	// cost less than what lands in the account.
+	MonthlyNowFromPay, MonthlyNeededFromPay money.Amount
 }
 
 // StatusOf returns the status of every goal of the plan.
@@ -69,6 +78,10 @@ func StatusOf(p *Plan) *Status {
 		if len(g.Withdrawals) > 0 {
 			gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
 		}
+		gs.ProjectedAfterTax = p.AfterTax(g, gs.Projected)
+		gs.MonthlyNowFromPay, gs.MonthlyNeededFromPay = p.FromPay(g, gs.MonthlyNow), p.FromPay(g, gs.MonthlyNeeded)
+		st.MonthlyNowFromPay = st.MonthlyNowFromPay.Add(gs.MonthlyNowFromPay)
+		st.MonthlyNeededFromPay = st.MonthlyNeededFromPay.Add(gs.MonthlyNeededFromPay)
 		st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
 		st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNeeded)
 		st.Goals = append(st.Goals, gs)

@@ -48,6 +48,8 @@ var jsonOutputs = map[string][]jsonField{
 		{"monthly_now", "string", true, "the total set aside a month now"},
 		{"monthly_needed", "string", true, "the total a month needed to meet every goal"},
 		{"cases", "array", false, "with several scenarios: the plan as written (base), then each scenario, each with its goals and totals"},
+		{"monthly_now_from_pay", "string", false, "where a goal's deposits come from pay before tax: monthly_now as it costs take-home pay"},
+		{"monthly_needed_from_pay", "string", false, "where a goal's deposits come from pay before tax: monthly_needed as it costs take-home pay"},
 	},
 	"check": {
 		{"valid", "boolean", true, "true: the file was read without a problem"},

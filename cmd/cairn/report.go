@@ -178,7 +178,7 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 	if p.Applied != "" {
 		pg.Meta += fmt.Sprintf(" Under the scenario “%s”: %s.", p.Applied, scenarioText(p.Scenario(p.Applied)))
 	}
-	pg.Notices = notices(drawdown)
+	pg.Notices = notices(p, drawdown)
 	var b bytes.Buffer
 	if err := pg.Write(&b); err != nil {
 		return nil, nil, err

@@ -41,7 +41,9 @@ var schemaSamples = map[plan.Form]struct{ tried, refused []string }{
 		[]string{"today", "250today", "-250 today", "250 yesterday", "", "25 0"}},
 	plan.FormSignedAmount: {[]string{"-1,000", "−250", "+5", "1000", "-$50", "1.5k"},
 		[]string{"--5", "5-", "1.2.3", "", "- 5"}},
-	plan.FormChoice: {[]string{"compound", "Simple", " none ", "end", "start", "Begin", "beginning"},
+	plan.FormTaxRate: {[]string{"25%", "0%", "99.9%", "12.5 %", ".5%", "+3%"},
+		[]string{"25", "-5%", "100%", "101%", "25 percent", "1e1%", ""}},
+	plan.FormChoice: {[]string{"compound", "Simple", " none ", "end", "start", "Begin", "beginning", "yes", "No", "as-it-grows", "On-The-Way-Out", "never"},
 		[]string{"compounded", "daily", "middle", ""}},
 	plan.FormFrequency: {[]string{"month", "Monthly", "2 weeks", "every 2 weeks", "half month", "twice a month",
 		"quarter", "year", "annually", "semi-monthly", "fortnightly", "per month", "every  two   weeks"},
@@ -67,7 +69,8 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 	case plan.InPlan:
 		b.WriteString(unless("cairn", "cairn: 1\n") + unless("start", "start: 2027-01\n") + kv + "\ngoals:\n  - name: g\n")
 	case plan.InGoal:
-		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    " + unless("by", "by: 2040-01\n    ") + kv + "\n")
+		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    " + unless("by", "by: 2040-01\n    ") +
+			unless("tax", "tax: on-the-way-out\n    ") + kv + "\n")
 	case plan.InStream:
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    deposits:\n      - " +
 			unless("amount", "amount: 10\n        ") + unless("every", "every: month\n        ") + kv + "\n")

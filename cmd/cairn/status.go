@@ -141,13 +141,30 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 			}
 		}
 		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
+		if taxed(goal) {
+			jg["tax"] = taxJSON(p, goal)
+			jg["monthly_now_from_pay"], jg["monthly_needed_from_pay"] = jamt(p, gs.MonthlyNowFromPay), jamt(p, gs.MonthlyNeededFromPay)
+			d.After = append(d.After, statusTaxLine(p, gs))
+			if goal.HasTarget && goal.HasBy {
+				jg["projected_after_tax"] = jamt(p, gs.ProjectedAfterTax)
+			}
+			if gs.NeededErr == nil && gs.Needed != nil {
+				jg["needed"].(map[string]any)["from_pay"] = jamt(p, gs.Needed.FromPay)
+			}
+		}
 		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
 		goals = append(goals, jg)
 	}
-	d.Notices = notices(drawdown)
+	d.Notices = notices(p, drawdown)
 	d.Blocks = []render.Block{t}
 	d.After = append(d.After, fmt.Sprintf("Set aside now: %s a month; needed to make every deadline: %s a month.",
 		amt(p, st.MonthlyNow), amt(p, st.MonthlyNeeded)))
+	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
+		d.After = append(d.After, fmt.Sprintf("From take-home pay, after the tax not paid on deposits from pay before tax: %s a month now; %s a month needed.",
+			amt(p, st.MonthlyNowFromPay), amt(p, st.MonthlyNeededFromPay)))
+		d.Data["monthly_now_from_pay"] = jamt(p, st.MonthlyNowFromPay)
+		d.Data["monthly_needed_from_pay"] = jamt(p, st.MonthlyNeededFromPay)
+	}
 	d.Data["goals"] = goals
 	d.Data["monthly_now"] = jamt(p, st.MonthlyNow)
 	d.Data["monthly_needed"] = jamt(p, st.MonthlyNeeded)
@@ -191,10 +208,11 @@ func casesDoc(cases []plan.Case) *render.Doc {
 		}
 	}
 	var jcases []map[string]any
-	drawdown := false
+	drawdown, taxNote := false, false
 	for i, c := range cases {
 		for _, n := range docs[i].Notices {
 			drawdown = drawdown || n == drawdownNotice
+			taxNote = taxNote || n == taxNoteNotice
 		}
 		for _, a := range docs[i].After {
 			if i == 0 || !slices.Contains(docs[0].After, a) {
@@ -207,7 +225,10 @@ func casesDoc(cases []plan.Case) *render.Doc {
 		}
 		jcases = append(jcases, jc)
 	}
-	d.Notices = notices(drawdown)
+	d.Notices = notices(base, drawdown)
+	if taxNote { // a scenario taxes a goal the plan as written does not
+		d.Notices[0] = taxNoteNotice
+	}
 	d.Blocks = []render.Block{t}
 	for _, k := range []string{"goals", "monthly_now", "monthly_needed"} {
 		d.Data[k] = docs[0].Data[k]

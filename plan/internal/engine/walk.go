@@ -31,11 +31,13 @@ type Inputs struct {
 	Amounts []float64 // each source's amount, in currency units (before Event.Unit)
 	Out     []bool    // each source: money out (made negative; clamped to the balance when exact)
 	Fee     float64   // fraction of the balance taken each month
+	Tax     float64   // fraction of a year's credited interest taxed at its end (Shape.Tax)
 	// RateM and FeeM are Rates and Fee with their exact forms, which an
 	// exact walk reads only to settle a product lying near a half unit
 	// (see [money.RoundProduct]); RateM[k].Float() is Rates[k].
 	RateM    []money.Multiplier
 	FeeM     money.Multiplier
+	TaxM     money.Multiplier
 	Between  Between
 	Places   int            // decimal places of the minor unit
 	Rounding money.Rounding // rule for every rounding to the minor unit
@@ -122,6 +124,7 @@ const (
 	PostInterest PostKind = iota
 	PostFee
 	PostFlow // an amount of source Post.Src
+	PostTax  // the tax on a year's interest, paid from the account
 )
 
 // A Post is one movement, in minor units.
@@ -247,6 +250,7 @@ func roundMinor(x float64, r money.Rounding) float64 {
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
 	var bal, base, acc, accrued, peak float64
+	var taxable float64 // interest credited since the last tax (Shape.Tax)
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
@@ -307,6 +311,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 				}
 				bal += x
+				taxable += x
 				base, acc = bal, 0
 				low = base
 				if o.Log != nil && x != 0 {
@@ -321,8 +326,37 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 			bal += x
 			accrued -= x
+			taxable += x
 			if o.Log != nil && x != 0 {
 				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0)
+			}
+		case Tax:
+			// The tax on the year's interest, paid from the account at an
+			// interest date (Tau 1): it leaves the next period's base. A
+			// year whose interest is not positive pays none (no refund or
+			// credit is modelled).
+			t := taxable
+			x := t * in.Tax
+			taxable = 0
+			if x <= 0 {
+				continue
+			}
+			if o.Mode == Exact {
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundPosting(t, in.TaxM, 0, in.Rounding)
+				}
+				x = min(x, max(bal, 0)) // what the account holds; no debt is modelled
+				if x == 0 {
+					continue
+				}
+			}
+			bal -= x
+			base -= x
+			low = bal + accrued
+			if o.Log != nil {
+				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0)
 			}
 		case Fee:
 			f := bal * in.Fee

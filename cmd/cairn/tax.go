@@ -1,0 +1,58 @@
+package main
+
+import (
+	"fmt"
+
+	"cairn/plan"
+)
+
+// This file holds the words for an account's tax treatment (see
+// [plan.Treatment]): what the file states, said back, and the after-tax
+// figures the plan package computes. It formats; it does no arithmetic.
+
+// taxed reports whether goal g states a tax treatment.
+func taxed(g *plan.Goal) bool { return g.Tax != plan.Untaxed }
+
+// taxWords says goal g's treatment with its rates: "taxed on the way out:
+// deposits from pay before tax at 30%, withdrawals taxed at 20%".
+func taxWords(g *plan.Goal) string {
+	switch g.Tax {
+	case plan.AsItGrows:
+		return fmt.Sprintf("taxed as it grows: each year's interest is taxed at %s at the year's end, paid from the account", pct(g.RateOnGrowth()))
+	case plan.OnTheWayOut:
+		return fmt.Sprintf("taxed on the way out: deposits come from pay before tax (%s), withdrawals are taxed at %s", pct(g.RateIn()), pct(g.RateOut()))
+	case plan.Never:
+		return "never taxed again: deposits come from pay after tax; growth and withdrawals are not taxed"
+	}
+	return "no tax modelled"
+}
+
+// taxJSON is goal g's treatment and rates, for JSON.
+func taxJSON(p *plan.Plan, g *plan.Goal) map[string]any {
+	j := map[string]any{"treatment": g.Tax.String(), "rate": jsonRate(g.TaxRate)}
+	if g.Tax == plan.OnTheWayOut {
+		j["later"] = jsonRate(g.RateOut())
+	}
+	return j
+}
+
+// statusTaxLine is the status remark on taxed goal gs: its treatment and
+// what its figures mean after tax.
+func statusTaxLine(p *plan.Plan, gs plan.GoalStatus) string {
+	g := gs.Goal
+	s := fmt.Sprintf("%s: %s.", g.Name, taxWords(g))
+	if g.Tax == plan.OnTheWayOut && g.HasTarget && g.HasBy {
+		s += fmt.Sprintf(" The projected %s would leave %s to spend after tax.", amt(p, gs.Projected), amt(p, gs.ProjectedAfterTax))
+	}
+	if g.Tax == plan.AsItGrows && g.HasTarget && g.HasBy {
+		s += " The projected balance is after that tax."
+	}
+	if gs.MonthlyNowFromPay.Cmp(gs.MonthlyNow) != 0 {
+		s += fmt.Sprintf(" Its deposits of %s a month now cost %s a month of take-home pay", amt(p, gs.MonthlyNow), amt(p, gs.MonthlyNowFromPay))
+		if gs.NeededErr == nil && gs.Needed != nil {
+			s += fmt.Sprintf("; the needed %s %s would cost %s", amt(p, gs.Needed.Amount), every(gs.Needed.Stream), amt(p, gs.Needed.FromPay))
+		}
+		s += "."
+	}
+	return s
+}

@@ -1,0 +1,201 @@
+package plan_test
+
+import (
+	"fmt"
+	"math"
+	"strings"
+	"testing"
+
+	"cairn/money"
+	"cairn/plan"
+)
+
+// taxFile returns a one-goal goals file: a balance and a monthly deposit
+// over years years at rate, with the tax keys given.
+func taxFile(balance, deposit, rate string, years int, tax string) string {
+	return fmt.Sprintf(`cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    balance: %s
+    rate: %s
+    %s
+    deposits:
+      - {amount: %s, every: month, until: %s}
+`, balance, rate, tax, deposit, plan.MonthOf(2027+years-1, 12))
+}
+
+func closing(t *testing.T, src string, years int) (*plan.Plan, *plan.Goal, *plan.Ledger) {
+	t.Helper()
+	p := mustParse(t, "tax.yaml", src)
+	g := p.Goals[0]
+	l, err := plan.Project(p, g, plan.MonthOf(2027+years-1, 12))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p, g, l
+}
+
+// Taxed as it grows: a balance at an effective rate r whose interest is
+// taxed at t each year, the tax paid from the account, grows at r(1 − t) a
+// year. Check value: the closed form B(1 + r(1 − t))^n (common practice, no
+// source), to the cent over 30 years for the equation of value (the walk
+// unrounded), and for the ledger within its rounding: half a cent a
+// posting, each grown to the end.
+func TestTax_AsItGrowsClosedForm(t *testing.T) {
+	tests := []struct {
+		balance, rate string
+		r, tax        float64
+	}{
+		{"10000", "6% compounded annually", 0.06, 0.25},
+		{"10000", "6%", 0.06, 0.25}, // effective: credited monthly, taxed at each year's end
+		{"25000", "4.5% compounded quarterly", math.Pow(1+0.045/4, 4) - 1, 0.30},
+		{"5000", "3% compounded daily", math.Pow(1+0.03/365, 365) - 1, 0.15},
+	}
+	for _, tt := range tests {
+		t.Run(tt.rate, func(t *testing.T) {
+			src := taxFile(tt.balance, "0", tt.rate, 30, fmt.Sprintf("tax: as-it-grows\n    tax_rate: %g%%", tt.tax*100))
+			p, g, l := closing(t, src, 30)
+			b, _ := money.ParseAmount(tt.balance)
+			growth := math.Pow(1+tt.r*(1-tt.tax), 30)
+			want := b.Float() * growth
+			eq := plan.EquationOf(p, g, plan.MonthOf(2056, 12))
+			if w := money.FromFloat(want).Round(2, money.HalfEven); eq.Sum.Cmp(w) != 0 {
+				t.Errorf("equation of value after 30 years = %s, want %s (closed form %.4f)", eq.Sum, w, want)
+			}
+			posts := len(l.Entries())
+			if d := math.Abs(l.Closing.Float() - want); d > 0.005*float64(posts)*growth {
+				t.Errorf("ledger closing after 30 years = %s, want %.4f (closed form) within %d postings' rounding, off by %.4f", l.Closing, want, posts, d)
+			}
+			years := 0
+			for _, e := range l.Entries() {
+				if e.Kind == plan.Tax {
+					years++
+					if e.Month.Calendar() != 12 || e.Amount.Sign() >= 0 {
+						t.Errorf("tax posting %v in %s: want a payment at a year's end", e.Amount, e.Month)
+					}
+				}
+			}
+			if years != 30 {
+				t.Errorf("%d tax postings, want one a year for 30 years", years)
+			}
+		})
+	}
+}
+
+// With the same rate now and later, an account taxed on the way out and one
+// never taxed again leave the same to spend for the same cost from
+// take-home pay (common practice, no source); with a lower rate later the
+// first leaves more, by the ratio (1 − later)/(1 − now) (the closed form of
+// that equivalence, common practice).
+func TestTax_OnTheWayOutAgainstNever(t *testing.T) {
+	tests := []struct {
+		now, later float64
+	}{
+		{0.30, 0.30},
+		{0.30, 0.20},
+		{0.40, 0.15},
+		{0.20, 0.35}, // a higher rate later: the first leaves less, by the same ratio
+	}
+	for _, tt := range tests {
+		t.Run(fmt.Sprintf("%g-%g", tt.now, tt.later), func(t *testing.T) {
+			pre := fmt.Sprintf("tax: on-the-way-out\n    tax_rate: %g%%\n    tax_later: %g%%", tt.now*100, tt.later*100)
+			p, g, l := closing(t, taxFile("0", "1000", "5%", 30, pre), 30)
+			cost := p.FromPay(g, money.Units(1000))
+			q, h, m := closing(t, taxFile("0", cost.String(), "5%", 30, "tax: never\n    tax_rate: 30%"), 30)
+			if c := q.FromPay(h, cost); c.Cmp(cost) != 0 {
+				t.Fatalf("never taxed: a deposit of %s costs %s of pay, want itself", cost, c)
+			}
+			spendOut := p.AfterTax(g, l.Closing).Float()
+			spendNever := q.AfterTax(h, m.Closing).Float()
+			want := spendNever * (1 - tt.later) / (1 - tt.now)
+			// Each ledger rounds its postings to the cent: allow a cent for
+			// each of the 360 months' roundings, grown.
+			if d := math.Abs(spendOut - want); d > 3.60 {
+				t.Errorf("on the way out leaves %.2f, never taxed %.2f: want %.2f (ratio %.6f), off by %.2f",
+					spendOut, spendNever, want, (1-tt.later)/(1-tt.now), d)
+			}
+			if tt.now == tt.later && math.Abs(spendOut-spendNever) > 3.60 {
+				t.Errorf("same rates: on the way out leaves %.2f, never taxed %.2f", spendOut, spendNever)
+			}
+		})
+	}
+}
+
+// A withdrawal stated net of tax: the account pays net ÷ (1 − rate), which
+// leaves net after the tax (the gross-up identity, common practice).
+func TestTax_NetWithdrawalGrossUp(t *testing.T) {
+	tests := []struct {
+		net   string
+		later float64
+		gross string // net ÷ (1 − later), rounded to the cent (by hand)
+	}{
+		{"1000", 0.20, "1250.00"},
+		{"1000", 0.25, "1333.33"},
+		{"2500", 0.30, "3571.43"},
+		{"0.01", 0.10, "0.01"},
+		{"1234.56", 0, "1234.56"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.net, func(t *testing.T) {
+			src := fmt.Sprintf(`cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    balance: 100000
+    tax: on-the-way-out
+    tax_rate: 35%%
+    tax_later: %g%%
+    withdrawals:
+      - {amount: %s, every: month, net: yes, for: 2 years}
+`, tt.later*100, tt.net)
+			p := mustParse(t, "net.yaml", src)
+			g := p.Goals[0]
+			net, _ := money.ParseAmount(tt.net)
+			gross := p.Gross(g, net)
+			if gross.String() != tt.gross {
+				t.Errorf("Gross(%s) = %s, want %s", net, gross, tt.gross)
+			}
+			if back := p.AfterTax(g, gross); back.Cmp(net) != 0 {
+				t.Errorf("AfterTax(Gross(%s)) = %s, want %s", net, back, net)
+			}
+			l, _ := plan.Project(p, g, plan.MonthOf(2028, 12))
+			n := 0
+			for _, e := range l.Entries() {
+				if e.Kind == plan.Withdrawal {
+					n++
+					if e.Amount.Neg().Cmp(gross) != 0 {
+						t.Fatalf("withdrawal of %s in %s, want the gross %s", e.Amount, e.Month, gross)
+					}
+				}
+			}
+			if n != 24 {
+				t.Errorf("%d withdrawals, want 24", n)
+			}
+		})
+	}
+}
+
+// Tax keys are checked across keys, in the file and in a what-if alike.
+func TestTax_Refused(t *testing.T) {
+	tests := []struct {
+		name, keys, expect string // expect must appear within the error
+	}{
+		{"rate without treatment", "tax_rate: 20%", "a tax rate needs a tax treatment"},
+		{"later without way out", "tax: as-it-grows\n    tax_later: 20%", "tax_later is the rate on withdrawals"},
+		{"hundred percent", "tax: never\n    tax_rate: 100%", "out of range"},
+		{"unknown treatment", "tax: deferred", `unknown tax treatment "deferred"`},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, err := plan.Parse("bad.yaml", []byte(taxFile("100", "10", "3%", 2, tt.keys)), 0)
+			if err == nil || !strings.Contains(err.Error(), tt.expect) {
+				t.Errorf("Parse = %v, want an error containing %q", err, tt.expect)
+			}
+		})
+	}
+	p := mustParse(t, "ok.yaml", taxFile("100", "10", "3%", 2, ""))
+	if _, _, err := p.With("g", "", mustOverrides(t, []string{"tax_rate=20%"})); err == nil || !strings.Contains(err.Error(), "a tax rate needs a tax treatment") {
+		t.Errorf("With(tax_rate=20%%) = %v, want the file's refusal", err)
+	}
+}
