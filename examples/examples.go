@@ -10,3 +10,10 @@ import _ "embed"
 //
 //go:embed household.yaml
 var Household []byte
+
+// Taxes is examples/taxes.yaml: three accounts taxed differently (as they
+// grow, on the way out, never again), with scenarios that put the same
+// saving in each.
+//
+//go:embed taxes.yaml
+var Taxes []byte

@@ -45,10 +45,7 @@ func (p *Plan) problems() []problem {
 			out = append(out, problem{goal: g, at: "tax_rate", key: "tax_rate", involves: []string{"tax", "tax_rate", "tax_later"},
 				msg: "a tax rate needs a tax treatment (want tax: as-it-grows, on-the-way-out or never)"})
 		}
-		if g.HasTaxLater && g.Tax != OnTheWayOut {
-			out = append(out, problem{goal: g, at: "tax_later", key: "tax_later", involves: []string{"tax", "tax_later"},
-				msg: "tax_later is the rate on withdrawals of an account taxed on the way out (want tax: on-the-way-out)"})
-		}
+
 	}
 	return out
 }

@@ -298,9 +298,10 @@ var Keys = withChangeKeys([]*Key{
 		put: func(t *target, v *value) { t.g.TaxRate = v.x }},
 	{Name: "tax_later", Scope: InGoal, Form: FormTaxRate,
 		Default: "tax_rate",
-		Help:    "on-the-way-out: the tax rate on withdrawals",
-		Set:     "tax_later",
-		put:     func(t *target, v *value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
+		Help: "on-the-way-out: the tax rate on withdrawals (read only\n" +
+			"when tax is on-the-way-out, so a scenario may switch)",
+		Set: "tax_later",
+		put: func(t *target, v *value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
 	{Name: "leave", Scope: InGoal, Form: FormAmount,
 		Default: "0", Help: "balance that must remain after the last withdrawal",
 		Set: "leave",

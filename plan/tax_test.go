@@ -182,7 +182,7 @@ func TestTax_Refused(t *testing.T) {
 		name, keys, expect string // expect must appear within the error
 	}{
 		{"rate without treatment", "tax_rate: 20%", "a tax rate needs a tax treatment"},
-		{"later without way out", "tax: as-it-grows\n    tax_later: 20%", "tax_later is the rate on withdrawals"},
+		{"later without treatment", "tax_later: 20%", "a tax rate needs a tax treatment"},
 		{"hundred percent", "tax: never\n    tax_rate: 100%", "out of range"},
 		{"unknown treatment", "tax: deferred", `unknown tax treatment "deferred"`},
 	}
@@ -197,5 +197,27 @@ func TestTax_Refused(t *testing.T) {
 	p := mustParse(t, "ok.yaml", taxFile("100", "10", "3%", 2, ""))
 	if _, _, err := p.With("g", "", mustOverrides(t, []string{"tax_rate=20%"})); err == nil || !strings.Contains(err.Error(), "a tax rate needs a tax treatment") {
 		t.Errorf("With(tax_rate=20%%) = %v, want the file's refusal", err)
+	}
+}
+
+// The simulation walks each path with the same tax postings as the ledger:
+// at zero volatility every percentile at the deadline is the ledger's
+// balance then (check value: the ledger, the model's own answer).
+func TestTax_SimulationAtZeroVolatility(t *testing.T) {
+	for _, tax := range []string{"tax: as-it-grows\n    tax_rate: 25%", "tax: on-the-way-out\n    tax_rate: 30%"} {
+		src := taxFile("10000", "250", "6%", 20, tax) + "    target: 50000\n    by: 2046-12\n"
+		p := mustParse(t, "sim.yaml", src)
+		g := p.Goals[0]
+		l, _ := plan.Project(p, g, plan.MonthOf(2046, 12))
+		zero := 0.0
+		sim, err := plan.Simulate(p, g, plan.SimOptions{Paths: 100, Volatility: &zero})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i, a := range sim.AtDeadline {
+			if a.Cmp(l.Closing) != 0 {
+				t.Errorf("%s: percentile %d at the deadline = %s, want the ledger's %s", tax, plan.SimLevels[i], a, l.Closing)
+			}
+		}
 	}
 }

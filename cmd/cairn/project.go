@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"github.com/urfave/cli/v2"
@@ -80,9 +81,10 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		period = "month"
 	}
 	d.Lead = []string{fmt.Sprintf("%s: projection by %s, %s to %s, in %s; \"today\" is the closing balance in money of %s.", g.Name, period, l.Start, l.End, p.Currency.Code, p.Start)}
-	var hasFees, hasOut, short bool
+	var hasFees, hasTax, hasOut, short bool
 	for _, r := range rows {
 		hasFees = hasFees || !r.Fees.IsZero()
+		hasTax = hasTax || !r.Tax.IsZero()
 		hasOut = hasOut || !r.Withdrawals.IsZero()
 		short = short || !r.Short.IsZero()
 	}
@@ -90,10 +92,16 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		{Head: "deposits", Key: "deposits", Numeric: true}, {Head: "interest", Key: "interest", Numeric: true},
 		{Head: "fees", Key: "fees", Numeric: true, Hidden: !hasFees}, {Head: "withdrawals", Key: "withdrawals", Numeric: true, Hidden: !hasOut},
 		{Head: "closing", Key: "closing", Numeric: true}, {Head: "today", Long: "in today’s money", Key: "closing_today", Numeric: true}}}
+	if hasTax { // a column only where tax is paid from the account, so other goals' tables keep theirs
+		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "tax", Key: "tax", Numeric: true})
+	}
 	var jrows []map[string]any
 	for k, r := range rows {
 		cells := []render.Cell{render.Text(r.Label), cash(p, r.Opening), cash(p, r.Deposits), cash(p, r.Interest), cash(p, r.Fees),
 			cash(p, r.Withdrawals), cash(p, r.Closing), cash(p, r.ClosingToday)}
+		if hasTax {
+			cells = slices.Insert(cells, 5, cash(p, r.Tax))
+		}
 		jr := map[string]any{}
 		for i, c := range t.Cols {
 			jr[c.Key] = cells[i].Plain()
@@ -116,6 +124,13 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	}
 	d.Blocks = []render.Block{t}
 	d.Data["goal"], d.Data["by"], d.Data["rows"] = g.Name, period, jrows
+	if taxed(g) {
+		d.After = append(d.After, projectTaxLine(p, g, l))
+		d.Data["tax"] = taxJSON(p, g)
+		if g.RateOut() > 0 {
+			d.Data["closing_after_tax"] = jamt(p, p.AfterTax(g, l.Closing))
+		}
+	}
 	if m, ok := l.FirstShort(); ok {
 		tot := rows[len(rows)-1]
 		d.After = append(d.After, fmt.Sprintf("The money runs out in %s: %s of withdrawals could not be paid.", m, amt(p, tot.Short)))

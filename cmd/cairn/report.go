@@ -193,6 +193,10 @@ func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
 	fs := &render.Facts{}
 	fs.Add("Set aside now, all goals", render.Text(amt(p, st.MonthlyNow)+" a month"))
 	fs.Add("Needed to make every deadline", render.Text(amt(p, st.MonthlyNeeded)+" a month"))
+	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
+		fs.Add("Set aside now, from take-home pay", render.Text(amt(p, st.MonthlyNowFromPay)+" a month"))
+		fs.Add("Needed, from take-home pay", render.Text(amt(p, st.MonthlyNeededFromPay)+" a month"))
+	}
 	return fs
 }
 

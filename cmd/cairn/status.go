@@ -60,6 +60,12 @@ func statusCommand(e *env) *cli.Command {
 // statusDoc is every goal of p at a glance; its table and remarks are also
 // the first page of the report.
 func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
+	return statusDocTax(p, st, slices.ContainsFunc(p.Goals, taxed))
+}
+
+// statusDocTax is statusDoc with, when withTax is set, a column of what each
+// goal's projected balance leaves to spend after tax.
+func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 	d := newDoc(p, false)
 	t := &render.Table{Cols: []render.Column{
 		{Head: "goal", Key: "goal"}, {Head: "target", Key: "target", Numeric: true}, {Head: "at deadline", Key: "target_at_deadline", Numeric: true},
@@ -68,6 +74,9 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 		{Head: "needed", Key: "needed"}, {Head: "every", Key: "needed_every", Hidden: true},
 		{Head: "grows", Key: "needed_grows", Hidden: true}, {Head: "in today's money", Key: "target_in_todays_money", Hidden: true},
 	}}
+	if withTax {
+		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "after tax", Key: "projected_after_tax", Numeric: true})
+	}
 	var goals []map[string]any
 	drawdown := false
 	for _, gs := range st.Goals {
@@ -152,7 +161,15 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 				jg["needed"].(map[string]any)["from_pay"] = jamt(p, gs.Needed.FromPay)
 			}
 		}
-		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
+		row := []render.Cell{render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today}
+		if withTax {
+			afterTax := render.None()
+			if taxed(goal) && goal.HasTarget && goal.HasBy {
+				afterTax = cash(p, gs.ProjectedAfterTax)
+			}
+			row = slices.Insert(row, 5, afterTax)
+		}
+		t.Add(row...)
 		goals = append(goals, jg)
 	}
 	d.Notices = notices(p, drawdown)
@@ -172,7 +189,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 }
 
 // caseColumns are the status columns shown for each case side by side.
-var caseColumns = []string{"target_at_deadline", "projected", "reached", "status", "short_by", "needed", "needed_every", "needed_grows"}
+var caseColumns = []string{"target_at_deadline", "projected", "projected_after_tax", "reached", "status", "short_by", "needed", "needed_every", "needed_grows"}
 
 // casesDoc is every goal under each case (the plan as written, then each
 // scenario) side by side: one row a goal and case, the goals in file order
@@ -186,15 +203,19 @@ func casesDoc(cases []plan.Case) *render.Doc {
 	for _, c := range cases[1:] {
 		d.Lead = append(d.Lead, fmt.Sprintf("%s: %s.", c.Name, scenarioText(base.Scenario(c.Name))))
 	}
+	withTax := slices.ContainsFunc(cases, func(c plan.Case) bool { return slices.ContainsFunc(c.Plan.Goals, taxed) })
 	docs := make([]*render.Doc, len(cases))
 	for i, c := range cases {
-		docs[i] = statusDoc(c.Plan, plan.StatusOf(c.Plan))
+		docs[i] = statusDocTax(c.Plan, plan.StatusOf(c.Plan), withTax)
 	}
 	st := docs[0].Tables()[0]
 	cols := []render.Column{{Head: "goal", Key: "goal"}, {Head: "case", Key: "case"}}
 	var idx []int
 	for _, k := range caseColumns {
 		i := slices.IndexFunc(st.Cols, func(c render.Column) bool { return c.Key == k })
+		if i < 0 {
+			continue // after tax, where no case taxes a goal
+		}
 		cols, idx = append(cols, st.Cols[i]), append(idx, i)
 	}
 	t := &render.Table{Cols: cols}

@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 
+	"cairn/cmd/cairn/internal/render"
 	"cairn/plan"
 )
 
@@ -53,6 +54,44 @@ func statusTaxLine(p *plan.Plan, gs plan.GoalStatus) string {
 			s += fmt.Sprintf("; the needed %s %s would cost %s", amt(p, gs.Needed.Amount), every(gs.Needed.Stream), amt(p, gs.Needed.FromPay))
 		}
 		s += "."
+	}
+	return s
+}
+
+// solveTax adds to solve's document d and details det what answer a means
+// after tax, for a goal with a tax treatment.
+func solveTax(p *plan.Plan, a *plan.Answer, d *render.Doc, det *render.Facts) {
+	g := a.Goal
+	d.Lead = append(d.Lead, fmt.Sprintf("The account is %s.", taxWords(g)))
+	d.Data["tax"] = taxJSON(p, g)
+	switch {
+	case a.For == plan.ForDeposit && a.FromPay.Cmp(a.Amount) != 0:
+		d.Lead = append(d.Lead, fmt.Sprintf("Each deposit of %s lands in the account and costs %s of take-home pay.", amt(p, a.Amount), amt(p, a.FromPay)))
+		det.Add("from take-home pay", cash(p, a.FromPay))
+		d.Data["from_pay"] = jamt(p, a.FromPay)
+	case a.For == plan.ForWithdrawal && a.Net.Cmp(a.Amount) != 0:
+		d.Lead = append(d.Lead, fmt.Sprintf("The account pays %s each time, which leaves %s to spend after the tax on withdrawals.", amt(p, a.Amount), amt(p, a.Net)))
+		det.Add("to spend after tax", cash(p, a.Net))
+		d.Data["net"] = jamt(p, a.Net)
+	}
+	if a.BalanceAfterTax.Cmp(a.Balance) != 0 {
+		det.Add("balance after the tax on withdrawals", cash(p, a.BalanceAfterTax))
+		d.Data["balance_after_tax"] = jamt(p, a.BalanceAfterTax)
+	}
+}
+
+// projectTaxLine is the projection's remark on taxed goal g with ledger l:
+// its treatment, and what the closing balance leaves after the tax on
+// withdrawals.
+func projectTaxLine(p *plan.Plan, g *plan.Goal, l *plan.Ledger) string {
+	s := fmt.Sprintf("The account is %s.", taxWords(g))
+	if g.RateOut() > 0 {
+		s += fmt.Sprintf(" The closing %s would leave %s to spend after tax; each withdrawal is shown as the account pays it.", amt(p, l.Closing), amt(p, p.AfterTax(g, l.Closing)))
+	}
+	for _, w := range g.Withdrawals {
+		if w.Net && g.RateOut() > 0 {
+			s += fmt.Sprintf(" %s is stated after tax: %s %s leaves the account as %s.", streamLabel(w), amt(p, w.Amount), every(w), amt(p, p.Gross(g, w.Amount)))
+		}
 	}
 	return s
 }
