@@ -41,6 +41,11 @@ func (p *Plan) problems() []problem {
 			out = append(out, problem{goal: g, at: "target", key: "target", involves: []string{"target", "by"},
 				msg: "a target in today's money needs a deadline (want by: YYYY-MM)"})
 		}
+		if from, in, over := p.OverCap(g); over {
+			out = append(out, problem{goal: g, at: "cap", key: "cap", involves: []string{"cap", "deposits", "once", "balance", "rate"},
+				msg: fmt.Sprintf("%s goes into the account in the year from %s, over the yearly cap of %s (want at most the cap)",
+					in.Format(p.Currency, false), from, g.Cap.Format(p.Currency, false))})
+		}
 		if g.Tax == Untaxed && (g.TaxRate != 0 || g.HasTaxLater) {
 			out = append(out, problem{goal: g, at: "tax_rate", key: "tax_rate", involves: []string{"tax", "tax_rate", "tax_later"},
 				msg: "a tax rate needs a tax treatment (want tax: as-it-grows, on-the-way-out or never)"})

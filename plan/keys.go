@@ -302,6 +302,13 @@ var Keys = withChangeKeys([]*Key{
 			"when tax is on-the-way-out, so a scenario may switch)",
 		Set: "tax_later",
 		put: func(t *target, v *value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
+	{Name: "cap", Scope: InGoal, Form: FormAmount,
+		Default: "none",
+		Help: "the most the account may receive in a year from the\n" +
+			"start (deposits and one-time amounts in), as stated for\n" +
+			"the account; a plan that passes it by a cent is refused",
+		Set: "cap",
+		put: func(t *target, v *value) { t.g.Cap, t.g.HasCap = v.amount, true }},
 	{Name: "leave", Scope: InGoal, Form: FormAmount,
 		Default: "0", Help: "balance that must remain after the last withdrawal",
 		Set: "leave",

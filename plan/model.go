@@ -122,6 +122,10 @@ type Goal struct {
 	TaxLater float64
 	// HasTaxLater says the file gave tax_later; otherwise it is TaxRate.
 	HasTaxLater bool
+	// Cap is the most the account may receive in a year from the plan's
+	// start (deposits and one-time amounts in), when HasCap is set.
+	Cap    money.Amount
+	HasCap bool
 
 	pos Position
 }

@@ -437,6 +437,12 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	if c == 0 {
 		a.Note = "the target is met without it"
 	}
+	if g.HasCap {
+		if from, in, over := overCap(s.ledger(pr), g); over {
+			a.Note = fmt.Sprintf("it would put %s into the account in the year from %s, over the yearly cap of %s, which the goals file refuses",
+				in.Format(p.Currency, false), from, g.Cap.Format(p.Currency, false))
+		}
+	}
 	return a, nil
 }
 

@@ -221,3 +221,47 @@ func TestTax_SimulationAtZeroVolatility(t *testing.T) {
 		}
 	}
 }
+
+// A yearly cap refuses a plan whose account would receive one cent more than
+// it in a year from the start, in the file and in a what-if alike, and takes
+// one at the cap (check values: the cap as written, common practice).
+func TestTax_CapOneCentOver(t *testing.T) {
+	file := func(deposit, once string) string {
+		return fmt.Sprintf(`cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    rate: 4%%
+    cap: 6,000
+    deposits:
+      - {amount: %s, every: month, until: 2030-12}
+    once:
+      - {amount: %s, on: 2029-06}
+`, deposit, once)
+	}
+	tests := []struct {
+		deposit, once string
+		refused       string // must appear within the error; "" for none
+	}{
+		{"500", "0.00", ""},
+		{"500", "0.01", "6,000.01 goes into the account in the year from 2029-01, over the yearly cap of 6,000.00"},
+		{"450", "600.00", ""},
+		{"450", "600.01", "over the yearly cap"},
+		{"500.01", "0", "6,000.12 goes into the account in the year from 2027-01"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.deposit+"+"+tt.once, func(t *testing.T) {
+			_, err := plan.Parse("cap.yaml", []byte(file(tt.deposit, tt.once)), 0)
+			switch {
+			case tt.refused == "" && err != nil:
+				t.Errorf("Parse: %v, want the plan taken", err)
+			case tt.refused != "" && (err == nil || !strings.Contains(err.Error(), tt.refused)):
+				t.Errorf("Parse = %v, want an error containing %q", err, tt.refused)
+			}
+		})
+	}
+	p := mustParse(t, "cap.yaml", file("500", "0"))
+	if _, _, err := p.With("g", "", mustOverrides(t, []string{"deposit=500.01"})); err == nil || !strings.Contains(err.Error(), "over the yearly cap of 6,000.00") {
+		t.Errorf("With(deposit=500.01) = %v, want the file's refusal", err)
+	}
+}

@@ -22,8 +22,8 @@ const (
 		"and amounts given hold; taxes are not modelled. Consult a licensed professional before acting."
 	taxNoteText = "A planning estimate, not financial, tax or investment advice. It assumes the rates " +
 		"and amounts given hold. Tax is modelled only as the goals file states it: flat rates as given, on each " +
-		"year's interest, on the pay deposits come from, and on withdrawals; no brackets, allowances, credits, " +
-		"penalties, limits or any country's rules. Consult a licensed tax professional before acting."
+		"year's interest, on the pay deposits come from, and on withdrawals, with any yearly cap it states; no " +
+		"brackets, allowances, credits, penalties or any country's rules. Consult a licensed tax professional before acting."
 	cautionText = "Running out of money is the risk that matters once withdrawals begin: " +
 		"review the withdrawals every year."
 )

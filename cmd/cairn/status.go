@@ -120,6 +120,10 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 					jn["grow"], jn["amount_is"] = growthJSON(a.Stream), "first year"
 					d.After = append(d.After, fmt.Sprintf("%s: * %s.", goal.Name, fy))
 				}
+				if goal.HasCap && a.Note != "" {
+					d.After = append(d.After, fmt.Sprintf("%s: the needed deposit: %s.", goal.Name, a.Note))
+					jn["remark"] = a.Note
+				}
 				jg["needed"] = jn
 			} else {
 				jg["needed_reason"] = reasonOf(gs.NeededErr)
