@@ -17,3 +17,9 @@ var Household []byte
 //
 //go:embed taxes.yaml
 var Taxes []byte
+
+// Budget is examples/budget.yaml: an invented young couple with one budget
+// from every paycheck shared by three goals in priority order.
+//
+//go:embed budget.yaml
+var Budget []byte

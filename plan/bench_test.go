@@ -92,14 +92,23 @@ func BenchmarkCompareGrid(b *testing.B) {
 	}
 }
 
-func BenchmarkStatusExample(b *testing.B) {
+// BenchmarkStatusExample is what `cairn status` does with the example file
+// after reading it, with its schedules compiled once for every iteration
+// (warm: a cache kept across them, as a process reading several files
+// keeps one); BenchmarkStatusExampleCold compiles them every time, as one
+// command does.
+func BenchmarkStatusExample(b *testing.B) { benchStatus(b, new(plan.Cache)) }
+
+func BenchmarkStatusExampleCold(b *testing.B) { benchStatus(b, nil) }
+
+func benchStatus(b *testing.B, c *plan.Cache) {
 	data, err := os.ReadFile("../examples/household.yaml")
 	if err != nil {
 		b.Fatal(err)
 	}
 	b.ReportAllocs()
 	for b.Loop() {
-		p, err := plan.Parse("household.yaml", data, 0)
+		p, err := plan.ParseCached("household.yaml", data, 0, c)
 		if err != nil {
 			b.Fatal(err)
 		}
@@ -107,11 +116,26 @@ func BenchmarkStatusExample(b *testing.B) {
 	}
 }
 
+// BenchmarkProject40Years projects the 40-year monthly plan from a parsed
+// plan whose schedule is compiled (warm); BenchmarkProject40YearsCold parses
+// and projects, compiling afresh, as one command does.
 func BenchmarkProject40Years(b *testing.B) {
 	p := benchParse(b, monthlyPlan)
 	g := p.Goals[0]
 	b.ReportAllocs()
 	for b.Loop() {
+		if _, err := plan.Project(p, g, g.By); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkProject40YearsCold(b *testing.B) {
+	p := benchParse(b, monthlyPlan)
+	g := p.Goals[0]
+	b.ReportAllocs()
+	for b.Loop() {
+		p.ResetCache()
 		if _, err := plan.Project(p, g, g.By); err != nil {
 			b.Fatal(err)
 		}

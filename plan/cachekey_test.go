@@ -142,7 +142,7 @@ func TestScheduleKeyIsComplete(t *testing.T) {
 			c.apply(q)
 			g0, g := p.Goals[0], q.Goals[0]
 			end := Horizon(p, g0)
-			before, after := shapeOf(p, g0, end), shapeOf(q, g, end)
+			before, after := goalShape(p, g0, end), goalShape(q, g, end)
 			cache := new(engine.Cache)
 			cache.Compile(&before)
 			q.cache = cache

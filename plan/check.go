@@ -37,6 +37,13 @@ func (p *Plan) problems() []problem {
 		if n := len(g.Deposits) + len(g.Withdrawals); n > MaxStreams {
 			out = append(out, problem{goal: g, msg: fmt.Sprintf("%d streams, over the limit of %d a goal", n, MaxStreams)})
 		}
+		for i, s := range g.Deposits {
+			if s.UntilReached && !g.HasTarget {
+				at := fmt.Sprintf("deposits[%d].until", i)
+				out = append(out, problem{goal: g, at: at, key: at, involves: []string{at, "target"},
+					msg: "reached needs the goal's target (add target:)"})
+			}
+		}
 		if g.TargetToday && !g.HasBy {
 			out = append(out, problem{goal: g, at: "target", key: "target", involves: []string{"target", "by"},
 				msg: "a target in today's money needs a deadline (want by: YYYY-MM)"})

@@ -11,7 +11,10 @@
 // Unknown keys are errors (with a "did you mean" hint), and so are wrong
 // types, bad dates, dates out of order, ambiguous frequencies, negative
 // deposits and values beyond the limits (see [MaxFileSize], [MaxGoals],
-// [HorizonYears] and the other limits).
+// [HorizonYears] and the other limits), and so is a file whose streams
+// multiply past the work budget ([MaxEvents] a goal, [MaxFileEvents] a
+// file; a simulation [MaxSimulationSteps]), counted from the file before
+// anything is compiled.
 //
 // One table, [Keys], says for every key where it may appear, how its value
 // is written and checked, where it goes in the model, its help text and
@@ -186,4 +189,43 @@
 //
 // [Compare] solves one question over a grid of what-if overrides, and
 // [StatusOf] gives every goal at a glance.
+//
+// # Household budget
+//
+// A plan's [Budget] is what the household can set aside: a stream of
+// amounts (its frequency, timing, from, until and growth as a deposit
+// stream's) shared by the goals with a priority, 1 first. A goal's own
+// deposits (an employer's, a gift) are not the budget and run as written.
+// Each goal drawing on the budget gets a deposit stream of its own, the
+// budget share, on the budget's dates; its amount at each date is decided
+// by the rule, and the goal's ledger is the one walk with those amounts.
+// The goals are allocated in priority order, each from what the goals
+// before it left at each date, in whole cents:
+//
+//   - by priority (rule: priority): a goal gets a level amount L a date
+//     until its deadline, taken from what is left; at a date with less left
+//     than it is owed, it takes what is left and is owed the rest, paid as
+//     soon as enough is left (so its shares through any date sum to the
+//     lesser of L times the dates so far and what was left to it by then).
+//     L is the least whole-cent level with which it is reached by its
+//     deadline. When none is — or the goal has no deadline — it takes
+//     everything left. After its deadline, a goal not yet reached takes
+//     everything left.
+//   - one at a time (rule: one-at-a-time): a goal takes everything left:
+//     everything goes to the first goal until it is reached, then to the
+//     next.
+//
+// A deposit stream of a goal's own with until: reached pays through the
+// month the target is first reached and stops (found by walking the goal
+// with the stream open-ended: what it would pay later cannot change that
+// month); for a goal on the budget, the month its shares reach it.
+//
+// A goal is reached at the first month end its balance meets its target;
+// from the next budget date on (a date in a later month) it gets nothing
+// and its share goes to the goals after it. What no goal takes is
+// unallocated. With a budget equal to the sum of the goals' solved deposits
+// at the budget's frequency, each goal gets exactly its solved deposit.
+// [Allocate] splits the file's budget; [SmallestBudget] finds the least
+// budget amount, in whole cents, with which every goal (or the first k)
+// meets its deadline — one cent less misses one, by the same ledgers.
 package plan

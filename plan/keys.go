@@ -20,6 +20,7 @@ const (
 	InRateStep                // each step of a rate schedule
 	InScenario                // each named scenario
 	InChange                  // each change of a scenario: a goal, a stream and what-if keys
+	InBudget                  // the budget: a stream's keys and its rule
 )
 
 // where says where in the file a key of each scope is written, in errors
@@ -33,6 +34,7 @@ var where = map[Scope]string{
 	InRateStep:   "each step of a rate schedule (under rate:)",
 	InScenario:   "each scenario (under scenarios:)",
 	InChange:     "each change of a scenario (under changes:)",
+	InBudget:     "the budget (under budget:)",
 }
 
 // scopesOf says where the key name belongs, for every scope that has it
@@ -69,6 +71,9 @@ const (
 	FormLength                   // a number of years or months
 	FormGrowth                   // a yearly rate between Min and Max %, or "inflation"
 	FormList                     // a list of mappings, each in the scope Items
+	FormMapping                  // one mapping in the scope Items
+	FormCount                    // a whole number from Min to Max
+	FormUntil                    // a FormMonth, or reached
 	FormTaxRate                  // a percentage, 0% or more and below 100%
 )
 
@@ -83,6 +88,8 @@ var want = map[Form]string{
 	FormFrequency:  "a frequency such as month",
 	FormLength:     "a length such as 30 years",
 	FormGrowth:     "a yearly rate such as 3% or inflation",
+	FormCount:      "a whole number such as 1",
+	FormUntil:      "a month such as 2031-12, or reached",
 	FormTaxRate:    "a tax rate such as 25%",
 }
 
@@ -139,6 +146,7 @@ type target struct {
 	o  *Once
 	st *RateStep
 	sc *Scenario
+	b  *Budget
 }
 
 // A value is a parsed value of any form.
@@ -153,6 +161,7 @@ type value struct {
 	n         int // a choice's value, a length in months
 	inflation bool
 	rates     []RateStep
+	reached   bool // FormUntil: reached, not a month
 }
 
 // Keys is every key of the goals file, in the order the help lists them.
@@ -196,6 +205,11 @@ var Keys = withChangeKeys([]*Key{
 		Default: "none",
 		Help: "named alternatives, each a list of what-if changes\n" +
 			"(see EACH SCENARIO); --scenario NAME applies one"},
+	{Name: "budget", Scope: InPlan, Form: FormMapping, Items: InBudget,
+		Default: "none",
+		Help: "what the household can set aside, shared by the goals\n" +
+			"with a priority: a stream's keys and a rule (see THE\n" +
+			"BUDGET)"},
 
 	// each goal
 	{Name: "name", Scope: InGoal, Form: FormName, Required: true,
@@ -313,6 +327,11 @@ var Keys = withChangeKeys([]*Key{
 		Default: "0", Help: "balance that must remain after the last withdrawal",
 		Set: "leave",
 		put: func(t *target, v *value) { t.g.Leave = v.amount }},
+	{Name: "priority", Scope: InGoal, Form: FormCount, Min: 1, Max: MaxGoals,
+		Default: "none",
+		Help: "the goal draws on the budget, 1 first; each goal its\n" +
+			"own; its deposits are its own, not the budget",
+		put: func(t *target, v *value) { t.g.Priority = v.n }},
 
 	// each stream
 	{Name: "name", Scope: InStream, Form: FormName,
@@ -344,9 +363,14 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "from", Scope: InStream, Form: FormMonth,
 		Default: "start", Help: "first month with a period",
 		put: func(t *target, v *value) { t.s.From = v.month }},
-	{Name: "until", Scope: InStream, Form: FormMonth,
-		Default: "none", Help: "last month with an amount (none: open-ended)",
-		put: func(t *target, v *value) { t.s.Until, t.s.HasUntil = v.month, true }},
+	{Name: "until", Scope: InStream, Form: FormUntil,
+		Default: "none",
+		Help: "last month with an amount (none: open-ended); reached\n" +
+			"(deposits only): through the month the target is first\n" +
+			"reached",
+		put: func(t *target, v *value) {
+			t.s.Until, t.s.HasUntil, t.s.UntilReached = v.month, !v.reached, v.reached
+		}},
 	{Name: "net", Scope: InWithdrawal, Form: FormChoice,
 		Choices: []Choice{{"no", 0}, {"yes", 1}},
 		Noun:    "answer", Want: "yes or no",
@@ -378,6 +402,19 @@ var Keys = withChangeKeys([]*Key{
 		put: func(t *target, v *value) { t.st.From = v.month }},
 	{Name: "rate", Scope: InRateStep, Form: FormRate, Min: MinRatePercent, Max: MaxRatePercent, Required: true,
 		put: func(t *target, v *value) { t.st.Rate = v.rate }},
+
+	// the budget, besides a stream's keys
+	{Name: "rule", Scope: InBudget, Form: FormChoice,
+		Choices: []Choice{{"priority", int(ByPriority)}, {"one-at-a-time", int(OneAtATime)}},
+		Noun:    "rule", Want: "priority or one-at-a-time",
+		Default: "priority",
+		Help: "how each amount is split among the goals:\n" +
+			"  priority       each goal in priority order gets the\n" +
+			"                 level amount it needs to meet its\n" +
+			"                 deadline; what is left flows on\n" +
+			"  one-at-a-time  everything to the first goal until it\n" +
+			"                 is reached, then the next",
+		put: func(t *target, v *value) { t.b.Rule = Rule(v.n) }},
 
 	// each scenario
 	{Name: "name", Scope: InScenario, Form: FormName, Required: true,
@@ -439,7 +476,7 @@ func withChangeKeys(keys []*Key) []*Key {
 func keysIn(s Scope) []*Key {
 	var out []*Key
 	for _, k := range Keys {
-		if k.Scope == s || s == InWithdrawal && k.Scope == InStream {
+		if k.Scope == s || (s == InWithdrawal || s == InBudget) && k.Scope == InStream {
 			out = append(out, k)
 		}
 	}
@@ -455,7 +492,7 @@ func keyNames(ks []*Key) []string {
 }
 
 // KeysIn returns the keys that may appear in a mapping of scope s, in table
-// order: a withdrawal has the stream's keys and its own.
+// order: a withdrawal and the budget have the stream's keys and their own.
 func KeysIn(s Scope) []*Key { return keysIn(s) }
 
 // Pattern returns how a value of k is written, as text, in a regular
@@ -547,6 +584,8 @@ var (
 			FormFrequency:    `^\s*` + words(payment) + `\s*$`,
 			FormLength:       `^\s*\+?0*[1-9]\d*\s+` + words([]string{"year", "years", "month", "months"}) + `\s*$`,
 			FormGrowth:       `^(?:` + rate + `|\s*` + words([]string{"inflation"}) + `\s*)$`,
+			FormCount:        `^\s*\+?\d+\s*$`,
+			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|` + words([]string{"reached"}) + `)\s*$`,
 			FormTaxRate:      `^\s*\+?0*(?:\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 		}
 	}()

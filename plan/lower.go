@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -58,8 +59,10 @@ func streams(g *Goal) []*Stream {
 	return append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...)
 }
 
-// shapeOf returns the shape of goal g through the end of month end.
-func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
+// shapeOf returns the shape of goal g through the end of month end; its
+// streams that stop at the target stop after month stop when hasStop is
+// set, and are open-ended otherwise.
+func shapeOf(p *Plan, g *Goal, end, stop Month, hasStop bool) engine.Shape {
 	sh := engine.Shape{Months: int32(end-p.Start) + 1, PerYear: g.Rates[0].Rate.Compounding().PerYear(), Fee: g.Fee > 0,
 		Tax: g.RateOnGrowth() > 0}
 	for _, st := range g.Rates {
@@ -75,6 +78,9 @@ func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
 		if st.HasUntil {
 			ss.Until = int32(st.Until - p.Start)
 		}
+		if st.UntilReached && hasStop {
+			ss.HasUntil, ss.Until = true, int32(stop-p.Start)
+		}
 		sh.Streams = append(sh.Streams, ss)
 	}
 	for _, o := range g.Once {
@@ -88,7 +94,34 @@ func shapeOf(p *Plan, g *Goal, end Month) engine.Shape {
 // from the plan's schedule cache (see [Plan.checkBounds]), or compiled
 // afresh for a plan without one.
 func compile(p *Plan, g *Goal, end Month) *schedule {
-	sh := shapeOf(p, g, end)
+	stop, ok := reachedStop(p, g, end)
+	return compileStop(p, g, end, stop, ok)
+}
+
+// goalShape is the shape compile lays down for goal g through month end.
+func goalShape(p *Plan, g *Goal, end Month) engine.Shape {
+	stop, ok := reachedStop(p, g, end)
+	return shapeOf(p, g, end, stop, ok)
+}
+
+// reachedStop returns the month goal g's target is first reached as
+// written, by the end of month end, when it has a deposit stream that stops
+// there (until: reached): a walk with those streams open-ended finds it, and
+// what they would pay after it cannot change it.
+func reachedStop(p *Plan, g *Goal, end Month) (Month, bool) {
+	if !g.HasTarget || !slices.ContainsFunc(g.Deposits, func(s *Stream) bool { return s.UntilReached }) {
+		return 0, false
+	}
+	s := compileStop(p, g, end, 0, false)
+	r := reaches(p, g)
+	res := s.exact(s.defaultParams(), engine.Options{Reach: func(m int32, bal float64) bool { return r(p.Start+Month(m), bal) }})
+	return p.Start + Month(res.ReachMonth), res.Reached
+}
+
+// compileStop is compile with the month the streams that stop at the
+// target stop after, when hasStop is set.
+func compileStop(p *Plan, g *Goal, end, stop Month, hasStop bool) *schedule {
+	sh := shapeOf(p, g, end, stop, hasStop)
 	es := p.cache.Compile(&sh)
 	s := &schedule{plan: p, goal: g, end: end, eng: es, events: es.Events(), endTick: es.EndTick(), period: es.PeriodTicks(),
 		comp: g.Rates[0].Rate.Compounding(), places: p.Currency.Places, rounding: p.Rounding}
@@ -134,6 +167,10 @@ type params struct {
 	rate     *money.Rate // constant rate for every period, if set
 	amounts  []money.Amount
 	amountsF []float64
+	// set, when not nil, gives each amount of source setSrc by its event's
+	// index (see engine.Inputs.Set).
+	set    []float64
+	setSrc int32
 }
 
 func (s *schedule) defaultParams() *params {
@@ -160,7 +197,7 @@ func (s *schedule) inputs(pr *params) engine.Inputs {
 	return engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
 		Fee: fee, FeeM: money.RateMultiplier(fee, s.goal.Fee, 12, 1),
 		Tax: tax, TaxM: money.RateMultiplier(tax, tax, 1, 1),
-		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding}
+		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding, Set: pr.set, SetSrc: pr.setSrc}
 }
 
 // scale is the number of minor units in a currency unit.
@@ -189,6 +226,19 @@ func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 	return money.Minor(int64(r.Closing), s.places), r
 }
 
+// A Cache keeps compiled schedules for plans read with [ParseCached], so
+// that a shape several plans share (or one plan read again) is compiled
+// once. It is bounded by the events it holds, and safe for concurrent use;
+// the zero value is ready.
+type Cache struct{ c engine.Cache }
+
+// Reset empties the cache: the next use of a shape compiles it again.
+func (c *Cache) Reset() { c.c.Reset() }
+
+// ResetCache empties the plan's schedule cache (shared with its what-if
+// clones), as if it had just been read: what a cold benchmark starts from.
+func (p *Plan) ResetCache() { p.cache.Reset() }
+
 // checkBounds reports an error if goal g's target or projected balance
 // would pass [MaxBalanceUnits], beyond which cairn does not promise cents.
 // It runs on every plan read (Parse) and every what-if (With) before the
@@ -197,6 +247,9 @@ func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 func (p *Plan) checkBounds(g *Goal) error {
 	if p.cache == nil {
 		p.cache = new(engine.Cache)
+	}
+	if err := p.checkWork(g); err != nil {
+		return err
 	}
 	limit := money.Units(MaxBalanceUnits)
 	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {

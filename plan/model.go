@@ -24,6 +24,10 @@ type Plan struct {
 	Scenarios []*Scenario
 	Applied   string
 
+	// Budget is what the household can set aside for the goals with a
+	// Priority, or nil.
+	Budget *Budget
+
 	cache *engine.Cache // its schedules by shape (see checkBounds); nil: none kept
 }
 
@@ -126,6 +130,9 @@ type Goal struct {
 	// start (deposits and one-time amounts in), when HasCap is set.
 	Cap    money.Amount
 	HasCap bool
+	// Priority, from 1 (first), says the goal draws on the plan's Budget;
+	// 0 says it does not.
+	Priority int
 
 	pos Position
 }
@@ -236,6 +243,9 @@ type Stream struct {
 	Until  Month // last month with an amount; valid when HasUntil
 	// HasUntil is false for an open-ended stream, which runs to the horizon.
 	HasUntil bool
+	// UntilReached stops a deposit stream after the month its goal's target
+	// is first reached (until: reached); the stream is open-ended until then.
+	UntilReached bool
 	// Grow is the yearly rise of the amount, as a fraction; GrowInflation
 	// makes it the plan's inflation.
 	Grow          float64

@@ -107,6 +107,9 @@ func (p *Plan) With(goal, stream string, ovs []Override) (*Plan, *Goal, error) {
 		}
 		return nil, nil, by.refuse(pr.msg)
 	}
+	if _, err := q.checkFileWork(); err != nil {
+		return nil, nil, err
+	}
 	if err := q.checkBounds(g); err != nil {
 		return nil, nil, err
 	}

@@ -18,6 +18,13 @@ import (
 // starts the month after). Every problem in the file is reported at once, as
 // an [ErrorList] of positioned errors.
 func Parse(name string, data []byte, asOf Month) (*Plan, error) {
+	return ParseCached(name, data, asOf, nil)
+}
+
+// ParseCached is [Parse] with the plan's compiled schedules kept in c, which
+// a caller reading several files (or the same one again) passes to each so
+// that a shape is compiled once; nil gives the plan a cache of its own.
+func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) {
 	d := newDecoder(name)
 	if len(data) > MaxFileSize {
 		d.errs = append(d.errs, &Error{Pos: Position{File: name}, Msg: fmt.Sprintf("file is %d bytes, over the %d-byte limit for a goals file", len(data), MaxFileSize)})
@@ -43,9 +50,17 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 		return nil, d.errs
 	}
 	if p := d.plan(root.Content[0], asOf); p != nil {
+		if c != nil {
+			p.cache = &c.c
+		}
 		p.settle()
 		for _, pr := range p.problems() {
 			d.report(pr)
+		}
+		if len(d.errs) == 0 {
+			if g, err := p.checkFileWork(); err != nil {
+				d.errs = append(d.errs, &Error{Pos: g.pos, Msg: err.Error()})
+			}
 		}
 		if len(d.errs) == 0 {
 			for _, g := range p.Goals {
@@ -269,7 +284,7 @@ func (d *decoder) keys(n *yaml.Node, path string, s Scope, t *target) map[string
 	ok := d.fields(n, path, keyNames(ks), func(name string, v *yaml.Node) {
 		given[name] = v
 		k := ks[slices.IndexFunc(ks, func(k *Key) bool { return k.Name == name })]
-		if k.Form == FormList {
+		if k.Form == FormList || k.Form == FormMapping {
 			return // the caller decodes the items
 		}
 		kp := join(path, name)
@@ -389,6 +404,23 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 				v.n, ok = m, true
 			}
 		}
+	case FormUntil:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok && strings.EqualFold(strings.TrimSpace(s), "reached") {
+			v.reached, ok = true, true
+		} else if sok {
+			if v.month, ok = d.month(n, path); ok {
+				ok = d.inHorizon(t.p, n, path, v.month)
+			}
+		}
+	case FormCount:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			c, err := strconv.Atoi(strings.TrimSpace(strings.TrimPrefix(strings.TrimSpace(s), "+")))
+			if err != nil || float64(c) < k.Min || float64(c) > k.Max {
+				d.errorf(n, path, "invalid %s %s (want a whole number from %g to %g)", k.Name, money.Quote(s), k.Min, k.Max)
+				return false
+			}
+			v.n, ok = c, true
+		}
 	case FormGrowth:
 		if s, sok := d.scalar(n, path, want[k.Form]); sok {
 			if strings.EqualFold(strings.TrimSpace(s), "inflation") {
@@ -444,6 +476,11 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 	}
 	if v := given["scenarios"]; v != nil {
 		d.scenarios(p, v)
+	}
+	defer func() { d.checkBudget(p, given["budget"]) }()
+	if v := given["budget"]; v != nil {
+		d.nodes["budget"] = v
+		p.Budget = d.budget(p, resolve(v))
 	}
 	goalsNode := given["goals"]
 	if goalsNode == nil {
@@ -603,6 +640,10 @@ func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out bool) 
 		return nil
 	}
 	untilNode, forNode := given["until"], given["for"]
+	if s.UntilReached && out {
+		d.errorf(untilNode, join(path, "until"), "reached is for deposits (want a month, or for:)")
+		s.UntilReached = false
+	}
 	if untilNode != nil && forNode != nil {
 		d.errorf(forNode, join(path, "for"), "give until or for, not both")
 	}

@@ -58,6 +58,9 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 		return nil, noSolution(g, "the goal has no deposits to solve for (add deposits:)")
 	}
 	s := compile(p, g, g.By)
+	if err := checkSimulation(s, st.paths, simDepositPasses); err != nil {
+		return nil, err
+	}
 	idx := s.sourceIndex(dep)
 	pg := newSimProgram(s, st, false)
 	pr := s.defaultParams()

@@ -257,6 +257,9 @@ func simulate(p *Plan, g *Goal, opts SimOptions, pr *params, rawOut **simRaw) (*
 	}
 	end := Horizon(p, g)
 	s := compile(p, g, end)
+	if err := checkSimulation(s, st.paths, 1); err != nil {
+		return nil, err
+	}
 	if pr == nil {
 		pr = s.defaultParams()
 	}

@@ -176,33 +176,47 @@ func targetAtMonth(p *Plan, g *Goal, m Month) money.Amount {
 	return p.TargetAt(&h)
 }
 
-func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
-	if err := needTarget(g, false); err != nil {
-		return nil, err
-	}
-	end := horizonEnd(p)
+// reaches returns the test of goal g's target at a month end: whether a
+// balance bal, in currency units, meets the target in money of the end of
+// month m.
+func reaches(p *Plan, g *Goal) func(m Month, bal float64) bool {
 	scale := math.Pow(10, float64(p.Currency.Places))
 	t0, force := g.Target.Float(), 0.0
 	if g.TargetToday {
 		force = p.Inflation.Force()
 	}
-	reach := func(m Month, bal float64) bool {
-		t := t0 * math.Exp(force*float64(m-p.Start+1)/12)
+	return func(m Month, bal float64) bool {
+		t := t0
+		if force != 0 {
+			t *= math.Exp(force * float64(m-p.Start+1) / 12)
+		}
 		if bal < t-1/scale {
 			return false
 		}
 		// near or past the target: decide exactly, in decimal
 		return money.Minor(int64(math.Round(bal*scale)), p.Currency.Places).Cmp(targetAtMonth(p, g, m)) >= 0
 	}
-	// Most goals are reached within decades: walk a short horizon first and
-	// go to the plan's end only when the target is not met by then. A
-	// schedule compiled to a nearer end is the prefix of a longer one.
+}
+
+func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
+	if err := needTarget(g, false); err != nil {
+		return nil, err
+	}
+	end := horizonEnd(p)
+	reach := reaches(p, g)
+	// Most goals are reached by their own horizon, and nearly all within
+	// decades: walk the goal's horizon first, then 40 years, and go to the
+	// plan's end only when the target is not met by then. A schedule
+	// compiled to a nearer end is the prefix of a longer one.
 	var s *schedule
 	var pr *params
 	var r engine.Result
 	o := engine.Options{Reach: func(m int32, bal float64) bool { return reach(p.Start+Month(m), bal) }}
-	for _, years := range []int{40, HorizonYears} {
-		h := min(max(p.Start.Add(years*12-1), Horizon(p, g)), end)
+	own := min(Horizon(p, g), end)
+	for _, h := range []Month{own, min(max(p.Start.Add(40*12-1), own), end), end} {
+		if s != nil && h <= s.end {
+			continue
+		}
 		s = compile(p, g, h)
 		pr = s.defaultParams()
 		if r = s.exact(pr, o); r.Reached || h == end {
@@ -325,13 +339,20 @@ func (s *schedule) sourceIndex(st *Stream) int32 {
 // holds; otherwise the largest. guess seeds the search. It returns false if
 // there is none up to limit.
 func searchCents(ok func(c int64) bool, guess, limit int64, up bool) (int64, bool) {
+	return searchCentsFrom(ok, guess, 1, limit, up)
+}
+
+// searchCentsFrom is searchCents with a first step of step minor units
+// away from the guess, doubled each time, for a guess known only roughly.
+func searchCentsFrom(ok func(c int64) bool, guess, step, limit int64, up bool) (int64, bool) {
 	guess = min(max(guess, 0), limit)
+	first := max(step, 1)
 	good := func(c int64) bool { return ok(c) == up }
 	// find lo with !good and hi with good (for up); mirrored for down
 	var lo, hi int64
 	if good(guess) {
 		hi = guess
-		step := int64(1)
+		step := first
 		lo = guess - step
 		for lo >= 0 && good(lo) {
 			hi = lo
@@ -346,7 +367,7 @@ func searchCents(ok func(c int64) bool, guess, limit int64, up bool) (int64, boo
 		}
 	} else {
 		lo = guess
-		step := int64(1)
+		step := first
 		hi = guess + step
 		for hi <= limit && !good(hi) {
 			lo = hi

@@ -31,28 +31,74 @@ type GoalStatus struct {
 	// equals its figure when the goal has no tax treatment.
 	ProjectedAfterTax                       money.Amount
 	MonthlyNowFromPay, MonthlyNeededFromPay money.Amount
+	// Share is the goal's part of the budget, for a goal that draws on
+	// it: its projection, reach and track above count its shares, and
+	// Needed is left nil (the budget's rule decides its share).
+	Share *Share
 }
 
 // A Status is the household at a glance.
 type Status struct {
 	Plan  *Plan
 	Goals []GoalStatus
-	// MonthlyNow is the total set aside a month now, over every goal with
-	// deposits; MonthlyNeeded what would be needed to make every deadline.
+	// MonthlyNow is the total of the goals' own deposits a month now (not
+	// the budget); MonthlyNeeded what they would need to be to make every
+	// deadline of the goals that do not draw on the budget.
 	MonthlyNow, MonthlyNeeded money.Amount
 	// MonthlyNowFromPay and MonthlyNeededFromPay are those totals as they
 	// cost the household's take-home pay: deposits from pay before tax
 	// cost less than what lands in the account.
 	MonthlyNowFromPay, MonthlyNeededFromPay money.Amount
+	// Budget is the plan's budget split among the goals that draw on it,
+	// or nil; BudgetMonthly is its amount in the plan's first month as a
+	// monthly equivalent (zero when it starts later), and Smallest the
+	// smallest budget that makes every deadline, when SmallestErr is nil.
+	Budget        *Allocation
+	BudgetMonthly money.Amount
+	Smallest      *BudgetAnswer
+	SmallestErr   error
+}
+
+// Short returns the goals whose projection falls short of the target at
+// the deadline, in file order.
+func (st *Status) Short() []GoalStatus {
+	var out []GoalStatus
+	for _, gs := range st.Goals {
+		if gs.Goal.HasTarget && gs.Goal.HasBy && !gs.OnTrack {
+			out = append(out, gs)
+		}
+	}
+	return out
 }
 
 // StatusOf returns the status of every goal of the plan.
 func StatusOf(p *Plan) *Status {
 	st := &Status{Plan: p}
+	shares := map[*Goal]int{}
+	if p.Budget != nil {
+		if a, err := Allocate(p); err == nil {
+			st.Budget = a
+			for i, sh := range a.Shares {
+				shares[sh.Goal] = i
+			}
+			b := p.Budget.Stream
+			st.BudgetMonthly = monthlyDeposits(p, &Goal{Deposits: []*Stream{&b}}, nil, money.Zero)
+			st.Smallest, st.SmallestErr = SmallestBudget(p, 0)
+		}
+	}
 	for _, g := range p.Goals {
 		gs := GoalStatus{Goal: g}
 		gs.MonthlyNow = monthlyDeposits(p, g, nil, money.Zero)
 		gs.MonthlyNeeded = gs.MonthlyNow
+		if i, ok := shares[g]; ok {
+			gs.Share = st.Budget.Shares[i]
+			budgetStatus(p, st.Budget, i, &gs)
+			st.afterTax(&gs)
+			st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
+			st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNow)
+			st.Goals = append(st.Goals, gs)
+			continue
+		}
 		if g.HasTarget && g.HasBy {
 			gs.TargetAt = p.TargetAt(g)
 			l, _ := Project(p, g, g.By)
@@ -78,15 +124,23 @@ func StatusOf(p *Plan) *Status {
 		if len(g.Withdrawals) > 0 {
 			gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
 		}
-		gs.ProjectedAfterTax = p.AfterTax(g, gs.Projected)
-		gs.MonthlyNowFromPay, gs.MonthlyNeededFromPay = p.FromPay(g, gs.MonthlyNow), p.FromPay(g, gs.MonthlyNeeded)
-		st.MonthlyNowFromPay = st.MonthlyNowFromPay.Add(gs.MonthlyNowFromPay)
-		st.MonthlyNeededFromPay = st.MonthlyNeededFromPay.Add(gs.MonthlyNeededFromPay)
+		st.afterTax(&gs)
 		st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
 		st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNeeded)
 		st.Goals = append(st.Goals, gs)
 	}
 	return st
+}
+
+// afterTax fills in goal status gs's figures after tax and adds them to the
+// household's totals; the budget-drawing goals count what they need as what
+// they set aside, as the totals do.
+func (st *Status) afterTax(gs *GoalStatus) {
+	p, g := st.Plan, gs.Goal
+	gs.ProjectedAfterTax = p.AfterTax(g, gs.Projected)
+	gs.MonthlyNowFromPay, gs.MonthlyNeededFromPay = p.FromPay(g, gs.MonthlyNow), p.FromPay(g, gs.MonthlyNeeded)
+	st.MonthlyNowFromPay = st.MonthlyNowFromPay.Add(gs.MonthlyNowFromPay)
+	st.MonthlyNeededFromPay = st.MonthlyNeededFromPay.Add(gs.MonthlyNeededFromPay)
 }
 
 // monthlyDeposits is the monthly equivalent of the goal's deposits in force
@@ -105,4 +159,27 @@ func monthlyDeposits(p *Plan, g *Goal, s *Stream, amt money.Amount) money.Amount
 		year = year.Add(a.MulInt(int64(d.Every.PerYear())))
 	}
 	return year.DivRound(12, p.Currency.Places, p.Rounding)
+}
+
+// budgetStatus fills in the status of share i's goal under allocation a:
+// its projection, reach and track with its budget shares.
+func budgetStatus(p *Plan, a *Allocation, i int, gs *GoalStatus) {
+	g, sh := gs.Goal, a.Shares[i]
+	gs.TargetAt = g.Target
+	if g.HasBy {
+		gs.TargetAt = p.TargetAt(g)
+		gs.Projected = a.Ledger(i, g.By).BalanceAt(g.By)
+		gs.OnTrack = sh.Meets
+		if !gs.OnTrack {
+			gs.Short = gs.TargetAt.Sub(gs.Projected)
+		}
+	}
+	if sh.Reached {
+		gs.Reached = sh.Month
+	} else {
+		gs.Reach = noSolution(g, "the target is not reached by %s with the budget's share", a.End)
+	}
+	if len(g.Withdrawals) > 0 {
+		gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
+	}
 }

@@ -215,6 +215,7 @@ func newApp(e *env) *cli.App {
 		},
 		Commands: []*cli.Command{
 			statusCommand(e),
+			budgetCommand(e),
 			solveCommand(e),
 			projectCommand(e),
 			reportCommand(e),

@@ -50,6 +50,16 @@ var jsonOutputs = map[string][]jsonField{
 		{"cases", "array", false, "with several scenarios: the plan as written (base), then each scenario, each with its goals and totals"},
 		{"monthly_now_from_pay", "string", false, "where a goal's deposits come from pay before tax: monthly_now as it costs take-home pay"},
 		{"monthly_needed_from_pay", "string", false, "where a goal's deposits come from pay before tax: monthly_needed as it costs take-home pay"},
+		{"budget", "object", false, "with a budget: its rule, amount, frequency, monthly equivalent now and the smallest amount that makes every deadline"},
+	},
+	"budget": {
+		{"rule", "string", true, "the budget's rule: priority or one-at-a-time"},
+		{"amount", "string", true, "the budget's amount a period, before growth"},
+		{"every", "string", true, "the budget's frequency"},
+		{"goals", "array", true, "one object a goal in priority order: its level share, the month reached, on time or how many months late"},
+		{"rows", "array", true, "the allocation by year (or month): the budget, each goal's share, what is left unallocated, the goals reached"},
+		{"unallocated", "string", true, "what no goal took, in total over the rows"},
+		{"smallest", "object|null", true, "the smallest budget that makes the deadlines asked (every goal, or the top k), with the goal one cent less misses; null when none does"},
 	},
 	"check": {
 		{"valid", "boolean", true, "true: the file was read without a problem"},

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"html/template"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -161,11 +162,19 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 		Remarks:       sd.After,
 		Budget:        budgetFacts(p, st),
 	}
+	if st.Budget != nil {
+		bd := budgetDoc(p, st.Budget, plan.ByYear, st.Smallest, st.SmallestErr)
+		pg.Household, pg.HouseholdLead = bd.Tables()[0], append(bd.Lead, bd.After...)
+		pg.HouseholdCaption = "Each year: the budget, each goal's share in priority order, what no goal took, and the goals reached."
+	}
 	drawdown := false
 	for i, gs := range st.Goals {
 		gf, err := figuresOf(p, gs)
 		if err != nil {
 			return nil, nil, err
+		}
+		if gs.Share != nil {
+			gf.Ledger = st.Budget.Ledger(slices.Index(st.Budget.Shares, gs.Share), plan.Horizon(p, gs.Goal))
 		}
 		s, err := goalReport(p, gf, i, len(st.Goals))
 		if err != nil {
@@ -186,16 +195,33 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 	return b.Bytes(), pg.Notices, nil
 }
 
-// budgetFacts is the household's monthly saving: what every goal sets
-// aside now and what would make every deadline, the status figures. When
-// the plan gains a household budget, its lines belong here.
+// budgetFacts is the household's monthly saving, as status's household
+// line says it: the budget apart from the goals' own deposits, and the
+// goals short at their deadlines.
 func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
 	fs := &render.Facts{}
-	fs.Add("Set aside now, all goals", render.Text(amt(p, st.MonthlyNow)+" a month"))
-	fs.Add("Needed to make every deadline", render.Text(amt(p, st.MonthlyNeeded)+" a month"))
-	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
-		fs.Add("Set aside now, from take-home pay", render.Text(amt(p, st.MonthlyNowFromPay)+" a month"))
-		fs.Add("Needed, from take-home pay", render.Text(amt(p, st.MonthlyNeededFromPay)+" a month"))
+	if st.Budget != nil {
+		fs.Add("The household's budget", render.Text(amt(p, st.BudgetMonthly)+" a month now"))
+		fs.Add("The goals' own deposits besides", render.Text(amt(p, st.MonthlyNow)+" a month"))
+	} else {
+		fs.Add("Set aside now, all goals", render.Text(amt(p, st.MonthlyNow)+" a month"))
+	}
+	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 {
+		fs.Add("The goals' own deposits, from take-home pay", render.Text(amt(p, st.MonthlyNowFromPay)+" a month"))
+	}
+	short := st.Short()
+	if len(short) == 0 {
+		fs.Add("Short at a deadline", render.Text("none"))
+		return fs
+	}
+	for _, gs := range short {
+		fs.Add("Short: "+gs.Goal.Name, render.Text(amt(p, gs.Short)+" at "+gs.Goal.By.String()))
+	}
+	if st.Budget == nil || len(st.Budget.Shares) < len(p.Goals) {
+		fs.Add("The goals' own deposits needed to make every deadline", render.Text(amt(p, st.MonthlyNeeded)+" a month"))
+		if st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
+			fs.Add("Needed, from take-home pay", render.Text(amt(p, st.MonthlyNeededFromPay)+" a month"))
+		}
 	}
 	return fs
 }
@@ -207,6 +233,9 @@ type goalFigures struct {
 	Sim       *plan.Simulation // nil when the goal's returns are fixed
 	Income    *plan.Answer     // the largest sustainable withdrawal, for a goal with withdrawals
 	IncomeErr error
+	// Ledger, for a goal drawing on the budget, is its projection with its
+	// budget shares; nil for the others, projected as written.
+	Ledger *plan.Ledger
 }
 
 func figuresOf(p *plan.Plan, gs plan.GoalStatus) (goalFigures, error) {
@@ -235,6 +264,10 @@ func nextSteps(p *plan.Plan, gf goalFigures) []string {
 	case !g.HasTarget:
 	case !g.HasBy:
 		out = append(out, fmt.Sprintf("%s: no deadline; %s.", g.Name, reached))
+	case gf.Share != nil && gf.OnTrack:
+		out = append(out, fmt.Sprintf("%s: on track for %s by %s with its share of the budget; %s.", g.Name, amt(p, gf.TargetAt), g.By, reached))
+	case gf.Share != nil:
+		out = append(out, fmt.Sprintf("%s: short by %s at %s with its share of the budget; %s: see the household budget for the budget that makes every deadline.", g.Name, amt(p, gf.Short), g.By, reached))
 	case gf.NeededErr != nil && !gf.OnTrack:
 		out = append(out, fmt.Sprintf("%s: short by %s at %s, and no deposit makes it (%s): move the deadline or change the target.", g.Name, amt(p, gf.Short), g.By, reasonOf(gf.NeededErr)))
 	case gf.NeededErr != nil:
@@ -302,9 +335,12 @@ func goalReport(p *plan.Plan, gf goalFigures, i, n int) (render.Section, error) 
 		Kicker: fmt.Sprintf("Goal %d of %d: %s", i+1, n, g.Name),
 		Name:   g.Name,
 	}
-	l, err := plan.Project(p, g, plan.Horizon(p, g))
-	if err != nil {
-		return s, err
+	l := gf.Ledger
+	var err error
+	if l == nil {
+		if l, err = plan.Project(p, g, plan.Horizon(p, g)); err != nil {
+			return s, err
+		}
 	}
 	var band *simBand
 	if gf.Sim != nil {
@@ -348,7 +384,13 @@ func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
 			s = amt(p, gf.Projected) + ": short by " + amt(p, gf.Short)
 		}
 		add("Projected at the deadline", s)
-		if gf.NeededErr == nil {
+		if sh := gf.Share; sh != nil {
+			need := fmt.Sprintf("from the budget, priority %d: everything left after the goals before it", sh.Priority)
+			if sh.HasNeed {
+				need = fmt.Sprintf("from the budget, priority %d: %s %s", sh.Priority, amt(p, sh.Need), every(&p.Budget.Stream))
+			}
+			add("Needed to make the deadline", need)
+		} else if gf.NeededErr == nil {
 			a := gf.Needed
 			need := fmt.Sprintf("%s %s (%s)", amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), streamLabel(a.Stream))
 			if fy := firstYear(p, a.Stream, a.Amount); fy != "" {

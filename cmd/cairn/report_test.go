@@ -239,6 +239,7 @@ func TestReport_Outline(t *testing.T) {
 		{"household", "household.outline", examples.Household, nil},
 		{"one goal", "retirement.outline", examples.Household, []string{"--goal", "retirement"}},
 		{"volatility", "volatile.outline", readFixture(t, "volatile.yaml"), nil},
+		{"budget", "budget.outline", examples.Budget, nil},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -711,7 +712,9 @@ func TestReport_HandOver(t *testing.T) {
 	first := summary[0].allText()
 	for _, want := range []string{
 		"Saving each month", "Set aside now, all goals " + amt(p, st.MonthlyNow) + " a month",
-		"Needed to make every deadline " + amt(p, st.MonthlyNeeded) + " a month",
+		"The goals' own deposits needed to make every deadline " + amt(p, st.MonthlyNeeded) + " a month",
+		// the goals short, by how much (issue 16: no total that reads as a surplus while a goal is short)
+		"Short: Emergency fund 682.98 at 2029-06", "Short: Retirement 711,874.70 at 2051-12",
 		"What to do next",
 		// the status figures, worded: examples/household.yaml's status (cairn status)
 		"Emergency fund: raise paycheck from 150.00 to 160.00 every 2 weeks to reach 15,000.00 by the end of 2029-06; as planned it is reached in 2029-08.",

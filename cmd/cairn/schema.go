@@ -52,6 +52,7 @@ var scopeDefs = map[plan.Scope]string{
 	plan.InRateStep:   "rate_step",
 	plan.InScenario:   "scenario",
 	plan.InChange:     "change",
+	plan.InBudget:     "budget",
 }
 
 // goalsSchema returns the JSON Schema of the goals file, indented, ending in
@@ -111,6 +112,11 @@ func keySchema(k *plan.Key) *jsonSchema {
 		if k.Required {
 			out.MinItems = 1 // a required list may not be empty
 		}
+	case plan.FormMapping:
+		out = &jsonSchema{Ref: "#/$defs/" + scopeDefs[k.Items]}
+	case plan.FormCount:
+		lo, hi := int64(k.Min), int64(k.Max)
+		out = &jsonSchema{Type: []string{"string", "number"}, Pattern: k.Pattern(), Minimum: &lo, Maximum: &hi}
 	case plan.FormRates:
 		// a rate, or a list of rates and steps; the decoder checks that only
 		// the first stands alone and later ones say from: (no prefixItems,
@@ -125,7 +131,7 @@ func keySchema(k *plan.Key) *jsonSchema {
 	}
 	out.Description = keyDescription(k)
 	out.Examples = k.Words()
-	if k.Default != "" && k.Form != plan.FormList && regexp.MustCompile(k.Pattern()).MatchString(k.Default) {
+	if k.Default != "" && k.Form != plan.FormList && k.Form != plan.FormMapping && regexp.MustCompile(k.Pattern()).MatchString(k.Default) {
 		out.Default = k.Default
 	}
 	return out

@@ -43,7 +43,7 @@ var schemaSamples = map[plan.Form]struct{ tried, refused []string }{
 		[]string{"--5", "5-", "1.2.3", "", "- 5"}},
 	plan.FormTaxRate: {[]string{"25%", "0%", "99.9%", "12.5 %", ".5%", "+3%"},
 		[]string{"25", "-5%", "100%", "101%", "25 percent", "1e1%", ""}},
-	plan.FormChoice: {[]string{"compound", "Simple", " none ", "end", "start", "Begin", "beginning", "yes", "No", "as-it-grows", "On-The-Way-Out", "never"},
+	plan.FormChoice: {[]string{"compound", "Simple", " none ", "end", "start", "Begin", "beginning", "yes", "No", "as-it-grows", "On-The-Way-Out", "never", "priority", "One-at-a-time"},
 		[]string{"compounded", "daily", "middle", ""}},
 	plan.FormFrequency: {[]string{"month", "Monthly", "2 weeks", "every 2 weeks", "half month", "twice a month",
 		"quarter", "year", "annually", "semi-monthly", "fortnightly", "per month", "every  two   weeks"},
@@ -52,6 +52,8 @@ var schemaSamples = map[plan.Form]struct{ tried, refused []string }{
 		[]string{"30", "thirty years", "0 years", "30 yrs", "-1 years", "1.5 years", ""}},
 	plan.FormGrowth: {[]string{"3%", "inflation", "Inflation", "2% apy", "-1%", " INFLATION "},
 		[]string{"inflate", "3", "", "inflation 2%"}},
+	plan.FormCount: {[]string{"1", "2", " 3 ", "+1", "100", "07"}, []string{"-1", "1.5", "one", "", "1e2", "1 2"}},
+	plan.FormUntil: {[]string{"2030-01", " 2031-12 ", "reached", " Reached "}, []string{"2027-1", "reach", "", "never", "2030-13"}},
 }
 
 // goalsFileWith returns a goals file with key k set to the text v (quoted,
@@ -69,8 +71,12 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 	case plan.InPlan:
 		b.WriteString(unless("cairn", "cairn: 1\n") + unless("start", "start: 2027-01\n") + kv + "\ngoals:\n  - name: g\n")
 	case plan.InGoal:
-		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    " + unless("by", "by: 2040-01\n    ") +
+		b.WriteString("cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month}\ngoals:\n  - name: g\n    " +
+			unless("by", "by: 2040-01\n    ") + unless("target", "target: 100\n    ") +
 			unless("tax", "tax: on-the-way-out\n    ") + kv + "\n")
+	case plan.InBudget:
+		b.WriteString("cairn: 1\nstart: 2027-01\nbudget:\n  " + unless("amount", "amount: 10\n  ") + unless("every", "every: month\n  ") +
+			kv + "\ngoals:\n  - {name: g, target: 100, priority: 1}\n")
 	case plan.InStream:
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    deposits:\n      - " +
 			unless("amount", "amount: 10\n        ") + unless("every", "every: month\n        ") + kv + "\n")

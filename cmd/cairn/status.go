@@ -109,7 +109,16 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 				shortBy = cash(p, gs.Short)
 				jg["short_by"] = jamt(p, gs.Short)
 			}
-			if gs.NeededErr == nil {
+			if gs.Share != nil {
+				needed = render.Label("from the budget", "budget")
+				if gs.Share.HasNeed {
+					needed = cash(p, gs.Share.Need).Then(" " + every(&p.Budget.Stream) + " of the budget")
+				}
+				jg["priority"] = gs.Share.Priority
+				if gs.Share.HasNeed {
+					jg["budget_share"] = jamt(p, gs.Share.Need)
+				}
+			} else if gs.NeededErr == nil {
 				a := gs.Needed
 				needed = cash(p, a.Amount).Then(" " + every(a.Stream))
 				neededEvery = render.Text(a.Stream.Every.String())
@@ -178,8 +187,10 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 	}
 	d.Notices = notices(p, drawdown)
 	d.Blocks = []render.Block{t}
-	d.After = append(d.After, fmt.Sprintf("Set aside now: %s a month; needed to make every deadline: %s a month.",
-		amt(p, st.MonthlyNow), amt(p, st.MonthlyNeeded)))
+	d.After = append(d.After, householdLine(p, st)...)
+	if st.Budget != nil {
+		d.Data["budget"] = budgetJSON(p, st)
+	}
 	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
 		d.After = append(d.After, fmt.Sprintf("From take-home pay, after the tax not paid on deposits from pay before tax: %s a month now; %s a month needed.",
 			amt(p, st.MonthlyNowFromPay), amt(p, st.MonthlyNeededFromPay)))
@@ -284,4 +295,59 @@ func scenarioText(sc *plan.Scenario) string {
 		parts = append(parts, who+": "+strings.Join(sets, ", "))
 	}
 	return strings.Join(parts, "; ")
+}
+
+// householdLine is the household's saving in plain sentences: the budget
+// (the household's own money) apart from the goals' own deposits (an
+// employer's, a gift), and the goals short at their deadlines and by how
+// much, so that no total reads as a surplus while a goal is short.
+func householdLine(p *plan.Plan, st *plan.Status) []string {
+	var out []string
+	if st.Budget != nil {
+		out = append(out, fmt.Sprintf("The household's budget: %s a month now, shared by %d %s by %s; the goals' own deposits besides (not the budget's, such as an employer's): %s a month.",
+			amt(p, st.BudgetMonthly), len(st.Budget.Shares), plural(len(st.Budget.Shares), "goal", "goals"), ruleWords(p.Budget.Rule), amt(p, st.MonthlyNow)))
+	} else {
+		out = append(out, fmt.Sprintf("Set aside now: %s a month in the goals' deposits.", amt(p, st.MonthlyNow)))
+	}
+	short := st.Short()
+	if len(short) == 0 {
+		out = append(out, "Every goal with a deadline is on track.")
+	} else {
+		var parts []string
+		for _, gs := range short {
+			parts = append(parts, fmt.Sprintf("%s by %s at %s", gs.Goal.Name, amt(p, gs.Short), gs.Goal.By))
+		}
+		s := fmt.Sprintf("Short: %s.", strings.Join(parts, "; "))
+		if st.Budget == nil || len(st.Budget.Shares) < len(p.Goals) {
+			s = strings.TrimSuffix(s, ".") + fmt.Sprintf(" (the goals' own deposits would need %s a month to make every deadline).", amt(p, st.MonthlyNeeded))
+		}
+		out = append(out, s)
+	}
+	if st.Budget != nil {
+		if st.SmallestErr == nil {
+			out = append(out, fmt.Sprintf("The smallest budget that makes every deadline of the goals that draw on it: %s %s.",
+				amt(p, st.Smallest.Amount), every(&p.Budget.Stream)))
+		} else {
+			out = append(out, fmt.Sprintf("No budget makes every deadline: %s.", reasonOf(st.SmallestErr)))
+		}
+	}
+	return out
+}
+
+// ruleWords names a budget's rule in a sentence.
+func ruleWords(r plan.Rule) string {
+	if r == plan.OneAtATime {
+		return "one goal at a time"
+	}
+	return "priority"
+}
+
+// budgetJSON is the household budget in the status's JSON form.
+func budgetJSON(p *plan.Plan, st *plan.Status) map[string]any {
+	j := map[string]any{"rule": p.Budget.Rule.String(), "amount": jamt(p, p.Budget.Amount), "every": p.Budget.Every.String(),
+		"monthly_now": jamt(p, st.BudgetMonthly)}
+	if st.SmallestErr == nil {
+		j["smallest"] = jamt(p, st.Smallest.Amount)
+	}
+	return j
 }

@@ -9,15 +9,19 @@ import (
 
 // A Cache holds compiled schedules by their shape, for a caller that
 // compiles the same shape many times (a what-if grid, a household's status,
-// a search over horizons). It is safe for concurrent use; the zero value is
-// ready, and a nil *Cache compiles every time.
+// a search over horizons). Shapes that differ only in their months share one
+// entry: a schedule compiled through a later month holds every shorter one as
+// its prefix (see [Schedule.Prefix]). It is safe for concurrent use; the zero
+// value is ready, and a nil *Cache compiles every time.
 type Cache struct {
-	mu sync.Mutex
-	m  map[string]*Schedule
+	mu     sync.Mutex
+	m      map[string]*Schedule
+	events int // events held by the schedules in m
 }
 
-// maxCached bounds a cache: past it, the cache starts afresh.
-const maxCached = 256
+// MaxCachedEvents bounds a cache by the events it holds (an event is 64
+// bytes): past it, the cache starts afresh.
+const MaxCachedEvents = 1 << 20
 
 // Key returns the cache key of shape sh: every field of it, encoded in
 // order by reflection (see appendKey), so a field added to [Shape] is in
@@ -59,24 +63,47 @@ func appendKey(b []byte, v reflect.Value) []byte {
 }
 
 // Compile returns the schedule of shape sh, compiling it unless the cache
-// holds it.
+// holds it or a longer one of the same shape.
 func (c *Cache) Compile(sh *Shape) *Schedule {
 	if c == nil {
 		return Compile(sh)
 	}
-	k := Key(sh)
+	k := *sh
+	k.Months = 0 // every length of a shape shares its entry
+	key := Key(&k)
 	c.mu.Lock()
-	s, ok := c.m[k]
+	s, ok := c.m[key]
 	c.mu.Unlock()
-	if ok {
-		return s
+	if ok && s.months >= sh.Months {
+		return s.Prefix(sh.Months)
 	}
 	s = Compile(sh)
 	c.mu.Lock()
-	if c.m == nil || len(c.m) >= maxCached {
-		c.m = map[string]*Schedule{}
+	defer c.mu.Unlock()
+	if old, ok := c.m[key]; ok {
+		if old.months >= s.months { // another goroutine compiled a longer one meanwhile
+			return old.Prefix(sh.Months)
+		}
+		c.events -= len(old.events)
 	}
-	c.m[k] = s
-	c.mu.Unlock()
+	if c.m == nil || c.events+len(s.events) > MaxCachedEvents {
+		c.m, c.events = map[string]*Schedule{}, 0
+	}
+	c.m[key] = s
+	c.events += len(s.events)
 	return s
+}
+
+// Reset empties the cache.
+func (c *Cache) Reset() {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	c.m, c.events = nil, 0
+}
+
+// Events returns the number of events the cache holds.
+func (c *Cache) Events() int {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.events
 }

@@ -99,8 +99,6 @@ type Schedule struct {
 	accrue   bool  // interest accrues at each compounding and is credited at month ends
 	stepFrom []int32
 	events   []Event // every event, in order
-	flows    int     // how many of them are amounts
-	fees     int     // and fees
 	taus     []float64
 	sources  int
 	// grow is, per source, the yearly growth of its amounts when each
@@ -108,6 +106,9 @@ type Schedule struct {
 	// amount in today's money, first indexed over part of a year); the
 	// opening balance and one-time amounts: 0, a unit of 1.
 	grow []float64
+	// partial lists the flows and fees part way through an interest
+	// period (Tau < 1): the events a path's weights are computed for.
+	partial []int32
 }
 
 // Events returns the schedule's events in order; the caller must not
@@ -285,7 +286,6 @@ func Compile(sh *Shape) *Schedule {
 	}
 	interestTo(s.endTick)
 	s.events = ev
-	s.flows, s.fees = len(flows), 0
 	// fraction of the interest period left, and the step of that period;
 	// the distinct fractions are few, found by the ticks left
 	var left []int64 // ticks left of each of s.taus
@@ -294,9 +294,6 @@ func Compile(sh *Shape) *Schedule {
 		e := &s.events[i]
 		if e.Kind == Interest || e.Kind == Credit || e.Kind == Mark || e.Kind == Tax {
 			continue // a tax falls at a year's end, an interest date of every compounding: it starts the next period
-		}
-		if e.Kind == Fee {
-			s.fees++
 		}
 		next := (e.Tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
 		r := next - e.Tick
@@ -309,10 +306,38 @@ func Compile(sh *Shape) *Schedule {
 			}
 		}
 		e.Tau, e.Ti = s.taus[k32], k32
+		if e.Tau < 1 {
+			s.partial = append(s.partial, int32(i))
+		}
 		e.Period = int32(e.Tick / s.period)
 		e.Step = s.StepAt(next - s.period)
 	}
 	return s
+}
+
+// Prefix returns the schedule through the end of month months−1 (counted
+// from 0), which a schedule compiled through a later month holds: the same
+// events up to that month end's mark, sharing s's storage. The events of a
+// shape do not depend on how far it is compiled: a run of interest dates
+// never passes a month end, and every amount, fee and credit at a tick is
+// laid down the same whatever follows.
+func (s *Schedule) Prefix(months int32) *Schedule {
+	if months >= s.months {
+		return s
+	}
+	p := *s
+	p.months = months
+	p.endTick = int64(months) * TicksPerMonth
+	n, _ := slices.BinarySearchFunc(s.events, p.endTick, func(e Event, end int64) int {
+		if e.Tick < end || e.Tick == end && e.Kind <= Mark {
+			return -1
+		}
+		return 1
+	})
+	p.events = s.events[:n:n]
+	k, _ := slices.BinarySearch(s.partial, int32(n))
+	p.partial = s.partial[:k:k]
+	return &p
 }
 
 // eventOrder orders events by tick, then kind, then money in before money
@@ -334,11 +359,57 @@ func eventOrder(a, b Event) int {
 	return cmp.Compare(a.Src, b.Src)
 }
 
-// mergeRuns merges runs, each already in event order, into one.
+// mergeRuns merges runs, each already in event order, into one: a merge
+// of all of them at once through a heap of the runs' next events, so that
+// each event is copied once whatever the number of runs (merging 50
+// streams one after another copied the first stream's events 50 times).
+// A single non-empty run is returned as it is; two are merged directly.
 func mergeRuns(runs [][]Event) []Event {
-	var out []Event
+	runs = slices.DeleteFunc(slices.Clone(runs), func(r []Event) bool { return len(r) == 0 })
+	switch len(runs) {
+	case 0:
+		return nil
+	case 1:
+		return runs[0]
+	case 2:
+		return merge(runs[0], runs[1])
+	}
+	n := 0
 	for _, r := range runs {
-		out = merge(out, r)
+		n += len(r)
+	}
+	out := make([]Event, 0, n)
+	// h is a binary min-heap of the runs by their next event; a run is
+	// dropped from it when it is used up
+	h := make([][]Event, len(runs))
+	copy(h, runs)
+	less := func(i, j int) bool { return before(&h[i][0], &h[j][0]) }
+	down := func(i int) {
+		for {
+			m, l, r := i, 2*i+1, 2*i+2
+			if l < len(h) && less(l, m) {
+				m = l
+			}
+			if r < len(h) && less(r, m) {
+				m = r
+			}
+			if m == i {
+				return
+			}
+			h[i], h[m] = h[m], h[i]
+			i = m
+		}
+	}
+	for i := len(h)/2 - 1; i >= 0; i-- {
+		down(i)
+	}
+	for len(h) > 0 {
+		out = append(out, h[0][0])
+		if h[0] = h[0][1:]; len(h[0]) == 0 {
+			h[0] = h[len(h)-1]
+			h = h[:len(h)-1]
+		}
+		down(0)
 	}
 	return out
 }

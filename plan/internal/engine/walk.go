@@ -41,6 +41,11 @@ type Inputs struct {
 	Between  Between
 	Places   int            // decimal places of the minor unit
 	Rounding money.Rounding // rule for every rounding to the minor unit
+	// Set, when not nil, gives each amount of source SetSrc, in currency
+	// units before its Unit, by the index of its event: amounts decided
+	// date by date (a household budget's share), in place of Amounts.
+	Set    []float64
+	SetSrc int32
 }
 
 // A Mode is the arithmetic of a walk.
@@ -414,6 +419,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
+			if in.Set != nil && e.Src == in.SetSrc {
+				a = in.Set[i] * scale
+			}
 			x := a * e.Unit
 			p := o.Paths
 			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
@@ -475,19 +483,14 @@ func lowest(low, bal, tau float64) float64 {
 
 // Weights fills p.W for schedule s under rule b and the out flags of in:
 // what one unit of each flow or fee earns by its credit at the realised
-// rate of its period, J and L.
+// rate of its period, J and L. Only the events part way through a period
+// have a weight: one a whole period before its credit joins the interest
+// base instead, and the walk reads no weight for it.
 func (s *Schedule) Weights(p *Paths, in *Inputs) {
-	for i := range s.events {
+	for _, i := range s.partial {
 		e := &s.events[i]
-		switch e.Kind {
-		case Fee, FlowEnd, FlowBegin:
-			k := e.Period
-			if e.Tau == 1 {
-				p.W[i] = p.J[k]
-			} else {
-				p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
-			}
-		}
+		k := e.Period
+		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
 	}
 }
 

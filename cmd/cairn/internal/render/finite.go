@@ -23,7 +23,7 @@ func (d *Doc) finite() error {
 }
 
 func (p *Page) finite() error {
-	ts := []*Table{p.Status}
+	ts := []*Table{p.Status, p.Household}
 	for _, s := range p.Goals {
 		ts = append(ts, s.Projection, factsTable(s.Facts), factsTable(s.Assumptions))
 	}

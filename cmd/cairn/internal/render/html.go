@@ -24,6 +24,11 @@ type Page struct {
 	Next    []string // what to do next, one sentence a goal's step
 	Notices []Notice
 	Goals   []Section
+	// Household, when not nil, is the household budget's page: sentences
+	// on when each goal is reached, then its allocation over time.
+	Household        *Table
+	HouseholdLead    []string
+	HouseholdCaption string
 }
 
 // A Section is one goal's part of a [Page].
@@ -52,7 +57,11 @@ func (p *Page) Write(w io.Writer) error {
 	}
 	d := pageData{Title: p.Title, Footer: cssString(p.Footer), Version: p.Version, Meta: p.Meta,
 		Status: htmlTableOf(p.Status, "status", p.StatusCaption), Remarks: p.Remarks, Budget: factsOf(p.Budget), Next: p.Next,
-		Notices: noticesOf(p.Notices)}
+		Notices: noticesOf(p.Notices), HouseholdLead: p.HouseholdLead}
+	if p.Household != nil {
+		d.Household = htmlTableOf(p.Household, "household", p.HouseholdCaption)
+		d.HasHousehold = true
+	}
 	for _, s := range p.Goals {
 		d.Goals = append(d.Goals, goalData{ID: s.ID, Kicker: s.Kicker, Name: s.Name, Facts: factsOf(s.Facts),
 			Chart: s.Figure.SVG, ChartNote: s.Figure.Caption, Projection: htmlTableOf(s.Projection, "projection", s.ProjectionCaption),
@@ -76,6 +85,10 @@ type pageData struct {
 	Next    []string
 	Notices []htmlNotice
 	Goals   []goalData
+
+	HasHousehold  bool
+	Household     htmlTable
+	HouseholdLead []string
 }
 
 type goalData struct {
@@ -300,6 +313,17 @@ nav li { display: inline; margin-left: 0.4rem; }
 </nav>
 {{template "note" .Notices}}
 </section>
+{{- if .HasHousehold}}
+<section id="household" class="goal" aria-labelledby="household-h">
+<h2 id="household-h">The household budget</h2>
+{{- range .HouseholdLead}}
+<p class="remark">{{.}}</p>
+{{- end}}
+<h3 class="with-table">The budget split by year</h3>
+{{template "table" .Household}}
+{{template "note" .Notices}}
+</section>
+{{- end}}
 {{- range .Goals}}
 <section id="{{.ID}}" class="goal" aria-labelledby="{{.ID}}-h">
 <div class="keep">

@@ -1,0 +1,105 @@
+package plan
+
+import (
+	"fmt"
+
+	"cairn/money"
+)
+
+// The work budget. A command's work grows with the events of the schedules
+// it walks: each amount of each stream, each month end, and the interest
+// dates between them. The limits on a goals file (see limits.go) bound the
+// file, not how its streams multiply: 50 daily streams over 150 years are
+// 2.7 million amounts. So before a goal is compiled, the events of its
+// schedule through the plan's last month (the longest any command compiles)
+// are counted from its shape, and a goal over MaxEvents is refused with its
+// position, in every command alike; a simulation is refused when its paths
+// times its events pass MaxSimulationSteps. Both are counted, not timed, so
+// the answer does not depend on the machine.
+const (
+	// MaxEvents is the most events one goal's schedule may have through
+	// the plan's last month: a daily stream over the whole 150 years is
+	// about 110,000 (its amounts and the interest dates between them), a
+	// monthly one about 3,600. 500,000 events are 32 MB and a few
+	// milliseconds a walk.
+	MaxEvents = 500_000
+	// MaxFileEvents is the most events all of a file's goals may have
+	// together: a household status walks each goal's schedule about ten
+	// times.
+	MaxFileEvents = 2_000_000
+	// MaxSimulationSteps is the most paths × events a simulation may walk
+	// (a deposit search counted as simDepositPasses passes): at about 6 ns
+	// a step, some 3 seconds of one core.
+	MaxSimulationSteps = 500_000_000
+	// simDepositPasses is what [SolveDeposit] is counted as: its first
+	// guess takes two passes over every path, and its search of whole
+	// minor units from the guess usually three more (the example file's
+	// goals: five each).
+	simDepositPasses = 8
+)
+
+// eventsOf counts the events of goal g's schedule through the end of month
+// end without compiling it: every amount of every stream and one-time
+// amount, and per month its end, credit and fee, with a run of interest
+// dates before each of them (an upper bound, cheap to count).
+func eventsOf(p *Plan, g *Goal, end Month) int64 {
+	months := int64(end-p.Start) + 1
+	var flows int64
+	for _, st := range streams(g) {
+		last := end
+		if st.HasUntil {
+			last = min(last, st.Until)
+		}
+		if last < st.From {
+			continue
+		}
+		flows += (int64(last-st.From)+1)*int64(st.Every.PerYear())/12 + 1
+	}
+	flows += int64(len(g.Once))
+	return 2*flows + 4*months + int64(len(g.Rates))
+}
+
+// checkWork reports an error if goal g's schedule through the plan's last
+// month would pass [MaxEvents].
+func (p *Plan) checkWork(g *Goal) error {
+	if n := eventsOf(p, g, horizonEnd(p)); n > MaxEvents {
+		return fmt.Errorf("goal %s: its amounts and interest dates come to about %s events over the plan's %d years, more than the %s one goal may have (one stream every day for all of them is about 110,000); combine streams that fall on the same dates, make them less frequent or give them an until",
+			money.Quote(g.Name), group(n), HorizonYears, group(MaxEvents))
+	}
+	return nil
+}
+
+// checkFileWork reports an error if a goal's schedule would pass
+// [MaxEvents] (see checkWork), or the schedules of all the plan's goals
+// through its last month would pass [MaxFileEvents] together; the error
+// names the goal at which the running count passes it.
+func (p *Plan) checkFileWork() (*Goal, error) {
+	var n int64
+	for _, g := range p.Goals {
+		if err := p.checkWork(g); err != nil {
+			return g, err
+		}
+		if n += eventsOf(p, g, horizonEnd(p)); n > MaxFileEvents {
+			return g, fmt.Errorf("goal %s: with the goals before it, the plan's amounts and interest dates come to about %s events over its %d years, more than the %s one file may have; combine streams that fall on the same dates, make them less frequent or give them an until",
+				money.Quote(g.Name), group(n), HorizonYears, group(MaxFileEvents))
+		}
+	}
+	return nil, nil
+}
+
+// checkSimulation reports an error if simulating paths paths over schedule
+// s, passes times, would pass [MaxSimulationSteps] in all.
+func checkSimulation(s *schedule, paths, passes int) error {
+	steps := int64(paths) * int64(len(s.events)) * int64(passes)
+	if steps > MaxSimulationSteps {
+		return fmt.Errorf("simulating %s paths over %s events%s is %s steps, more than the %s one command may take; ask for fewer paths or a shorter plan",
+			group(int64(paths)), group(int64(len(s.events))), map[bool]string{true: fmt.Sprintf(" %d times over", passes), false: ""}[passes > 1],
+			group(steps), group(MaxSimulationSteps))
+	}
+	return nil
+}
+
+// group writes n with its thousands grouped: 2,700,000.
+func group(n int64) string {
+	return money.Units(n).Format(money.Currency{Places: 0}, false)
+}
