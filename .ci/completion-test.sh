@@ -51,8 +51,8 @@ expect() {
 
 for sh in bash zsh fish; do
 	expect $sh "cairn sol" "solve"
-	expect $sh "cairn solve --for " "deposit|lasts|rate|start|time|withdrawal"
-	expect $sh "cairn simulate --for " "deposit"
+	expect $sh "cairn solve --for " "capital|deposit|lasts|rate|start|time|withdrawal"
+	expect $sh "cairn simulate --for " "deposit|withdrawal"
 	expect $sh "cairn status --format " "csv|json|markdown|table"
 	expect $sh "cairn help --format " "man|schema|text"
 	expect $sh "cairn solve --ex" "--explain"

@@ -18,6 +18,13 @@ var Household []byte
 //go:embed taxes.yaml
 var Taxes []byte
 
+// Retirement is examples/retirement.yaml: retirement income with a pension,
+// part-time work and a bequest, and no target (the capital it needs is the
+// answer).
+//
+//go:embed retirement.yaml
+var Retirement []byte
+
 // Budget is examples/budget.yaml: an invented young couple with one budget
 // from every paycheck shared by three goals in priority order.
 //

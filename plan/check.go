@@ -18,7 +18,7 @@ type problem struct {
 // parsing and after every what-if change.
 func (p *Plan) settle() {
 	for _, g := range p.Goals {
-		for _, ss := range [][]*Stream{g.Deposits, g.Withdrawals} {
+		for _, ss := range [][]*Stream{g.Deposits, g.Withdrawals, g.Income} {
 			for _, s := range ss {
 				if !s.growSet {
 					s.Grow, s.GrowInflation = 0, s.Today
@@ -34,7 +34,7 @@ func (p *Plan) settle() {
 func (p *Plan) problems() []problem {
 	var out []problem
 	for _, g := range p.Goals {
-		if n := len(g.Deposits) + len(g.Withdrawals); n > MaxStreams {
+		if n := len(streams(g)); n > MaxStreams {
 			out = append(out, problem{goal: g, msg: fmt.Sprintf("%d streams, over the limit of %d a goal", n, MaxStreams)})
 		}
 		for i, s := range g.Deposits {

@@ -33,7 +33,7 @@ func Describe(p *Plan, g *Goal) GoalView {
 		v.PerCredit = append(v.PerCredit, st.Rate.PerPeriod(v.Compounding))
 	}
 	s := compile(p, g, v.Horizon)
-	for _, st := range append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...) {
+	for _, st := range streams(g) {
 		sv := StreamView{Stream: st, PerYear: st.Every.PerYear(), RatePerPeriod: g.Rates[0].Rate.PerPeriod(st.Every)}
 		idx := s.sourceIndex(st)
 		for _, e := range s.events {

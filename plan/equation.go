@@ -24,7 +24,8 @@ type Term struct {
 // of every flow's value then. Sum equals Balance, the ledger's, within the
 // rounding of its postings: half a cent at most a posting, each grown by
 // interest to At like any other money; where a withdrawal could not be paid
-// in full the terms overstate what went out.
+// in full the terms overstate what went out, and where a month's income
+// exceeds its withdrawals they count the surplus, which is not deposited.
 type Equation struct {
 	At      Month
 	Terms   []Term
@@ -126,7 +127,9 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"
 		}
-		if constRate && uniform[i] && (g.Between == Compound || onCredits(i)) && (i == 0 || last[i] <= lastCredit) {
+		// income is valued where it pays the withdrawals, which no
+		// factor of its own dates describes
+		if src.kind != Income && constRate && uniform[i] && (g.Between == Compound || onCredits(i)) && (i == 0 || last[i] <= lastCredit) {
 			j := rate.PerPeriod(s.comp)
 			switch {
 			case i == 0 || src.stream == nil:

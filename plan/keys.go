@@ -20,6 +20,7 @@ const (
 	InRateStep                // each step of a rate schedule
 	InScenario                // each named scenario
 	InChange                  // each change of a scenario: a goal, a stream and what-if keys
+	InPerson                  // each of the household's people
 	InBudget                  // the budget: a stream's keys and its rule
 )
 
@@ -29,11 +30,12 @@ var where = map[Scope]string{
 	InPlan:       "the top level of the file",
 	InGoal:       "each goal (under goals:)",
 	InStream:     "each stream (under deposits: or withdrawals:)",
-	InWithdrawal: "each withdrawal stream (under withdrawals:)",
+	InWithdrawal: "each withdrawal or income stream (under withdrawals: or income:)",
 	InOnce:       "each one-time amount (under once:)",
 	InRateStep:   "each step of a rate schedule (under rate:)",
 	InScenario:   "each scenario (under scenarios:)",
 	InChange:     "each change of a scenario (under changes:)",
+	InPerson:     "each person (under people:)",
 	InBudget:     "the budget (under budget:)",
 }
 
@@ -140,13 +142,14 @@ func (k *Key) NeedsGoal() bool { return k.Scope == InStream || k.Scope == InWith
 // A target is where a key's value goes: the plan and, inside it, the goal,
 // stream, one-time amount or rate step being decoded or changed.
 type target struct {
-	p  *Plan
-	g  *Goal
-	s  *Stream
-	o  *Once
-	st *RateStep
-	sc *Scenario
-	b  *Budget
+	p   *Plan
+	g   *Goal
+	s   *Stream
+	o   *Once
+	st  *RateStep
+	sc  *Scenario
+	who *Person
+	b   *Budget
 }
 
 // A value is a parsed value of any form.
@@ -201,6 +204,13 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true, MaxItems: MaxGoals,
 		Missing: "want a list of goals",
 		Default: "required", Help: "a list of goals"},
+	{Name: "people", Scope: InPlan, Form: FormList, Items: InPerson, MaxItems: MaxPeople,
+		Default: "none",
+		Help: "the household's people, each a name and a birth month:\n" +
+			"  - name: Alex\n" +
+			"    born: 1962-05\n" +
+			"Any month may then be written as an age: \"Alex at 67\"\n" +
+			"is Alex's 67th birthday month; output shows ages"},
 	{Name: "scenarios", Scope: InPlan, Form: FormList, Items: InScenario, MaxItems: MaxScenarios,
 		Default: "none",
 		Help: "named alternatives, each a list of what-if changes\n" +
@@ -281,6 +291,14 @@ var Keys = withChangeKeys([]*Key{
 		Default: "none", Help: "a list of streams (below)"},
 	{Name: "withdrawals", Scope: InGoal, Form: FormList, Items: InWithdrawal, MaxItems: MaxStreams,
 		Default: "none", Help: "a list of streams, plus for:"},
+	{Name: "income", Scope: InGoal, Form: FormList, Items: InWithdrawal, MaxItems: MaxStreams,
+		Default: "none",
+		Help: "streams paid from outside the account (a pension, a\n" +
+			"benefit, part-time work), written as withdrawals are.\n" +
+			"Each amount pays the withdrawals of the month it is\n" +
+			"paid in and the account pays the rest; what a month's\n" +
+			"withdrawals do not need is not deposited. Never counted\n" +
+			"as money set aside."},
 	{Name: "once", Scope: InGoal, Form: FormList, Items: InOnce, MaxItems: MaxOnce,
 		Default: "none",
 		Help: "one-time amounts: positive in, negative out\n" +
@@ -323,10 +341,14 @@ var Keys = withChangeKeys([]*Key{
 			"the account; a plan that passes it by a cent is refused",
 		Set: "cap",
 		put: func(t *target, v *value) { t.g.Cap, t.g.HasCap = v.amount, true }},
-	{Name: "leave", Scope: InGoal, Form: FormAmount,
-		Default: "0", Help: "balance that must remain after the last withdrawal",
+	{Name: "leave", Scope: InGoal, Form: FormAmountToday,
+		Default: "0",
+		Help: "balance that must remain after the last withdrawal;\n" +
+			"\"50k today\" is in today's money, grown by inflation\n" +
+			"to the last withdrawal. The money lasts only when\n" +
+			"every withdrawal is paid in full and this is left",
 		Set: "leave",
-		put: func(t *target, v *value) { t.g.Leave = v.amount }},
+		put: func(t *target, v *value) { t.g.Leave, t.g.LeaveToday = v.amount, v.today }},
 	{Name: "priority", Scope: InGoal, Form: FormCount, Min: 1, Max: MaxGoals,
 		Default: "none",
 		Help: "the goal draws on the budget, 1 first; each goal its\n" +
@@ -421,6 +443,13 @@ var Keys = withChangeKeys([]*Key{
 		Missing: "every scenario needs a name",
 		Default: "required", Help: "unique within the file; --scenario NAME picks it",
 		put: func(t *target, v *value) { t.sc.Name = v.text }},
+	{Name: "name", Scope: InPerson, Form: FormName, Required: true,
+		Default: "required", Help: "a role or first name, used in ages such as \"Alex at 67\"",
+		put: func(t *target, v *value) { t.who.Name = v.text }},
+	{Name: "born", Scope: InPerson, Form: FormMonth, Required: true,
+		Default: "required", Help: "the birth month, YYYY-MM",
+		put: func(t *target, v *value) { t.who.Born = v.month }},
+
 	{Name: "changes", Scope: InScenario, Form: FormList, Items: InChange, Required: true, MaxItems: MaxChanges,
 		Missing: "want a list of changes, such as - goal: Retirement",
 		Default: "required", Help: "a list of changes, applied in order"},
@@ -573,7 +602,7 @@ var (
 		amount := func(sign string) string { return `\s*` + sign + `(?:[$€£¥]\s*)?` + digits }
 		return map[Form]string{
 			FormVersion:      `^1$`,
-			FormMonth:        `^\s*(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])\s*$`,
+			FormMonth:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|\S.*\s[aA][tT]\s+\d{1,3})\s*$`,
 			FormCurrency:     `^\s*` + words(money.CurrencyCodes()) + `\s*$`,
 			FormRounding:     `^\s*` + words(roundingWords) + `\s*$`,
 			FormRate:         `^` + rate + `$`,
@@ -585,7 +614,7 @@ var (
 			FormLength:       `^\s*\+?0*[1-9]\d*\s+` + words([]string{"year", "years", "month", "months"}) + `\s*$`,
 			FormGrowth:       `^(?:` + rate + `|\s*` + words([]string{"inflation"}) + `\s*)$`,
 			FormCount:        `^\s*\+?\d+\s*$`,
-			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|` + words([]string{"reached"}) + `)\s*$`,
+			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|\S.*\s[aA][tT]\s+\d{1,3}|` + words([]string{"reached"}) + `)\s*$`,
 			FormTaxRate:      `^\s*\+?0*(?:\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 		}
 	}()

@@ -18,10 +18,11 @@ const (
 	OneTime                     // a one-time amount, in or out
 	Interest                    // interest credited at an interest date
 	Fee                         // the monthly fee
+	Income                      // income received outside the account (it moves no balance)
 	Tax                         // the tax on a year's interest, paid from the account (see [AsItGrows])
 )
 
-var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "tax"}
+var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "income", "tax"}
 
 func (k EntryKind) String() string { return entryNames[k] }
 
@@ -36,6 +37,9 @@ type Entry struct {
 	// Short is the part of a withdrawal that could not be paid because the
 	// balance ran out; zero otherwise.
 	Short money.Amount
+	// FromIncome is the part of a withdrawal its month's income paid; the
+	// Amount is the rest, paid from the account.
+	FromIncome money.Amount
 }
 
 // A Ledger is every movement on one goal's account, in decimal, from the
@@ -73,11 +77,14 @@ func (l *Ledger) Entries() []Entry {
 				e.Kind = Fee
 			case engine.PostTax:
 				e.Kind = Tax
-			case engine.PostFlow:
+			case engine.PostFlow, engine.PostIncome:
 				e.Kind, e.Source = l.sources[r.Src].kind, l.sources[r.Src].name
 			}
 			if r.Short != 0 {
 				e.Short = money.Minor(r.Short, l.places)
+			}
+			if r.Covered != 0 {
+				e.FromIncome = money.Minor(r.Covered, l.places)
 			}
 			l.entries = append(l.entries, e)
 		}
@@ -138,13 +145,16 @@ const (
 
 // A Row sums a projection period.
 type Row struct {
-	Label        string // "2027" or "2027-03"
-	From, To     Month
-	Opening      money.Amount
-	Deposits     money.Amount // stream deposits and one-time amounts in
-	Withdrawals  money.Amount // stream withdrawals and one-time amounts out, as a positive sum
-	Interest     money.Amount
-	Fees         money.Amount // as a positive sum
+	Label       string // "2027" or "2027-03"
+	From, To    Month
+	Opening     money.Amount
+	Deposits    money.Amount // stream deposits and one-time amounts in
+	Withdrawals money.Amount // stream withdrawals and one-time amounts out, as a positive sum
+	Interest    money.Amount
+	Fees        money.Amount // as a positive sum
+	// Income is the goal's income that paid withdrawals (not in Deposits,
+	// and not in Withdrawals, which are what the account paid).
+	Income       money.Amount
 	Tax          money.Amount // tax on interest paid from the account, as a positive sum
 	Closing      money.Amount
 	ClosingToday money.Amount // the closing balance in today's money
@@ -192,7 +202,10 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 			continue
 		}
 		r := &rows[i]
+		r.Income = r.Income.Add(e.FromIncome)
 		switch {
+		case e.Kind == Income:
+			// received outside the account: counted where it pays
 		case e.Kind == Interest:
 			r.Interest = r.Interest.Add(e.Amount)
 		case e.Kind == Fee:
@@ -213,6 +226,7 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		tot.Withdrawals = tot.Withdrawals.Add(r.Withdrawals)
 		tot.Interest = tot.Interest.Add(r.Interest)
 		tot.Fees = tot.Fees.Add(r.Fees)
+		tot.Income = tot.Income.Add(r.Income)
 		tot.Tax = tot.Tax.Add(r.Tax)
 		tot.Short = tot.Short.Add(r.Short)
 	}

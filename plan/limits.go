@@ -21,6 +21,7 @@ const (
 	MaxInflationPct  = 50
 	MaxGrowthPercent = 50 // a stream's yearly rise or fall, effective
 	MaxScenarios     = 50 // named scenarios in a file
+	MaxPeople        = 10 // people in a file
 	MaxChanges       = 50 // changes in one scenario
 )
 

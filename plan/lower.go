@@ -53,10 +53,10 @@ type schedule struct {
 	rounding money.Rounding
 }
 
-// streams returns goal g's streams in source order: deposits, then
-// withdrawals.
+// streams returns goal g's streams in source order: deposits, withdrawals,
+// then income.
 func streams(g *Goal) []*Stream {
-	return append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...)
+	return append(append(append([]*Stream(nil), g.Deposits...), g.Withdrawals...), g.Income...)
 }
 
 // shapeOf returns the shape of goal g through the end of month end; its
@@ -74,7 +74,7 @@ func shapeOf(p *Plan, g *Goal, end, stop Month, hasStop bool) engine.Shape {
 			first = 1 + p.Inflation.Over(float64(st.From-p.Start)/12)
 		}
 		ss := engine.StreamShape{PerYear: st.Every.PerYear(), Begin: st.Timing == Begin, From: int32(st.From - p.Start),
-			HasUntil: st.HasUntil, Out: st.Out, First: first, Grow: st.growth(p.Inflation), Today: st.Today, GrowInflation: st.GrowInflation}
+			HasUntil: st.HasUntil, Out: st.Out, First: first, Grow: st.growth(p.Inflation), Today: st.Today, GrowInflation: st.GrowInflation, Income: st.Income}
 		if st.HasUntil {
 			ss.Until = int32(st.Until - p.Start)
 		}
@@ -137,14 +137,17 @@ func compileStop(p *Plan, g *Goal, end, stop Month, hasStop bool) *schedule {
 }
 
 // sourcesOf lists goal g's flow sources in schedule order: the opening
-// balance, deposits, withdrawals, one-time amounts. A withdrawal stated
-// net of tax is the gross amount the account pays ([Plan.Gross]).
+// balance, deposits, withdrawals, income, one-time amounts. A withdrawal
+// stated net of tax is the gross amount the account pays ([Plan.Gross]).
 func sourcesOf(p *Plan, g *Goal) []source {
 	out := []source{{kind: Opening, name: "opening balance", base: g.Balance}}
 	for _, st := range streams(g) {
 		kind := Deposit
-		if st.Out {
+		switch {
+		case st.Out:
 			kind = Withdrawal
+		case st.Income:
+			kind = Income
 		}
 		base := st.Amount
 		if st.Out && st.Net {
@@ -263,7 +266,7 @@ func (p *Plan) checkBounds(g *Goal) error {
 	return nil
 }
 
-// flowOf reports whether e is an amount of source src.
+// flowOf reports whether e is an amount of source src (income included).
 func flowOf(e *engine.Event, src int32) bool {
-	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin) && e.Src == src
+	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin || e.Kind == engine.Income) && e.Src == src
 }

@@ -15,6 +15,9 @@ type Plan struct {
 	Inflation money.Rate     // a year; "today" amounts grow by it
 	Rounding  money.Rounding // rule for every posting
 	Goals     []*Goal
+	// People are the household's people, by the name the file gives them,
+	// with their birth months; months may be written as their ages.
+	People []Person
 	// InflationVolatility is the yearly volatility of log-inflation for
 	// [Simulate], as a fraction; HasInflationVolatility says the file gave it.
 	InflationVolatility    float64
@@ -112,8 +115,14 @@ type Goal struct {
 	HasBy       bool
 	Deposits    []*Stream
 	Withdrawals []*Stream
-	Once        []Once
-	Leave       money.Amount // balance that must remain after the last withdrawal
+	// Income are streams paid from outside the account (a pension, a
+	// benefit, part-time work): each amount pays the withdrawals of the
+	// month it is paid in, and the account pays the rest; what a month's
+	// withdrawals do not need is not deposited. Never money set aside.
+	Income     []*Stream
+	Once       []Once
+	Leave      money.Amount // balance that must remain after the last withdrawal
+	LeaveToday bool         // Leave is in today's money, grown by inflation to the last withdrawal
 	// Volatility is the yearly volatility of log-returns for [Simulate], as
 	// a fraction; HasVolatility says the file gave it.
 	Volatility    float64
@@ -251,6 +260,7 @@ type Stream struct {
 	Grow          float64
 	GrowInflation bool
 	Out           bool // a withdrawal
+	Income        bool // income from outside the account (see Goal.Income)
 	// Net says a withdrawal's Amount is what the household receives after
 	// the tax on withdrawals: the account pays [Plan.Gross] of it.
 	Net bool
@@ -290,6 +300,7 @@ func (g *Goal) clone() *Goal {
 	h.Once = append([]Once(nil), g.Once...)
 	h.Deposits = cloneStreams(g.Deposits)
 	h.Withdrawals = cloneStreams(g.Withdrawals)
+	h.Income = cloneStreams(g.Income)
 	return &h
 }
 
@@ -327,6 +338,19 @@ func (p *Plan) TargetAt(g *Goal) money.Amount {
 	}
 	years := float64(g.By-p.Start+1) / 12
 	return g.Target.MulFloat(1+p.Inflation.Over(years)).Round(p.Currency.Places, p.Rounding)
+}
+
+// LeaveAt returns what goal g must leave after its last withdrawal, in
+// money of month end (the last withdrawal's month): the amount as written,
+// or for an amount in today's money, grown by inflation from the plan's
+// start to the end of that month, as a target in today's money grows to
+// its deadline.
+func (p *Plan) LeaveAt(g *Goal, end Month) money.Amount {
+	if !g.LeaveToday {
+		return g.Leave
+	}
+	years := float64(end-p.Start+1) / 12
+	return g.Leave.MulFloat(1+p.Inflation.Over(years)).Round(p.Currency.Places, p.Rounding)
 }
 
 // Today returns an amount at the end of month m expressed in today's money

@@ -262,12 +262,12 @@ func (d *decoder) rate(n *yaml.Node, path string, lo, hi float64) (money.Rate, b
 	return r, true
 }
 
-func (d *decoder) month(n *yaml.Node, path string) (Month, bool) {
+func (d *decoder) month(p *Plan, n *yaml.Node, path string) (Month, bool) {
 	s, ok := d.scalar(n, path, "a month such as 2027-01")
 	if !ok {
 		return 0, false
 	}
-	m, err := ParseMonth(s)
+	m, err := p.MonthOf(s)
 	if err != nil {
 		d.errorf(n, path, "%v", err)
 		return 0, false
@@ -324,7 +324,7 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 			return false
 		}
 	case FormMonth:
-		if v.month, ok = d.month(n, path); ok && k.Scope != InPlan {
+		if v.month, ok = d.month(t.p, n, path); ok && k.Scope != InPlan && k.Scope != InPerson {
 			ok = d.inHorizon(t.p, n, path, v.month)
 		}
 	case FormCurrency:
@@ -408,7 +408,7 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 		if s, sok := d.scalar(n, path, want[k.Form]); sok && strings.EqualFold(strings.TrimSpace(s), "reached") {
 			v.reached, ok = true, true
 		} else if sok {
-			if v.month, ok = d.month(n, path); ok {
+			if v.month, ok = d.month(t.p, n, path); ok {
 				ok = d.inHorizon(t.p, n, path, v.month)
 			}
 		}
@@ -474,6 +474,21 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 			d.bad["start"] = true // reported as missing
 		}
 	}
+	if v := given["people"]; v != nil {
+		items, _ := d.list(v, "people", "people")
+		for i, pn := range items {
+			pp := fmt.Sprintf("people[%d]", i)
+			var who Person
+			if given := d.keys(resolve(pn), pp, InPerson, &target{p: p, who: &who}); given != nil &&
+				given["name"] != nil && given["born"] != nil && !d.bad[pp+".name"] && !d.bad[pp+".born"] {
+				if p.Person(who.Name) != nil {
+					d.errorf(pn, join(pp, "name"), "duplicate person %s", money.Quote(who.Name))
+					continue
+				}
+				p.People = append(p.People, who)
+			}
+		}
+	}
 	if v := given["scenarios"]; v != nil {
 		d.scenarios(p, v)
 	}
@@ -528,11 +543,8 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		g.Rates = []RateStep{{From: p.Start, Rate: money.EffectiveRate(0)}}
 	}
 	var streams named
-	for _, out := range []bool{false, true} {
-		key := "deposits"
-		if out {
-			key = "withdrawals"
-		}
+	for _, key := range []string{"deposits", "withdrawals", "income"} {
+		out := key == "withdrawals"
 		v := given[key]
 		if v == nil {
 			continue
@@ -541,13 +553,16 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 		items, _ := d.list(v, kp, "streams")
 		for i, sn := range items {
 			sp := fmt.Sprintf("%s[%d]", kp, i)
-			if s := d.stream(p, g, resolve(sn), sp, out); s != nil {
+			if s := d.stream(p, g, resolve(sn), sp, out, key == "income"); s != nil {
 				if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
 					d.errorf(sn, join(sp, "name"), "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
 				}
-				if out {
+				switch key {
+				case "withdrawals":
 					g.Withdrawals = append(g.Withdrawals, s)
-				} else {
+				case "income":
+					g.Income = append(g.Income, s)
+				default:
 					g.Deposits = append(g.Deposits, s)
 				}
 			}
@@ -629,11 +644,11 @@ func (d *decoder) rates(k *Key, p *Plan, v *yaml.Node, path string) []RateStep {
 	return steps
 }
 
-func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out bool) *Stream {
-	s := &Stream{Out: out, From: p.Start}
+func (d *decoder) stream(p *Plan, g *Goal, n *yaml.Node, path string, out, income bool) *Stream {
+	s := &Stream{Out: out, Income: income, From: p.Start}
 	scope := InStream
-	if out {
-		scope = InWithdrawal
+	if out || income {
+		scope = InWithdrawal // until or for
 	}
 	given := d.keys(n, path, scope, &target{p: p, g: g, s: s})
 	if given == nil {

@@ -34,7 +34,9 @@ type SimDeposit struct {
 
 // SolveDeposit finds the smallest deposit per period of the goal's deposit
 // stream named stream ("" for the first) such that at least a share level
-// (0.9 for 90%) of the simulated paths meet the target by the deadline.
+// (0.9 for 90%) of the simulated paths meet the target by the deadline; a
+// goal with withdrawals and no target has the capital they need as its
+// target (see [ForCapital]).
 // Every candidate amount is tried on the same random numbers (the same
 // seed and paths), so the share succeeding rises with the amount; the
 // answer meets level and one minor unit less does not. It returns a
@@ -46,6 +48,16 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 	st, err := resolveSim(p, g, opts)
 	if err != nil {
 		return nil, err
+	}
+	if !g.HasTarget && len(g.Withdrawals) > 0 {
+		// no target: the capital the withdrawals need, at its month, is it
+		c, err := solveCapital(p, g, false)
+		if err != nil {
+			return nil, err
+		}
+		h := g.clone()
+		h.Target, h.HasTarget, h.TargetToday, h.By, h.HasBy = c.Amount, true, false, c.Month, true
+		g = h
 	}
 	if err := needTarget(g, true); err != nil {
 		return nil, err

@@ -115,8 +115,11 @@ type Simulation struct {
 	Rows []SimRow
 
 	// HasWithdrawals is set for a goal with withdrawals (or one-time amounts
-	// out). Lasts is the share of paths with no shortfall through
-	// LastWithdrawal; RunOutPaths paths run out, RunOut gives the
+	// out). The money lasts on a path when every withdrawal through
+	// LastWithdrawal is paid in full and Leave (the goal's leave in money of
+	// that month, at the plan's inflation) is left after the last one:
+	// Lasts is the share of such paths. LeaveShortPaths paths pay every
+	// withdrawal but leave less. RunOutPaths paths run out, RunOut gives the
 	// percentiles of the month they first run short (valid when RunOutPaths
 	// > 0) and RunOutBy the share of all paths running out in each decade
 	// from FirstWithdrawal.
@@ -125,6 +128,8 @@ type Simulation struct {
 	LastWithdrawal  Month
 	Lasts           float64
 	LastsPaths      int
+	Leave           money.Amount
+	LeaveShortPaths int
 	RunOutPaths     int
 	RunOut          MonthPercentiles
 	RunOutBy        []RunOutBucket
@@ -206,6 +211,7 @@ type simRaw struct {
 	deadline []float64 // balance at the deadline
 	target   []float64 // target at the deadline (nil: the same on every path)
 	short    []int32   // month index of the first shortfall, −1 if none
+	left     []float64 // balance at the end of the last withdrawal's month (nil: no withdrawals)
 	rows     [][]float64
 }
 
@@ -298,7 +304,14 @@ func simulate(p *Plan, g *Goal, opts SimOptions, pr *params, rawOut **simRaw) (*
 			}
 		}
 		sim.RunOutPaths = len(months)
-		sim.LastsPaths = st.paths - len(months)
+		sim.Leave = p.LeaveAt(g, sim.LastWithdrawal)
+		leave := pg.toMinor(sim.Leave)
+		for i, m := range raw.short {
+			if m < 0 && !pg.meets(raw.left[i], leave) {
+				sim.LeaveShortPaths++
+			}
+		}
+		sim.LastsPaths = st.paths - len(months) - sim.LeaveShortPaths
 		sim.Lasts = float64(sim.LastsPaths) / float64(st.paths)
 		slices.Sort(months)
 		if len(months) > 0 {
@@ -656,6 +669,15 @@ func (pg *simProgram) runAll(st simSetup, amounts []float64) *simRaw {
 		raw.rows[r] = make([]float64, st.paths)
 		byMonth[m-pg.s.plan.Start] = raw.rows[r]
 	}
+	shared := false       // raw.left is a row's, which its percentiles sort
+	if pg.firstOut >= 0 { // what is left after the last withdrawal
+		if byMonth[pg.lastOut] == nil {
+			byMonth[pg.lastOut] = make([]float64, st.paths)
+		} else {
+			shared = true
+		}
+		raw.left = byMonth[pg.lastOut]
+	}
 	varies := pg.targetIdx != 0 && !pg.noInfl
 	if varies {
 		raw.target = make([]float64, st.paths)
@@ -673,6 +695,9 @@ func (pg *simProgram) runAll(st simSetup, amounts []float64) *simRaw {
 			}
 		}
 	})
+	if shared {
+		raw.left = slices.Clone(raw.left)
+	}
 	return raw
 }
 

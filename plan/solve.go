@@ -20,9 +20,10 @@ const (
 	ForStart                      // the opening balance that meets it
 	ForWithdrawal                 // the largest sustainable withdrawal
 	ForLasts                      // the month the money runs out
+	ForCapital                    // the balance withdrawals need when they begin
 )
 
-var quantityNames = []string{"time", "deposit", "rate", "start", "withdrawal", "lasts"}
+var quantityNames = []string{"time", "deposit", "rate", "start", "withdrawal", "lasts", "capital"}
 
 func (q Quantity) String() string { return quantityNames[q] }
 
@@ -30,7 +31,7 @@ func (q Quantity) String() string { return quantityNames[q] }
 var Quantities = strings.Join(quantityNames, ", ")
 
 // ParseQuantity parses a quantity name: time, deposit, rate, start,
-// withdrawal or lasts.
+// withdrawal, lasts or capital.
 func ParseQuantity(s string) (Quantity, error) {
 	for i, n := range quantityNames {
 		if strings.EqualFold(strings.TrimSpace(s), n) {
@@ -87,16 +88,25 @@ type Answer struct {
 	// whose balance can differ by more than the rounding.)
 	ShownEffective, ShownNominal float64
 
-	// ForLasts and ForWithdrawal: whether the money lasts, and what is left
-	// after the last withdrawal.
+	// ForLasts and ForWithdrawal: whether the money lasts — every
+	// withdrawal paid in full and the goal's leave (Target) left after the
+	// last one — and what is left after the last withdrawal. Paid is set
+	// when every withdrawal is paid, lasting or not.
 	Lasts bool
+	Paid  bool
 	Left  money.Amount
+
+	// ForCapital: Amount is the capital needed at the end of Month (the
+	// deadline, or the month before the first withdrawal), Deadline the
+	// last withdrawal's month, Target the leave then; its Equation states
+	// the capital as the present value at Month of what it pays, and Left
+	// and Balance what is left after the last withdrawal.
 
 	Deadline Month        // the month the answer is measured at
 	Target   money.Amount // the target in money of that month
 	Balance  money.Amount // the ledger's balance then
 	Ledger   *Ledger      // the ledger under the answer
-	Equation *Equation    // the equation of value at Deadline under the answer
+	Equation *Equation    // the equation of value at Deadline (ForCapital: at Month) under the answer
 	Note     string       // a remark on the answer, in plain words
 
 	// What the answer means after tax, for a goal with a tax treatment
@@ -110,6 +120,22 @@ type Answer struct {
 
 // horizonEnd is the last month a plan may reach.
 func horizonEnd(p *Plan) Month { return p.Start.Add(HorizonYears*12 - 1) }
+
+// firstWithdrawal returns the first month of goal g's withdrawal streams,
+// and whether it has any.
+func firstWithdrawal(g *Goal) (Month, bool) {
+	var m Month
+	for i, s := range g.Withdrawals {
+		if i == 0 || s.From < m {
+			m = s.From
+		}
+	}
+	return m, len(g.Withdrawals) > 0
+}
+
+// LastWithdrawal returns the month of goal g's last withdrawal, and false
+// when its withdrawals are open-ended (or it has none).
+func (p *Plan) LastWithdrawal(g *Goal) (Month, bool) { return lastWithdrawal(p, g) }
 
 // lastWithdrawal returns the last month with a withdrawal, or the horizon.
 func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
@@ -151,6 +177,8 @@ func solveFor(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 		return solveWithdrawal(p, g, q, full)
 	case ForLasts:
 		return solveLasts(p, g, full)
+	case ForCapital:
+		return solveCapital(p, g, full)
 	}
 	return nil, fmt.Errorf("unknown quantity %d", q.For)
 }
@@ -167,6 +195,23 @@ func needTarget(g *Goal, deadline bool) error {
 		return noSolution(g, "the goal has no deadline to solve for (add by: YYYY-MM)")
 	}
 	return nil
+}
+
+// goalTarget returns what goal g must hold at the end of month by: its
+// target at its deadline, or for a goal with withdrawals and no target, the
+// capital they need (see [ForCapital]).
+func goalTarget(p *Plan, g *Goal) (target money.Amount, by Month, err error) {
+	if !g.HasTarget && len(g.Withdrawals) > 0 {
+		a, err := solveCapital(p, g, false)
+		if err != nil {
+			return target, 0, err
+		}
+		return a.Amount, a.Month, nil
+	}
+	if err := needTarget(g, true); err != nil {
+		return target, 0, err
+	}
+	return p.TargetAt(g), g.By, nil
 }
 
 // targetAtMonth is the target in money of the end of month m.
@@ -203,6 +248,12 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		return nil, err
 	}
 	end := horizonEnd(p)
+	// A goal with withdrawals is reached only before they begin: never at
+	// a month after the money first ran out and was refilled.
+	firstOut, drawdown := firstWithdrawal(g)
+	if drawdown {
+		end = min(end, max(firstOut-1, p.Start))
+	}
 	reach := reaches(p, g)
 	// Most goals are reached by their own horizon, and nearly all within
 	// decades: walk the goal's horizon first, then 40 years, and go to the
@@ -211,7 +262,9 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 	var s *schedule
 	var pr *params
 	var r engine.Result
-	o := engine.Options{Reach: func(m int32, bal float64) bool { return reach(p.Start+Month(m), bal) }}
+	o := engine.Options{Reach: func(m int32, bal float64) bool {
+		return (!drawdown || p.Start+Month(m) < firstOut) && reach(p.Start+Month(m), bal)
+	}}
 	own := min(Horizon(p, g), end)
 	for _, h := range []Month{own, min(max(p.Start.Add(40*12-1), own), end), end} {
 		if s != nil && h <= s.end {
@@ -224,9 +277,20 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 	}
 	if !r.Reached {
-		ends := make([]float64, end-p.Start+1)
+		if drawdown {
+			s = compile(p, g, horizonEnd(p))
+			pr = s.defaultParams()
+		}
+		ends := make([]float64, s.end-p.Start+1)
 		s.exact(pr, engine.Options{MonthEnds: ends})
-		return nil, noSolution(g, "%s", unreachableReason(p, g, ends))
+		why := unreachableReason(p, g, ends)
+		for m := firstOut; drawdown && m <= s.end; m++ {
+			if reach(m, ends[m-p.Start]) { // only after they begin
+				why = fmt.Sprintf("the balance does not reach the target before withdrawals begin in %s", firstOut)
+				break
+			}
+		}
+		return nil, noSolution(g, "%s", why)
 	}
 	found := p.Start + Month(r.ReachMonth)
 	a := &Answer{Goal: g, For: ForTime, Month: found, Months: int(found-p.Start) + 1, Periods: math.NaN()}
@@ -401,10 +465,11 @@ func searchCentsFrom(ok func(c int64) bool, guess, step, limit int64, up bool) (
 // solveAmount solves for the deposit of a stream (start false) or the
 // opening balance (start true).
 func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error) {
-	if err := needTarget(g, true); err != nil {
+	target, by, err := goalTarget(p, g)
+	if err != nil {
 		return nil, err
 	}
-	s := compile(p, g, g.By)
+	s := compile(p, g, by)
 	var st *Stream
 	idx := int32(0)
 	if !start {
@@ -417,7 +482,6 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 		}
 		idx = s.sourceIndex(st)
 	}
-	target := p.TargetAt(g)
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
 	meets := func(c int64) bool { // meets the target with every withdrawal paid
@@ -448,7 +512,7 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 		return nil, noSolution(g, "no amount up to the %s limit meets the target", amountLimit)
 	}
 	set(c)
-	a := &Answer{Goal: g, For: ForDeposit, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: g.By, Target: target}
+	a := &Answer{Goal: g, For: ForDeposit, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: by, Target: target}
 	if start {
 		a.For = ForStart
 	}
@@ -510,10 +574,11 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	idx := s.sourceIndex(st)
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
+	leave := p.LeaveAt(g, end)
 	ok := func(c int64) bool { // every withdrawal paid, and leave left
 		set(c)
 		bal, r := s.closing(pr)
-		return !r.Short && bal.Cmp(g.Leave) >= 0
+		return !r.Short && bal.Cmp(leave) >= 0
 	}
 	// linear guess
 	pr1 := s.defaultParams()
@@ -527,15 +592,15 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 		return nil, noSolution(g, "the stream has no withdrawals on or before %s", end)
 	}
 	if !ok(0) {
-		return nil, noSolution(g, "even with no withdrawals the balance falls short of leave %s", g.Leave.Format(p.Currency, false))
+		return nil, noSolution(g, "even with no withdrawals the balance falls short of leave %s", leave.Format(p.Currency, false))
 	}
 	scale := math.Pow(10, float64(p.Currency.Places))
-	guess := max(int64((b0-g.Leave.Float())/per*scale), 0)
+	guess := max(int64((b0-leave.Float())/per*scale), 0)
 	c, _ := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), false)
 	set(c)
-	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true}
+	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true, Paid: true}
 	a.Balance, _ = s.closing(pr)
-	a.Left, a.Target = a.Balance, g.Leave
+	a.Left, a.Target = a.Balance, leave
 	a.FirstAmount = s.firstAmount(pr, idx)
 	s.prove(a, pr, full)
 	return a, nil
@@ -562,11 +627,17 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 		return a, nil
 	}
-	a.Lasts = true
-	a.Month, a.Months, a.Deadline = end, int(end-p.Start)+1, end
-	a.Balance, a.Left = bal, bal
+	a.Month, a.Months, a.Deadline, a.Paid = end, int(end-p.Start)+1, end, true
+	a.Balance, a.Left, a.Target = bal, bal, p.LeaveAt(g, end)
+	// Lasting means every withdrawal paid in full and leave left after
+	// the last one.
+	a.Lasts = bal.Cmp(a.Target) >= 0
+	if !a.Lasts {
+		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left after the last one, short of the %s to leave by %s",
+			bal.Format(p.Currency, false), a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
+	}
 	s.prove(a, pr, full)
-	if end == horizonEnd(p) {
+	if a.Lasts && end == horizonEnd(p) {
 		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
 	}
 	return a, nil

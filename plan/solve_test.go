@@ -281,13 +281,13 @@ func TestSolve_Lasts(t *testing.T) {
 }
 
 func TestParseQuantity(t *testing.T) {
-	for _, name := range []string{"time", "deposit", "rate", "start", "withdrawal", "lasts"} {
+	for _, name := range []string{"time", "deposit", "rate", "start", "withdrawal", "lasts", "capital"} {
 		q, err := plan.ParseQuantity(" " + strings.ToUpper(name) + " ")
 		if err != nil || q.String() != name {
 			t.Errorf("ParseQuantity(%q) = %v, %v; want %s", name, q, err, name)
 		}
 	}
-	if _, err := plan.ParseQuantity("speed"); err == nil || !strings.Contains(err.Error(), `unknown quantity "speed" (want time, deposit, rate, start, withdrawal, lasts)`) {
+	if _, err := plan.ParseQuantity("speed"); err == nil || !strings.Contains(err.Error(), `unknown quantity "speed" (want time, deposit, rate, start, withdrawal, lasts, capital)`) {
 		t.Errorf("ParseQuantity(%q) error = %v, want unknown quantity", "speed", err)
 	}
 }

@@ -23,6 +23,12 @@ type GoalStatus struct {
 	// MonthlyNow and MonthlyNeeded are the goal's deposits in the plan's
 	// first month, as a monthly equivalent, now and as needed.
 	MonthlyNow, MonthlyNeeded money.Amount
+	// Capital, for a goal with withdrawals and no target, is the capital
+	// they need (see [ForCapital]), when CapitalErr is nil: it stands as the
+	// goal's target at the end of Capital.Month, which TargetAt, Projected,
+	// OnTrack, Short and Needed measure.
+	Capital    *Answer
+	CapitalErr error
 	// Lasts is the drawdown answer for a goal with withdrawals.
 	Lasts    *Answer
 	LastsErr error
@@ -60,11 +66,11 @@ type Status struct {
 }
 
 // Short returns the goals whose projection falls short of the target at
-// the deadline, in file order.
+// the deadline (or of the capital their withdrawals need), in file order.
 func (st *Status) Short() []GoalStatus {
 	var out []GoalStatus
 	for _, gs := range st.Goals {
-		if gs.Goal.HasTarget && gs.Goal.HasBy && !gs.OnTrack {
+		if (gs.Goal.HasTarget && gs.Goal.HasBy || gs.Capital != nil) && !gs.OnTrack {
 			out = append(out, gs)
 		}
 	}
@@ -113,12 +119,34 @@ func StatusOf(p *Plan) *Status {
 			}
 		} else if g.HasTarget {
 			gs.TargetAt = g.Target
+		} else if first, ok := firstWithdrawal(g); ok && first > p.Start {
+			// no target: the capital the withdrawals need is the goal's
+			// (a drawdown under way from the start has its answer in Lasts)
+			gs.Capital, gs.CapitalErr = solve(p, g, Question{For: ForCapital}, true)
+			if gs.CapitalErr == nil {
+				at := gs.Capital.Month
+				gs.TargetAt = gs.Capital.Amount
+				l, _ := Project(p, g, at)
+				gs.Projected = l.BalanceAt(at)
+				gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
+				if !gs.OnTrack {
+					gs.Short = gs.TargetAt.Sub(gs.Projected)
+				}
+				gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
+				if gs.NeededErr == nil {
+					gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
+				}
+			}
 		}
 		if g.HasTarget {
-			if a, err := solve(p, g, Question{For: ForTime}, false); err == nil {
-				gs.Reached = a.Month
-			} else {
+			if a, err := solve(p, g, Question{For: ForTime}, false); err != nil {
 				gs.Reach = err
+			} else if g.HasBy && !gs.OnTrack && a.Month <= g.By {
+				// reached, then fallen below by the deadline: a row never
+				// says both reached and short
+				gs.Reach = noSolution(g, "the balance reaches the target in %s but falls below it by the deadline", a.Month)
+			} else {
+				gs.Reached = a.Month
 			}
 		}
 		if len(g.Withdrawals) > 0 {
@@ -182,4 +210,14 @@ func budgetStatus(p *Plan, a *Allocation, i int, gs *GoalStatus) {
 	if len(g.Withdrawals) > 0 {
 		gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
 	}
+}
+
+// Deadline is the month the goal's status is measured at: its deadline, or
+// for a goal measured against the capital its withdrawals need, the month
+// that capital is needed.
+func (gs GoalStatus) Deadline() Month {
+	if gs.Capital != nil {
+		return gs.Capital.Month
+	}
+	return gs.Goal.By
 }

@@ -41,7 +41,7 @@ func flagValues(cmd, name string, goals func() (goals, streams []string)) []stri
 		return outputFormats
 	case "for":
 		if cmd == "simulate" {
-			return []string{"deposit"}
+			return []string{"deposit", "withdrawal"}
 		}
 		return strings.Split(plan.Quantities, ", ")
 	case "by":

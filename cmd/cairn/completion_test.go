@@ -20,9 +20,9 @@ func TestComplete(t *testing.T) {
 	}{
 		{[]string{"s"}, []string{"status", "solve", "simulate"}},
 		{[]string{"--"}, []string{"--help", "--version"}},
-		{[]string{"solve", "--for", ""}, []string{"time", "deposit", "rate", "start", "withdrawal", "lasts"}},
+		{[]string{"solve", "--for", ""}, []string{"time", "deposit", "rate", "start", "withdrawal", "lasts", "capital"}},
 		{[]string{"compare", "--for", "r"}, []string{"rate"}},
-		{[]string{"simulate", "--for", ""}, []string{"deposit"}},
+		{[]string{"simulate", "--for", ""}, []string{"deposit", "withdrawal"}},
 		{[]string{"status", "-f", ""}, []string{"table", "csv", "json", "markdown"}},
 		{[]string{"help", "--format", ""}, []string{"text", "schema", "man"}},
 		{[]string{"project", "--by", ""}, []string{"year", "month"}},

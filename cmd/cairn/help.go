@@ -108,6 +108,7 @@ func keySections() string {
 		{"TOP LEVEL", []plan.Scope{plan.InPlan}},
 		{"EACH GOAL", []plan.Scope{plan.InGoal}},
 		{"EACH STREAM (deposits and withdrawals)", []plan.Scope{plan.InStream, plan.InWithdrawal}},
+		{"EACH PERSON (under people:)", []plan.Scope{plan.InPerson}},
 		{"THE BUDGET (under budget:; also a stream's keys: amount, every, timing, from, until, grow)", []plan.Scope{plan.InBudget}},
 		{"EACH SCENARIO (under scenarios:)", []plan.Scope{plan.InScenario}},
 		{"EACH CHANGE OF A SCENARIO (under changes:; values as --set takes them)", []plan.Scope{plan.InChange}},

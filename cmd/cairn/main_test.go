@@ -36,6 +36,9 @@ func TestScripts(t *testing.T) {
 			if err := os.WriteFile(filepath.Join(e.WorkDir, "taxes.yaml"), examples.Taxes, 0o644); err != nil {
 				return err
 			}
+			if err := os.WriteFile(filepath.Join(e.WorkDir, "retirement.yaml"), examples.Retirement, 0o644); err != nil {
+				return err
+			}
 			if err := os.WriteFile(filepath.Join(e.WorkDir, "budget.yaml"), examples.Budget, 0o644); err != nil {
 				return err
 			}

@@ -81,8 +81,9 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		period = "month"
 	}
 	d.Lead = []string{fmt.Sprintf("%s: projection by %s, %s to %s, in %s; \"today\" is the closing balance in money of %s.", g.Name, period, l.Start, l.End, p.Currency.Code, p.Start)}
-	var hasFees, hasTax, hasOut, short bool
+	var hasFees, hasTax, hasOut, short, hasIncome bool
 	for _, r := range rows {
+		hasIncome = hasIncome || !r.Income.IsZero()
 		hasFees = hasFees || !r.Fees.IsZero()
 		hasTax = hasTax || !r.Tax.IsZero()
 		hasOut = hasOut || !r.Withdrawals.IsZero()
@@ -92,6 +93,9 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		{Head: "deposits", Key: "deposits", Numeric: true}, {Head: "interest", Key: "interest", Numeric: true},
 		{Head: "fees", Key: "fees", Numeric: true, Hidden: !hasFees}, {Head: "withdrawals", Key: "withdrawals", Numeric: true, Hidden: !hasOut},
 		{Head: "closing", Key: "closing", Numeric: true}, {Head: "today", Long: "in today’s money", Key: "closing_today", Numeric: true}}}
+	if hasIncome {
+		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "income", Long: "income paying withdrawals", Key: "income", Numeric: true})
+	}
 	if hasTax { // a column only where tax is paid from the account, so other goals' tables keep theirs
 		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "tax", Key: "tax", Numeric: true})
 	}
@@ -99,6 +103,9 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	for k, r := range rows {
 		cells := []render.Cell{render.Text(r.Label), cash(p, r.Opening), cash(p, r.Deposits), cash(p, r.Interest), cash(p, r.Fees),
 			cash(p, r.Withdrawals), cash(p, r.Closing), cash(p, r.ClosingToday)}
+		if hasIncome { // income paying withdrawals, beside what the account paid
+			cells = slices.Insert(cells, 5, cash(p, r.Income))
+		}
 		if hasTax {
 			cells = slices.Insert(cells, 5, cash(p, r.Tax))
 		}
@@ -129,6 +136,21 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		d.Data["tax"] = taxJSON(p, g)
 		if g.RateOut() > 0 {
 			d.Data["closing_after_tax"] = jamt(p, p.AfterTax(g, l.Closing))
+		}
+	}
+	if hasIncome {
+		d.After = append(d.After, outsideIncomeWords(g))
+	}
+	if last, ok := p.LastWithdrawal(g); ok && last <= l.End {
+		if _, short := l.FirstShort(); !short {
+			left, leave := l.BalanceAt(last), p.LeaveAt(g, last)
+			if left.Cmp(leave) < 0 {
+				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid, but %s is left after the last one in %s, short of the %s to leave: the money does not last.",
+					amt(p, left), last, amt(p, leave)))
+				d.Data["leave_short_by"] = jamt(p, leave.Sub(left))
+			} else if !leave.IsZero() {
+				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid and %s is left after the last one in %s, at least the %s to leave.", amt(p, left), last, amt(p, leave)))
+			}
 		}
 	}
 	if m, ok := l.FirstShort(); ok {
@@ -190,4 +212,15 @@ func projectChart(p *plan.Plan, g *plan.Goal, rows []plan.Row, by plan.Period) s
 		head += fmt.Sprintf(" Each bar is the balance at the end of a run of %d %s.", k, periods)
 	}
 	return render.Wrap(head, render.LineWidth) + c.String()
+}
+
+// outsideIncomeWords says how goal g's income from outside the account
+// counts.
+func outsideIncomeWords(g *plan.Goal) string {
+	var names []string
+	for _, s := range g.Income {
+		names = append(names, streamLabel(s))
+	}
+	return fmt.Sprintf("%s: income from outside the account (%s) pays part of each month's withdrawals and the account pays the rest; "+
+		"income a month's withdrawals do not need is not deposited, and none of it is money set aside.", g.Name, strings.Join(names, ", "))
 }

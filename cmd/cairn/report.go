@@ -308,6 +308,8 @@ func lastsWords(p *plan.Plan, gf goalFigures) string {
 	switch {
 	case gf.Lasts != nil && gf.Lasts.Lasts:
 		return fmt.Sprintf("the planned withdrawals last through %s, leaving %s", gf.Lasts.Month, amt(p, gf.Lasts.Left))
+	case gf.Lasts != nil && gf.Lasts.Paid:
+		return "the planned withdrawals are paid but do not last: " + gf.Lasts.Note
 	case gf.Lasts != nil:
 		return "the planned withdrawals run out in " + gf.Lasts.Month.String()
 	case gf.LastsErr != nil:
@@ -421,6 +423,9 @@ func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
 	case gf.Lasts != nil && gf.Lasts.Lasts:
 		add("Planned withdrawals", fmt.Sprintf("last through %s", gf.Lasts.Month))
 		add("Left after the last withdrawal", amt(p, gf.Lasts.Left))
+	case gf.Lasts != nil && gf.Lasts.Paid:
+		add("Planned withdrawals", fmt.Sprintf("paid through %s, but short of what is to be left", gf.Lasts.Month))
+		add("Left after the last withdrawal", amt(p, gf.Lasts.Left)+", short of "+amt(p, gf.Lasts.Target))
 	case gf.Lasts != nil:
 		add("Planned withdrawals", "run out in "+gf.Lasts.Month.String())
 		add("Left after the last withdrawal", "nothing: the balance runs out first")
@@ -554,10 +559,17 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 	add("Inflation", fmt.Sprintf("%s a year; today’s money is money of %s", pct(p.Inflation.Effective()), p.Start))
 	for _, sv := range v.Streams {
 		term := "Deposits"
-		if sv.Stream.Out {
+		switch {
+		case sv.Stream.Out:
 			term = "Withdrawals"
+		case sv.Stream.Income:
+			term = "Income from outside the account"
 		}
-		add(term, streamWords(p, sv))
+		words := streamWords(p, sv)
+		if sv.Stream.Income {
+			words += "; it pays part of each month's withdrawals and is not deposited"
+		}
+		add(term, words)
 	}
 	for _, o := range g.Once {
 		name := o.Name
@@ -567,7 +579,11 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 		add("One-time", fmt.Sprintf("%s: %s at the end of %s", name, amt(p, o.Amount), o.On))
 	}
 	if len(g.Withdrawals) > 0 {
-		add("To leave", amt(p, g.Leave)+" after the last withdrawal")
+		leave := amt(p, g.Leave)
+		if g.LeaveToday {
+			leave += " today"
+		}
+		add("To leave", leave+" after the last withdrawal")
 	}
 	add("Rounding", fmt.Sprintf("each posting to %d decimal places, %s", p.Currency.Places, p.Rounding))
 	add("Shown through", v.Horizon.String())

@@ -88,6 +88,9 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 	case plan.InRateStep:
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate:\n      - " +
 			unless("rate", "rate: 1%\n        ") + unless("from", "from: 2027-01\n        ") + kv + "\n")
+	case plan.InPerson:
+		b.WriteString("cairn: 1\nstart: 2027-01\npeople:\n  - " + unless("name", "name: Alex\n    ") + unless("born", "born: 1960-01\n    ") + kv +
+			"\ngoals:\n  - name: g\n")
 	case plan.InChange:
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    balance: 1000\n    by: 2040-01\n" +
 			"    deposits:\n      - amount: 10\n        every: month\n" +

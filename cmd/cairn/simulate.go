@@ -25,7 +25,8 @@ func simulateCommand(e *env) *cli.Command {
 			"inflation. Reports the share of paths that meet the target by the deadline, percentiles of\n" +
 			"the balance at each year end, and for withdrawals how often and when the money runs out.\n" +
 			"--for deposit --success 90% solves for the deposit per period that meets the target in 90%\n" +
-			"of the paths. `cairn help file` gives the model. Results depend only on --seed and --paths.\n\n" +
+			"of the paths; --for withdrawal --success 90% for the largest withdrawal per period that\n" +
+			"lasts (every withdrawal paid and leave: left) in 90% of them. `cairn help file` gives the model. Results depend only on --seed and --paths.\n\n" +
 			"Example:\n   cairn simulate examples/household.yaml --goal Retirement --volatility 12%\n" +
 			"   cairn simulate examples/household.yaml --goal Retirement --volatility 12% --for deposit --success 90%",
 		Flags: append(fileFlags(true), goalFlag(true),
@@ -33,9 +34,9 @@ func simulateCommand(e *env) *cli.Command {
 			&cli.Uint64Flag{Name: "seed", Value: plan.DefaultSeed, Usage: "seed `N` of the random numbers; the same seed gives the same results"},
 			&cli.StringFlag{Name: "volatility", Usage: "volatility of returns a year, such as `15%` (default: the goal's volatility:, else 0%)"},
 			&cli.StringFlag{Name: "inflation-volatility", Usage: "volatility of inflation a year, such as `1%` (default: the file's inflation_volatility:, else 0%)"},
-			&cli.StringFlag{Name: "for", Usage: "solve for `QUANTITY`: only deposit (with --success)"},
+			&cli.StringFlag{Name: "for", Usage: "solve for `QUANTITY`: deposit or withdrawal (with --success)"},
 			&cli.StringFlag{Name: "success", Usage: "with --for deposit, the share of paths that must meet the target, such as `90%`"},
-			&cli.StringFlag{Name: "stream", Usage: "the deposit stream to solve for, by `NAME` (default: the first)"},
+			&cli.StringFlag{Name: "stream", Usage: "the deposit or withdrawal stream to solve for, by `NAME` (default: the first)"},
 		),
 		Action: func(c *cli.Context) error {
 			p, g, err := planAndGoal(c, e)
@@ -46,7 +47,7 @@ func simulateCommand(e *env) *cli.Command {
 			if err != nil {
 				return err
 			}
-			level, solve, err := simQuestion(c)
+			q, level, solve, err := simQuestion(c)
 			if err != nil {
 				return err
 			}
@@ -59,6 +60,23 @@ func simulateCommand(e *env) *cli.Command {
 					return usagef("", "%v", err)
 				}
 				return out(c, e, simulateDoc(p, sim, nil))
+			}
+			if q == "withdrawal" {
+				a, err := plan.SolveWithdrawalSim(p, g, c.String("stream"), level, opts)
+				if err != nil {
+					if plan.IsNoSolution(err) {
+						d := simDoc(p, g)
+						reason := reasonOf(err)
+						d.Lead = []string{fmt.Sprintf("%s: no withdrawal lasts in %s of the paths: %s.", g.Name, shareText(level), reason)}
+						d.Data["goal"], d.Data["for"], d.Data["success_level"], d.Data["answer"], d.Data["reason"] = g.Name, "withdrawal", jsonRate(level), nil, reason
+						if werr := out(c, e, d); werr != nil {
+							return werr
+						}
+						return &noAnswer{err}
+					}
+					return usagef("", "%v", err)
+				}
+				return out(c, e, simWithdrawalDoc(p, a))
 			}
 			a, err := plan.SolveDeposit(p, g, c.String("stream"), level, opts)
 			if err != nil {
@@ -102,23 +120,54 @@ func simOptions(c *cli.Context) (plan.SimOptions, error) {
 }
 
 // simQuestion reads --for and --success.
-func simQuestion(c *cli.Context) (level float64, solve bool, err error) {
-	q := strings.ToLower(strings.TrimSpace(c.String("for")))
+func simQuestion(c *cli.Context) (q string, level float64, solve bool, err error) {
+	q = strings.ToLower(strings.TrimSpace(c.String("for")))
 	switch {
 	case q == "" && !c.IsSet("success"):
-		return 0, false, nil
+		return q, 0, false, nil
 	case q == "":
-		return 0, false, usagef("for example --for deposit --success 90%", "--success needs --for deposit")
-	case q != "deposit":
-		return 0, false, usagef("for example --for deposit --success 90%", "--for: simulate solves only for deposit, not %q", c.String("for"))
+		return q, 0, false, usagef("for example --for deposit --success 90%", "--success needs --for deposit")
+	case q != "deposit" && q != "withdrawal":
+		return q, 0, false, usagef("for example --for deposit --success 90%", "--for: simulate solves only for deposit or withdrawal, not %q", c.String("for"))
+	case !c.IsSet("success") && q == "withdrawal":
+		return q, 0, false, usagef("for example --for withdrawal --success 90%", "--for withdrawal needs --success, the share of paths in which the money must last")
 	case !c.IsSet("success"):
-		return 0, false, usagef("for example --for deposit --success 90%", "--for deposit needs --success, the share of paths that must meet the target")
+		return q, 0, false, usagef("for example --for deposit --success 90%", "--for deposit needs --success, the share of paths that must meet the target")
 	}
 	x, err := plan.ParseSuccess(c.String("success"))
 	if err != nil {
-		return 0, false, usagef("for example --success 90%", "--success: %v", err)
+		return q, 0, false, usagef("for example --success 90%", "--success: %v", err)
 	}
-	return x, true, nil
+	return q, x, true, nil
+}
+
+// simWithdrawalDoc is the simulation at the withdrawal that lasts in the
+// share of paths asked for, that answer first.
+func simWithdrawalDoc(p *plan.Plan, a *plan.SimWithdrawal) *render.Doc {
+	d := simulateDoc(p, a.Sim, nil)
+	g, s, sim := a.Sim.Goal, a.Stream, a.Sim
+	lead := fmt.Sprintf("%s can pay %s of %s %s from %s and leave %s in at least %s of %s simulated paths (seed %d): %s of them last at that amount, %s at %s.",
+		g.Name, streamLabel(s), amountPhrase(p, s, a.Amount, a.FirstAmount), every(s), s.From, amt(p, a.Leave), shareText2(a.Level),
+		render.Grouped(sim.Paths), sim.Seed, render.Grouped(a.SuccessPaths), render.Grouped(a.AbovePaths), amt(p, a.Above))
+	d.Lead = append([]string{lead}, d.Lead...)
+	d.Data["for"] = "withdrawal"
+	d.Data["withdrawal"] = map[string]any{"stream": streamLabel(s), "every": s.Every.String(), "in_todays_money": s.Today,
+		"success_level": jsonRate(a.Level), "amount": jamt(p, a.Amount), "first_amount": jamt(p, a.FirstAmount), "leave": jamt(p, a.Leave),
+		"success": jsonRate(a.Success), "success_paths": a.SuccessPaths, "above": jamt(p, a.Above), "above_success": jsonRate(a.AboveSuccess), "above_paths": a.AbovePaths}
+	det := &render.Facts{Title: "Details"}
+	det.Add("stream", render.Text(streamLabel(s)+", "+every(s)))
+	det.Add("amount", cash(p, a.Amount))
+	det.Add("success level", render.Share(a.Level, 2))
+	ofAll := " of " + render.Grouped(sim.Paths)
+	det.Add("paths that last", render.Count(a.SuccessPaths).Then(ofAll))
+	more := "one unit more"
+	if p.Currency.Places == 2 {
+		more = "one cent more"
+	}
+	det.Add(more, cash(p, a.Above))
+	det.Add("paths that last then", render.Count(a.AbovePaths).Then(ofAll))
+	d.Blocks = append([]render.Block{det}, d.Blocks...)
+	return d
 }
 
 // simDoc is a document about a simulation of goal g, with the simulation's
@@ -275,6 +324,13 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *rend
 		jw := map[string]any{"first": sim.FirstWithdrawal.String(), "last": sim.LastWithdrawal.String(),
 			"lasts": jsonRate(sim.Lasts), "lasts_paths": sim.LastsPaths, "runs_out_paths": sim.RunOutPaths, "runs_out": nil}
 		line := fmt.Sprintf("%s: the money lasts through the last withdrawal in %s in %s of the paths.", g.Name, sim.LastWithdrawal, shareText(sim.Lasts))
+		if !sim.Leave.IsZero() {
+			line = fmt.Sprintf("%s: the money lasts through the last withdrawal in %s, leaving at least %s, in %s of the paths.", g.Name, sim.LastWithdrawal, amt(p, sim.Leave), shareText(sim.Lasts))
+		}
+		if sim.LeaveShortPaths > 0 {
+			line += fmt.Sprintf(" On %s paths every withdrawal is paid but less is left.", render.Grouped(sim.LeaveShortPaths))
+			jw["leave_short_paths"] = sim.LeaveShortPaths
+		}
 		if sim.RunOutPaths > 0 {
 			ro := sim.RunOut
 			line += fmt.Sprintf(" Where it runs out (%s of %s paths), it first falls short in %s at the median, in %s at the 5th percentile and in %s at the 95th.",
@@ -292,6 +348,9 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *rend
 			span := b.From.String() + " to " + b.To.String()
 			rt.Add(render.Label("runs out "+span, span), render.Count(b.Paths), render.Share(b.Share, 1))
 			buckets = append(buckets, map[string]any{"from": b.From.String(), "to": b.To.String(), "paths": b.Paths, "share": jsonRate(b.Share)})
+		}
+		if sim.LeaveShortPaths > 0 {
+			rt.Add(render.Label("paid, short of leave", "short of leave"), render.Count(sim.LeaveShortPaths), render.Share(float64(sim.LeaveShortPaths)/float64(sim.Paths), 1))
 		}
 		rt.Add(render.Label("lasts through "+sim.LastWithdrawal.String(), "lasts"), render.Count(sim.LastsPaths), render.Share(sim.Lasts, 1))
 		jw["by_decade"] = buckets

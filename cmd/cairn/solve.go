@@ -22,7 +22,11 @@ func solveCommand(e *env) *cli.Command {
 			"rate        the constant effective annual rate that meets it\n" +
 			"start       the opening balance needed today\n" +
 			"withdrawal  the largest withdrawal the money sustains through the last one\n" +
-			"lasts       the month the money runs out under the withdrawals\n\n" +
+			"lasts       the month the money runs out under the withdrawals\n" +
+			"capital     the balance the withdrawals need when they begin (at the\n" +
+			"            deadline, or the month before the first): every one paid\n" +
+			"            and leave left; deposit and start solve for it when the\n" +
+			"            goal has no target\n\n" +
 			"--explain adds the equation of value: one term per flow, with its factor, i, n and value.\n\n" +
 			"Example:\n   cairn solve examples/household.yaml --goal \"Emergency fund\" --for deposit --explain\n" +
 			"   cairn solve examples/household.yaml --goal Retirement --for withdrawal --stream income",
@@ -103,9 +107,52 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 			}
 			return s
 		}
-		return fmt.Sprintf("%s runs out of money in %s, after %s.", g.Name, a.Month, span(p, a))
+		if a.Paid {
+			return fmt.Sprintf("%s: the money does not last: %s (the last in %s).", g.Name, a.Note, a.Month)
+		}
+		return fmt.Sprintf("%s runs out of money in %s, after %s.", g.Name, monthAges(p, a.Month), span(p, a))
+	case plan.ForCapital:
+		s := fmt.Sprintf("%s needs %s at the end of %s to pay every withdrawal through %s", g.Name, amt(p, a.Amount), monthAges(p, a.Month), monthAges(p, a.Deadline))
+		if !a.Target.IsZero() {
+			s += " and leave " + amt(p, a.Target)
+		}
+		return s + "."
 	}
 	return ""
+}
+
+// monthAges is month m with the household's ages then, where the file
+// names its people: "2071-02 (when Alex is 88)".
+func monthAges(p *plan.Plan, m plan.Month) string {
+	if w := p.AgesAt(m); w != "" {
+		return m.String() + " (" + w + ")"
+	}
+	return m.String()
+}
+
+// capitalLine states a capital answer with its equation of value: each
+// term's amount times its factors, or its value where no factor describes
+// it.
+func capitalLine(p *plan.Plan, a *plan.Answer) string {
+	var b strings.Builder
+	for i, t := range a.Equation.Terms {
+		x := amt(p, t.Value.Abs())
+		if len(t.Factors) > 0 {
+			x = amt(p, t.Amount.Abs())
+			for _, f := range t.Factors {
+				x += " × " + f.String()
+			}
+		}
+		switch {
+		case t.Value.Sign() < 0:
+			b.WriteString(" − ")
+		case i > 0:
+			b.WriteString(" + ")
+		}
+		b.WriteString(t.Label + " " + x)
+	}
+	return fmt.Sprintf("%s: the capital needed at the end of %s is %s, the value then of what it pays: %s.",
+		a.Goal.Name, a.Month, amt(p, a.Amount), strings.TrimSpace(b.String()))
 }
 
 // span says how long the plan runs until the month of answer a, counting
@@ -135,13 +182,16 @@ func spanLabel(p *plan.Plan, a *plan.Answer) string {
 // answerValue is the answer as one cell: a month, an amount or a rate.
 func answerValue(p *plan.Plan, a *plan.Answer) render.Cell {
 	switch a.For {
-	case plan.ForDeposit, plan.ForStart, plan.ForWithdrawal:
+	case plan.ForDeposit, plan.ForStart, plan.ForWithdrawal, plan.ForCapital:
 		return cash(p, a.Amount)
 	case plan.ForRate:
 		return render.Rate(a.ShownEffective) // rounded toward meeting the target
 	case plan.ForLasts:
 		if a.Lasts {
 			return render.Label("lasts ("+amt(p, a.Left)+" left)", "lasts")
+		}
+		if a.Paid {
+			return render.Label("short of leave ("+amt(p, a.Left)+" left)", "short of leave")
 		}
 	}
 	return render.Month(a.Month)
@@ -189,6 +239,13 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		} else {
 			add("opening balance", cash(p, a.Amount))
 		}
+	case plan.ForCapital:
+		j["answer"] = jamt(p, a.Amount)
+		j["capital_at"] = a.Month.String()
+		j["leave"] = jamt(p, a.Target)
+		add("capital needed at the end of "+a.Month.String(), cash(p, a.Amount))
+		add("last withdrawal", render.Month(a.Deadline))
+		add("to leave", cash(p, a.Target))
 	case plan.ForRate:
 		comp := g.Rates[0].Rate.Compounding()
 		// each form as shown: either one written back meets the target
@@ -219,6 +276,14 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 			j["left"] = jamt(p, a.Left)
 			add("lasts through", render.Month(a.Month))
 			add("left after the last withdrawal", cash(p, a.Left))
+		} else if a.Paid {
+			j["answer"] = nil
+			j["paid_through"] = a.Month.String()
+			j["left"] = jamt(p, a.Left)
+			j["leave"] = jamt(p, a.Target)
+			add("every withdrawal paid through", render.Month(a.Month))
+			add("left after the last withdrawal", cash(p, a.Left))
+			add("to leave", cash(p, a.Target))
 		} else {
 			j["answer"] = a.Month.String()
 			j["months"] = a.Months
@@ -230,7 +295,7 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		j["left"] = jamt(p, a.Left)
 		add("left after the last withdrawal", cash(p, a.Left))
 	}
-	if g.HasTarget && a.For != plan.ForWithdrawal && a.For != plan.ForLasts {
+	if g.HasTarget && a.For != plan.ForWithdrawal && a.For != plan.ForLasts && a.For != plan.ForCapital {
 		label := "target at " + a.Deadline.String()
 		add(label, cash(p, a.Target))
 		j["target"] = jamt(p, a.Target)
@@ -251,8 +316,12 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		d.CSV = eq
 		j["equation"] = rows
 		j["equation_sum"] = jamt(p, a.Equation.Sum)
-		d.After = append(d.After, fmt.Sprintf("The terms sum to %s; the ledger's balance is %s (each interest and fee posting is rounded to the cent).",
-			amt(p, a.Equation.Sum), amt(p, a.Equation.Balance)))
+		what := "the ledger's balance"
+		if a.For == plan.ForCapital {
+			what = "the capital the ledger needs"
+		}
+		d.After = append(d.After, fmt.Sprintf("The terms sum to %s; %s is %s (each interest and fee posting is rounded to the cent).",
+			amt(p, a.Equation.Sum), what, amt(p, a.Equation.Balance)))
 		if eq := a.Equation; eq.TaxOnGrowth > 0 {
 			d.After = append(d.After, fmt.Sprintf("After the tax of %s on each year's interest, paid at each year's end, money held for whole years grows at %s a year effective (%s less the tax); the terms are valued with the tax.",
 				pct(eq.TaxOnGrowth), pct(eq.AfterTax), pct(g.Rates[0].Rate.Effective())))

@@ -98,7 +98,15 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 			deadline = render.Month(goal.By)
 			jg["deadline"] = goal.By.String()
 		}
-		if goal.HasTarget && goal.HasBy {
+		if c := gs.Capital; c != nil {
+			target, deadline = render.Label("capital "+amt(p, c.Amount), jamt(p, c.Amount)), render.Month(c.Month)
+			jg["capital_needed"], jg["deadline"] = jamt(p, c.Amount), c.Month.String()
+			d.After = append(d.After, capitalLine(p, c))
+		} else if gs.CapitalErr != nil {
+			jg["capital_reason"] = reasonOf(gs.CapitalErr)
+			d.After = append(d.After, fmt.Sprintf("%s: no capital figure: %s.", goal.Name, reasonOf(gs.CapitalErr)))
+		}
+		if goal.HasTarget && goal.HasBy || gs.Capital != nil {
 			atDeadline, projected = cash(p, gs.TargetAt), cash(p, gs.Projected)
 			jg["target_at_deadline"], jg["projected"] = jamt(p, gs.TargetAt), jamt(p, gs.Projected)
 			jg["on_track"] = gs.OnTrack
@@ -150,14 +158,21 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 				d.After = append(d.After, fmt.Sprintf("%s: the target is not reached: %s.", goal.Name, reasonOf(gs.Reach)))
 			}
 		}
+		if len(goal.Income) > 0 {
+			d.After = append(d.After, outsideIncomeWords(goal))
+		}
 		if gs.Lasts != nil {
 			drawdown = true
 			if gs.Lasts.Lasts {
-				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, gs.Lasts.Month, amt(p, gs.Lasts.Left)))
+				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, monthAges(p, gs.Lasts.Month), amt(p, gs.Lasts.Left)))
 				jg["money_lasts"] = true
 				jg["lasts_through"] = gs.Lasts.Month.String()
+			} else if gs.Lasts.Paid {
+				d.After = append(d.After, fmt.Sprintf("%s: the money does not last: %s.", goal.Name, gs.Lasts.Note))
+				jg["money_lasts"] = false
+				jg["paid_through"] = gs.Lasts.Month.String()
 			} else {
-				d.After = append(d.After, fmt.Sprintf("%s: the money runs out in %s.", goal.Name, gs.Lasts.Month))
+				d.After = append(d.After, fmt.Sprintf("%s: the money runs out in %s.", goal.Name, monthAges(p, gs.Lasts.Month)))
 				jg["money_lasts"] = false
 				jg["runs_out"] = gs.Lasts.Month.String()
 			}
@@ -315,7 +330,7 @@ func householdLine(p *plan.Plan, st *plan.Status) []string {
 	} else {
 		var parts []string
 		for _, gs := range short {
-			parts = append(parts, fmt.Sprintf("%s by %s at %s", gs.Goal.Name, amt(p, gs.Short), gs.Goal.By))
+			parts = append(parts, fmt.Sprintf("%s by %s at %s", gs.Goal.Name, amt(p, gs.Short), gs.Deadline()))
 		}
 		s := fmt.Sprintf("Short: %s.", strings.Join(parts, "; "))
 		if st.Budget == nil || len(st.Budget.Shares) < len(p.Goals) {

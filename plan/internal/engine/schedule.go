@@ -35,6 +35,7 @@ const (
 	Fee                   // the month's fee
 	FlowEnd               // an amount at the end of its period
 	Mark                  // the month end
+	Income                // income from outside the account, at the start of the month it is paid in
 	FlowBegin             // an amount at the start of its period
 )
 
@@ -88,6 +89,9 @@ type StreamShape struct {
 	// Today and GrowInflation say the amount follows inflation: a walk
 	// with random inflation indexes it (Event.IA, Event.IB).
 	Today, GrowInflation bool
+	// Income is paid from outside the account: its amounts pay the
+	// withdrawals of the month each is paid in (see [Income]).
+	Income bool
 }
 
 // A Schedule is a shape compiled onto the tick grid: its events in order.
@@ -194,6 +198,9 @@ func Compile(sh *Shape) *Schedule {
 				lastYear, u = year, st.First*math.Exp(float64(year)*lg)
 			}
 			e := Event{Tick: t, Kind: kd, Src: src, Out: st.Out, Unit: u, Year: int32(year), Month: label}
+			if st.Income { // income is pooled for its month's withdrawals from the month's start
+				e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
+			}
 			anniv := st.From + 12*int32(year)
 			switch {
 			case st.GrowInflation && st.Today:

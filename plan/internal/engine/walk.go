@@ -59,7 +59,9 @@ const (
 	// arithmetic so that a tie goes by the rule (see roundPosting);
 	// interest accrued between monthly credits is carried unrounded; a
 	// withdrawal larger than the balance is paid in part and the rest is
-	// short. Results are in minor units.
+	// short; what the emptied account earned in that interest period
+	// before the money left is forfeit, so it stays at zero until money
+	// comes in. Results are in minor units.
 	Exact Mode = iota
 	// Smooth keeps the balance in currency units, unrounded and unclamped:
 	// a smooth function of the rate for root finding, and linear in every
@@ -128,8 +130,9 @@ type PostKind uint8
 const (
 	PostInterest PostKind = iota
 	PostFee
-	PostFlow // an amount of source Post.Src
-	PostTax  // the tax on a year's interest, paid from the account
+	PostFlow   // an amount of source Post.Src
+	PostIncome // an income amount of source Post.Src, received outside the account
+	PostTax    // the tax on a year's interest, paid from the account
 )
 
 // A Post is one movement, in minor units.
@@ -139,6 +142,7 @@ type Post struct {
 	Kind                   PostKind
 	Src                    int32
 	Amount, Balance, Short int64
+	Covered                int64 // a withdrawal: the part its month's income paid
 }
 
 // A Log records an exact walk: every movement, and the balance at each
@@ -255,6 +259,7 @@ func roundMinor(x float64, r money.Rounding) float64 {
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
 	var bal, base, acc, accrued, peak float64
+	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
@@ -321,7 +326,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				low = base
 				if o.Log != nil && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
 				}
 			}
 		case Credit:
@@ -333,7 +338,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			accrued -= x
 			taxable += x
 			if o.Log != nil && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0)
+				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			// The tax on the year's interest, paid from the account at an
@@ -361,7 +366,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			base -= x
 			low = bal + accrued
 			if o.Log != nil {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0)
+				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			f := bal * in.Fee
@@ -390,9 +395,10 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				acc -= f * p.W[i]
 			}
 			if o.Log != nil {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0)
+				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			pool = 0 // income its month's withdrawals did not need is not deposited
 			peak = max(peak, bal)
 			m := e.Month
 			if o.Log != nil {
@@ -414,7 +420,24 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				res.Closing, res.Peak = bal, peak
 				return res
 			}
-		case FlowEnd, FlowBegin:
+		case FlowEnd, FlowBegin, Income:
+			if pool != 0 && o.Mode == Smooth && e.Kind != Income && in.Out[e.Src] {
+				// the month's income, unclamped, as money in at its first
+				// withdrawal: linear in every amount, so that income is
+				// valued alone like any other source
+				if e.Tau == 1 {
+					base += pool
+				} else if o.Paths == nil {
+					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+				} else {
+					acc += pool * o.Paths.W[i]
+				}
+				bal += pool
+				pool = 0
+				if none {
+					low = lowest(low, bal+accrued, e.Tau)
+				}
+			}
 			if o.One && e.Src != o.Source {
 				continue
 			}
@@ -436,9 +459,21 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					x = roundAmount(a, s.unitOf(e), in.Rounding)
 				}
 			}
-			var short float64
+			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
+				pool += x
+				if o.Log != nil {
+					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+				}
+				continue
+			}
+			var short, covered float64
 			if in.Out[e.Src] {
 				x = -math.Abs(x)
+				if pool > 0 && o.Mode == Exact { // the month's income pays first
+					covered = min(pool, -x)
+					pool -= covered
+					x += covered
+				}
 				if o.Mode == Exact && -x > bal {
 					if !res.Short {
 						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
@@ -448,6 +483,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal += x
+			if short > 0 {
+				// Emptied: what the money earned in this period before it
+				// left is forfeit, so the balance stays at zero until money
+				// comes in.
+				base, acc, accrued, low = 0, 0, 0, 0
+				if o.Log != nil {
+					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+				}
+				continue
+			}
 			if none {
 				low = lowest(low, bal+accrued, e.Tau)
 			}
@@ -463,7 +508,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				acc += x * p.W[i]
 			}
 			if o.Log != nil {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short)
+				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 			}
 		}
 	}
@@ -497,10 +542,10 @@ func (s *Schedule) Weights(p *Paths, in *Inputs) {
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
 // grow it.
-func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short float64) {
+func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short, covered float64) {
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
-	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x), Balance: int64(bal), Short: int64(short)}
+	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x), Balance: int64(bal), Short: int64(short), Covered: int64(covered)}
 }
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with

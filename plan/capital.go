@@ -1,0 +1,263 @@
+package plan
+
+import (
+	"math"
+
+	"cairn/money"
+)
+
+// The capital a retirement income needs: for a goal with withdrawals, the
+// balance needed at the end of one month — the deadline, or without one the
+// month before the first withdrawal — to pay every later withdrawal in full
+// (net of the goal's income) and leave the goal's leave after the last.
+// The engine finds it to the cent, as every other answer: a walk of the goal
+// from that month on, with the capital as its only money in; one cent less
+// fails. Where the drawdown is a plain annuity the equation of value states
+// it with the standard factors, and the tests check it against them.
+
+// capitalMonth returns the month at whose end goal g's capital is measured:
+// its deadline, or the month before its first withdrawal.
+func capitalMonth(p *Plan, g *Goal) (Month, error) {
+	first, ok := firstWithdrawal(g)
+	if !ok {
+		return 0, noSolution(g, "the goal has no withdrawals, so no capital is needed for them (add withdrawals:)")
+	}
+	at := first - 1
+	if g.HasBy {
+		at = g.By
+	}
+	if at < p.Start {
+		return 0, noSolution(g, "withdrawals begin in %s, the plan's first month: there is no month before them to build the capital", first)
+	}
+	if at >= first {
+		return 0, noSolution(g, "the deadline %s is not before the first withdrawal in %s", at, first)
+	}
+	return at, nil
+}
+
+// drawdownGoal returns a copy of goal g that holds only what happens after
+// the end of month at, with one unit of capital arriving then as its first
+// one-time amount (source capitalSource of its schedule).
+func drawdownGoal(g *Goal, at Month) (*Goal, error) {
+	h := g.clone()
+	h.Balance, h.HasTarget, h.Target, h.TargetToday = money.Zero, false, money.Zero, false
+	h.Deposits = nil
+	for _, d := range g.Deposits {
+		switch {
+		case d.From > at:
+			h.Deposits = append(h.Deposits, d)
+		case !d.HasUntil || d.Until > at:
+			return nil, noSolution(g, "the deposits %s continue after %s, when the capital is measured; end them there (until:) or give a target", streamLabelOf(d), at)
+		}
+	}
+	h.Once = []Once{{Name: "capital needed", Amount: money.Units(1), On: at}}
+	for _, o := range g.Once {
+		if o.On > at {
+			h.Once = append(h.Once, o)
+		}
+	}
+	return h, nil
+}
+
+func streamLabelOf(s *Stream) string {
+	if s.Name != "" {
+		return money.Quote(s.Name)
+	}
+	return "stream"
+}
+
+// capitalSource is the capital's source in a drawdown goal's schedule: the
+// first one-time amount.
+func capitalSource(h *Goal) int32 { return int32(1 + len(streams(h))) }
+
+// solveCapital answers ForCapital: the least balance at the end of the
+// capital month that pays every withdrawal and leaves leave.
+func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
+	at, err := capitalMonth(p, g)
+	if err != nil {
+		return nil, err
+	}
+	end, finite := lastWithdrawal(p, g)
+	if !finite {
+		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	}
+	h, err := drawdownGoal(g, at)
+	if err != nil {
+		return nil, err
+	}
+	s := compile(p, h, end)
+	idx := capitalSource(h)
+	leave := p.LeaveAt(g, end)
+	pr := s.defaultParams()
+	set := s.setter(pr, idx)
+	ok := func(c int64) bool { // every withdrawal paid, and leave left
+		set(c)
+		bal, r := s.closing(pr)
+		return !r.Short && bal.Cmp(leave) >= 0
+	}
+	// linear guess from the smooth walk: what one unit of capital grows to,
+	// and what the rest comes to without it
+	pr1 := s.defaultParams()
+	pr1.amountsF[idx] = 1
+	grow := s.smooth(pr1, true, idx)
+	set(0)
+	rest := s.smooth(pr, false, 0)
+	if !(grow > 0) {
+		return nil, noSolution(g, "the capital does not keep its value to the last withdrawal at these rates")
+	}
+	scale := s.scale()
+	guess := int64(math.Ceil((leave.Float() - rest) / grow * scale))
+	c, found := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), true)
+	if !found {
+		return nil, noSolution(g, "no capital up to the 1,000,000,000,000 limit pays every withdrawal")
+	}
+	set(c)
+	a := &Answer{Goal: g, For: ForCapital, Amount: pr.amounts[idx], Periods: math.NaN(), Month: at, Months: int(at-p.Start) + 1,
+		Deadline: end, Target: leave, Lasts: true, Paid: true}
+	a.Balance, _ = s.closing(pr)
+	a.Left = a.Balance
+	if full {
+		a.Ledger = s.ledger(pr)
+		a.Equation = s.capitalEquation(pr, idx, at, leave, a.Amount, grow)
+	}
+	return a, nil
+}
+
+// capitalEquation states the capital at the end of month at as the sum of
+// the present values then of every later flow and of leave: each valued by
+// the smooth walk alone and discounted by what one unit of capital grows to
+// (grow), and, where the drawdown is a plain annuity (one rate from at on,
+// no fee, amounts on interest dates or compound between them), by the
+// standard factors — (P/A, i, n) for a level income, times (F/P, i, 1) when
+// it is paid at the start of each period, and for an income raised once a
+// year by g the geometric-gradient present worth of its years. Withdrawals
+// count positive (they need capital), money in negative.
+func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capital money.Amount, grow float64) *Equation {
+	p, h := s.plan, s.goal
+	eq := &Equation{At: at, Balance: capital}
+	atTick := monthTick(p, at+1)
+	plain := h.Fee == 0
+	for _, st := range h.Rates[1:] {
+		if st.From > at {
+			plain = false
+		}
+	}
+	rate := h.Rates[0].Rate
+	for _, st := range h.Rates {
+		if st.From <= at {
+			rate = st.Rate
+		}
+	}
+	for i, src := range s.sources {
+		if int32(i) == idx || i == 0 {
+			continue
+		}
+		var count int
+		var first, last int64 = -1, 0
+		var units []float64
+		for k := range s.events {
+			if e := &s.events[k]; flowOf(e, int32(i)) {
+				if first < 0 {
+					first = e.Tick
+				}
+				last, count = e.Tick, count+1
+				units = append(units, e.Unit)
+			}
+		}
+		if count == 0 {
+			continue
+		}
+		v := -s.smooth(pr, true, int32(i)) / grow
+		amt := pr.amounts[i].Abs()
+		if !src.out {
+			amt = amt.Neg()
+		}
+		if src.stream != nil {
+			amt = amt.MulFloat(units[0]).Round(s.places, s.rounding)
+		}
+		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: count, Value: money.FromFloat(v).Round(s.places, s.rounding)}
+		if t.Label == "" {
+			t.Label = src.kind.String() + "s"
+		}
+		if st := src.stream; plain && st != nil && !st.Income && (h.Between == Compound || s.onCredits(int32(i))) {
+			t.Factors = annuityFactors(st, rate, units, first, last, atTick)
+		}
+		eq.Terms = append(eq.Terms, t)
+		eq.Sum = eq.Sum.Add(t.Value)
+	}
+	if !leave.IsZero() {
+		t := Term{Label: "leave", Kind: OneTime, Amount: leave, Count: 1, Value: money.FromFloat(leave.Float()/grow).Round(s.places, s.rounding)}
+		if plain && s.endTick%s.period == 0 {
+			t.Factors = []money.Factor{{Kind: money.PF, I: rate.PerPeriod(s.comp), N: float64(s.endTick-atTick) / float64(s.period)}}
+		}
+		eq.Terms = append(eq.Terms, t)
+		eq.Sum = eq.Sum.Add(t.Value)
+	}
+	return eq
+}
+
+// onCredits reports whether every flow of source src lies on an interest
+// date.
+func (s *schedule) onCredits(src int32) bool {
+	for k := range s.events {
+		if e := &s.events[k]; flowOf(e, src) && e.Tick%s.period != 0 {
+			return false
+		}
+	}
+	return true
+}
+
+// annuityFactors returns the factors that take a stream's first amount to
+// its present value at tick atTick, when its amounts are a plain annuity
+// from there: one a period from the first period on, level or raised by
+// one rate once a year over whole years; nil otherwise.
+func annuityFactors(st *Stream, rate money.Rate, units []float64, first, last, atTick int64) []money.Factor {
+	P := TicksPerYear / int64(st.Every.PerYear())
+	begin := st.Timing == Begin
+	want := atTick + P // the first amount: one period on, or at once when due
+	if begin {
+		want = atTick
+	}
+	n := len(units)
+	if first != want || last != first+int64(n-1)*P {
+		return nil
+	}
+	ip := rate.PerPeriod(st.Every)
+	var fs []money.Factor
+	level := true
+	for _, u := range units {
+		if u != units[0] {
+			level = false
+		}
+	}
+	perYear := st.Every.PerYear()
+	switch {
+	case level:
+		fs = []money.Factor{{Kind: money.PA, I: ip, N: float64(n)}}
+	case n%perYear == 0:
+		years := n / perYear
+		gr := units[perYear]/units[0] - 1
+		for y := range years {
+			for k := range perYear {
+				if u := units[y*perYear+k]; math.Abs(u/(units[0]*math.Pow(1+gr, float64(y)))-1) > 1e-12 {
+					return nil
+				}
+			}
+		}
+		iy := rate.Effective()
+		if perYear == 1 {
+			fs = []money.Factor{{Kind: money.PGeo, I: iy, G: gr, N: float64(years)}}
+		} else {
+			// each year's amounts at its start, (P/A, i, per year); the
+			// years a geometric series of them, one year apart, first at
+			// once: (P/A, g, i, years) × (F/P, i, 1) at the yearly rate
+			fs = []money.Factor{{Kind: money.PA, I: ip, N: float64(perYear)}, {Kind: money.PGeo, I: iy, G: gr, N: float64(years)}, {Kind: money.FP, I: iy, N: 1}}
+		}
+	default:
+		return nil
+	}
+	if begin {
+		fs = append(fs, money.Factor{Kind: money.FP, I: ip, N: 1})
+	}
+	return fs
+}

@@ -1,0 +1,117 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+	"sync/atomic"
+
+	"cairn/money"
+	"cairn/plan/internal/engine"
+)
+
+// A SimWithdrawal is the withdrawal per period that lasts — every
+// withdrawal paid in full and the goal's leave left after the last one — in
+// a given share of simulated paths.
+type SimWithdrawal struct {
+	Stream *Stream
+	Level  float64 // the share of paths asked for
+	// Amount is the largest amount per period at which at least Level of
+	// the paths last; Success is the share at Amount. Above is one minor
+	// unit more and AboveSuccess its share, under Level, on the same random
+	// numbers.
+	Amount       money.Amount
+	FirstAmount  money.Amount // Amount in money of the stream's first date, at fixed inflation
+	Success      float64
+	SuccessPaths int
+	Above        money.Amount
+	AboveSuccess float64
+	AbovePaths   int
+	Leave        money.Amount // the leave in money of the last withdrawal's month
+	// Sim is the simulation of the goal with the stream at Amount.
+	Sim *Simulation
+}
+
+// SolveWithdrawalSim finds the largest withdrawal per period of the goal's
+// withdrawal stream named stream ("" for the first) that lasts in at least
+// a share level (0.9 for 90%) of the simulated paths. Every candidate is
+// tried on the same random numbers, so the share lasting falls as the
+// amount rises; the answer meets level and one minor unit more does not.
+func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts SimOptions) (*SimWithdrawal, error) {
+	if !(level > 0 && level <= 1) {
+		return nil, fmt.Errorf("success level %s is out of range (want more than 0%% and at most 100%%)", money.Percent(level, 4))
+	}
+	st, err := resolveSim(p, g, opts)
+	if err != nil {
+		return nil, err
+	}
+	wd := g.Stream(stream, true)
+	if wd == nil {
+		if stream != "" {
+			return nil, noSolution(g, "the goal has no withdrawal stream named %q", stream)
+		}
+		return nil, noSolution(g, "the goal has no withdrawals to solve for (add withdrawals:)")
+	}
+	end, finite := lastWithdrawal(p, g)
+	if !finite {
+		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	}
+	s := compile(p, g, end)
+	idx := s.sourceIndex(wd)
+	pg := newSimProgram(s, st, false)
+	pr := s.defaultParams()
+	need := int(math.Ceil(level*float64(st.paths) - 1e-9))
+	leave := p.LeaveAt(g, end)
+	leaveMinor := pg.toMinor(leave)
+	amounts := append([]float64(nil), pr.amountsF...)
+	shareAt := func(c int64) int {
+		amounts[idx] = float64(c) / pg.scale
+		var hits atomic.Int64
+		pg.parallel(st, func(w *simWorker, paths *[simLanes]int) {
+			var o [simLanes]engine.Result
+			pg.walk(w, amounts, nil, paths, &o)
+			n := 0
+			for l, i := range paths {
+				if (l == 0 || i != paths[l-1]) && !o[l].Short && pg.meets(o[l].Closing, leaveMinor) {
+					n++
+				}
+			}
+			hits.Add(int64(n))
+		})
+		return int(hits.Load())
+	}
+	counts := map[int64]int{}
+	ok := func(c int64) bool {
+		n, seen := counts[c]
+		if !seen {
+			n = shareAt(c)
+			counts[c] = n
+		}
+		return n >= need
+	}
+	if !ok(0) {
+		return nil, noSolution(g, "even with no withdrawals the balance leaves %s in fewer than %s of the paths", leave.Format(p.Currency, false), money.Percent(level, 2))
+	}
+	// the deterministic answer is a first guess
+	guess := int64(0)
+	if a, err := solveWithdrawal(p, g, Question{For: ForWithdrawal, Stream: stream}, false); err == nil {
+		guess = int64(math.Round(a.Amount.Float() * pg.scale))
+	}
+	limit := int64(MaxAmountUnits) * int64(pg.scale)
+	c, _ := searchCents(ok, guess, limit, false)
+	ok(c + 1)
+	unit := money.Minor(1, s.places)
+	ans := &SimWithdrawal{Stream: wd, Level: level, Amount: unit.MulInt(c), SuccessPaths: counts[c], Leave: leave,
+		Above: unit.MulInt(c + 1), AbovePaths: counts[c+1]}
+	ans.Success = float64(ans.SuccessPaths) / float64(st.paths)
+	ans.AboveSuccess = float64(ans.AbovePaths) / float64(st.paths)
+	pr.amounts[idx], pr.amountsF[idx] = ans.Amount, ans.Amount.Float()
+	ans.FirstAmount = s.firstAmount(pr, idx)
+	full := compile(p, g, Horizon(p, g))
+	fpr := full.defaultParams()
+	fi := full.sourceIndex(wd)
+	fpr.amounts[fi], fpr.amountsF[fi] = ans.Amount, ans.Amount.Float()
+	if ans.Sim, err = simulate(p, g, opts, fpr, nil); err != nil {
+		return nil, err
+	}
+	return ans, nil
+}
