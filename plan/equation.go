@@ -155,9 +155,18 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	// Under between none the walk is not linear in the amounts: flows that
 	// offset within an interest period earn what no flow valued alone
 	// shows. That difference is a term of its own.
-	if g.Between == None {
+	// An employer's contributions are no source's: no flow valued alone
+	// has them, and they too are a term of their own.
+	if g.Between == None || g.Match > 0 {
+		label, kind := "flows offsetting within interest periods (between none)", Interest
+		switch {
+		case g.Match > 0 && g.Between == None:
+			label, kind = "employer contributions, and flows offsetting within interest periods (between none)", Employer
+		case g.Match > 0:
+			label, kind = "employer contributions", Employer
+		}
 		if d := money.FromFloat(s.smooth(pr, false, 0)-sumV).Round(s.places, s.rounding); !d.IsZero() {
-			eq.Terms = append(eq.Terms, Term{Label: "flows offsetting within interest periods (between none)", Kind: Interest, Value: d})
+			eq.Terms = append(eq.Terms, Term{Label: label, Kind: kind, Value: d})
 			eq.Sum = eq.Sum.Add(d)
 		}
 	}

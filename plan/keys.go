@@ -77,6 +77,7 @@ const (
 	FormCount                    // a whole number from Min to Max
 	FormUntil                    // a FormMonth, or reached
 	FormTaxRate                  // a percentage, 0% or more and below 100%
+	FormShare                    // a percentage from 0% to 100%
 )
 
 // want says what a value of the form looks like, in error messages.
@@ -93,6 +94,7 @@ var want = map[Form]string{
 	FormCount:      "a whole number such as 1",
 	FormUntil:      "a month such as 2031-12, or reached",
 	FormTaxRate:    "a tax rate such as 25%",
+	FormShare:      "a share such as 50%",
 }
 
 // A Choice is one word a FormChoice key accepts and the value it stands for.
@@ -334,6 +336,25 @@ var Keys = withChangeKeys([]*Key{
 			"when tax is on-the-way-out, so a scenario may switch)",
 		Set: "tax_later",
 		put: func(t *target, v *value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
+	{Name: "match", Scope: InGoal, Form: FormShare,
+		Default: "none",
+		Help: "an employer adds this share of each of the household's\n" +
+			"own deposits, shown apart from the household's money",
+		Set: "match",
+		put: func(t *target, v *value) { t.g.Match = v.x }},
+	{Name: "match_up_to", Scope: InGoal, Form: FormShare,
+		Default: "no limit",
+		Help: "the employer matches the household's deposits of each\n" +
+			"year from the start up to this share of the salary",
+		Set: "match_up_to",
+		put: func(t *target, v *value) { t.g.MatchUpTo, t.g.HasMatchUpTo = v.x, true }},
+	{Name: "salary", Scope: InGoal, Form: FormAmount,
+		Default: "none", Help: "the salary a year in the plan's first year, for match_up_to",
+		Set: "salary",
+		put: func(t *target, v *value) { t.g.Salary = v.amount }},
+	{Name: "salary_grow", Scope: InGoal, Form: FormGrowth, Min: -MaxGrowthPercent, Max: MaxGrowthPercent,
+		Default: "0%", Help: "the salary's yearly rise, or \"inflation\"",
+		put: func(t *target, v *value) { t.g.SalaryInflation, t.g.SalaryGrow = v.inflation, v.x }},
 	{Name: "cap", Scope: InGoal, Form: FormAmount,
 		Default: "none",
 		Help: "the most the account may receive in a year from the\n" +
@@ -616,6 +637,7 @@ var (
 			FormCount:        `^\s*\+?\d+\s*$`,
 			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|\S.*\s[aA][tT]\s+\d{1,3}|` + words([]string{"reached"}) + `)\s*$`,
 			FormTaxRate:      `^\s*\+?0*(?:\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
+			FormShare:        `^\s*\+?0*(?:100(?:\.0*)?|\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 		}
 	}()
 )

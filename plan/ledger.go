@@ -20,9 +20,10 @@ const (
 	Fee                         // the monthly fee
 	Income                      // income received outside the account (it moves no balance)
 	Tax                         // the tax on a year's interest, paid from the account (see [AsItGrows])
+	Employer                    // an employer's contribution matching a deposit (see Goal.Match)
 )
 
-var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "income", "tax"}
+var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "income", "tax", "employer"}
 
 func (k EntryKind) String() string { return entryNames[k] }
 
@@ -77,6 +78,8 @@ func (l *Ledger) Entries() []Entry {
 				e.Kind = Fee
 			case engine.PostTax:
 				e.Kind = Tax
+			case engine.PostMatch:
+				e.Kind, e.Source = Employer, "employer, on "+l.sources[r.Src].name
 			case engine.PostFlow, engine.PostIncome:
 				e.Kind, e.Source = l.sources[r.Src].kind, l.sources[r.Src].name
 			}
@@ -126,7 +129,11 @@ func (s *schedule) ledger(pr *params) *Ledger {
 	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, places: s.places, sources: s.sources}
 	l.Opening = pr.amounts[0].Round(s.places, s.rounding)
 	l.log.MonthEnd = make([]int64, s.end-p.Start+1)
-	l.log.Posts = make([]engine.Post, 0, s.eng.MaxPosts())
+	n := s.eng.MaxPosts()
+	if g.Match > 0 {
+		n += s.eng.MaxMatchPosts()
+	}
+	l.log.Posts = make([]engine.Post, 0, n)
 	r := s.exact(pr, engine.Options{Log: &l.log})
 	if r.Short {
 		l.short = p.Start + Month(r.ShortMonth)
@@ -156,6 +163,7 @@ type Row struct {
 	// and not in Withdrawals, which are what the account paid).
 	Income       money.Amount
 	Tax          money.Amount // tax on interest paid from the account, as a positive sum
+	Employer     money.Amount // an employer's contributions, not in Deposits
 	Closing      money.Amount
 	ClosingToday money.Amount // the closing balance in today's money
 	Short        money.Amount // withdrawals that could not be paid
@@ -212,6 +220,8 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 			r.Fees = r.Fees.Sub(e.Amount)
 		case e.Kind == Tax:
 			r.Tax = r.Tax.Sub(e.Amount)
+		case e.Kind == Employer:
+			r.Employer = r.Employer.Add(e.Amount)
 		case e.Amount.Sign() >= 0:
 			r.Deposits = r.Deposits.Add(e.Amount)
 		default:
@@ -228,6 +238,7 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		tot.Fees = tot.Fees.Add(r.Fees)
 		tot.Income = tot.Income.Add(r.Income)
 		tot.Tax = tot.Tax.Add(r.Tax)
+		tot.Employer = tot.Employer.Add(r.Employer)
 		tot.Short = tot.Short.Add(r.Short)
 	}
 	if totals && len(rows) > 0 {

@@ -197,10 +197,36 @@ func (s *schedule) inputs(pr *params) engine.Inputs {
 		ms[i] = r.PeriodMultiplier(s.comp) // exact when rational (see engine.Inputs)
 		js[i] = ms[i].Float()
 	}
-	return engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
+	in := engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
 		Fee: fee, FeeM: money.RateMultiplier(fee, s.goal.Fee, 12, 1),
 		Tax: tax, TaxM: money.RateMultiplier(tax, tax, 1, 1),
 		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding, Set: pr.set, SetSrc: pr.setSrc}
+	if g := s.goal; g.Match > 0 {
+		in.Match, in.MatchM = g.Match, money.RateMultiplier(g.Match, g.Match, 1, 1)
+		in.Matched = make([]bool, len(s.sources))
+		for i, src := range s.sources {
+			in.Matched[i] = src.kind == Deposit
+		}
+		if g.HasMatchUpTo {
+			in.MatchLimit = matchLimits(s.plan, g, s.end)
+		}
+	}
+	return in
+}
+
+// matchLimits returns, for each year from the plan's start through month
+// end, the most of the household's deposits goal g's employer matches: the
+// match_up_to share of that year's salary, in currency units.
+func matchLimits(p *Plan, g *Goal, end Month) []float64 {
+	grow := g.SalaryGrow
+	if g.SalaryInflation {
+		grow = p.Inflation.Effective()
+	}
+	out := make([]float64, int(end-p.Start)/12+1)
+	for y := range out {
+		out[y] = g.MatchUpTo * g.Salary.Float() * math.Pow(1+grow, float64(y))
+	}
+	return out
 }
 
 // scale is the number of minor units in a currency unit.

@@ -135,6 +135,16 @@ type Goal struct {
 	TaxLater float64
 	// HasTaxLater says the file gave tax_later; otherwise it is TaxRate.
 	HasTaxLater bool
+	// An employer adds Match (a fraction) of each of the household's own
+	// deposits, on at most MatchUpTo (a fraction) of a salary a year,
+	// Salary in the plan's first year, rising by SalaryGrow a year (or the
+	// plan's inflation with SalaryInflation); HasMatchUpTo false matches
+	// every deposit.
+	Match, MatchUpTo float64
+	HasMatchUpTo     bool
+	Salary           money.Amount
+	SalaryGrow       float64
+	SalaryInflation  bool
 	// Cap is the most the account may receive in a year from the plan's
 	// start (deposits and one-time amounts in), when HasCap is set.
 	Cap    money.Amount

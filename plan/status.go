@@ -35,6 +35,10 @@ type GoalStatus struct {
 	// After tax (see [Treatment]): what Projected would leave if paid out,
 	// and what MonthlyNow and MonthlyNeeded cost from take-home pay; each
 	// equals its figure when the goal has no tax treatment.
+	// EmployerMonthly is the employer's contributions in the plan's first
+	// year as a monthly equivalent (see Goal.Match), apart from the
+	// household's own MonthlyNow.
+	EmployerMonthly                         money.Amount
 	ProjectedAfterTax                       money.Amount
 	MonthlyNowFromPay, MonthlyNeededFromPay money.Amount
 	// Share is the goal's part of the budget, for a goal that draws on
@@ -51,6 +55,9 @@ type Status struct {
 	// the budget); MonthlyNeeded what they would need to be to make every
 	// deadline of the goals that do not draw on the budget.
 	MonthlyNow, MonthlyNeeded money.Amount
+	// EmployerMonthly is the employers' contributions a month in the
+	// plan's first year, over every goal: not the household's money.
+	EmployerMonthly money.Amount
 	// MonthlyNowFromPay and MonthlyNeededFromPay are those totals as they
 	// cost the household's take-home pay: deposits from pay before tax
 	// cost less than what lands in the account.
@@ -169,6 +176,23 @@ func (st *Status) afterTax(gs *GoalStatus) {
 	gs.MonthlyNowFromPay, gs.MonthlyNeededFromPay = p.FromPay(g, gs.MonthlyNow), p.FromPay(g, gs.MonthlyNeeded)
 	st.MonthlyNowFromPay = st.MonthlyNowFromPay.Add(gs.MonthlyNowFromPay)
 	st.MonthlyNeededFromPay = st.MonthlyNeededFromPay.Add(gs.MonthlyNeededFromPay)
+	if g.Match > 0 {
+		gs.EmployerMonthly = employerMonthly(p, g)
+		st.EmployerMonthly = st.EmployerMonthly.Add(gs.EmployerMonthly)
+	}
+}
+
+// employerMonthly is goal g's employer contributions in the plan's first
+// year, from its ledger, divided by 12 and rounded once.
+func employerMonthly(p *Plan, g *Goal) money.Amount {
+	l, _ := Project(p, g, p.Start.Add(11))
+	year := money.Zero
+	for _, e := range l.Entries() {
+		if e.Kind == Employer {
+			year = year.Add(e.Amount)
+		}
+	}
+	return year.DivRound(12, p.Currency.Places, p.Rounding)
 }
 
 // monthlyDeposits is the monthly equivalent of the goal's deposits in force

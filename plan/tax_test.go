@@ -265,3 +265,58 @@ goals:
 		t.Errorf("With(deposit=500.01) = %v, want the file's refusal", err)
 	}
 }
+
+// An employer adds match × the household's deposits of each year from the
+// start, on at most match_up_to × that year's salary (salary × (1 + g)^y):
+// check values by that rule, worked by hand (common practice, no source).
+func TestTax_EmployerMatch(t *testing.T) {
+	src := `cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    rate: 5%
+    match: 50%
+    match_up_to: 6%
+    salary: 60,000
+    salary_grow: 3%
+    deposits:
+      - {amount: 500, every: month, until: 2029-12}
+`
+	p := mustParse(t, "match.yaml", src)
+	g := p.Goals[0]
+	l, _ := plan.Project(p, g, plan.MonthOf(2029, 12))
+	rows := l.Rows(plan.ByYear, false)
+	// own 6,000 a year; matched on 3,600, 3,708 and 3,819.24 of it
+	want := []string{"1800.00", "1854.00", "1909.62"}
+	for i, r := range rows {
+		if r.Employer.String() != want[i] {
+			t.Errorf("year %s: employer %s, want %s", r.Label, r.Employer, want[i])
+		}
+		if r.Deposits.String() != "6000.00" {
+			t.Errorf("year %s: the household's deposits %s, want 6000.00 (the employer's apart)", r.Label, r.Deposits)
+		}
+	}
+	// within the first year: 250.00 on each of the first 7 deposits, then
+	// 50.00 on the 100.00 left under the limit, then none
+	var got []string
+	for _, e := range l.Entries() {
+		if e.Kind == plan.Employer && e.Month.Year() == 2027 {
+			got = append(got, e.Amount.String())
+		}
+	}
+	if fmt.Sprint(got) != "[250.00 250.00 250.00 250.00 250.00 250.00 250.00 50.00]" {
+		t.Errorf("employer postings in 2027 = %v, want seven of 250.00 and one of 50.00", got)
+	}
+	// the equation of value still sums to the ledger's balance
+	eq := plan.EquationOf(p, g, plan.MonthOf(2029, 12))
+	if d := math.Abs(eq.Sum.Float() - l.Closing.Float()); d > 0.05 {
+		t.Errorf("equation sums to %s, ledger %s", eq.Sum, l.Closing)
+	}
+	st := plan.StatusOf(p)
+	if got := st.Goals[0].EmployerMonthly.String(); got != "150.00" {
+		t.Errorf("status: employer %s a month, want 150.00 (1,800.00 ÷ 12)", got)
+	}
+	if _, err := plan.Parse("m.yaml", []byte(strings.Replace(src, "    salary: 60,000\n", "", 1)), 0); err == nil || !strings.Contains(err.Error(), "needs the salary") {
+		t.Errorf("match_up_to without a salary: %v, want a refusal", err)
+	}
+}

@@ -48,6 +48,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"monthly_now", "string", true, "the total set aside a month now"},
 		{"monthly_needed", "string", true, "the total a month needed to meet every goal"},
 		{"cases", "array", false, "with several scenarios: the plan as written (base), then each scenario, each with its goals and totals"},
+		{"employer_monthly", "string", false, "where an employer matches deposits: its contributions a month in the first year, apart from the household's"},
 		{"monthly_now_from_pay", "string", false, "where a goal's deposits come from pay before tax: monthly_now as it costs take-home pay"},
 		{"monthly_needed_from_pay", "string", false, "where a goal's deposits come from pay before tax: monthly_needed as it costs take-home pay"},
 		{"budget", "object", false, "with a budget: its rule, amount, frequency, monthly equivalent now and the smallest amount that makes every deadline"},

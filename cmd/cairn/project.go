@@ -81,11 +81,12 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		period = "month"
 	}
 	d.Lead = []string{fmt.Sprintf("%s: projection by %s, %s to %s, in %s; \"today\" is the closing balance in money of %s.", g.Name, period, l.Start, l.End, p.Currency.Code, p.Start)}
-	var hasFees, hasTax, hasOut, short, hasIncome bool
+	var hasFees, hasTax, hasOut, short, hasIncome, hasEmployer bool
 	for _, r := range rows {
 		hasIncome = hasIncome || !r.Income.IsZero()
 		hasFees = hasFees || !r.Fees.IsZero()
 		hasTax = hasTax || !r.Tax.IsZero()
+		hasEmployer = hasEmployer || !r.Employer.IsZero()
 		hasOut = hasOut || !r.Withdrawals.IsZero()
 		short = short || !r.Short.IsZero()
 	}
@@ -99,6 +100,9 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	if hasTax { // a column only where tax is paid from the account, so other goals' tables keep theirs
 		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "tax", Key: "tax", Numeric: true})
 	}
+	if hasEmployer { // the employer's money, apart from the household's deposits
+		t.Cols = slices.Insert(t.Cols, 3, render.Column{Head: "employer", Key: "employer", Numeric: true})
+	}
 	var jrows []map[string]any
 	for k, r := range rows {
 		cells := []render.Cell{render.Text(r.Label), cash(p, r.Opening), cash(p, r.Deposits), cash(p, r.Interest), cash(p, r.Fees),
@@ -108,6 +112,9 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		}
 		if hasTax {
 			cells = slices.Insert(cells, 5, cash(p, r.Tax))
+		}
+		if hasEmployer {
+			cells = slices.Insert(cells, 3, cash(p, r.Employer))
 		}
 		jr := map[string]any{}
 		for i, c := range t.Cols {

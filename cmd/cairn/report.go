@@ -206,6 +206,9 @@ func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
 	} else {
 		fs.Add("Set aside now, all goals", render.Text(amt(p, st.MonthlyNow)+" a month"))
 	}
+	if !st.EmployerMonthly.IsZero() {
+		fs.Add("Employers add, apart", render.Text(amt(p, st.EmployerMonthly)+" a month in the first year"))
+	}
 	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 {
 		fs.Add("The goals' own deposits, from take-home pay", render.Text(amt(p, st.MonthlyNowFromPay)+" a month"))
 	}

@@ -178,6 +178,10 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 			}
 		}
 		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
+		if goal.Match > 0 {
+			jg["employer_monthly"] = jamt(p, gs.EmployerMonthly)
+			d.After = append(d.After, employerLine(p, gs))
+		}
 		if taxed(goal) {
 			jg["tax"] = taxJSON(p, goal)
 			jg["monthly_now_from_pay"], jg["monthly_needed_from_pay"] = jamt(p, gs.MonthlyNowFromPay), jamt(p, gs.MonthlyNeededFromPay)
@@ -205,6 +209,10 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 	d.After = append(d.After, householdLine(p, st)...)
 	if st.Budget != nil {
 		d.Data["budget"] = budgetJSON(p, st)
+	}
+	if !st.EmployerMonthly.IsZero() {
+		d.After = append(d.After, fmt.Sprintf("Employers add %s a month in the first year, apart from the household's own deposits.", amt(p, st.EmployerMonthly)))
+		d.Data["employer_monthly"] = jamt(p, st.EmployerMonthly)
 	}
 	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
 		d.After = append(d.After, fmt.Sprintf("From take-home pay, after the tax not paid on deposits from pay before tax: %s a month now; %s a month needed.",

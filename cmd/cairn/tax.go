@@ -95,3 +95,20 @@ func projectTaxLine(p *plan.Plan, g *plan.Goal, l *plan.Ledger) string {
 	}
 	return s
 }
+
+// employerLine is the status remark on goal gs's employer contributions,
+// apart from the household's own money.
+func employerLine(p *plan.Plan, gs plan.GoalStatus) string {
+	g := gs.Goal
+	s := fmt.Sprintf("%s: the employer adds %s of the household's deposits", g.Name, pct(g.Match))
+	if g.HasMatchUpTo {
+		s += fmt.Sprintf(" on up to %s of a salary of %s a year", pct(g.MatchUpTo), amt(p, g.Salary))
+		switch {
+		case g.SalaryInflation:
+			s += " rising with inflation"
+		case g.SalaryGrow != 0:
+			s += fmt.Sprintf(" rising %s a year", pct(g.SalaryGrow))
+		}
+	}
+	return s + fmt.Sprintf(": %s a month in the first year, beside the household's own %s.", amt(p, gs.EmployerMonthly), amt(p, gs.MonthlyNow))
+}

@@ -35,12 +35,20 @@ type Inputs struct {
 	// RateM and FeeM are Rates and Fee with their exact forms, which an
 	// exact walk reads only to settle a product lying near a half unit
 	// (see [money.RoundProduct]); RateM[k].Float() is Rates[k].
-	RateM    []money.Multiplier
-	FeeM     money.Multiplier
-	TaxM     money.Multiplier
-	Between  Between
-	Places   int            // decimal places of the minor unit
-	Rounding money.Rounding // rule for every rounding to the minor unit
+	RateM []money.Multiplier
+	FeeM  money.Multiplier
+	TaxM  money.Multiplier
+	// Match is the share of each deposit of a source with Matched set
+	// that an employer adds (MatchM its exact form), on at most
+	// MatchLimit[y] of such deposits in year y from the start (currency
+	// units; nil: no limit). A walk of one source alone adds none.
+	Match      float64
+	MatchM     money.Multiplier
+	Matched    []bool
+	MatchLimit []float64
+	Between    Between
+	Places     int            // decimal places of the minor unit
+	Rounding   money.Rounding // rule for every rounding to the minor unit
 	// Set, when not nil, gives each amount of source SetSrc, in currency
 	// units before its Unit, by the index of its event: amounts decided
 	// date by date (a household budget's share), in place of Amounts.
@@ -133,6 +141,7 @@ const (
 	PostFlow   // an amount of source Post.Src
 	PostIncome // an income amount of source Post.Src, received outside the account
 	PostTax    // the tax on a year's interest, paid from the account
+	PostMatch  // an employer's contribution matching a deposit of source Post.Src
 )
 
 // A Post is one movement, in minor units.
@@ -261,6 +270,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
+	// matched is the deposits matched in year matchYear (Inputs.Match)
+	var matched float64
+	matchYear := int32(-1)
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
@@ -466,7 +478,25 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				continue
 			}
-			var short, covered float64
+			var short, covered, emp float64
+			if in.Match > 0 && !o.One && in.Matched[e.Src] && x > 0 {
+				if y := e.Month / 12; y != matchYear {
+					matchYear, matched = y, 0
+				}
+				m := x
+				if in.MatchLimit != nil {
+					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+				}
+				matched += m
+				emp = m * in.Match
+				if o.Mode == Exact {
+					if q, sure := money.RoundFast(emp); sure {
+						emp = q
+					} else {
+						emp = roundPosting(m, in.MatchM, 0, in.Rounding)
+					}
+				}
+			}
 			if in.Out[e.Src] {
 				x = -math.Abs(x)
 				if pool > 0 && o.Mode == Exact { // the month's income pays first
@@ -493,22 +523,26 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				continue
 			}
+			bal += emp // the employer's part arrives with the deposit
 			if none {
 				low = lowest(low, bal+accrued, e.Tau)
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
-				base += x
+			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+				base += in
 			} else if p == nil {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-				if x < 0 {
+				if in < 0 {
 					i++
 				}
-				acc += x * w[i]
+				acc += in * w[i]
 			} else {
-				acc += x * p.W[i]
+				acc += in * p.W[i]
 			}
 			if o.Log != nil {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				if emp != 0 {
+					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+				}
 			}
 		}
 	}
@@ -539,6 +573,18 @@ func (s *Schedule) Weights(p *Paths, in *Inputs) {
 	}
 }
 
+// MaxMatchPosts returns the most employer contributions a walk of s can
+// post: one for each amount.
+func (s *Schedule) MaxMatchPosts() int {
+	n := 0
+	for i := range s.events {
+		if k := s.events[i].Kind; k == FlowEnd || k == FlowBegin {
+			n++
+		}
+	}
+	return n
+}
+
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
 // grow it.
@@ -549,7 +595,8 @@ func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, sh
 }
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with
-// room for them grows no more during the walk.
+// room for them grows no more during the walk. A walk with Inputs.Match
+// posts one more for each amount (see MaxMatchPosts).
 func (s *Schedule) MaxPosts() int {
 	n := len(s.events) // each event posts once, but a run of interest dates once a date
 	if !s.accrue {
