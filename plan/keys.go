@@ -20,6 +20,7 @@ const (
 	InRateStep                // each step of a rate schedule
 	InScenario                // each named scenario
 	InChange                  // each change of a scenario: a goal, a stream and what-if keys
+	InActual                  // each actual balance of a goal
 	InPerson                  // each of the household's people
 	InBudget                  // the budget: a stream's keys and its rule
 )
@@ -35,6 +36,7 @@ var where = map[Scope]string{
 	InRateStep:   "each step of a rate schedule (under rate:)",
 	InScenario:   "each scenario (under scenarios:)",
 	InChange:     "each change of a scenario (under changes:)",
+	InActual:     "each actual balance (under actuals:)",
 	InPerson:     "each person (under people:)",
 	InBudget:     "the budget (under budget:)",
 }
@@ -151,6 +153,7 @@ type target struct {
 	st  *RateStep
 	sc  *Scenario
 	who *Person
+	a   *Actual
 	b   *Budget
 }
 
@@ -206,6 +209,13 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true, MaxItems: MaxGoals,
 		Missing: "want a list of goals",
 		Default: "required", Help: "a list of goals"},
+	{Name: "actuals_file", Scope: InPlan, Form: FormName,
+		Default: "none",
+		Help: "a CSV of actual balances, one a line: month, goal,\n" +
+			"balance (such as 2028-06,Emergency fund,7412.30; a first\n" +
+			"line month,goal,balance is a header), relative to the\n" +
+			"goals file; added to each goal's actuals",
+		put: func(t *target, v *value) { t.p.ActualsFile = v.text }},
 	{Name: "people", Scope: InPlan, Form: FormList, Items: InPerson, MaxItems: MaxPeople,
 		Default: "none",
 		Help: "the household's people, each a name and a birth month:\n" +
@@ -362,6 +372,13 @@ var Keys = withChangeKeys([]*Key{
 			"the account; a plan that passes it by a cent is refused",
 		Set: "cap",
 		put: func(t *target, v *value) { t.g.Cap, t.g.HasCap = v.amount, true }},
+	{Name: "actuals", Scope: InGoal, Form: FormList, Items: InActual, MaxItems: MaxActuals,
+		Default: "none",
+		Help: "balances statements showed, at the end of a month, from\n" +
+			"the plan's start to today (--as-of); status compares\n" +
+			"the latest with the plan and re-plans from it\n" +
+			"  - month: 2028-06\n" +
+			"    balance: 7,412.30"},
 	{Name: "leave", Scope: InGoal, Form: FormAmountToday,
 		Default: "0",
 		Help: "balance that must remain after the last withdrawal;\n" +
@@ -446,6 +463,13 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "rate", Scope: InRateStep, Form: FormRate, Min: MinRatePercent, Max: MaxRatePercent, Required: true,
 		put: func(t *target, v *value) { t.st.Rate = v.rate }},
 
+	// each actual balance (documented under the goal's actuals)
+	{Name: "month", Scope: InActual, Form: FormMonth, Required: true,
+		Missing: "want the month of the statement, such as month: 2028-06",
+		put:     func(t *target, v *value) { t.a.Month = v.month }},
+	{Name: "balance", Scope: InActual, Form: FormAmount, Required: true,
+		Missing: "want the balance at the end of that month, such as balance: 7,412.30",
+		put:     func(t *target, v *value) { t.a.Balance = v.amount }},
 	// the budget, besides a stream's keys
 	{Name: "rule", Scope: InBudget, Form: FormChoice,
 		Choices: []Choice{{"priority", int(ByPriority)}, {"one-at-a-time", int(OneAtATime)}},

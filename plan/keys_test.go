@@ -45,6 +45,7 @@ func TestKeyInWrongScope(t *testing.T) {
 		{plan.InStream, "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    deposits:\n      - amount: 1\n        every: month\n        KEY: x\n"},
 		{plan.InOnce, "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    once:\n      - amount: 1\n        on: 2027-02\n        KEY: x\n"},
 		{plan.InRateStep, "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate:\n      - rate: 1%\n        KEY: x\n"},
+		{plan.InActual, "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    actuals:\n      - month: 2027-02\n        balance: 1\n        KEY: x\n"},
 	}
 	for _, k := range plan.Keys {
 		if k.Scope == plan.InChange {

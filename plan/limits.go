@@ -10,6 +10,7 @@ const (
 	MaxGoals         = 100
 	MaxStreams       = 50 // deposits plus withdrawals, per goal
 	MaxOnce          = 1000
+	MaxActuals       = 2000 // actual balances a goal, from the file and its CSV
 	MaxRateSteps     = 200
 	HorizonYears     = 150 // no date may lie more than this after the start
 	MaxAmountUnits   = 1_000_000_000_000

@@ -79,7 +79,14 @@ func shapeOf(p *Plan, g *Goal, end, stop Month, hasStop bool) engine.Shape {
 			ss.Until = int32(st.Until - p.Start)
 		}
 		if st.UntilReached && hasStop {
-			ss.HasUntil, ss.Until = true, int32(stop-p.Start)
+			u := int32(stop - p.Start)
+			if st.HasUntil { // the earlier part of a stream split by Replan
+				u = min(u, ss.Until)
+			}
+			ss.HasUntil, ss.Until = true, u
+		}
+		if st.resume != 0 {
+			ss.Resume = int32(st.resume - p.Start)
 		}
 		sh.Streams = append(sh.Streams, ss)
 	}

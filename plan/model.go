@@ -26,6 +26,13 @@ type Plan struct {
 	// the one [Plan.WithScenario] applied to this copy, or "".
 	Scenarios []*Scenario
 	Applied   string
+	// ActualsFile names a CSV of actual balances (month, goal, balance),
+	// relative to the goals file, or is "" for none; the caller reads it
+	// and hands it to [Plan.ReadActuals].
+	ActualsFile string
+
+	actualsPos Position // where actuals_file is written
+	asOf       Month    // today's month as Parse was given it; 0: not known
 
 	// Budget is what the household can set aside for the goals with a
 	// Priority, or nil.
@@ -149,6 +156,9 @@ type Goal struct {
 	// start (deposits and one-time amounts in), when HasCap is set.
 	Cap    money.Amount
 	HasCap bool
+	// Actuals are the balances statements showed, in month order, at most
+	// one a month (see [Actual]).
+	Actuals []Actual
 	// Priority, from 1 (first), says the goal draws on the plan's Budget;
 	// 0 says it does not.
 	Priority int
@@ -245,6 +255,23 @@ func (p *Plan) AfterTax(g *Goal, a money.Amount) money.Amount {
 // unit.
 func (p *Plan) Gross(g *Goal, net money.Amount) money.Amount {
 	return net.MulFloat(1/(1-g.RateOut())).Round(p.Currency.Places, p.Rounding)
+
+}
+
+// An Actual is a goal's real balance at the end of a month, as a statement
+// showed it: what the plan is compared with and re-planned from.
+type Actual struct {
+	Month   Month
+	Balance money.Amount
+	Pos     Position // where it is written: the goals file or the CSV
+}
+
+// Latest returns the goal's latest actual, and false when it has none.
+func (g *Goal) Latest() (Actual, bool) {
+	if len(g.Actuals) == 0 {
+		return Actual{}, false
+	}
+	return g.Actuals[len(g.Actuals)-1], true
 }
 
 // Pos returns the position of the goal in its file.
@@ -275,8 +302,9 @@ type Stream struct {
 	// the tax on withdrawals: the account pays [Plan.Gross] of it.
 	Net bool
 
-	growSet   bool // grow was given; otherwise an amount in today's money grows with inflation
-	forMonths int  // a withdrawal's length as given by for:, which sets Until
+	growSet   bool  // grow was given; otherwise an amount in today's money grows with inflation
+	resume    Month // its amounts before this month are left out (see replan); 0: none
+	forMonths int   // a withdrawal's length as given by for:, which sets Until
 }
 
 // growth returns the stream's yearly growth rate under inflation pi.
@@ -308,6 +336,7 @@ func (g *Goal) clone() *Goal {
 	h := *g
 	h.Rates = append([]RateStep(nil), g.Rates...)
 	h.Once = append([]Once(nil), g.Once...)
+	h.Actuals = append([]Actual(nil), g.Actuals...)
 	h.Deposits = cloneStreams(g.Deposits)
 	h.Withdrawals = cloneStreams(g.Withdrawals)
 	h.Income = cloneStreams(g.Income)

@@ -474,11 +474,14 @@ func (d *decoder) list(v *yaml.Node, path, noun string) ([]*yaml.Node, bool) {
 }
 
 func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
-	p := &Plan{File: d.file, Currency: money.USD, Rounding: money.HalfEven}
+	p := &Plan{File: d.file, Currency: money.USD, Rounding: money.HalfEven, asOf: asOf}
 	d.asOf = asOf
 	given := d.keys(n, "", InPlan, &target{p: p})
 	if given == nil {
 		return nil
+	}
+	if v := given["actuals_file"]; v != nil {
+		p.actualsPos = d.pos(v)
 	}
 	if given["start"] == nil {
 		p.Start = asOf + 1
@@ -596,7 +599,33 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 			}
 		}
 	}
+	if v := given["actuals"]; v != nil {
+		d.actuals(p, g, v, join(path, "actuals"))
+	}
 	return g
+}
+
+// actuals decodes a goal's list of actual balances.
+func (d *decoder) actuals(p *Plan, g *Goal, v *yaml.Node, path string) {
+	items, _ := d.list(v, path, "actual balances")
+	if len(items) > MaxActuals {
+		d.errorf(v, path, "%d actual balances, over the limit of %d a goal", len(items), MaxActuals)
+		return
+	}
+	for i, an := range items {
+		ip := fmt.Sprintf("%s[%d]", path, i)
+		a := Actual{Pos: d.pos(an)}
+		given := d.keys(resolve(an), ip, InActual, &target{p: p, g: g, a: &a})
+		if given == nil || given["month"] == nil || given["balance"] == nil || d.bad[ip+".month"] || d.bad[ip+".balance"] {
+			continue
+		}
+		if msg := p.actualProblem(g, a); msg != "" {
+			d.errorf(given["month"], ip+".month", "%s", msg)
+			continue
+		}
+		g.Actuals = append(g.Actuals, a)
+	}
+	sortActuals(g)
 }
 
 // rates decodes a rate or a schedule of rates (key k) from the plan's start.

@@ -667,8 +667,9 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// With money only coming in, the balance rises with the rate and there
 	// is at most one root: no scan is needed. Money going out as well can
 	// make several (the cash flows change sign), so scan for brackets.
+	rising := len(g.Withdrawals) == 0 && !anyOut(g.Once)
 	n := 48
-	if len(g.Withdrawals) == 0 && !anyOut(g.Once) {
+	if rising {
 		n = 1
 	}
 	var roots []float64
@@ -732,8 +733,13 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// not meet it and one above that does, above − below ≤ tol. Secant steps along the exact
 	// balance close in (each aiming a quarter unit past the target), and
 	// bisection finishes once the roundings' noise stalls them.
+	//
+	// Each exact walk is made at the rate asked raised by margin, the
+	// margin the answer keeps (below), so that the walk at the rate found
+	// is the walk at the answer: no walk to repeat it.
+	const margin = 1e-12
 	meets := func(delta float64) (float64, bool) {
-		r := money.ForceRate(delta)
+		r := money.ForceRate(delta + margin)
 		pr.rate = &r
 		bal, _ := s.closing(pr)
 		return bal.Float(), bal.Cmp(target) >= 0
@@ -832,14 +838,14 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		above = delta
 		hiBal, _ = meets(above)
 	}
-	// The answer is raised 1e-12 above the rate found to meet the target: a
-	// margin against the last bits a conversion of the rate to another form
-	// changes, so that the rate meets the target when used.
-	above += 1e-12
-	hiBal, _ = meets(above)
+	// The answer is raised by the margin above the rate found to meet the
+	// target (hiBal is the balance walked there): a margin against the last
+	// bits a conversion of the rate to another form changes, so that the
+	// rate meets the target when used.
+	above += margin
 	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(above), Periods: math.NaN(), Deadline: g.By, Target: target,
 		Balance: s.amount(hiBal)}
-	return finishRate(s, a, pr, roots, full), nil
+	return finishRate(s, a, pr, roots, rising, full), nil
 }
 
 // amount returns bal, in currency units a whole number of minor units, as
@@ -870,8 +876,17 @@ func crosses(meets func(float64) (float64, bool), r float64) bool {
 // its text, as the goals file reads it. s must compound as the form does
 // (an effective rate monthly). It meets at once unless a posting rounds
 // the other way.
-func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix string) float64 {
+//
+// With money only coming in (rising), the exact balance does not fall as
+// the rate rises — each posting's rounding is monotone in the balance and
+// the rate, and a fee's posting rises at most a minor unit for each minor
+// unit of balance — so a shown rate clearly above x, which is known to
+// meet target, meets it too and is not walked again.
+func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix string, rising bool) float64 {
 	v := money.RateUp(x)
+	if rising && v-x > 1e-12 {
+		return v
+	}
 	for range 100 {
 		r, err := money.ParseRate(money.Percent(v, 6) + suffix)
 		if err != nil {
@@ -892,15 +907,16 @@ func (s *schedule) shownRate(pr *params, target money.Amount, x float64, suffix 
 
 // finishRate completes a rate answer: the other roots, and the proof at the
 // answer's rate.
-func finishRate(s *schedule, a *Answer, pr *params, roots []float64, full bool) *Answer {
+// rising says the goal's money only comes in (see [schedule.shownRate]).
+func finishRate(s *schedule, a *Answer, pr *params, roots []float64, rising, full bool) *Answer {
 	for _, r := range roots[1:] {
 		a.Rates = append(a.Rates, money.ForceRate(r))
 	}
 	comp := s.comp
-	a.ShownNominal = s.shownRate(pr, a.Target, a.Rate.Nominal(comp), " compounded "+comp.Adjective())
+	a.ShownNominal = s.shownRate(pr, a.Target, a.Rate.Nominal(comp), " compounded "+comp.Adjective(), rising)
 	a.ShownEffective = money.RateUp(a.Rate.Effective())
 	if comp == money.Monthly { // an effective rate credits monthly: the same account
-		a.ShownEffective = s.shownRate(pr, a.Target, a.Rate.Effective(), "")
+		a.ShownEffective = s.shownRate(pr, a.Target, a.Rate.Effective(), "", rising)
 	}
 	pr.rate = &a.Rate
 	s.prove(a, pr, full)

@@ -100,22 +100,56 @@ func StatusOf(p *Plan) *Status {
 		}
 	}
 	for _, g := range p.Goals {
-		gs := GoalStatus{Goal: g}
-		gs.MonthlyNow = monthlyDeposits(p, g, nil, money.Zero)
-		gs.MonthlyNeeded = gs.MonthlyNow
 		if i, ok := shares[g]; ok {
+			gs := GoalStatus{Goal: g}
+			gs.MonthlyNow = monthlyDeposits(p, g, nil, money.Zero)
+			gs.MonthlyNeeded = gs.MonthlyNow
 			gs.Share = st.Budget.Shares[i]
 			budgetStatus(p, st.Budget, i, &gs)
-			st.afterTax(&gs)
+			afterTax(p, &gs)
+			st.addAfterTax(&gs)
 			st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
 			st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNow)
 			st.Goals = append(st.Goals, gs)
 			continue
 		}
-		if g.HasTarget && g.HasBy {
-			gs.TargetAt = p.TargetAt(g)
-			l, _ := Project(p, g, g.By)
-			gs.Projected = l.BalanceAt(g.By)
+		gs := goalStatus(p, g)
+		st.addAfterTax(&gs)
+		st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
+		st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNeeded)
+		st.Goals = append(st.Goals, gs)
+	}
+	return st
+}
+
+// goalStatus is goal g of plan p at a glance.
+func goalStatus(p *Plan, g *Goal) GoalStatus {
+	gs := GoalStatus{Goal: g}
+	gs.MonthlyNow = monthlyDeposits(p, g, nil, money.Zero)
+	gs.MonthlyNeeded = gs.MonthlyNow
+	if g.HasTarget && g.HasBy {
+		gs.TargetAt = p.TargetAt(g)
+		l, _ := Project(p, g, g.By)
+		gs.Projected = l.BalanceAt(g.By)
+		gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
+		if !gs.OnTrack {
+			gs.Short = gs.TargetAt.Sub(gs.Projected)
+		}
+		gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
+		if gs.NeededErr == nil {
+			gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
+		}
+	} else if g.HasTarget {
+		gs.TargetAt = g.Target
+	} else if first, ok := firstWithdrawal(g); ok && first > p.Start {
+		// no target: the capital the withdrawals need is the goal's
+		// (a drawdown under way from the start has its answer in Lasts)
+		gs.Capital, gs.CapitalErr = solve(p, g, Question{For: ForCapital}, true)
+		if gs.CapitalErr == nil {
+			at := gs.Capital.Month
+			gs.TargetAt = gs.Capital.Amount
+			l, _ := Project(p, g, at)
+			gs.Projected = l.BalanceAt(at)
 			gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
 			if !gs.OnTrack {
 				gs.Short = gs.TargetAt.Sub(gs.Projected)
@@ -124,62 +158,43 @@ func StatusOf(p *Plan) *Status {
 			if gs.NeededErr == nil {
 				gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
 			}
-		} else if g.HasTarget {
-			gs.TargetAt = g.Target
-		} else if first, ok := firstWithdrawal(g); ok && first > p.Start {
-			// no target: the capital the withdrawals need is the goal's
-			// (a drawdown under way from the start has its answer in Lasts)
-			gs.Capital, gs.CapitalErr = solve(p, g, Question{For: ForCapital}, true)
-			if gs.CapitalErr == nil {
-				at := gs.Capital.Month
-				gs.TargetAt = gs.Capital.Amount
-				l, _ := Project(p, g, at)
-				gs.Projected = l.BalanceAt(at)
-				gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
-				if !gs.OnTrack {
-					gs.Short = gs.TargetAt.Sub(gs.Projected)
-				}
-				gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
-				if gs.NeededErr == nil {
-					gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
-				}
-			}
 		}
-		if g.HasTarget {
-			if a, err := solve(p, g, Question{For: ForTime}, false); err != nil {
-				gs.Reach = err
-			} else if g.HasBy && !gs.OnTrack && a.Month <= g.By {
-				// reached, then fallen below by the deadline: a row never
-				// says both reached and short
-				gs.Reach = noSolution(g, "the balance reaches the target in %s but falls below it by the deadline", a.Month)
-			} else {
-				gs.Reached = a.Month
-			}
-		}
-		if len(g.Withdrawals) > 0 {
-			gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
-		}
-		st.afterTax(&gs)
-		st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
-		st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNeeded)
-		st.Goals = append(st.Goals, gs)
 	}
-	return st
+	if g.HasTarget {
+		if a, err := solve(p, g, Question{For: ForTime}, false); err != nil {
+			gs.Reach = err
+		} else if g.HasBy && !gs.OnTrack && a.Month <= g.By {
+			// reached, then fallen below by the deadline: a row never
+			// says both reached and short
+			gs.Reach = noSolution(g, "the balance reaches the target in %s but falls below it by the deadline", a.Month)
+		} else {
+			gs.Reached = a.Month
+		}
+	}
+	if len(g.Withdrawals) > 0 {
+		gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
+	}
+	afterTax(p, &gs)
+	return gs
 }
 
-// afterTax fills in goal status gs's figures after tax and adds them to the
-// household's totals; the budget-drawing goals count what they need as what
-// they set aside, as the totals do.
-func (st *Status) afterTax(gs *GoalStatus) {
-	p, g := st.Plan, gs.Goal
+// afterTax fills in goal status gs's figures after tax and its employer's
+// contributions.
+func afterTax(p *Plan, gs *GoalStatus) {
+	g := gs.Goal
 	gs.ProjectedAfterTax = p.AfterTax(g, gs.Projected)
 	gs.MonthlyNowFromPay, gs.MonthlyNeededFromPay = p.FromPay(g, gs.MonthlyNow), p.FromPay(g, gs.MonthlyNeeded)
-	st.MonthlyNowFromPay = st.MonthlyNowFromPay.Add(gs.MonthlyNowFromPay)
-	st.MonthlyNeededFromPay = st.MonthlyNeededFromPay.Add(gs.MonthlyNeededFromPay)
 	if g.Match > 0 {
 		gs.EmployerMonthly = employerMonthly(p, g)
-		st.EmployerMonthly = st.EmployerMonthly.Add(gs.EmployerMonthly)
 	}
+}
+
+// addAfterTax adds goal status gs's figures after tax and its employer's
+// contributions to the household's totals.
+func (st *Status) addAfterTax(gs *GoalStatus) {
+	st.MonthlyNowFromPay = st.MonthlyNowFromPay.Add(gs.MonthlyNowFromPay)
+	st.MonthlyNeededFromPay = st.MonthlyNeededFromPay.Add(gs.MonthlyNeededFromPay)
+	st.EmployerMonthly = st.EmployerMonthly.Add(gs.EmployerMonthly)
 }
 
 // employerMonthly is goal g's employer contributions in the plan's first

@@ -41,6 +41,12 @@ type noAnswer struct{ err error }
 
 func (e *noAnswer) Error() string { return e.err.Error() }
 
+// reported is an exit code whose messages are printed already: status over
+// several files reports each file's error as it goes.
+type reported struct{ code int }
+
+func (e *reported) Error() string { return fmt.Sprintf("exit code %d", e.code) }
+
 func usagef(hint, format string, args ...any) error {
 	return &usageError{msg: fmt.Sprintf(format, args...), hint: hint}
 }
@@ -81,7 +87,10 @@ func report(w io.Writer, err error) int {
 	var ie *inputError
 	var na *noAnswer
 	var el plan.ErrorList
+	var rp *reported
 	switch {
+	case errors.As(err, &rp):
+		return rp.code
 	case errors.As(err, &na):
 		return exitNoAnswer
 	case errors.As(err, &el):
@@ -219,6 +228,7 @@ func newApp(e *env) *cli.App {
 			solveCommand(e),
 			projectCommand(e),
 			reportCommand(e),
+			rebaseCommand(e),
 			compareCommand(e),
 			simulateCommand(e),
 			convertCommand(e),

@@ -34,7 +34,7 @@ func TestComplete(t *testing.T) {
 		{[]string{"solve", file, "--goal", "\"Emer"}, []string{"Emergency fund"}},
 		{[]string{"solve", "--exp"}, []string{"--explain"}},
 		{[]string{"status", ""}, []string{filesFlag}},
-		{[]string{"help", ""}, []string{"status", "budget", "solve", "project", "report", "compare", "simulate", "convert", "check", "init", "completion", "file"}},
+		{[]string{"help", ""}, []string{"status", "budget", "solve", "project", "report", "rebase", "compare", "simulate", "convert", "check", "init", "completion", "file"}},
 		{[]string{"completion", "z"}, []string{"zsh"}},
 		{[]string{"nosuch", ""}, nil},
 	} {

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path/filepath"
 	"strings"
 
 	"github.com/urfave/cli/v2"
@@ -99,6 +100,12 @@ func readCases(c *cli.Context, e *env) ([]plan.Case, error) {
 	if err != nil {
 		return nil, err
 	}
+	return casesOf(c, p)
+}
+
+// casesOf is plan p as written and then each scenario named by --scenario
+// (every scenario with --scenarios), each with --set applied after it.
+func casesOf(c *cli.Context, p *plan.Plan) ([]plan.Case, error) {
 	names, err := scenarioNames(c, p)
 	if err != nil {
 		return nil, err
@@ -176,8 +183,14 @@ func parsePlan(c *cli.Context, e *env) (*plan.Plan, error) {
 	if c.NArg() > 1 {
 		return nil, usagef("give one goals file", "too many arguments: %s", strings.Join(c.Args().Slice(), " "))
 	}
-	name := c.Args().First()
+	return readGoalsFile(e, c.Args().First(), asOf, nil)
+}
+
+// readGoalsFile reads and parses the goals file name ("-" for standard
+// input, "" for ./cairn.yaml), its schedules kept in cache (nil: its own).
+func readGoalsFile(e *env, name string, asOf plan.Month, cache *plan.Cache) (*plan.Plan, error) {
 	var data []byte
+	var err error
 	switch name {
 	case "-":
 		name = "<stdin>"
@@ -195,11 +208,47 @@ func parsePlan(c *cli.Context, e *env) (*plan.Plan, error) {
 	if err != nil {
 		return nil, &inputError{err: err}
 	}
-	p, err := plan.Parse(name, data, asOf)
+	p, err := plan.ParseCached(name, data, asOf, cache)
 	if err != nil {
 		return nil, &inputError{err: err, hint: "`cairn help file` lists every key with its default"}
 	}
+	if err := readActuals(p, name); err != nil {
+		return nil, err
+	}
 	return p, nil
+}
+
+// readActuals adds the actual balances of the CSV that the goals file name
+// names (actuals_file:, relative to the goals file's directory; to the
+// working directory for standard input).
+func readActuals(p *plan.Plan, name string) error {
+	if p.ActualsFile == "" {
+		return nil
+	}
+	path := p.ActualsFile
+	if !filepath.IsAbs(path) && name != "<stdin>" {
+		path = filepath.Join(filepath.Dir(name), path)
+	}
+	refuse := func(format string, args ...any) error {
+		return &inputError{err: plan.ErrorList{{Pos: p.ActualsFilePos(), Msg: "actuals_file: " + fmt.Sprintf(format, args...)}},
+			hint: "an actuals file is a CSV of month,goal,balance lines, named relative to the goals file"}
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return refuse("cannot read %q: %s", p.ActualsFile, strings.TrimPrefix(err.Error(), "open "+path+": "))
+	}
+	defer f.Close()
+	if st, err := f.Stat(); err == nil && !st.Mode().IsRegular() {
+		return refuse("%q is not a regular file", p.ActualsFile)
+	}
+	data, err := io.ReadAll(io.LimitReader(f, plan.MaxFileSize+1))
+	if err != nil {
+		return refuse("cannot read %q: %v", p.ActualsFile, err)
+	}
+	if err := p.ReadActuals(path, data); err != nil {
+		return &inputError{err: err, hint: "each line of an actuals file is month,goal,balance, such as 2028-06,Emergency fund,7412.30"}
+	}
+	return nil
 }
 
 // withSets is plan p with the --set changes applied, to the goal named by

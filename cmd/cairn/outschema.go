@@ -44,7 +44,7 @@ var noticeFields = []jsonField{
 // jsonOutputs lists each command's own keys.
 var jsonOutputs = map[string][]jsonField{
 	"status": {
-		{"goals", "array", true, "one object a goal: target, deadline, projected balance, status and deposit needed"},
+		{"goals", "array", true, "one object a goal: target, deadline, projected balance, status and deposit needed; for a goal with actual balances, \"actual\": the latest against the plan, the goal re-planned from it and the return earned"},
 		{"monthly_now", "string", true, "the total set aside a month now"},
 		{"monthly_needed", "string", true, "the total a month needed to meet every goal"},
 		{"cases", "array", false, "with several scenarios: the plan as written (base), then each scenario, each with its goals and totals"},

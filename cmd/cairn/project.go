@@ -64,6 +64,9 @@ func projectCommand(e *env) *cli.Command {
 			d := projectDoc(p, g, l, by)
 			if c.Bool("chart") {
 				d.Blocks = append(d.Blocks, render.Pre{Text: projectChart(p, g, l.Rows(by, false), by)})
+				if s := realityPlot(p, g, end); s != "" {
+					d.Blocks = append(d.Blocks, render.Pre{Text: s})
+				}
 			}
 			return out(c, e, d)
 		},

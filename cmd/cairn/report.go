@@ -490,6 +490,9 @@ func goalChart(p *plan.Plan, g *plan.Goal, l *plan.Ledger, rows []plan.Row, band
 		rows[0].Label, last.Label, p.Currency.Code, amt(p, l.Opening), p.Start, amt(p, last.Closing), last.To, amt(p, hi), hiAt),
 		fmt.Sprintf("Dashed line: the same balances in today’s money (money of %s), %s at the end.", p.Start, amt(p, last.ClosingToday))}
 	caption := fmt.Sprintf("The balance at the end of each year, in money of that date (solid line) and in today’s money, money of %s (dashed line)", p.Start)
+	if d, cp, ok := realitySeries(p, g, l.End, c); ok {
+		desc, caption = []string{d}, cp
+	}
 	var marks []string
 	if g.HasTarget {
 		at := p.TargetAt(g)

@@ -52,6 +52,7 @@ var scopeDefs = map[plan.Scope]string{
 	plan.InRateStep:   "rate_step",
 	plan.InScenario:   "scenario",
 	plan.InChange:     "change",
+	plan.InActual:     "actual",
 	plan.InPerson:     "person",
 	plan.InBudget:     "budget",
 }

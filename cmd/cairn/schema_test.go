@@ -90,6 +90,9 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 	case plan.InRateStep:
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate:\n      - " +
 			unless("rate", "rate: 1%\n        ") + unless("from", "from: 2027-01\n        ") + kv + "\n")
+	case plan.InActual:
+		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    actuals:\n      - " +
+			unless("month", "month: 2027-02\n        ") + unless("balance", "balance: 10\n        ") + kv + "\n")
 	case plan.InPerson:
 		b.WriteString("cairn: 1\nstart: 2027-01\npeople:\n  - " + unless("name", "name: Alex\n    ") + unless("born", "born: 1960-01\n    ") + kv +
 			"\ngoals:\n  - name: g\n")
@@ -108,7 +111,11 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 // parsing a file with it reports no problem on its line.
 func accepts(t *testing.T, k *plan.Key, v string) bool {
 	text, line := goalsFileWith(k, v)
-	_, err := plan.Parse("t.yaml", []byte(text), plan.MonthOf(2026, 12))
+	asOf := plan.MonthOf(2026, 12)
+	if k.Scope == plan.InActual {
+		asOf = 0 // the samples are months after 2026-12: no today to be after
+	}
+	_, err := plan.Parse("t.yaml", []byte(text), asOf)
 	var el plan.ErrorList
 	if err != nil && !errors.As(err, &el) {
 		t.Fatalf("%s = %q: %v", k.Name, v, err)

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"slices"
 	"strings"
@@ -15,7 +16,7 @@ func statusCommand(e *env) *cli.Command {
 	return &cli.Command{
 		Name:      "status",
 		Usage:     "the household at a glance: every goal, its deadline, and whether it is on track",
-		ArgsUsage: "[FILE]",
+		ArgsUsage: "[FILE...]",
 		Description: "For every goal: the target as written and at its deadline, the balance projected at the\n" +
 			"deadline, the month the target is reached, on track or short by how much, and the deposit\n" +
 			"per period needed to make the deadline; then the total set aside a month now and needed.\n\n" +
@@ -26,35 +27,153 @@ func statusCommand(e *env) *cli.Command {
 			"   cairn status examples/household.yaml --scenarios\n\n" +
 			"--scenario NAME applies one of the file's scenarios; with --scenarios (or --scenario given more\n" +
 			"than once) each goal's key figures are shown under the plan as written and each scenario,\n" +
-			"side by side, one row a goal and case.",
+			"side by side, one row a goal and case.\n\n" +
+			"Several files are answered in turn, each under its file's name (in CSV one table with a file\n" +
+			"column), as for a folder of households: cairn status clients/*.yaml. A file with a problem is\n" +
+			"reported and the others are still answered; the exit code is the worst of them.",
 		Flags: append(fileFlags(true), scenariosFlag,
 			&cli.StringFlag{Name: "goal", Aliases: []string{"g"}, Usage: "the goal that --set changes, by `NAME` (every goal is still shown)"},
 			&cli.StringFlag{Name: "stream", Usage: "the stream that --set changes, by `NAME` (the goal's first when not given)"},
 		),
 		Action: func(c *cli.Context) error {
+			if c.NArg() > 1 {
+				return statusFiles(c, e)
+			}
 			cases, err := readCases(c, e)
 			if err != nil {
 				return err
 			}
-			p := cases[0].Plan
-			if c.IsSet("goal") {
-				if _, err := goalOf(c, p); err != nil {
-					return err
-				}
-			}
-			if _, err := parseFormat(c); err != nil {
+			d, err := statusAnswer(c, cases)
+			if err != nil {
 				return err
 			}
-			switch len(cases) {
-			case 1:
-				return out(c, e, statusDoc(p, plan.StatusOf(p)))
-			case 2:
-				p = cases[1].Plan
-				return out(c, e, statusDoc(p, plan.StatusOf(p)))
-			}
-			return out(c, e, casesDoc(cases))
+			return out(c, e, d)
 		},
 	}
+}
+
+// statusAnswer is the status document of one file's cases: the plan as
+// written, one scenario, or several side by side.
+func statusAnswer(c *cli.Context, cases []plan.Case) (*render.Doc, error) {
+	p := cases[0].Plan
+	if c.IsSet("goal") {
+		if _, err := goalOf(c, p); err != nil {
+			return nil, err
+		}
+	}
+	if _, err := parseFormat(c); err != nil {
+		return nil, err
+	}
+	switch len(cases) {
+	case 1:
+		return statusDoc(p, plan.StatusOf(p)), nil
+	case 2:
+		p = cases[1].Plan
+		return statusDoc(p, plan.StatusOf(p)), nil
+	}
+	return casesDoc(cases), nil
+}
+
+// statusFiles answers status for each of several goals files in turn (an
+// adviser's folder of households), each under its file's name: in text a
+// line naming the file, in Markdown a heading, in JSON one document a file
+// (each names its file), in CSV one table with the file in its first
+// column. A file that cannot be answered is reported as it would be alone,
+// named, and the others are still answered; the exit code is the worst of
+// them. The files share one schedule cache, so a shape several households
+// share is compiled once.
+func statusFiles(c *cli.Context, e *env) error {
+	f, err := parseFormat(c)
+	if err != nil {
+		return err
+	}
+	asOf, err := asOfMonth(c, e)
+	if err != nil {
+		return err
+	}
+	cache := new(plan.Cache)
+	worst, written := exitOK, 0
+	var rows *render.Table
+	drawdown := false
+	for _, name := range c.Args().Slice() {
+		d, err := statusFile(c, e, name, asOf, cache)
+		if err != nil {
+			worst = max(worst, report(e.stderr, inFile(name, err)))
+			continue
+		}
+		if f == render.FormatCSV {
+			rows = withFile(rows, d, name)
+			drawdown = drawdown || slices.Contains(d.Notices, drawdownNotice)
+			continue
+		}
+		sep := "\n" // a blank line between two files' answers
+		if written == 0 {
+			sep = ""
+		}
+		if f == render.FormatText {
+			fmt.Fprintf(e.stdout, "%sGoals file: %s\n\n", sep, name)
+		} else if f == render.FormatMarkdown {
+			fmt.Fprintf(e.stdout, "%s## %s\n\n", sep, name)
+		}
+		if err := out(c, e, d); err != nil {
+			return err
+		}
+		written++
+	}
+	if rows != nil {
+		d := newDoc(nil, drawdown)
+		d.Blocks = []render.Block{rows}
+		if err := out(c, e, d); err != nil {
+			return err
+		}
+	}
+	if worst != exitOK {
+		return &reported{code: worst}
+	}
+	return nil
+}
+
+// statusFile is the status document of the goals file name.
+func statusFile(c *cli.Context, e *env, name string, asOf plan.Month, cache *plan.Cache) (*render.Doc, error) {
+	p, err := readGoalsFile(e, name, asOf, cache)
+	if err != nil {
+		return nil, err
+	}
+	cases, err := casesOf(c, p)
+	if err != nil {
+		return nil, err
+	}
+	return statusAnswer(c, cases)
+}
+
+// withFile is table t (nil for none yet) with the rows of d's first table
+// added under the file's name, in a first column.
+func withFile(t *render.Table, d *render.Doc, name string) *render.Table {
+	st := d.Tables()[0]
+	if t == nil {
+		t = &render.Table{Cols: append([]render.Column{{Head: "file", Key: "file"}}, st.Cols...)}
+	}
+	for _, r := range st.Rows {
+		t.Add(append([]render.Cell{render.Text(name)}, r...)...)
+	}
+	return t
+}
+
+// inFile names file name in err, unless err already does (a positioned
+// error, or one about reading the file).
+func inFile(name string, err error) error {
+	if strings.Contains(err.Error(), name) {
+		return err
+	}
+	var ue *usageError
+	var ie *inputError
+	switch {
+	case errors.As(err, &ue):
+		return &usageError{msg: name + ": " + ue.msg, hint: ue.hint}
+	case errors.As(err, &ie):
+		return &inputError{err: fmt.Errorf("%s: %w", name, ie.err), hint: ie.hint}
+	}
+	return fmt.Errorf("%s: %w", name, err)
 }
 
 // statusDoc is every goal of p at a glance; its table and remarks are also
@@ -204,8 +323,9 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 		t.Add(row...)
 		goals = append(goals, jg)
 	}
-	d.Notices = notices(p, drawdown)
 	d.Blocks = []render.Block{t}
+	drawdown = progress(d, p, goals) || drawdown
+	d.Notices = notices(p, drawdown)
 	d.After = append(d.After, householdLine(p, st)...)
 	if st.Budget != nil {
 		d.Data["budget"] = budgetJSON(p, st)

@@ -20,13 +20,14 @@
 // pmt ≤ 0 and fv ≥ 0.
 
 import { readFileSync, writeFileSync } from 'node:fs';
-import { fv, pv, pmt, nper, rate, PaymentDueTime } from 'financial';
+import { fv, pv, pmt, nper, rate, irr, PaymentDueTime } from 'financial';
 
 const SEED = 20270105;
 const GENERATOR = 'gen.mjs';
 const OUT = 'cases.json';
 const PER_FUNCTION = 450; // 5 functions × 450 = 2,250 cases, n ≤ 600
 const LONG_RATE = 50; // and 50 rate cases with n beyond 600, up to cairn's horizon
+const IRR = 100; // and 100 irr cases: a saver's irregular monthly flows (plan/earned_oracle_test.go)
 
 const lib = JSON.parse(readFileSync(new URL('./node_modules/financial/package.json', import.meta.url), 'utf8'));
 
@@ -216,6 +217,36 @@ for (let made = 0; made < LONG_RATE; ) {
   const c = makers.rate(true);
   if (c === null) continue;
   cases.push({ id: cases.length + 1, ...c });
+  made++;
+}
+
+// irr(values) with the library's defaults (guess 0.1, tol 1e-6, maxIter
+// 100), on a saver's months: values[0] is the opening balance paid in, each
+// later value one month's money paid in (a level deposit plus, now and then,
+// a one-time amount in or a smaller one out, so that no month takes money
+// out), and the last also holds the balance, the value at a rate from 0% to
+// 15% a year compounded monthly, to the cent. `n` is the number of months.
+// Generated after every other case, so that those are unchanged.
+for (let made = 0; made < IRR; ) {
+  const n = int(12, 120);
+  const j = int(0, 300) / 20 / 100 / 12; // 0% to 15% a year, monthly
+  const b = logAmount(2, 5);
+  const a = logAmount(1, 3);
+  const values = [-b];
+  let bal = b;
+  for (let k = 1; k <= n; k++) {
+    let x = a;
+    const u = rand();
+    if (u < 0.2) x = cents(x + logAmount(1, 3));
+    else if (u < 0.3) x = cents(x - a * rand());
+    bal = bal * (1 + j) + x;
+    values.push(x === 0 ? 0 : -x);
+  }
+  const f = cents(bal);
+  values[n] = cents(values[n] + f);
+  const r = irr(values);
+  if (!Number.isFinite(r)) continue;
+  cases.push({ id: cases.length + 1, fn: 'irr', nper: n, made: j, balance: f, values, result: num(r) });
   made++;
 }
 

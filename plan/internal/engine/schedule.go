@@ -89,6 +89,10 @@ type StreamShape struct {
 	// Today and GrowInflation say the amount follows inflation: a walk
 	// with random inflation indexes it (Event.IA, Event.IB).
 	Today, GrowInflation bool
+	// Resume leaves out the amounts labelled before this month: the later
+	// part of a stream split there, whose periods and yearly growth still
+	// count from From. Zero leaves none out.
+	Resume int32
 	// Income is paid from outside the account: its amounts pay the
 	// withdrawals of the month each is paid in (see [Income]).
 	Income bool
@@ -196,6 +200,9 @@ func Compile(sh *Shape) *Schedule {
 			year := (ps - from) / TicksPerYear
 			if year != lastYear && st.Grow != 0 {
 				lastYear, u = year, st.First*math.Exp(float64(year)*lg)
+			}
+			if label < st.Resume {
+				continue
 			}
 			e := Event{Tick: t, Kind: kd, Src: src, Out: st.Out, Unit: u, Year: int32(year), Month: label}
 			if st.Income { // income is pooled for its month's withdrawals from the month's start

@@ -35,6 +35,9 @@ type Series struct {
 	X, Y  []float64
 	Dash  Dash
 	Width float64 // stroke width, in units of the 720-wide view box
+	// Marks draws each point as a ring, unjoined, instead of a line: values
+	// known at their dates only, such as balances read off statements.
+	Marks bool
 }
 
 // A Band is a shaded range between a lower and an upper line over the same X.
@@ -190,6 +193,15 @@ func (c *Line) SVG() string {
 		later = append(later, legendItem{label: r.Label, dash: Dotted, width: 2})
 	}
 	for _, s := range c.Series {
+		if s.Marks {
+			b.WriteString(`<g class="marks" fill="#ffffff" stroke="#000000" stroke-width="1.5">` + "\n")
+			for i := range s.X {
+				fmt.Fprintf(&b, `<circle cx="%s" cy="%s" r="3.5"/>`+"\n", num(sx(s.X[i])), num(sy(s.Y[i])))
+			}
+			b.WriteString("</g>\n")
+			legend = append(legend, legendItem{label: s.Label, mark: true})
+			continue
+		}
 		var d strings.Builder
 		for i := range s.X {
 			cmd := "L"
@@ -231,6 +243,7 @@ type legendItem struct {
 	dash  Dash
 	width float64
 	band  bool
+	mark  bool
 }
 
 // writeLegend lays the items out left to right below the plot, starting a
@@ -247,7 +260,9 @@ func writeLegend(b *strings.Builder, items []legendItem) float64 {
 		if x > plotL && x+w > plotR {
 			x, y = plotL, y+legendHeight
 		}
-		if it.band {
+		if it.mark {
+			fmt.Fprintf(b, `<circle cx="%s" cy="%s" r="3.5" fill="#ffffff" stroke="#000000" stroke-width="1.5"/>`+"\n", num(x+15), num(y-4))
+		} else if it.band {
 			fmt.Fprintf(b, `<rect x="%s" y="%s" width="30" height="10" fill="#d4d4d4" stroke="#8c8c8c" stroke-width="0.75"/>`+"\n", num(x), num(y-9))
 		} else {
 			dash := ""
