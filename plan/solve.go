@@ -356,7 +356,7 @@ func unreachableReason(p *Plan, g *Goal, ends []float64) string {
 // only flows are the opening balance and one uniform deposit stream from the
 // start at a constant rate, and NaN otherwise.
 func closedFormPeriods(p *Plan, g *Goal) (float64, money.Frequency) {
-	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.TargetToday || g.Between != Compound {
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.TargetToday || g.Between != Compound || !untouched(g) {
 		return math.NaN(), 0
 	}
 	s := g.Deposits[0]
@@ -933,7 +933,7 @@ func finishRate(s *schedule, a *Answer, pr *params, roots []float64, rising, ful
 // any other goal.
 func (s *schedule) annuityRoot(target money.Amount) (delta float64, ok bool) {
 	g := s.goal
-	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.Between != Compound {
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.Between != Compound || !untouched(g) {
 		return 0, false
 	}
 	st := g.Deposits[0]

@@ -31,3 +31,8 @@ func overCap(l *Ledger, g *Goal) (from Month, in money.Amount, over bool) {
 	}
 	return year, sum, sum.Cmp(g.Cap) > 0
 }
+
+// untouched reports whether goal g's account grows by its rate alone: no
+// tax on its growth and no employer contributions, which the standard
+// factors and closed forms do not describe.
+func untouched(g *Goal) bool { return g.RateOnGrowth() == 0 && g.Match == 0 }
