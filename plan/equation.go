@@ -157,9 +157,11 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	// shows. That difference is a term of its own.
 	// An employer's contributions are no source's: no flow valued alone
 	// has them, and they too are a term of their own.
-	if g.Between == None || g.Match > 0 {
+	if g.Between == None || g.Match > 0 || g.HasCap && g.CapExcess != "" {
 		label, kind := "flows offsetting within interest periods (between none)", Interest
 		switch {
+		case g.HasCap && g.CapExcess != "":
+			label, kind = "less what passed the yearly cap, and any employer contributions or offsetting (between none)", OverCap
 		case g.Match > 0 && g.Between == None:
 			label, kind = "employer contributions, and flows offsetting within interest periods (between none)", Employer
 		case g.Match > 0:

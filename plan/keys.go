@@ -372,6 +372,12 @@ var Keys = withChangeKeys([]*Key{
 			"the account; a plan that passes it by a cent is refused",
 		Set: "cap",
 		put: func(t *target, v *value) { t.g.Cap, t.g.HasCap = v.amount, true }},
+	{Name: "cap_excess", Scope: InGoal, Form: FormName,
+		Default: "none",
+		Help: "the goal, by name, that receives what would pass cap, at\n" +
+			"the end of the month it would have gone in; without it\n" +
+			"a plan over the cap is refused",
+		put: func(t *target, v *value) { t.g.CapExcess = v.text }},
 	{Name: "actuals", Scope: InGoal, Form: FormList, Items: InActual, MaxItems: MaxActuals,
 		Default: "none",
 		Help: "balances statements showed, at the end of a month, from\n" +

@@ -21,9 +21,10 @@ const (
 	Income                      // income received outside the account (it moves no balance)
 	Tax                         // the tax on a year's interest, paid from the account (see [AsItGrows])
 	Employer                    // an employer's contribution matching a deposit (see Goal.Match)
+	OverCap                     // the part of an amount over the yearly cap, gone to another goal (it moves no balance)
 )
 
-var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "income", "tax", "employer"}
+var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "income", "tax", "employer", "over the cap"}
 
 func (k EntryKind) String() string { return entryNames[k] }
 
@@ -78,6 +79,8 @@ func (l *Ledger) Entries() []Entry {
 				e.Kind = Fee
 			case engine.PostTax:
 				e.Kind = Tax
+			case engine.PostOver:
+				e.Kind, e.Source = OverCap, "to "+l.Goal.CapExcess
 			case engine.PostMatch:
 				e.Kind, e.Source = Employer, "employer, on "+l.sources[r.Src].name
 			case engine.PostFlow, engine.PostIncome:
@@ -132,6 +135,9 @@ func (s *schedule) ledger(pr *params) *Ledger {
 	n := s.eng.MaxPosts()
 	if g.Match > 0 {
 		n += s.eng.MaxMatchPosts()
+	}
+	if g.HasCap && g.CapExcess != "" {
+		n += s.eng.MaxOverPosts()
 	}
 	l.log.Posts = make([]engine.Post, 0, n)
 	r := s.exact(pr, engine.Options{Log: &l.log})
@@ -222,6 +228,8 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 			r.Tax = r.Tax.Sub(e.Amount)
 		case e.Kind == Employer:
 			r.Employer = r.Employer.Add(e.Amount)
+		case e.Kind == OverCap:
+			continue // gone to another goal: no movement here
 		case e.Amount.Sign() >= 0:
 			r.Deposits = r.Deposits.Add(e.Amount)
 		default:

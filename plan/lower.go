@@ -90,7 +90,7 @@ func shapeOf(p *Plan, g *Goal, end, stop Month, hasStop bool) engine.Shape {
 		}
 		sh.Streams = append(sh.Streams, ss)
 	}
-	for _, o := range g.Once {
+	for _, o := range onceOf(p, g) {
 		sh.Once = append(sh.Once, int32(o.On-p.Start))
 		sh.OnceOut = append(sh.OnceOut, o.Amount.Sign() < 0)
 	}
@@ -162,7 +162,7 @@ func sourcesOf(p *Plan, g *Goal) []source {
 		}
 		out = append(out, source{kind: kind, name: st.Name, base: base, stream: st, out: st.Out})
 	}
-	for _, o := range g.Once {
+	for _, o := range onceOf(p, g) {
 		name := o.Name
 		if name == "" {
 			name = "one-time " + o.On.String()
@@ -216,6 +216,13 @@ func (s *schedule) inputs(pr *params) engine.Inputs {
 		}
 		if g.HasMatchUpTo {
 			in.MatchLimit = matchLimits(s.plan, g, s.end)
+		}
+	}
+	if g := s.goal; g.HasCap && g.CapExcess != "" {
+		in.Cap = g.Cap.Float()
+		in.Capped = make([]bool, len(s.sources))
+		for i, src := range s.sources {
+			in.Capped[i] = src.kind == Deposit || src.kind == OneTime && !src.out
 		}
 	}
 	return in

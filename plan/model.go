@@ -156,6 +156,9 @@ type Goal struct {
 	// start (deposits and one-time amounts in), when HasCap is set.
 	Cap    money.Amount
 	HasCap bool
+	// CapExcess names the goal that receives what passes Cap, at the end
+	// of the month it would have gone in; "" refuses a plan that passes it.
+	CapExcess string
 	// Actuals are the balances statements showed, in month order, at most
 	// one a month (see [Actual]).
 	Actuals []Actual

@@ -356,7 +356,7 @@ func unreachableReason(p *Plan, g *Goal, ends []float64) string {
 // only flows are the opening balance and one uniform deposit stream from the
 // start at a constant rate, and NaN otherwise.
 func closedFormPeriods(p *Plan, g *Goal) (float64, money.Frequency) {
-	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.TargetToday || g.Between != Compound || !untouched(g) {
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.TargetToday || g.Between != Compound || !untouched(p, g) {
 		return math.NaN(), 0
 	}
 	s := g.Deposits[0]
@@ -509,6 +509,10 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	guess := int64(math.Ceil((target.Float() - b0) / per * scale))
 	c, ok := searchCents(meets, guess, int64(MaxAmountUnits)*int64(scale), true)
 	if !ok {
+		if g.HasCap && g.CapExcess != "" {
+			return nil, noSolution(g, "the yearly cap of %s keeps what goes in below what the target needs (what passes it goes to %s)",
+				g.Cap.Format(p.Currency, false), g.CapExcess)
+		}
 		return nil, noSolution(g, "no amount up to the %s limit meets the target", amountLimit)
 	}
 	set(c)
@@ -932,8 +936,8 @@ func finishRate(s *schedule, a *Answer, pr *params, roots []float64, rising, ful
 // meets target, by the closed form (money.AnnuityRate); ok is false for
 // any other goal.
 func (s *schedule) annuityRoot(target money.Amount) (delta float64, ok bool) {
-	g := s.goal
-	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.Between != Compound || !untouched(g) {
+	p, g := s.plan, s.goal
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.Between != Compound || !untouched(p, g) {
 		return 0, false
 	}
 	st := g.Deposits[0]

@@ -353,3 +353,70 @@ func TestTax_SolversRoundTrip(t *testing.T) {
 		}
 	}
 }
+
+// With cap_excess, what passes the yearly cap goes to the named goal at the
+// end of the month it would have gone in: a deposit one cent over the cap
+// puts the cap in the account and the cent in the other goal (check values:
+// the cap and the amounts as written, common practice).
+func TestTax_CapExcessRedirected(t *testing.T) {
+	src := `cairn: 1
+start: 2027-01
+goals:
+  - name: Pension
+    rate: 4%
+    cap: 6,000
+    cap_excess: Savings
+    deposits:
+      - {amount: 500, every: month, until: 2028-12}
+    once:
+      - {amount: 0.01, on: 2027-06}
+  - name: Savings
+    rate: 3%
+    balance: 100
+`
+	p := mustParse(t, "redirect.yaml", src)
+	a, b := p.Goals[0], p.Goals[1]
+	la, _ := plan.Project(p, a, plan.MonthOf(2028, 12))
+	rows := la.Rows(plan.ByYear, false)
+	for _, r := range rows {
+		if r.Deposits.String() != "6000.00" {
+			t.Errorf("Pension %s: %s went in, want the cap 6000.00", r.Label, r.Deposits)
+		}
+	}
+	if m := la.Moved(); m.String() != "0.01" {
+		t.Errorf("Pension moved %s over its cap, want 0.01", m)
+	}
+	lb, _ := plan.Project(p, b, plan.MonthOf(2028, 12))
+	var got []string
+	for _, e := range lb.Entries() {
+		if e.Kind == plan.OneTime {
+			got = append(got, e.Month.String()+" "+e.Amount.String()+" "+e.Source)
+		}
+	}
+	// the 0.01 goes in at 2027-06, so the December deposit is the one over
+	if fmt.Sprint(got) != "[2027-12 0.01 over the cap of Pension]" {
+		t.Errorf("Savings received %v, want 0.01 at the end of 2027-12", got)
+	}
+	// a what-if that raises the deposit moves more, and is not refused
+	q, _, err := p.With("Pension", "", mustOverrides(t, []string{"deposit=600"}))
+	if err != nil {
+		t.Fatalf("With(deposit=600): %v", err)
+	}
+	la2, _ := plan.Project(q, q.Goals[0], plan.MonthOf(2028, 12))
+	if m := la2.Moved(); m.String() != "2400.01" {
+		t.Errorf("at 600 a month, %s moved over the cap, want 2400.01 (7,200 + 0.01 − 6,000 in 2027, 1,200 in 2028)", m)
+	}
+	eq := plan.EquationOf(p, a, plan.MonthOf(2028, 12))
+	if d := math.Abs(eq.Sum.Float() - la.Closing.Float()); d > 0.05 {
+		t.Errorf("Pension's equation sums to %s, ledger %s", eq.Sum, la.Closing)
+	}
+	for _, bad := range []struct{ from, to, expect string }{
+		{"    cap_excess: Savings\n", "    cap_excess: Nowhere\n", `names no other goal "Nowhere"`},
+		{"    cap: 6,000\n", "", "cap_excess needs a cap"},
+		{"    balance: 100\n", "    balance: 100\n    cap: 10\n    cap_excess: Pension\n", "want one step"},
+	} {
+		if _, err := plan.Parse("bad.yaml", []byte(strings.Replace(src, bad.from, bad.to, 1)), 0); err == nil || !strings.Contains(err.Error(), bad.expect) {
+			t.Errorf("Parse with %q: %v, want an error containing %q", bad.to, err, bad.expect)
+		}
+	}
+}

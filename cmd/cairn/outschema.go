@@ -109,6 +109,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"totals", "object", false, "the sums of the rows"},
 		{"runs_out", "string", false, "the month the money runs out, if it does"},
 		{"tax", "object", false, "the goal's tax treatment and rates, as the file states them"},
+		{"moved_over_cap", "string", false, "with cap_excess: what passed the yearly cap and went to the goal it names"},
 		{"closing_after_tax", "string", false, "where withdrawals are taxed: what the closing balance would leave to spend after tax"},
 		{"leave_short_by", "string", false, "how much less than leave is left after the last withdrawal, when every withdrawal is paid but it is"},
 	},

@@ -141,6 +141,11 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	}
 	d.Blocks = []render.Block{t}
 	d.Data["goal"], d.Data["by"], d.Data["rows"] = g.Name, period, jrows
+	if g.HasCap && g.CapExcess != "" {
+		d.After = append(d.After, fmt.Sprintf("Deposits pass the yearly cap of %s by %s in all over these years; that goes to %s, at the end of each month it would have gone in here.",
+			amt(p, g.Cap), amt(p, l.Moved()), g.CapExcess))
+		d.Data["moved_over_cap"] = jamt(p, l.Moved())
+	}
 	if taxed(g) {
 		d.After = append(d.After, projectTaxLine(p, g, l))
 		d.Data["tax"] = taxJSON(p, g)

@@ -297,6 +297,14 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 			}
 		}
 		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
+		if goal.HasCap {
+			line := fmt.Sprintf("%s: a yearly cap of %s on what goes in (the household's deposits and one-time amounts in)", goal.Name, amt(p, goal.Cap))
+			if goal.CapExcess != "" {
+				line += "; what passes it goes to " + goal.CapExcess
+			}
+			d.After = append(d.After, line+".")
+			jg["cap"] = jamt(p, goal.Cap)
+		}
 		if goal.Match > 0 {
 			jg["employer_monthly"] = jamt(p, gs.EmployerMonthly)
 			d.After = append(d.After, employerLine(p, gs))

@@ -46,9 +46,15 @@ type Inputs struct {
 	MatchM     money.Multiplier
 	Matched    []bool
 	MatchLimit []float64
-	Between    Between
-	Places     int            // decimal places of the minor unit
-	Rounding   money.Rounding // rule for every rounding to the minor unit
+	// Cap, when Capped is set, is the most the sources with Capped set
+	// may put in during each year from the start (currency units); what
+	// passes it does not enter the account and is posted as PostOver. A
+	// walk of one source alone applies no cap.
+	Cap      float64
+	Capped   []bool
+	Between  Between
+	Places   int            // decimal places of the minor unit
+	Rounding money.Rounding // rule for every rounding to the minor unit
 	// Set, when not nil, gives each amount of source SetSrc, in currency
 	// units before its Unit, by the index of its event: amounts decided
 	// date by date (a household budget's share), in place of Amounts.
@@ -142,6 +148,7 @@ const (
 	PostIncome // an income amount of source Post.Src, received outside the account
 	PostTax    // the tax on a year's interest, paid from the account
 	PostMatch  // an employer's contribution matching a deposit of source Post.Src
+	PostOver   // the part of an amount of source Post.Src over the yearly cap, which goes elsewhere
 )
 
 // A Post is one movement, in minor units.
@@ -273,6 +280,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	// matched is the deposits matched in year matchYear (Inputs.Match)
 	var matched float64
 	matchYear := int32(-1)
+	// capped is what went in during year capYear (Inputs.Cap)
+	var capped float64
+	capYear := int32(-1)
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
@@ -478,7 +488,15 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				continue
 			}
-			var short, covered, emp float64
+			var short, covered, emp, over float64
+			if in.Capped != nil && !o.One && in.Capped[e.Src] && x > 0 {
+				if y := e.Month / 12; y != capYear {
+					capYear, capped = y, 0
+				}
+				over = max(x-max(in.Cap*scale-capped, 0), 0)
+				x -= over
+				capped += x
+			}
 			if in.Match > 0 && !o.One && in.Matched[e.Src] && x > 0 {
 				if y := e.Month / 12; y != matchYear {
 					matchYear, matched = y, 0
@@ -543,6 +561,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				if emp != 0 {
 					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
 				}
+				if over != 0 {
+					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+				}
 			}
 		}
 	}
@@ -584,6 +605,10 @@ func (s *Schedule) MaxMatchPosts() int {
 	}
 	return n
 }
+
+// MaxOverPosts returns the most amounts over a yearly cap a walk of s can
+// post: one for each amount.
+func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
 
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
