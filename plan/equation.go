@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 )
 
 // A Term is one flow's part of the equation of value: its value at the
@@ -100,6 +101,10 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		}
 		return true
 	}
+	// Every source valued alone, and all together, in one smooth walk.
+	in := s.inputs(pr)
+	alone := make([]float64, len(s.sources))
+	all := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
 	var sumV float64 // the terms' values, unrounded
 	for i, src := range s.sources {
 		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
@@ -109,19 +114,16 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		if src.out {
 			amt = amt.Abs().Neg()
 		}
-		prv := pr
+		v := alone[i]
 		if src.stream != nil && units[i] != 1 {
 			amt = amt.MulFloat(units[i]).Round(s.places, s.rounding)
-			if uniform[i] {
+			if a := pr.amountsF[i]; uniform[i] && a != 0 && (pr.set == nil || pr.setSrc != int32(i)) {
 				// The ledger posts the indexed amount rounded to the cent:
-				// value that amount, so that Amount × Factors is Value.
-				q := *pr
-				q.amountsF = append([]float64(nil), pr.amountsF...)
-				q.amountsF[i] = amt.Abs().Float() / units[i]
-				prv = &q
+				// value that amount, so that Amount × Factors is Value (a
+				// source's value is linear in its amount).
+				v *= amt.Abs().Float() / units[i] / math.Abs(a)
 			}
 		}
-		v := s.smooth(prv, true, int32(i))
 		sumV += v
 		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding)}
 		if t.Label == "" {
@@ -167,7 +169,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		case g.Match > 0:
 			label, kind = "employer contributions", Employer
 		}
-		if d := money.FromFloat(s.smooth(pr, false, 0)-sumV).Round(s.places, s.rounding); !d.IsZero() {
+		if d := money.FromFloat(all-sumV).Round(s.places, s.rounding); !d.IsZero() {
 			eq.Terms = append(eq.Terms, Term{Label: label, Kind: kind, Value: d})
 			eq.Sum = eq.Sum.Add(d)
 		}

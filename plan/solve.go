@@ -462,6 +462,30 @@ func searchCentsFrom(ok func(c int64) bool, guess, step, limit int64, up bool) (
 	return lo, true
 }
 
+// settleCents is searchCents (up) from a guess within a few cents of the
+// answer: it steps a cent at a time for three steps before the search
+// doubles its steps, so that a guess a cent off costs one walk more, not
+// three. ok should remember its answers: a cent is asked about twice.
+func settleCents(ok func(c int64) bool, guess, limit int64) (int64, bool) {
+	c := min(max(guess, 0), limit)
+	for range 3 {
+		switch {
+		case ok(c):
+			if c == 0 || !ok(c-1) {
+				return c, true
+			}
+			c--
+		case c == limit:
+			return 0, false
+		case ok(c + 1):
+			return c + 1, true
+		default:
+			c++
+		}
+	}
+	return searchCents(ok, c, limit, true)
+}
+
 // solveAmount solves for the deposit of a stream (start false) or the
 // opening balance (start true).
 func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error) {
@@ -484,30 +508,57 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	}
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
-	meets := func(c int64) bool { // meets the target with every withdrawal paid
-		set(c)
-		bal, r := s.closing(pr)
-		return !r.Short && bal.Cmp(target) >= 0
+	type walked struct {
+		bal   money.Amount
+		short bool
 	}
-	// linear guess from the value of one unit
+	closings := map[int64]walked{} // the exact walks made, by amount
+	walk := func(c int64) walked {
+		w, ok := closings[c]
+		if !ok {
+			set(c)
+			bal, r := s.closing(pr)
+			w = walked{bal, r.Short}
+			closings[c] = w
+		}
+		return w
+	}
+	meets := func(c int64) bool { // meets the target with every withdrawal paid
+		w := walk(c)
+		return !w.short && w.bal.Cmp(target) >= 0
+	}
+	// The smooth walk is linear in the amount: one walk at an amount of
+	// one unit, every source valued alone in it, gives the value of a unit
+	// and of everything else, and so the amount that meets the target but
+	// for the roundings, which the exact walks then settle.
 	pr1 := s.defaultParams()
 	pr1.amountsF[idx] = 1
-	per := s.smooth(pr1, true, idx)
-	set(0)
-	b0 := s.exact(pr, engine.Options{}).Closing / s.scale()
+	in := s.inputs(pr1)
+	alone := make([]float64, len(s.sources))
+	rest := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
+	per := alone[idx]
+	rest -= per
 	if per <= 0 {
 		what := "the stream has no deposits on or before the deadline"
 		if start {
 			what = "the opening balance does not grow to the deadline"
 		}
-		if b0 >= target.Float() {
+		if meets(0) {
 			return nil, noSolution(g, "the target is met without it (%s)", what)
 		}
 		return nil, noSolution(g, "%s", what)
 	}
 	scale := math.Pow(10, float64(p.Currency.Places))
-	guess := int64(math.Ceil((target.Float() - b0) / per * scale))
-	c, ok := searchCents(meets, guess, int64(MaxAmountUnits)*int64(scale), true)
+	guess := int64(math.Ceil((target.Float() - rest) / per * scale))
+	guess = min(max(guess, 0), int64(MaxAmountUnits)*int64(scale))
+	// The roundings move the exact balance off the smooth one by more than
+	// a cent's worth at times: one exact walk at the guess measures how
+	// far, and the guess moves by that (the search then proves the cent on
+	// either side, the guess's walk among them when it is one).
+	if w := walk(guess); !w.short {
+		guess += int64(math.Ceil((target.Float() - w.bal.Float()) / per * scale))
+	}
+	c, ok := settleCents(meets, guess, int64(MaxAmountUnits)*int64(scale))
 	if !ok {
 		if g.HasCap && g.CapExcess != "" {
 			return nil, noSolution(g, "the yearly cap of %s keeps what goes in below what the target needs (what passes it goes to %s)",
@@ -520,7 +571,7 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	if start {
 		a.For = ForStart
 	}
-	a.Balance, _ = s.closing(pr)
+	a.Balance = walk(c).bal // walked by the search
 	a.FirstAmount = s.firstAmount(pr, idx)
 	s.prove(a, pr, full)
 	if c == 0 {

@@ -124,6 +124,10 @@ type Options struct {
 	// Result.AtDeadline.
 	HasDeadline bool
 	Deadline    int32
+	// Each, when set (smooth, without Paths), receives each source's
+	// closing balance valued alone, as One would give it, every source in
+	// the same pass: Each[k] for source k, one per amount of Inputs.
+	Each []float64
 }
 
 // A Result is what a walk reports, in the walk's units (see [Mode]).
@@ -298,6 +302,12 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	if o.Paths == nil {
 		w = s.weights(in.Rates, in.Between)
 	}
+	var ea *each // every source alone (Options.Each)
+	if o.Each != nil {
+		ea = newEach(len(o.Each))
+		ea.bal[0] = in.Amounts[0]
+		ea.base[0], ea.low[0] = ea.bal[0], ea.bal[0]
+	}
 	if !o.One || o.Source == 0 {
 		bal = in.Amounts[0] * scale
 		if o.Mode == Exact {
@@ -329,6 +339,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 				}
 				x := b*j + plus
+				if ea != nil {
+					ea.interest(j, none, s.accrue)
+				}
 				if s.accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
@@ -352,6 +365,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 		case Credit:
+			if ea != nil {
+				ea.credit()
+			}
 			x := accrued
 			if o.Mode == Exact {
 				x = roundMinor(x, in.Rounding)
@@ -363,6 +379,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
+			if ea != nil {
+				ea.tax(in.Tax)
+			}
 			// The tax on the year's interest, paid from the account at an
 			// interest date (Tau 1): it leaves the next period's base. A
 			// year whose interest is not positive pays none (no refund or
@@ -391,6 +410,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
+			if ea != nil {
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+			}
 			f := bal * in.Fee
 			if o.Mode == Exact {
 				if bal <= 0 {
@@ -421,6 +443,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 		case Mark:
 			pool = 0 // income its month's withdrawals did not need is not deposited
+			if ea != nil {
+				clear(ea.pool)
+			}
 			peak = max(peak, bal)
 			m := e.Month
 			if o.Log != nil {
@@ -443,6 +468,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				return res
 			}
 		case FlowEnd, FlowBegin, Income:
+			if ea != nil && e.Kind != Income && in.Out[e.Src] {
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+			}
 			if pool != 0 && o.Mode == Smooth && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
 				// withdrawal: linear in every amount, so that income is
@@ -479,6 +507,17 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					x = q
 				} else {
 					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
+			}
+			if ea != nil {
+				y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
+				if in.Out[e.Src] {
+					y, wi = -math.Abs(x), wi+1
+				}
+				if e.Kind == Income {
+					ea.pool[e.Src] += y
+				} else {
+					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
@@ -566,6 +605,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 		}
+	}
+	if ea != nil {
+		copy(o.Each, ea.bal)
 	}
 	res.Closing, res.Peak = bal, peak
 	return res
