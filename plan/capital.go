@@ -2,8 +2,10 @@ package plan
 
 import (
 	"math"
+	"slices"
 
 	"cairn/money"
+	"cairn/plan/internal/engine"
 )
 
 // The capital a retirement income needs: for a goal with withdrawals, the
@@ -148,8 +150,16 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 			rate = st.Rate
 		}
 	}
+	var sumV float64 // the other terms' values, unrounded
+	ruled := -1      // where in the terms the ruled withdrawals go
 	for i, src := range s.sources {
 		if int32(i) == idx || i == 0 {
+			continue
+		}
+		if s.rules != nil && s.rules[i].Kind != engine.RuleFixed {
+			if ruled < 0 {
+				ruled = len(eq.Terms)
+			}
 			continue
 		}
 		var count int
@@ -168,6 +178,7 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 			continue
 		}
 		v := -s.smooth(pr, true, int32(i)) / grow
+		sumV += v
 		amt := pr.amounts[i].Abs()
 		if !src.out {
 			amt = amt.Neg()
@@ -183,6 +194,15 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 			t.Factors = annuityFactors(st, rate, units, first, last, atTick)
 		}
 		eq.Terms = append(eq.Terms, t)
+		eq.Sum = eq.Sum.Add(t.Value)
+	}
+	if ruled >= 0 {
+		// A rule decides its amounts from the whole balance, so no flow
+		// valued alone shows them: they are what the walk of every source
+		// spends beyond the other terms.
+		v := -(s.smooth(pr, false, 0)-capital.Float()*grow)/grow - sumV
+		t := Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: money.FromFloat(v).Round(s.places, s.rounding)}
+		eq.Terms = slices.Insert(eq.Terms, ruled, t)
 		eq.Sum = eq.Sum.Add(t.Value)
 	}
 	if !leave.IsZero() {

@@ -48,6 +48,25 @@ func (p *Plan) problems() []problem {
 					msg: "reached needs the goal's target (add target:)"})
 			}
 		}
+		for i, s := range g.Income {
+			if s.Rule != (WithdrawalRule{}) {
+				at := fmt.Sprintf("income[%d]", i)
+				out = append(out, problem{goal: g, at: at, key: at, msg: "rule, floor and ceiling are for withdrawals, not income"})
+			}
+		}
+		for i, s := range g.Withdrawals {
+			r, at := s.Rule, fmt.Sprintf("withdrawals[%d]", i)
+			switch {
+			case r.Kind == Fixed && (r.Floor.Sign() != 0 || r.HasCeiling):
+				out = append(out, problem{goal: g, at: at, key: at, msg: "floor and ceiling need a rule (add rule:)"})
+			case r.HasCeiling && r.Floor.Cmp(r.Ceiling) > 0:
+				out = append(out, problem{goal: g, at: at + ".floor", key: at + ".floor", involves: []string{at + ".floor", at + ".ceiling"},
+					msg: "the floor is above the ceiling"})
+			case r.Kind == Guarded && s.Amount.Sign() == 0:
+				out = append(out, problem{goal: g, at: at, key: at, involves: []string{at + ".amount", at + ".rule"},
+					msg: "a rule that cuts and raises starts from the amount (add amount:)"})
+			}
+		}
 		if g.TargetToday && !g.HasBy {
 			out = append(out, problem{goal: g, at: "target", key: "target", involves: []string{"target", "by"},
 				msg: "a target in today's money needs a deadline (want by: YYYY-MM)"})

@@ -2,6 +2,7 @@ package plan
 
 import (
 	"math"
+	"slices"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -106,9 +107,16 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	alone := make([]float64, len(s.sources))
 	all := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
 	var sumV float64 // the terms' values, unrounded
+	ruled := -1      // the first source whose amounts its rule decides
 	for i, src := range s.sources {
 		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
 			continue // no flow, no term
+		}
+		if s.rules != nil && s.rules[i].Kind != engine.RuleFixed {
+			if ruled < 0 {
+				ruled = len(eq.Terms)
+			}
+			continue
 		}
 		amt := pr.amounts[i]
 		if src.out {
@@ -153,6 +161,15 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		}
 		eq.Terms = append(eq.Terms, t)
 		eq.Sum = eq.Sum.Add(t.Value)
+	}
+	// A rule decides its amounts from the whole balance, so no flow valued
+	// alone shows them: the withdrawals under rules are valued together, as
+	// what the walk of every source leaves beyond the other terms.
+	if ruled >= 0 {
+		d := money.FromFloat(all-sumV).Round(s.places, s.rounding)
+		eq.Terms = slices.Insert(eq.Terms, ruled, Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: d})
+		eq.Sum = eq.Sum.Add(d)
+		return eq
 	}
 	// Under between none the walk is not linear in the amounts: flows that
 	// offset within an interest period earn what no flow valued alone

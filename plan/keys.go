@@ -80,6 +80,7 @@ const (
 	FormUntil                    // a FormMonth, or reached
 	FormTaxRate                  // a percentage, 0% or more and below 100%
 	FormShare                    // a percentage from 0% to 100%
+	FormRule                     // a withdrawal rule (ParseRule)
 )
 
 // want says what a value of the form looks like, in error messages.
@@ -97,6 +98,7 @@ var want = map[Form]string{
 	FormUntil:      "a month such as 2031-12, or reached",
 	FormTaxRate:    "a tax rate such as 25%",
 	FormShare:      "a share such as 50%",
+	FormRule:       "a rule such as " + ruleWant,
 }
 
 // A Choice is one word a FormChoice key accepts and the value it stands for.
@@ -123,6 +125,8 @@ type Key struct {
 	MaxItems int // FormList, FormRates: the most items a list may hold
 
 	Required bool
+	Unless   string // Required unless this key of scope UnlessIn is given beside it
+	UnlessIn Scope
 	Missing  string // the reason given when a required key is missing, or ""
 	OrAsOf   bool   // Required unless the caller gives today's month (Parse's asOf)
 
@@ -137,6 +141,13 @@ type Key struct {
 	Set, SetOut string
 
 	put func(t *target, v *value) // stores a parsed value in the model
+}
+
+// Waived reports whether k, when required, is not required in a mapping of
+// keys ks: its Unless key of scope UnlessIn is among them and given
+// reports it given.
+func (k *Key) Waived(ks []*Key, given func(name string) bool) bool {
+	return k.Unless != "" && slices.ContainsFunc(ks, func(u *Key) bool { return u.Name == k.Unless && u.Scope == k.UnlessIn }) && given(k.Unless)
 }
 
 // NeedsGoal reports whether a what-if of the key changes one stream, so that
@@ -170,6 +181,7 @@ type value struct {
 	inflation bool
 	rates     []RateStep
 	reached   bool // FormUntil: reached, not a month
+	rule      WithdrawalRule
 }
 
 // Keys is every key of the goals file, in the order the help lists them.
@@ -403,8 +415,8 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "name", Scope: InStream, Form: FormName,
 		Default: "none", Help: "a label, used by --stream",
 		put: func(t *target, v *value) { t.s.Name = v.text }},
-	{Name: "amount", Scope: InStream, Form: FormAmountToday, Required: true,
-		Default: "required",
+	{Name: "amount", Scope: InStream, Form: FormAmountToday, Required: true, Unless: "rule", UnlessIn: InWithdrawal,
+		Default: "required (a withdrawal with a share-of-balance rule: none)",
 		Help: "per period, 0 or more; \"250 today\" is in today's money\n" +
 			"and rises with inflation unless grow says otherwise",
 		Set: "deposit", SetOut: "withdrawal",
@@ -449,6 +461,30 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "for", Scope: InWithdrawal, Form: FormLength,
 		Default: "none", Help: "withdrawals only, instead of until: \"30 years\", \"18 months\"",
 		put: func(t *target, v *value) { t.s.forMonths = v.n }},
+	{Name: "rule", Scope: InWithdrawal, Form: FormRule,
+		Default: "the amount as written",
+		Help: "withdrawals only: how the amount is decided at each\n" +
+			"anniversary of from: (the first year included) from the\n" +
+			"balance then, and paid in every period of that year:\n" +
+			"  rule: 4% of balance\n" +
+			"      a year's withdrawals are 4% of the balance\n" +
+			"      (amount: is not needed)\n" +
+			"  rule: cut 10% above 6%, raise 10% below 4%\n" +
+			"      the amount starts as written; from the second\n" +
+			"      year, when a year's withdrawals over the balance\n" +
+			"      are above 6% it is cut by 10%, below 4% raised\n" +
+			"      by 10%\n" +
+			"The amount, floor and ceiling grow as the amount\n" +
+			"grows (grow:, or today's money for \"… today\")",
+		put: func(t *target, v *value) {
+			t.s.Rule.Kind, t.s.Rule.Share, t.s.Rule.Lower, t.s.Rule.Upper, t.s.Rule.Cut, t.s.Rule.Raise = v.rule.Kind, v.rule.Share, v.rule.Lower, v.rule.Upper, v.rule.Cut, v.rule.Raise
+		}},
+	{Name: "floor", Scope: InWithdrawal, Form: FormAmount,
+		Default: "0", Help: "with rule: the least amount a period",
+		put: func(t *target, v *value) { t.s.Rule.Floor = v.amount }},
+	{Name: "ceiling", Scope: InWithdrawal, Form: FormAmount,
+		Default: "none", Help: "with rule: the most amount a period",
+		put: func(t *target, v *value) { t.s.Rule.Ceiling, t.s.Rule.HasCeiling = v.amount, true }},
 	{Name: "grow", Scope: InStream, Form: FormGrowth, Min: -MaxGrowthPercent, Max: MaxGrowthPercent,
 		Default: "0%", Help: "a yearly rise of the amount, or \"inflation\"",
 		Set: "grow",
@@ -665,6 +701,7 @@ var (
 			FormLength:       `^\s*\+?0*[1-9]\d*\s+` + words([]string{"year", "years", "month", "months"}) + `\s*$`,
 			FormGrowth:       `^(?:` + rate + `|\s*` + words([]string{"inflation"}) + `\s*)$`,
 			FormCount:        `^\s*\+?\d+\s*$`,
+			FormRule:         `^(?:\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*` + words([]string{"of"}) + `\s+(?:` + words([]string{"the"}) + `\s+)?` + words([]string{"balance"}) + `\s*|\s*` + words([]string{"cut"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*` + words([]string{"above"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*,?\s*` + words([]string{"raise"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*` + words([]string{"below"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*)$`,
 			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|\S.*\s[aA][tT]\s+\d{1,3}|` + words([]string{"reached"}) + `)\s*$`,
 			FormTaxRate:      `^\s*\+?0*(?:\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 			FormShare:        `^\s*\+?0*(?:100(?:\.0*)?|\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,

@@ -51,6 +51,7 @@ type schedule struct {
 	out      []bool // each source's out, as the engine reads it
 	places   int
 	rounding money.Rounding
+	rules    []engine.Rule // each source's withdrawal rule; nil when none has one
 }
 
 // streams returns goal g's streams in source order: deposits, withdrawals,
@@ -139,6 +140,12 @@ func compileStop(p *Plan, g *Goal, end, stop Month, hasStop bool) *schedule {
 	s.out = make([]bool, len(s.sources))
 	for i, src := range s.sources {
 		s.out[i] = src.out
+		if st := src.stream; st != nil && st.Rule.Kind != Fixed {
+			if s.rules == nil {
+				s.rules = make([]engine.Rule, len(s.sources))
+			}
+			s.rules[i] = st.Rule.engineRule(st.Every.PerYear())
+		}
 	}
 	return s
 }
@@ -207,7 +214,8 @@ func (s *schedule) inputs(pr *params) engine.Inputs {
 	in := engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
 		Fee: fee, FeeM: money.RateMultiplier(fee, s.goal.Fee, 12, 1),
 		Tax: tax, TaxM: money.RateMultiplier(tax, tax, 1, 1),
-		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding, Set: pr.set, SetSrc: pr.setSrc}
+		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding, Set: pr.set, SetSrc: pr.setSrc,
+		Rules: s.rules}
 	if g := s.goal; g.Match > 0 {
 		in.Match, in.MatchM = g.Match, money.RateMultiplier(g.Match, g.Match, 1, 1)
 		in.Matched = make([]bool, len(s.sources))

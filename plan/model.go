@@ -304,6 +304,9 @@ type Stream struct {
 	// Net says a withdrawal's Amount is what the household receives after
 	// the tax on withdrawals: the account pays [Plan.Gross] of it.
 	Net bool
+	// Rule decides a withdrawal's amount year by year (the zero value:
+	// the amount as written).
+	Rule WithdrawalRule
 
 	growSet   bool  // grow was given; otherwise an amount in today's money grows with inflation
 	resume    Month // its amounts before this month are left out (see replan); 0: none

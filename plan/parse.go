@@ -302,7 +302,7 @@ func (d *decoder) keys(n *yaml.Node, path string, s Scope, t *target) map[string
 		return nil
 	}
 	for _, k := range ks {
-		if k.Required && given[k.Name] == nil && !(k.OrAsOf && d.asOf != 0) {
+		if k.Required && given[k.Name] == nil && !(k.OrAsOf && d.asOf != 0) && !k.Waived(ks, func(n string) bool { return given[n] != nil }) {
 			msg := fmt.Sprintf("missing key %q", k.Name)
 			if k.Missing != "" {
 				msg += " (" + k.Missing + ")"
@@ -415,6 +415,15 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 			default:
 				v.n, ok = m, true
 			}
+		}
+	case FormRule:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			r, err := ParseRule(s)
+			if err != nil {
+				d.errorf(n, path, "%v", err)
+				return false
+			}
+			v.rule, ok = r, true
 		}
 	case FormUntil:
 		if s, sok := d.scalar(n, path, want[k.Form]); sok && strings.EqualFold(strings.TrimSpace(s), "reached") {

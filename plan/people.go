@@ -60,6 +60,20 @@ func (p *Plan) Person(name string) *Person {
 	return nil
 }
 
+// AgeList gives the household's people's ages in month m, in file order,
+// "Alex/Sam" and "66/63": a name and an age for each person born by then;
+// both "" when the file names no one.
+func (p *Plan) AgeList(m Month) (names, ages string) {
+	var ns, as []string
+	for _, q := range p.People {
+		if m < q.Born {
+			continue
+		}
+		ns, as = append(ns, q.Name), append(as, fmt.Sprint(int(m-q.Born)/12))
+	}
+	return strings.Join(ns, "/"), strings.Join(as, "/")
+}
+
 // AgesAt says how old each of the household's people is in month m:
 // "when Alex is 88 and Sam is 85", or "" when the file names no one.
 func (p *Plan) AgesAt(m Month) string {

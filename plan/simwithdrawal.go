@@ -51,6 +51,9 @@ func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts Sim
 		}
 		return nil, noSolution(g, "the goal has no withdrawals to solve for (add withdrawals:)")
 	}
+	if err := ruledStream(g, wd); err != nil {
+		return nil, err
+	}
 	end, finite := lastWithdrawal(p, g)
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")

@@ -621,6 +621,9 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 		}
 		return nil, noSolution(g, "the goal has no withdrawals to solve for (add withdrawals:)")
 	}
+	if err := ruledStream(g, st); err != nil {
+		return nil, err
+	}
 	end, finite := lastWithdrawal(p, g)
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")

@@ -105,7 +105,7 @@ var jsonOutputs = map[string][]jsonField{
 	"project": {
 		{"goal", "string", true, "the goal's name"},
 		{"by", "string", true, "year or month: one row each"},
-		{"rows", "array", true, "opening, deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
+		{"rows", "array", true, "ages at the period's end (when the file names people), opening, deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
 		{"totals", "object", false, "the sums of the rows"},
 		{"runs_out", "string", false, "the month the money runs out, if it does"},
 		{"tax", "object", false, "the goal's tax treatment and rates, as the file states them"},
@@ -124,7 +124,7 @@ var jsonOutputs = map[string][]jsonField{
 	},
 	"simulate": {
 		{"goal", "string", true, "the goal's name"},
-		{"for", "string", false, "deposit or withdrawal, when solving for one"},
+		{"for", "string", false, "deposit, withdrawal or start, when solving for one"},
 		{"answer", "string|null", false, "with --for: the answer, or null when there is none"},
 		{"reason", "string", false, "why there is no answer"},
 		{"success_level", "string", false, "with --for: the share of paths asked for"},
@@ -146,6 +146,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"years", "array", false, "percentiles of the balance at each year's end"},
 		{"deposit", "object", false, "with --for deposit: the deposit found and its paths"},
 		{"withdrawal", "object", false, "with --for withdrawal: the withdrawal found that lasts in the share asked for, and its paths"},
+		{"opening_balance", "object", false, "with --for start: the opening balance found that succeeds in the share asked for, and its paths"},
 		{"withdrawals", "object", false, "how often withdrawals were paid in full"},
 		{"tax", "object", false, "the goal's tax treatment and rates, as the file states them"},
 		{"at_deadline_after_tax", "object", false, "where withdrawals are taxed: the percentiles at the deadline after that tax"},

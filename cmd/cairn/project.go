@@ -106,6 +106,12 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	if hasEmployer { // the employer's money, apart from the household's deposits
 		t.Cols = slices.Insert(t.Cols, 3, render.Column{Head: "employer", Key: "employer", Numeric: true})
 	}
+	// the household's ages at the end of each row, where the file names people
+	names, _ := p.AgeList(l.End)
+	if names != "" {
+		t.Cols = slices.Insert(t.Cols, 1, render.Column{Head: "ages", Long: "ages at the period's end (" + names + ")", Key: "ages"})
+		d.Lead = append(d.Lead, fmt.Sprintf("Ages are %s's at the end of each %s.", names, period))
+	}
 	var jrows []map[string]any
 	for k, r := range rows {
 		cells := []render.Cell{render.Text(r.Label), cash(p, r.Opening), cash(p, r.Deposits), cash(p, r.Interest), cash(p, r.Fees),
@@ -118,6 +124,13 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		}
 		if hasEmployer {
 			cells = slices.Insert(cells, 3, cash(p, r.Employer))
+		}
+		if names != "" {
+			_, ages := p.AgeList(r.To)
+			if k == len(rows)-1 {
+				ages = ""
+			}
+			cells = slices.Insert(cells, 1, render.Text(ages))
 		}
 		jr := map[string]any{}
 		for i, c := range t.Cols {

@@ -84,10 +84,18 @@ func goalsSchema() []byte {
 func scopeSchema(s plan.Scope) *jsonSchema {
 	no := false
 	out := &jsonSchema{Type: "object", Properties: map[string]*jsonSchema{}, Additional: &no}
-	for _, k := range plan.KeysIn(s) {
+	ks := plan.KeysIn(s)
+	for _, k := range ks {
 		out.Properties[k.Name] = keySchema(k)
-		// a key the caller may give instead (start: from --as-of) is not required
-		if k.Required && !k.OrAsOf {
+		switch {
+		case !k.Required || k.OrAsOf: // a key the caller may give instead (start: from --as-of) is not required
+		case k.Waived(ks, func(string) bool { return true }):
+			// required unless another key of the mapping is given
+			one := func(name string) *jsonSchema {
+				return &jsonSchema{Properties: map[string]*jsonSchema{name: {}}, Required: []string{name}}
+			}
+			out.AnyOf = append(out.AnyOf, one(k.Name), one(k.Unless))
+		default:
 			out.Required = append(out.Required, k.Name)
 		}
 	}

@@ -55,6 +55,8 @@ var schemaSamples = map[plan.Form]struct{ tried, refused []string }{
 	plan.FormGrowth: {[]string{"3%", "inflation", "Inflation", "2% apy", "-1%", " INFLATION "},
 		[]string{"inflate", "3", "", "inflation 2%"}},
 	plan.FormCount: {[]string{"1", "2", " 3 ", "+1", "100", "07"}, []string{"-1", "1.5", "one", "", "1e2", "1 2"}},
+	plan.FormRule: {[]string{"4% of balance", " 4.5 % OF the Balance ", "cut 10% above 6%, raise 10% below 4%", "Cut 10 % above 6%  raise 5% below 3.5%", "cut .5% above 6%, raise 100% below 4%"},
+		[]string{"4%", "4% balance", "of balance", "cut 10% above 6%", "raise 10% below 4%, cut 10% above 6%", "", "-4% of balance"}},
 	plan.FormUntil: {[]string{"2030-01", " 2031-12 ", "reached", " Reached "}, []string{"2027-1", "reach", "", "never", "2030-13"}},
 }
 

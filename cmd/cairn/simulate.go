@@ -26,7 +26,9 @@ func simulateCommand(e *env) *cli.Command {
 			"the balance at each year end, and for withdrawals how often and when the money runs out.\n" +
 			"--for deposit --success 90% solves for the deposit per period that meets the target in 90%\n" +
 			"of the paths; --for withdrawal --success 90% for the largest withdrawal per period that\n" +
-			"lasts (every withdrawal paid and leave: left) in 90% of them. `cairn help file` gives the model. Results depend only on --seed and --paths.\n\n" +
+			"lasts (every withdrawal paid and leave: left) in 90% of them; --for start --success 90% for\n" +
+			"the least opening balance that succeeds (lasts, for a goal with withdrawals; else meets the\n" +
+			"target) in 90% of them. `cairn help file` gives the model. Results depend only on --seed and --paths.\n\n" +
 			"Example:\n   cairn simulate examples/household.yaml --goal Retirement --volatility 12%\n" +
 			"   cairn simulate examples/household.yaml --goal Retirement --volatility 12% --for deposit --success 90%",
 		Flags: append(fileFlags(true), goalFlag(true),
@@ -34,7 +36,7 @@ func simulateCommand(e *env) *cli.Command {
 			&cli.Uint64Flag{Name: "seed", Value: plan.DefaultSeed, Usage: "seed `N` of the random numbers; the same seed gives the same results"},
 			&cli.StringFlag{Name: "volatility", Usage: "volatility of returns a year, such as `15%` (default: the goal's volatility:, else 0%)"},
 			&cli.StringFlag{Name: "inflation-volatility", Usage: "volatility of inflation a year, such as `1%` (default: the file's inflation_volatility:, else 0%)"},
-			&cli.StringFlag{Name: "for", Usage: "solve for `QUANTITY`: deposit or withdrawal (with --success)"},
+			&cli.StringFlag{Name: "for", Usage: "solve for `QUANTITY`: deposit, withdrawal or start (with --success)"},
 			&cli.StringFlag{Name: "success", Usage: "with --for deposit, the share of paths that must meet the target, such as `90%`"},
 			&cli.StringFlag{Name: "stream", Usage: "the deposit or withdrawal stream to solve for, by `NAME` (default: the first)"},
 		),
@@ -60,6 +62,23 @@ func simulateCommand(e *env) *cli.Command {
 					return usagef("", "%v", err)
 				}
 				return out(c, e, simulateDoc(p, sim, nil))
+			}
+			if q == "start" {
+				a, err := plan.SolveStartSim(p, g, level, opts)
+				if err != nil {
+					if plan.IsNoSolution(err) {
+						d := simDoc(p, g)
+						reason := reasonOf(err)
+						d.Lead = []string{fmt.Sprintf("%s: no opening balance succeeds in %s of the paths: %s.", g.Name, shareText(level), reason)}
+						d.Data["goal"], d.Data["for"], d.Data["success_level"], d.Data["answer"], d.Data["reason"] = g.Name, "start", jsonRate(level), nil, reason
+						if werr := out(c, e, d); werr != nil {
+							return werr
+						}
+						return &noAnswer{err}
+					}
+					return usagef("", "%v", err)
+				}
+				return out(c, e, simStartDoc(p, a))
 			}
 			if q == "withdrawal" {
 				a, err := plan.SolveWithdrawalSim(p, g, c.String("stream"), level, opts)
@@ -127,8 +146,10 @@ func simQuestion(c *cli.Context) (q string, level float64, solve bool, err error
 		return q, 0, false, nil
 	case q == "":
 		return q, 0, false, usagef("for example --for deposit --success 90%", "--success needs --for deposit")
-	case q != "deposit" && q != "withdrawal":
-		return q, 0, false, usagef("for example --for deposit --success 90%", "--for: simulate solves only for deposit or withdrawal, not %q", c.String("for"))
+	case q != "deposit" && q != "withdrawal" && q != "start":
+		return q, 0, false, usagef("for example --for deposit --success 90%", "--for: simulate solves only for deposit, withdrawal or start, not %q", c.String("for"))
+	case !c.IsSet("success") && q == "start":
+		return q, 0, false, usagef("for example --for start --success 90%", "--for start needs --success, the share of paths that must succeed")
 	case !c.IsSet("success") && q == "withdrawal":
 		return q, 0, false, usagef("for example --for withdrawal --success 90%", "--for withdrawal needs --success, the share of paths in which the money must last")
 	case !c.IsSet("success"):
@@ -166,6 +187,47 @@ func simWithdrawalDoc(p *plan.Plan, a *plan.SimWithdrawal) *render.Doc {
 	}
 	det.Add(more, cash(p, a.Above))
 	det.Add("paths that last then", render.Count(a.AbovePaths).Then(ofAll))
+	d.Blocks = append([]render.Block{det}, d.Blocks...)
+	return d
+}
+
+// simStartDoc is the simulation at the opening balance that succeeds in the
+// share of paths asked for, that answer first.
+func simStartDoc(p *plan.Plan, a *plan.SimStart) *render.Doc {
+	d := simulateDoc(p, a.Sim, nil)
+	g, sim := a.Sim.Goal, a.Sim
+	what, paths := "meets its target by "+g.By.String(), "paths meeting the target"
+	if a.Lasts {
+		what, paths = "lasts (every withdrawal paid and "+amt(p, a.Sim.Leave)+" left)", "paths that last"
+	}
+	lead := fmt.Sprintf("%s needs an opening balance of %s in %s so that the money %s in at least %s of %s simulated paths (seed %d): %s of them succeed at that balance",
+		g.Name, amt(p, a.Amount), sim.Start, what, shareText2(a.Level), render.Grouped(sim.Paths), sim.Seed, render.Grouped(a.SuccessPaths))
+	if !a.Lasts {
+		lead = strings.Replace(lead, "so that the money meets", "so that it meets", 1)
+	}
+	if a.HasBelow {
+		lead += fmt.Sprintf(", %s at %s", render.Grouped(a.BelowPaths), amt(p, a.Below))
+	}
+	d.Lead = append([]string{lead + "."}, d.Lead...)
+	js := map[string]any{"success_level": jsonRate(a.Level), "amount": jamt(p, a.Amount), "lasts": a.Lasts,
+		"success": jsonRate(a.Success), "success_paths": a.SuccessPaths}
+	if a.HasBelow {
+		js["below"], js["below_success"], js["below_paths"] = jamt(p, a.Below), jsonRate(a.BelowSuccess), a.BelowPaths
+	}
+	d.Data["for"], d.Data["opening_balance"] = "start", js
+	det := &render.Facts{Title: "Details"}
+	det.Add("opening balance", cash(p, a.Amount))
+	det.Add("success level", render.Share(a.Level, 2))
+	ofAll := " of " + render.Grouped(sim.Paths)
+	det.Add(paths, render.Count(a.SuccessPaths).Then(ofAll))
+	if a.HasBelow {
+		less := "one unit less"
+		if p.Currency.Places == 2 {
+			less = "one cent less"
+		}
+		det.Add(less, cash(p, a.Below))
+		det.Add(paths+" then", render.Count(a.BelowPaths).Then(ofAll))
+	}
 	d.Blocks = append([]render.Block{det}, d.Blocks...)
 	return d
 }

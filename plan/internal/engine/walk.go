@@ -60,6 +60,59 @@ type Inputs struct {
 	// date by date (a household budget's share), in place of Amounts.
 	Set    []float64
 	SetSrc int32
+	// Rules, when not nil, gives each source's rule (see [Rule]).
+	Rules []Rule
+}
+
+// A RuleKind is how a source's amount is decided (see [Rule]).
+type RuleKind uint8
+
+const (
+	RuleFixed     RuleKind = iota // Amounts as given
+	RuleOfBalance                 // Share of the balance a year
+	RuleGuarded                   // Amounts, cut or raised by the withdrawal rate
+)
+
+// A Rule decides a source's amount at each anniversary of its first period
+// (the first event of each of its Years, year 0 included) from the balance
+// then, in the amount's own terms (before Event.Unit); every amount of that
+// year pays it. OfBalance sets it to Share of the balance, a year, over
+// PerYear periods; Guarded starts from Amounts and, from year 1, cuts it by
+// Cut when its yearly payment over the balance is above Upper and raises it
+// by Raise when below Lower. Either is then held between Floor and Ceiling
+// (no ceiling when Ceiling < 0). An empty account's rate is above any
+// bound.
+type Rule struct {
+	Kind                     RuleKind
+	PerYear                  float64
+	Share                    float64
+	Lower, Upper, Cut, Raise float64
+	Floor, Ceiling           float64 // currency units a period, before Unit
+}
+
+// decide returns a source's amount under rule r for a year whose payments
+// are u times the amount, from the balance bal (currency units) and the
+// year before's amount last (the first year: the source's amount).
+func (r *Rule) decide(first bool, last, bal, u float64) float64 {
+	a := last
+	switch r.Kind {
+	case RuleOfBalance:
+		a = r.Share * max(bal, 0) / r.PerYear / u
+	case RuleGuarded:
+		if first {
+			break
+		}
+		switch rate := a * u * r.PerYear / bal; {
+		case bal <= 0 || rate > r.Upper:
+			a *= 1 - r.Cut
+		case rate < r.Lower:
+			a *= 1 + r.Raise
+		}
+	}
+	if r.Ceiling >= 0 {
+		a = min(a, r.Ceiling)
+	}
+	return max(a, r.Floor)
 }
 
 // A Mode is the arithmetic of a walk.
@@ -321,6 +374,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	}
 	low = base
 	var j float64 // the rate of the interest period
+	// ruled and ruleYear are each ruled source's amount (currency units,
+	// before its Unit) and the year it was decided for.
+	var ruled []float64
+	var ruleYear []int32
+	if in.Rules != nil {
+		ruled, ruleYear = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
+		for k := range ruleYear {
+			ruleYear[k] = -1
+		}
+	}
 	for i := range s.events {
 		e := &s.events[i]
 		switch e.Kind {
@@ -495,8 +558,23 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			if in.Set != nil && e.Src == in.SetSrc {
 				a = in.Set[i] * scale
 			}
-			x := a * e.Unit
 			p := o.Paths
+			if ruled != nil && in.Rules[e.Src].Kind != RuleFixed {
+				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+					u := e.Unit
+					if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
+						u = u * p.Infl[e.IA] / p.Infl[e.IB]
+					}
+					first := ruleYear[e.Src] < 0
+					if first {
+						ruled[e.Src] = in.Amounts[e.Src]
+					}
+					ruled[e.Src] = in.Rules[e.Src].decide(first, ruled[e.Src], bal/scale, u)
+					ruleYear[e.Src] = e.Year
+				}
+				a = ruled[e.Src] * scale
+			}
+			x := a * e.Unit
 			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
 				x = x * p.Infl[e.IA] / p.Infl[e.IB]
 				if o.Mode == Exact {
