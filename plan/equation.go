@@ -1,8 +1,10 @@
 package plan
 
 import (
+	"fmt"
 	"math"
 	"slices"
+	"strconv"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -15,11 +17,16 @@ type Term struct {
 	Kind   EntryKind
 	Amount money.Amount // the flow's amount: per period for a stream (its first)
 	Count  int          // how many amounts the term holds
-	// Factors, multiplied together and by Amount, give Value; empty when no
-	// standard factor describes the flow (rate changes, fees, growing
-	// amounts, or money between interest dates under a simple or none rule).
+	// Factors, multiplied together and by Amount, give Value: the flow
+	// carried at the effective rate per period to the end of month At.
+	// Empty when no standard factor describes the flow; Why then says why.
 	Factors []money.Factor
+	Why     string
 	Value   money.Amount // at the end of month At, signed
+	// Uncredited is the part of Value not in the balance at the end of
+	// month At: interest the flow earned after the last interest date,
+	// paid only at the next one.
+	Uncredited money.Amount
 }
 
 // An Equation of value states the balance at the end of month At as the sum
@@ -28,11 +35,17 @@ type Term struct {
 // interest to At like any other money; where a withdrawal could not be paid
 // in full the terms overstate what went out, and where a month's income
 // exceeds its withdrawals they count the surplus, which is not deposited.
+//
+// Where the deadline falls between interest dates, the terms with factors
+// carry their flows to it; the interest they earned since the last interest
+// date is not yet credited, and one term of kind Interest takes it back out
+// (Uncredited, the sum of the terms' own).
 type Equation struct {
-	At      Month
-	Terms   []Term
-	Sum     money.Amount
-	Balance money.Amount
+	At         Month
+	Terms      []Term
+	Sum        money.Amount
+	Balance    money.Amount
+	Uncredited money.Amount
 	// TaxOnGrowth is the rate each year's interest is taxed at, paid from
 	// the account (see [AsItGrows]), 0 for none; AfterTax is then the
 	// effective annual rate the balance grows at after that tax,
@@ -106,8 +119,9 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	in := s.inputs(pr)
 	alone := make([]float64, len(s.sources))
 	all := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
-	var sumV float64 // the terms' values, unrounded
-	ruled := -1      // the first source whose amounts its rule decides
+	var sumV float64       // the terms' values, unrounded
+	var uncredited float64 // what the terms with factors earned after the last interest date
+	ruled := -1            // the first source whose amounts its rule decides
 	for i, src := range s.sources {
 		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
 			continue // no flow, no term
@@ -137,37 +151,54 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"
 		}
-		// income is valued where it pays the withdrawals, which no
-		// factor of its own dates describes
-		if src.kind != Income && constRate && uniform[i] && (g.Between == Compound || onCredits(i)) && (i == 0 || last[i] <= lastCredit) {
+		t.Why = s.noFactor(i, uniform[i], constRate, onCredits)
+		if t.Why == "" {
+			// The trade's form: each amount carried at the effective rate
+			// per period (per deposit period for a stream) to the deadline.
 			j := rate.PerPeriod(s.comp)
+			to := lastCredit // under simple or none a part period earns at its end
+			if g.Between == Compound {
+				to = s.endTick
+			}
 			switch {
 			case i == 0 || src.stream == nil:
 				from := int64(0)
 				if i > 0 {
 					from = first[i]
 				}
-				if n := float64(lastCredit-from) / float64(s.period); n > 0 {
+				if n := float64(to-from) / float64(s.period); n > 0 {
 					t.Factors = []money.Factor{{Kind: money.FP, I: j, N: n}}
 				}
 			default:
 				P := TicksPerYear / int64(src.stream.Every.PerYear())
 				ip := rate.PerPeriod(src.stream.Every)
 				t.Factors = []money.Factor{{Kind: money.FA, I: ip, N: float64(counts[i])}}
-				if k := float64(lastCredit-last[i]) / float64(P); k > 0 {
+				if k := float64(to-last[i]) / float64(P); k > 0 {
 					t.Factors = append(t.Factors, money.Factor{Kind: money.FP, I: ip, N: k})
 				}
+			}
+			if pv := t.Product(); !math.IsNaN(pv) {
+				t.Value = money.FromFloat(pv).Round(s.places, s.rounding)
+				t.Uncredited = money.FromFloat(pv-v).Round(s.places, s.rounding)
+				uncredited += pv - v
 			}
 		}
 		eq.Terms = append(eq.Terms, t)
 		eq.Sum = eq.Sum.Add(t.Value)
+	}
+	if d := money.FromFloat(uncredited).Round(s.places, s.rounding); !d.IsZero() {
+		eq.Uncredited = d
+		eq.Terms = append(eq.Terms, Term{Label: "earned, not yet credited", Kind: Interest, Value: d.Neg(),
+			Why: "interest since the last interest date, credited after " + at.String()})
+		eq.Sum = eq.Sum.Add(d.Neg())
 	}
 	// A rule decides its amounts from the whole balance, so no flow valued
 	// alone shows them: the withdrawals under rules are valued together, as
 	// what the walk of every source leaves beyond the other terms.
 	if ruled >= 0 {
 		d := money.FromFloat(all-sumV).Round(s.places, s.rounding)
-		eq.Terms = slices.Insert(eq.Terms, ruled, Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: d})
+		eq.Terms = slices.Insert(eq.Terms, ruled, Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: d,
+			Why: "each amount is decided by its rule from the whole balance"})
 		eq.Sum = eq.Sum.Add(d)
 		return eq
 	}
@@ -206,3 +237,36 @@ func (t Term) Product() float64 {
 	}
 	return v
 }
+
+// noFactor says why no chain of standard factors describes source i of s,
+// or "" when one does: uniform says its amounts are all equal, constRate
+// that one rate holds throughout with no fee, onCredits whether every flow
+// of a source lies on an interest date.
+func (s *schedule) noFactor(i int, uniform, constRate bool, onCredits func(int) bool) string {
+	g, src := s.goal, s.sources[i]
+	switch {
+	case src.kind == Income:
+		return "valued where it pays the month's withdrawals"
+	case g.Fee != 0:
+		return fmt.Sprintf("a fee of %s a year is taken from the balance each month", pct(g.Fee))
+	case g.RateOnGrowth() > 0:
+		return fmt.Sprintf("each year's interest is taxed at %s, paid from the account", pct(g.RateOnGrowth()))
+	case !constRate:
+		for _, st := range g.Rates[1:] {
+			if st.From <= s.end {
+				return "the rate changes in " + st.From.String()
+			}
+		}
+	case !uniform:
+		if src.stream != nil && src.stream.Grow != 0 || src.stream != nil && src.stream.GrowInflation {
+			return fmt.Sprintf("raised %s a year, paid %d times a year: no single factor", pct(src.stream.growth(s.plan.Inflation)), src.stream.Every.PerYear())
+		}
+		return "its amounts are not all equal"
+	case g.Between != Compound && !onCredits(i):
+		return "between " + g.Between.String() + ": part periods earn no compound interest"
+	}
+	return ""
+}
+
+// pct is fraction x as a percentage, with no more digits than it needs.
+func pct(x float64) string { return strconv.FormatFloat(x*100, 'f', -1, 64) + "%" }

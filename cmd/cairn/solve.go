@@ -344,9 +344,16 @@ func equationTable(p *plan.Plan, eq *plan.Equation) (*render.Table, []map[string
 		}
 		factors := strings.Join(fs, " × ")
 		if len(fs) == 0 {
-			factors = "grown at the plan's rates"
+			factors = term.Why
+			if factors == "" { // a capital term (plan/capital.go) gives no reason yet
+				factors = "grown at the plan's rates"
+			}
 		}
-		t.Add(render.Text(term.Label), cash(p, term.Amount), render.Int(term.Count), render.Label(factors, strings.Join(fj, " × ")), cash(p, term.Value))
+		a, n := cash(p, term.Amount), render.Int(term.Count)
+		if term.Count == 0 {
+			a, n = render.Text(""), render.Text("")
+		}
+		t.Add(render.Text(term.Label), a, n, render.Label(factors, strings.Join(fj, " × ")), cash(p, term.Value))
 		row := map[string]any{"term": term.Label, "kind": term.Kind.String(), "amount": jamt(p, term.Amount), "count": term.Count, "value": jamt(p, term.Value)}
 		if len(term.Factors) > 0 {
 			var fo []map[string]any
@@ -354,6 +361,11 @@ func equationTable(p *plan.Plan, eq *plan.Equation) (*render.Table, []map[string
 				fo = append(fo, map[string]any{"factor": f.Kind.String(), "i": strconv.FormatFloat(f.I*100, 'f', 8, 64), "n": strconv.FormatFloat(f.N, 'f', -1, 64), "value": strconv.FormatFloat(f.Value(), 'f', 8, 64)})
 			}
 			row["factors"] = fo
+		} else if term.Why != "" {
+			row["why"] = term.Why
+		}
+		if !term.Uncredited.IsZero() {
+			row["uncredited"] = jamt(p, term.Uncredited)
 		}
 		rows = append(rows, row)
 	}
