@@ -271,6 +271,26 @@ func (s *schedule) smooth(pr *params, one bool, src int32) float64 {
 	return engine.Walk(s.eng, &in, &o).Closing
 }
 
+// smoothForce returns the smooth closing balance of s at the constant rate
+// whose force of interest is delta, and its derivative with respect to
+// delta, carried through the same walk (see engine.Options.DRates).
+func (s *schedule) smoothForce(pr *params, delta float64) (bal, dbal float64) {
+	r := money.ForceRate(delta)
+	pr.rate = &r
+	in := s.inputs(pr)
+	// each periodic rate's derivative, by a central difference of the
+	// conversion from the force (a Newton step needs only a close slope)
+	const h = 1e-6
+	dr := make([]float64, len(in.Rates))
+	for i := range s.steps {
+		up, down := money.ForceRate(delta+h), money.ForceRate(delta-h)
+		dr[i] = (up.PeriodMultiplier(s.comp).Float() - down.PeriodMultiplier(s.comp).Float()) / (2 * h)
+	}
+	o := engine.Options{Mode: engine.Smooth, DRates: dr}
+	res := engine.Walk(s.eng, &in, &o)
+	return res.Closing, res.DClosing
+}
+
 // closing returns the exact closing balance of s under pr, without a ledger.
 func (s *schedule) closing(pr *params) (money.Amount, engine.Result) {
 	r := s.exact(pr, engine.Options{})

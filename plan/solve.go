@@ -719,7 +719,8 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	f := func(delta float64) float64 {
 		r := money.ForceRate(delta)
 		pr.rate = &r
-		return s.smooth(pr, false, 0) - target.Float()
+		v := s.smooth(pr, false, 0) - target.Float()
+		return v
 	}
 	lo, hi := math.Log1p(minSolveRate), math.Log1p(maxSolveRate)
 	// With money only coming in, the balance rises with the rate and there
@@ -738,6 +739,12 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 		// One root at most: bracket it from the goal's own rate outwards,
 		// which takes a few evaluations instead of Brent's steps across
 		// the whole range.
+		x0 := min(max(g.Rates[0].Rate.Force(), lo), hi)
+		if r, sl, ok := s.newtonRate(pr, target.Float(), x0, lo, hi); ok {
+			roots, slope, n = []float64{r}, sl, 0
+		}
+	}
+	if n == 1 {
 		x0 := min(max(g.Rates[0].Rate.Force(), lo), hi)
 		f0 := f(x0)
 		step := 0.01
@@ -904,6 +911,41 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(above), Periods: math.NaN(), Deadline: g.By, Target: target,
 		Balance: s.amount(hiBal)}
 	return finishRate(s, a, pr, roots, rising, full), nil
+}
+
+// newtonRate finds the force of interest at which the smooth balance meets
+// target t, when money only comes in, by Newton steps from x0 on the
+// balance's logarithm (nearly straight in the rate), each walk giving the
+// balance and its slope; the last step is taken without a walk once it is
+// worth less than a thousand currency units, its error then some minor
+// units at most, which the exact walks settle.
+// ok is false when the steps do not settle (the caller brackets instead).
+func (s *schedule) newtonRate(pr *params, t, x0, lo, hi float64) (root, slope float64, ok bool) {
+	a, b := lo, hi // the root lies between
+	x := x0
+	for range 12 {
+		bal, d := s.smoothForce(pr, x)
+		if !(d > 0) || math.IsInf(d, 0) || math.IsNaN(bal) {
+			return 0, 0, false
+		}
+		if bal < t {
+			a = x
+		} else {
+			b = x
+		}
+		step := (t - bal) / d
+		if bal > 0 && t > 0 {
+			step = math.Log(t/bal) * bal / d
+		}
+		next := x + step
+		if !(next > a && next < b) {
+			next = a + (b-a)/2
+		} else if math.Abs(step)*d <= 1000 && math.Abs(t-bal) <= 1000 {
+			return next, d, true
+		}
+		x = next
+	}
+	return 0, 0, false
 }
 
 // amount returns bal, in currency units a whole number of minor units, as

@@ -181,6 +181,10 @@ type Options struct {
 	// closing balance valued alone, as One would give it, every source in
 	// the same pass: Each[k] for source k, one per amount of Inputs.
 	Each []float64
+	// DRates, when set (smooth, without Paths or Each), is the derivative
+	// of each of Inputs.Rates with respect to one parameter: the walk
+	// reports the closing balance's derivative in Result.DClosing.
+	DRates []float64
 }
 
 // A Result is what a walk reports, in the walk's units (see [Mode]).
@@ -193,6 +197,7 @@ type Result struct {
 	Reached    bool // Options.Reach accepted ReachMonth
 	ReachMonth int32
 	AtDeadline float64
+	DClosing   float64 // the closing balance's derivative (Options.DRates)
 }
 
 // A PostKind is what a posting of a [Log] is.
@@ -355,6 +360,10 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	if o.Paths == nil {
 		w = s.weights(in.Rates, in.Between)
 	}
+	var dv *deriv // the derivatives (Options.DRates)
+	if o.DRates != nil {
+		dv = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
+	}
 	var ea *each // every source alone (Options.Each)
 	if o.Each != nil {
 		ea = newEach(len(o.Each))
@@ -402,6 +411,22 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 				}
 				x := b*j + plus
+				if dv != nil {
+					db, dplus := dv.base, dv.acc
+					if none {
+						db, dplus = dv.low, 0
+					}
+					dx := db*j + b*o.DRates[e.Step] + dplus
+					if s.accrue {
+						dv.accrued += dx
+						dv.base = dv.bal + dv.accrued
+					} else {
+						dv.bal += dx
+						dv.base = dv.bal
+						dv.taxable += dx
+					}
+					dv.acc, dv.low = 0, dv.base
+				}
 				if ea != nil {
 					ea.interest(j, none, s.accrue)
 				}
@@ -432,6 +457,11 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				ea.credit()
 			}
 			x := accrued
+			if dv != nil {
+				dv.bal += dv.accrued
+				dv.taxable += dv.accrued
+				dv.accrued = 0
+			}
 			if o.Mode == Exact {
 				x = roundMinor(x, in.Rounding)
 			}
@@ -452,8 +482,17 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			t := taxable
 			x := t * in.Tax
 			taxable = 0
+			var dx float64 // its derivative (Options.DRates)
+			if dv != nil {
+				dx, dv.taxable = dv.taxable*in.Tax, 0
+			}
 			if x <= 0 {
 				continue
+			}
+			if dv != nil {
+				dv.bal -= dx
+				dv.base -= dx
+				dv.low = dv.bal + dv.accrued
 			}
 			if o.Mode == Exact {
 				if q, sure := money.RoundFast(x); sure {
@@ -491,6 +530,19 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal -= f
+			if dv != nil {
+				wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
+				df := dv.bal * in.Fee
+				dv.bal -= df
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau == 1 {
+					dv.base -= df
+				} else {
+					dv.acc -= df*w[wi] + f*dv.dw[wi]
+				}
+			}
 			if none {
 				low = lowest(low, bal+accrued, e.Tau)
 			}
@@ -538,6 +590,14 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				// the month's income, unclamped, as money in at its first
 				// withdrawal: linear in every amount, so that income is
 				// valued alone like any other source
+				if dv != nil {
+					if none {
+						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					}
+					if e.Tau != 1 {
+						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+					}
+				}
 				if e.Tau == 1 {
 					base += pool
 				} else if o.Paths == nil {
@@ -659,6 +719,18 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
+			if dv != nil {
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau != 1 {
+					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+					if x+emp < 0 {
+						wi++
+					}
+					dv.acc += (x + emp) * dv.dw[wi]
+				}
+			}
 			if none {
 				low = lowest(low, bal+accrued, e.Tau)
 			}
@@ -688,6 +760,9 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 		copy(o.Each, ea.bal)
 	}
 	res.Closing, res.Peak = bal, peak
+	if dv != nil {
+		res.DClosing = dv.bal
+	}
 	return res
 }
 
