@@ -243,6 +243,9 @@ func (g *Goal) RateOnGrowth() float64 {
 // from take-home pay: a less the tax not paid on it (RateIn), rounded to
 // the minor unit.
 func (p *Plan) FromPay(g *Goal, a money.Amount) money.Amount {
+	if g.RateIn() == 0 {
+		return a
+	}
 	return a.MulFloat(1-g.RateIn()).Round(p.Currency.Places, p.Rounding)
 }
 
@@ -250,6 +253,9 @@ func (p *Plan) FromPay(g *Goal, a money.Amount) money.Amount {
 // household after the tax on withdrawals (RateOut), rounded to the minor
 // unit.
 func (p *Plan) AfterTax(g *Goal, a money.Amount) money.Amount {
+	if g.RateOut() == 0 {
+		return a
+	}
 	return a.MulFloat(1-g.RateOut()).Round(p.Currency.Places, p.Rounding)
 }
 
@@ -257,6 +263,9 @@ func (p *Plan) AfterTax(g *Goal, a money.Amount) money.Amount {
 // after the tax on withdrawals: net ÷ (1 − RateOut), rounded to the minor
 // unit.
 func (p *Plan) Gross(g *Goal, net money.Amount) money.Amount {
+	if g.RateOut() == 0 {
+		return net
+	}
 	return net.MulFloat(1/(1-g.RateOut())).Round(p.Currency.Places, p.Rounding)
 
 }
