@@ -11,6 +11,13 @@ import _ "embed"
 //go:embed household.yaml
 var Household []byte
 
+// Taxes is examples/taxes.yaml: three accounts taxed differently (as they
+// grow, on the way out, never again), with scenarios that put the same
+// saving in each.
+//
+//go:embed taxes.yaml
+var Taxes []byte
+
 // Retirement is examples/retirement.yaml: retirement income with a pension,
 // part-time work and a bequest, and no target (the capital it needs is the
 // answer).

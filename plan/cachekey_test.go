@@ -11,7 +11,7 @@ import (
 
 // keyPlans are plans that use every key the model has: rate steps, a fee,
 // inflation, deposits and withdrawals (growing, in today's money, bounded),
-// one-time amounts in and out.
+// one-time amounts in and out, a tax on growth.
 var keyPlans = []string{`cairn: 1
 start: 2027-01
 inflation: 2.5%
@@ -26,6 +26,8 @@ goals:
     target: 90000
     by: 2036-12
     leave: 100
+    tax: as-it-grows
+    tax_rate: 25%
     deposits:
       - {amount: 400 today, every: month, timing: start, from: 2027-03, until: 2033-12, grow: 2%}
     withdrawals:

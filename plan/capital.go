@@ -138,7 +138,7 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 	p, h := s.plan, s.goal
 	eq := &Equation{At: at, Balance: capital}
 	atTick := monthTick(p, at+1)
-	plain := h.Fee == 0
+	plain := h.Fee == 0 && untouched(p, h)
 	for _, st := range h.Rates[1:] {
 		if st.From > at {
 			plain = false

@@ -1,6 +1,10 @@
 package plan
 
-import "fmt"
+import (
+	"fmt"
+
+	"cairn/money"
+)
 
 // A problem is a rule across keys that a goal breaks: the goals file refuses
 // it at the key it names, and a what-if (--set, --vary) refuses it with the
@@ -67,6 +71,33 @@ func (p *Plan) problems() []problem {
 			out = append(out, problem{goal: g, at: "target", key: "target", involves: []string{"target", "by"},
 				msg: "a target in today's money needs a deadline (want by: YYYY-MM)"})
 		}
+		if g.CapExcess != "" {
+			to := p.Goal(g.CapExcess)
+			switch {
+			case !g.HasCap:
+				out = append(out, problem{goal: g, at: "cap_excess", key: "cap_excess", involves: []string{"cap_excess", "cap"},
+					msg: "cap_excess needs a cap (want cap: the most a year)"})
+			case to == nil || to == g:
+				out = append(out, problem{goal: g, at: "cap_excess", key: "cap_excess", involves: []string{"cap_excess"},
+					msg: fmt.Sprintf("cap_excess names no other goal %s (want the name of another goal of the file)", money.Quote(g.CapExcess))})
+			case to.CapExcess != "" || p.receives(g):
+				out = append(out, problem{goal: g, at: "cap_excess", key: "cap_excess", involves: []string{"cap_excess"},
+					msg: "what passes a cap goes to a goal that passes nothing on, from a goal that receives nothing (want one step)"})
+			}
+		} else if from, in, over := p.OverCap(g); over {
+			out = append(out, problem{goal: g, at: "cap", key: "cap", involves: []string{"cap", "deposits", "once", "balance", "rate"},
+				msg: fmt.Sprintf("%s goes into the account in the year from %s, over the yearly cap of %s (want at most the cap)",
+					in.Format(p.Currency, false), from, g.Cap.Format(p.Currency, false))})
+		}
+		if g.HasMatchUpTo && g.Salary.IsZero() {
+			out = append(out, problem{goal: g, at: "match_up_to", key: "match_up_to", involves: []string{"match_up_to", "salary"},
+				msg: "a match up to a share of the salary needs the salary (want salary: the pay a year)"})
+		}
+		if g.Tax == Untaxed && (g.TaxRate != 0 || g.HasTaxLater) {
+			out = append(out, problem{goal: g, at: "tax_rate", key: "tax_rate", involves: []string{"tax", "tax_rate", "tax_later"},
+				msg: "a tax rate needs a tax treatment (want tax: as-it-grows, on-the-way-out or never)"})
+		}
+
 	}
 	return out
 }

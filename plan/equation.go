@@ -46,6 +46,11 @@ type Equation struct {
 	Sum        money.Amount
 	Balance    money.Amount
 	Uncredited money.Amount
+	// TaxOnGrowth is the rate each year's interest is taxed at, paid from
+	// the account (see [AsItGrows]), 0 for none; AfterTax is then the
+	// effective annual rate the balance grows at after that tax,
+	// r(1 − TaxOnGrowth) for the first rate's effective annual rate r.
+	TaxOnGrowth, AfterTax float64
 }
 
 // EquationOf returns the equation of value of goal g at the end of month at.
@@ -63,7 +68,7 @@ func equation(p *Plan, g *Goal, at Month, pr *params) *Equation {
 // every flow's value then; l is the ledger of s under pr.
 func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	g, at := s.goal, s.end
-	eq := &Equation{At: at, Balance: l.Closing}
+	eq := &Equation{At: at, Balance: l.Closing, TaxOnGrowth: g.RateOnGrowth()}
 	counts := make([]int, len(s.sources))
 	first := make([]int64, len(s.sources))
 	last := make([]int64, len(s.sources))
@@ -90,7 +95,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	}
 	counts[0] = 1
 	// One rate over the whole horizon and no fee: factors describe the flows.
-	constRate := g.Fee == 0
+	constRate := g.Fee == 0 && eq.TaxOnGrowth == 0
 	for _, st := range g.Rates[1:] {
 		if st.From <= at {
 			constRate = false
@@ -100,6 +105,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	if pr.rate != nil {
 		rate = *pr.rate
 	}
+	eq.AfterTax = rate.Effective() * (1 - eq.TaxOnGrowth)
 	lastCredit := (s.endTick / s.period) * s.period
 	onCredits := func(i int) bool { // every flow of source i lies on an interest date
 		for k := range s.events {
@@ -199,9 +205,20 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	// Under between none the walk is not linear in the amounts: flows that
 	// offset within an interest period earn what no flow valued alone
 	// shows. That difference is a term of its own.
-	if g.Between == None {
+	// An employer's contributions are no source's: no flow valued alone
+	// has them, and they too are a term of their own.
+	if g.Between == None || g.Match > 0 || g.HasCap && g.CapExcess != "" {
+		label, kind := "flows offsetting within interest periods (between none)", Interest
+		switch {
+		case g.HasCap && g.CapExcess != "":
+			label, kind = "less what passed the yearly cap, and any employer contributions or offsetting (between none)", OverCap
+		case g.Match > 0 && g.Between == None:
+			label, kind = "employer contributions, and flows offsetting within interest periods (between none)", Employer
+		case g.Match > 0:
+			label, kind = "employer contributions", Employer
+		}
 		if d := money.FromFloat(all-sumV).Round(s.places, s.rounding); !d.IsZero() {
-			eq.Terms = append(eq.Terms, Term{Label: "flows offsetting within interest periods (between none)", Kind: Interest, Value: d})
+			eq.Terms = append(eq.Terms, Term{Label: label, Kind: kind, Value: d})
 			eq.Sum = eq.Sum.Add(d)
 		}
 	}
@@ -232,6 +249,8 @@ func (s *schedule) noFactor(i int, uniform, constRate bool, onCredits func(int) 
 		return "valued where it pays the month's withdrawals"
 	case g.Fee != 0:
 		return fmt.Sprintf("a fee of %s a year is taken from the balance each month", pct(g.Fee))
+	case g.RateOnGrowth() > 0:
+		return fmt.Sprintf("each year's interest is taxed at %s, paid from the account", pct(g.RateOnGrowth()))
 	case !constRate:
 		for _, st := range g.Rates[1:] {
 			if st.From <= s.end {

@@ -80,6 +80,8 @@ const (
 	FormMapping                  // one mapping in the scope Items
 	FormCount                    // a whole number from Min to Max
 	FormUntil                    // a FormMonth, or reached
+	FormTaxRate                  // a percentage, 0% or more and below 100%
+	FormShare                    // a percentage from 0% to 100%
 	FormRule                     // a withdrawal rule (ParseRule)
 )
 
@@ -96,6 +98,8 @@ var want = map[Form]string{
 	FormGrowth:     "a yearly rate such as 3% or inflation",
 	FormCount:      "a whole number such as 1",
 	FormUntil:      "a month such as 2031-12, or reached",
+	FormTaxRate:    "a tax rate such as 25%",
+	FormShare:      "a share such as 50%",
 	FormRule:       "a rule such as " + ruleWant,
 }
 
@@ -328,6 +332,67 @@ var Keys = withChangeKeys([]*Key{
 			"  - name: gift       (optional)\n" +
 			"    amount: 1,000\n" +
 			"    on: 2027-12      (at the end of that month)"},
+	{Name: "tax", Scope: InGoal, Form: FormChoice,
+		Choices: []Choice{{"none", int(Untaxed)}, {"as-it-grows", int(AsItGrows)}, {"on-the-way-out", int(OnTheWayOut)}, {"never", int(Never)}},
+		Noun:    "tax treatment", Want: "none, as-it-grows, on-the-way-out or never",
+		Default: "none",
+		Help: "how the account is taxed, at the flat rates given (no\n" +
+			"brackets, credits or any country's rules):\n" +
+			"  as-it-grows     each year's interest is taxed at\n" +
+			"                  tax_rate at the year's end (a year\n" +
+			"                  from the start), paid from the account\n" +
+			"  on-the-way-out  deposits come from pay before tax\n" +
+			"                  (each costs the deposit less tax_rate);\n" +
+			"                  withdrawals are taxed at tax_later\n" +
+			"  never           deposits from pay after tax; growth\n" +
+			"                  and withdrawals are not taxed again\n" +
+			"  none            tax is not modelled",
+		Set: "tax",
+		put: func(t *target, v *value) { t.g.Tax = Treatment(v.n) }},
+	{Name: "tax_rate", Scope: InGoal, Form: FormTaxRate,
+		Default: "0%",
+		Help: "the tax rate now: on each year's interest (as-it-grows),\n" +
+			"or on the pay a deposit comes from (on-the-way-out)",
+		Set: "tax_rate",
+		put: func(t *target, v *value) { t.g.TaxRate = v.x }},
+	{Name: "tax_later", Scope: InGoal, Form: FormTaxRate,
+		Default: "tax_rate",
+		Help: "on-the-way-out: the tax rate on withdrawals (read only\n" +
+			"when tax is on-the-way-out, so a scenario may switch)",
+		Set: "tax_later",
+		put: func(t *target, v *value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
+	{Name: "match", Scope: InGoal, Form: FormShare,
+		Default: "none",
+		Help: "an employer adds this share of each of the household's\n" +
+			"own deposits, shown apart from the household's money",
+		Set: "match",
+		put: func(t *target, v *value) { t.g.Match = v.x }},
+	{Name: "match_up_to", Scope: InGoal, Form: FormShare,
+		Default: "no limit",
+		Help: "the employer matches the household's deposits of each\n" +
+			"year from the start up to this share of the salary",
+		Set: "match_up_to",
+		put: func(t *target, v *value) { t.g.MatchUpTo, t.g.HasMatchUpTo = v.x, true }},
+	{Name: "salary", Scope: InGoal, Form: FormAmount,
+		Default: "none", Help: "the salary a year in the plan's first year, for match_up_to",
+		Set: "salary",
+		put: func(t *target, v *value) { t.g.Salary = v.amount }},
+	{Name: "salary_grow", Scope: InGoal, Form: FormGrowth, Min: -MaxGrowthPercent, Max: MaxGrowthPercent,
+		Default: "0%", Help: "the salary's yearly rise, or \"inflation\"",
+		put: func(t *target, v *value) { t.g.SalaryInflation, t.g.SalaryGrow = v.inflation, v.x }},
+	{Name: "cap", Scope: InGoal, Form: FormAmount,
+		Default: "none",
+		Help: "the most the account may receive in a year from the\n" +
+			"start (deposits and one-time amounts in), as stated for\n" +
+			"the account; a plan that passes it by a cent is refused",
+		Set: "cap",
+		put: func(t *target, v *value) { t.g.Cap, t.g.HasCap = v.amount, true }},
+	{Name: "cap_excess", Scope: InGoal, Form: FormName,
+		Default: "none",
+		Help: "the goal, by name, that receives what would pass cap, at\n" +
+			"the end of the month it would have gone in; without it\n" +
+			"a plan over the cap is refused",
+		put: func(t *target, v *value) { t.g.CapExcess = v.text }},
 	{Name: "actuals", Scope: InGoal, Form: FormList, Items: InActual, MaxItems: MaxActuals,
 		Default: "none",
 		Help: "balances statements showed, at the end of a month, from\n" +
@@ -387,6 +452,15 @@ var Keys = withChangeKeys([]*Key{
 		put: func(t *target, v *value) {
 			t.s.Until, t.s.HasUntil, t.s.UntilReached = v.month, !v.reached, v.reached
 		}},
+	{Name: "net", Scope: InWithdrawal, Form: FormChoice,
+		Choices: []Choice{{"no", 0}, {"yes", 1}},
+		Noun:    "answer", Want: "yes or no",
+		Default: "no",
+		Help: "withdrawals only: yes when amount is what the household\n" +
+			"receives after the tax on withdrawals (the account pays\n" +
+			"amount ÷ (1 − tax_later)); no when it is what the\n" +
+			"account pays",
+		put: func(t *target, v *value) { t.s.Net = v.n == 1 }},
 	{Name: "for", Scope: InWithdrawal, Form: FormLength,
 		Default: "none", Help: "withdrawals only, instead of until: \"30 years\", \"18 months\"",
 		put: func(t *target, v *value) { t.s.forMonths = v.n }},
@@ -647,6 +721,8 @@ var (
 			FormCount:        `^\s*\+?\d+\s*$`,
 			FormRule:         `^(?:\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*` + words([]string{"of"}) + `\s+(?:` + words([]string{"the"}) + `\s+)?` + words([]string{"balance"}) + `\s*|\s*` + words([]string{"cut"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*` + words([]string{"above"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*,?\s*` + words([]string{"raise"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*` + words([]string{"below"}) + `\s*\+?(?:\d+(?:\.\d*)?|\.\d+)\s*%\s*)$`,
 			FormUntil:        `^\s*(?:(?:19\d\d|2\d\d\d)-(?:0[1-9]|1[0-2])|\S.*\s[aA][tT]\s+\d{1,3}|` + words([]string{"reached"}) + `)\s*$`,
+			FormTaxRate:      `^\s*\+?0*(?:\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
+			FormShare:        `^\s*\+?0*(?:100(?:\.0*)?|\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 		}
 	}()
 )

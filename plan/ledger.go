@@ -19,9 +19,12 @@ const (
 	Interest                    // interest credited at an interest date
 	Fee                         // the monthly fee
 	Income                      // income received outside the account (it moves no balance)
+	Tax                         // the tax on a year's interest, paid from the account (see [AsItGrows])
+	Employer                    // an employer's contribution matching a deposit (see Goal.Match)
+	OverCap                     // the part of an amount over the yearly cap, gone to another goal (it moves no balance)
 )
 
-var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "income"}
+var entryNames = []string{"opening", "deposit", "withdrawal", "one-time", "interest", "fee", "income", "tax", "employer", "over the cap"}
 
 func (k EntryKind) String() string { return entryNames[k] }
 
@@ -74,6 +77,12 @@ func (l *Ledger) Entries() []Entry {
 			switch r.Kind {
 			case engine.PostFee:
 				e.Kind = Fee
+			case engine.PostTax:
+				e.Kind = Tax
+			case engine.PostOver:
+				e.Kind, e.Source = OverCap, "to "+l.Goal.CapExcess
+			case engine.PostMatch:
+				e.Kind, e.Source = Employer, "employer, on "+l.sources[r.Src].name
 			case engine.PostFlow, engine.PostIncome:
 				e.Kind, e.Source = l.sources[r.Src].kind, l.sources[r.Src].name
 			}
@@ -123,7 +132,14 @@ func (s *schedule) ledger(pr *params) *Ledger {
 	l := &Ledger{Plan: p, Goal: g, Start: p.Start, End: s.end, places: s.places, sources: s.sources}
 	l.Opening = pr.amounts[0].Round(s.places, s.rounding)
 	l.log.MonthEnd = make([]int64, s.end-p.Start+1)
-	l.log.Posts = make([]engine.Post, 0, s.eng.MaxPosts())
+	n := s.eng.MaxPosts()
+	if g.Match > 0 {
+		n += s.eng.MaxMatchPosts()
+	}
+	if g.HasCap && g.CapExcess != "" {
+		n += s.eng.MaxOverPosts()
+	}
+	l.log.Posts = make([]engine.Post, 0, n)
 	r := s.exact(pr, engine.Options{Log: &l.log})
 	if r.Short {
 		l.short = p.Start + Month(r.ShortMonth)
@@ -152,6 +168,8 @@ type Row struct {
 	// Income is the goal's income that paid withdrawals (not in Deposits,
 	// and not in Withdrawals, which are what the account paid).
 	Income       money.Amount
+	Tax          money.Amount // tax on interest paid from the account, as a positive sum
+	Employer     money.Amount // an employer's contributions, not in Deposits
 	Closing      money.Amount
 	ClosingToday money.Amount // the closing balance in today's money
 	Short        money.Amount // withdrawals that could not be paid
@@ -206,6 +224,12 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 			r.Interest = r.Interest.Add(e.Amount)
 		case e.Kind == Fee:
 			r.Fees = r.Fees.Sub(e.Amount)
+		case e.Kind == Tax:
+			r.Tax = r.Tax.Sub(e.Amount)
+		case e.Kind == Employer:
+			r.Employer = r.Employer.Add(e.Amount)
+		case e.Kind == OverCap:
+			continue // gone to another goal: no movement here
 		case e.Amount.Sign() >= 0:
 			r.Deposits = r.Deposits.Add(e.Amount)
 		default:
@@ -221,6 +245,8 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		tot.Interest = tot.Interest.Add(r.Interest)
 		tot.Fees = tot.Fees.Add(r.Fees)
 		tot.Income = tot.Income.Add(r.Income)
+		tot.Tax = tot.Tax.Add(r.Tax)
+		tot.Employer = tot.Employer.Add(r.Employer)
 		tot.Short = tot.Short.Add(r.Short)
 	}
 	if totals && len(rows) > 0 {

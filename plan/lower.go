@@ -64,7 +64,8 @@ func streams(g *Goal) []*Stream {
 // streams that stop at the target stop after month stop when hasStop is
 // set, and are open-ended otherwise.
 func shapeOf(p *Plan, g *Goal, end, stop Month, hasStop bool) engine.Shape {
-	sh := engine.Shape{Months: int32(end-p.Start) + 1, PerYear: g.Rates[0].Rate.Compounding().PerYear(), Fee: g.Fee > 0}
+	sh := engine.Shape{Months: int32(end-p.Start) + 1, PerYear: g.Rates[0].Rate.Compounding().PerYear(), Fee: g.Fee > 0,
+		Tax: g.RateOnGrowth() > 0}
 	for _, st := range g.Rates {
 		sh.StepFrom = append(sh.StepFrom, int32(st.From-p.Start))
 	}
@@ -90,7 +91,7 @@ func shapeOf(p *Plan, g *Goal, end, stop Month, hasStop bool) engine.Shape {
 		}
 		sh.Streams = append(sh.Streams, ss)
 	}
-	for _, o := range g.Once {
+	for _, o := range onceOf(p, g) {
 		sh.Once = append(sh.Once, int32(o.On-p.Start))
 		sh.OnceOut = append(sh.OnceOut, o.Amount.Sign() < 0)
 	}
@@ -135,7 +136,7 @@ func compileStop(p *Plan, g *Goal, end, stop Month, hasStop bool) *schedule {
 	for _, st := range g.Rates {
 		s.steps = append(s.steps, st.Rate)
 	}
-	s.sources = sourcesOf(g)
+	s.sources = sourcesOf(p, g)
 	s.out = make([]bool, len(s.sources))
 	for i, src := range s.sources {
 		s.out[i] = src.out
@@ -150,8 +151,9 @@ func compileStop(p *Plan, g *Goal, end, stop Month, hasStop bool) *schedule {
 }
 
 // sourcesOf lists goal g's flow sources in schedule order: the opening
-// balance, deposits, withdrawals, income, one-time amounts.
-func sourcesOf(g *Goal) []source {
+// balance, deposits, withdrawals, income, one-time amounts. A withdrawal
+// stated net of tax is the gross amount the account pays ([Plan.Gross]).
+func sourcesOf(p *Plan, g *Goal) []source {
 	out := []source{{kind: Opening, name: "opening balance", base: g.Balance}}
 	for _, st := range streams(g) {
 		kind := Deposit
@@ -161,9 +163,13 @@ func sourcesOf(g *Goal) []source {
 		case st.Income:
 			kind = Income
 		}
-		out = append(out, source{kind: kind, name: st.Name, base: st.Amount, stream: st, out: st.Out})
+		base := st.Amount
+		if st.Out && st.Net {
+			base = p.Gross(g, base)
+		}
+		out = append(out, source{kind: kind, name: st.Name, base: base, stream: st, out: st.Out})
 	}
-	for _, o := range g.Once {
+	for _, o := range onceOf(p, g) {
 		name := o.Name
 		if name == "" {
 			name = "one-time " + o.On.String()
@@ -196,6 +202,7 @@ func (s *schedule) defaultParams() *params {
 // inputs returns what a walk of s reads under pr.
 func (s *schedule) inputs(pr *params) engine.Inputs {
 	fee := s.goal.Fee / 12
+	tax := s.goal.RateOnGrowth()
 	js, ms := make([]float64, len(s.steps)), make([]money.Multiplier, len(s.steps))
 	for i, r := range s.steps {
 		if pr.rate != nil {
@@ -204,10 +211,44 @@ func (s *schedule) inputs(pr *params) engine.Inputs {
 		ms[i] = r.PeriodMultiplier(s.comp) // exact when rational (see engine.Inputs)
 		js[i] = ms[i].Float()
 	}
-	return engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
+	in := engine.Inputs{Rates: js, RateM: ms, Amounts: pr.amountsF, Out: s.out,
 		Fee: fee, FeeM: money.RateMultiplier(fee, s.goal.Fee, 12, 1),
+		Tax: tax, TaxM: money.RateMultiplier(tax, tax, 1, 1),
 		Between: engine.Between(s.goal.Between), Places: s.places, Rounding: s.rounding, Set: pr.set, SetSrc: pr.setSrc,
 		Rules: s.rules}
+	if g := s.goal; g.Match > 0 {
+		in.Match, in.MatchM = g.Match, money.RateMultiplier(g.Match, g.Match, 1, 1)
+		in.Matched = make([]bool, len(s.sources))
+		for i, src := range s.sources {
+			in.Matched[i] = src.kind == Deposit
+		}
+		if g.HasMatchUpTo {
+			in.MatchLimit = matchLimits(s.plan, g, s.end)
+		}
+	}
+	if g := s.goal; g.HasCap && g.CapExcess != "" {
+		in.Cap = g.Cap.Float()
+		in.Capped = make([]bool, len(s.sources))
+		for i, src := range s.sources {
+			in.Capped[i] = src.kind == Deposit || src.kind == OneTime && !src.out
+		}
+	}
+	return in
+}
+
+// matchLimits returns, for each year from the plan's start through month
+// end, the most of the household's deposits goal g's employer matches: the
+// match_up_to share of that year's salary, in currency units.
+func matchLimits(p *Plan, g *Goal, end Month) []float64 {
+	grow := g.SalaryGrow
+	if g.SalaryInflation {
+		grow = p.Inflation.Effective()
+	}
+	out := make([]float64, int(end-p.Start)/12+1)
+	for y := range out {
+		out[y] = g.MatchUpTo * g.Salary.Float() * math.Pow(1+grow, float64(y))
+	}
+	return out
 }
 
 // scale is the number of minor units in a currency unit.

@@ -134,6 +134,31 @@ type Goal struct {
 	// a fraction; HasVolatility says the file gave it.
 	Volatility    float64
 	HasVolatility bool
+	// Tax is the account's tax treatment, with the flat rates the file
+	// states (see [Treatment]); TaxRate is the rate now and TaxLater the
+	// rate on withdrawals, each a fraction below 1.
+	Tax      Treatment
+	TaxRate  float64
+	TaxLater float64
+	// HasTaxLater says the file gave tax_later; otherwise it is TaxRate.
+	HasTaxLater bool
+	// An employer adds Match (a fraction) of each of the household's own
+	// deposits, on at most MatchUpTo (a fraction) of a salary a year,
+	// Salary in the plan's first year, rising by SalaryGrow a year (or the
+	// plan's inflation with SalaryInflation); HasMatchUpTo false matches
+	// every deposit.
+	Match, MatchUpTo float64
+	HasMatchUpTo     bool
+	Salary           money.Amount
+	SalaryGrow       float64
+	SalaryInflation  bool
+	// Cap is the most the account may receive in a year from the plan's
+	// start (deposits and one-time amounts in), when HasCap is set.
+	Cap    money.Amount
+	HasCap bool
+	// CapExcess names the goal that receives what passes Cap, at the end
+	// of the month it would have gone in; "" refuses a plan that passes it.
+	CapExcess string
 	// Actuals are the balances statements showed, in month order, at most
 	// one a month (see [Actual]).
 	Actuals []Actual
@@ -142,6 +167,107 @@ type Goal struct {
 	Priority int
 
 	pos Position
+}
+
+// A Treatment is how an account is taxed, by mechanics and the flat rates
+// the goals file states: cairn knows no jurisdiction's rules, brackets,
+// allowances or credits.
+type Treatment int
+
+const (
+	// Untaxed: the file says nothing of tax, and none is modelled.
+	Untaxed Treatment = iota
+	// AsItGrows: the interest credited in each year from the plan's
+	// start is taxed at TaxRate at the year's end, the tax paid from the
+	// account; deposits come from pay after tax, withdrawals are untaxed.
+	AsItGrows
+	// OnTheWayOut: deposits come from pay before tax, so each costs the
+	// household the deposit less TaxRate of it; growth is untaxed, and
+	// each withdrawal is taxed at TaxLater.
+	OnTheWayOut
+	// Never: deposits come from pay after tax, and growth and
+	// withdrawals are never taxed again.
+	Never
+)
+
+var treatmentNames = []string{"none", "as-it-grows", "on-the-way-out", "never"}
+
+func (t Treatment) String() string { return treatmentNames[t] }
+
+// Words describes the treatment in a sentence fragment.
+func (t Treatment) Words() string {
+	switch t {
+	case AsItGrows:
+		return "taxed as it grows"
+	case OnTheWayOut:
+		return "taxed on the way out"
+	case Never:
+		return "never taxed again"
+	}
+	return "no tax modelled"
+}
+
+// RateOut returns the rate at which withdrawals from the goal's account are
+// taxed: TaxLater (or TaxRate when tax_later is not given) for an account
+// taxed on the way out, 0 for any other.
+func (g *Goal) RateOut() float64 {
+	if g.Tax != OnTheWayOut {
+		return 0
+	}
+	if g.HasTaxLater {
+		return g.TaxLater
+	}
+	return g.TaxRate
+}
+
+// RateIn returns the share of a deposit the household does not pay from
+// take-home pay: TaxRate for an account fed from pay before tax (taxed on
+// the way out), 0 for any other.
+func (g *Goal) RateIn() float64 {
+	if g.Tax != OnTheWayOut {
+		return 0
+	}
+	return g.TaxRate
+}
+
+// RateOnGrowth returns the rate at which the account's yearly interest is
+// taxed: TaxRate for an account taxed as it grows, 0 for any other.
+func (g *Goal) RateOnGrowth() float64 {
+	if g.Tax != AsItGrows {
+		return 0
+	}
+	return g.TaxRate
+}
+
+// FromPay returns what deposit a into the goal's account costs the household
+// from take-home pay: a less the tax not paid on it (RateIn), rounded to
+// the minor unit.
+func (p *Plan) FromPay(g *Goal, a money.Amount) money.Amount {
+	if g.RateIn() == 0 {
+		return a
+	}
+	return a.MulFloat(1-g.RateIn()).Round(p.Currency.Places, p.Rounding)
+}
+
+// AfterTax returns what an amount a the goal's account pays out leaves the
+// household after the tax on withdrawals (RateOut), rounded to the minor
+// unit.
+func (p *Plan) AfterTax(g *Goal, a money.Amount) money.Amount {
+	if g.RateOut() == 0 {
+		return a
+	}
+	return a.MulFloat(1-g.RateOut()).Round(p.Currency.Places, p.Rounding)
+}
+
+// Gross returns the amount the goal's account pays so that net is left
+// after the tax on withdrawals: net ÷ (1 − RateOut), rounded to the minor
+// unit.
+func (p *Plan) Gross(g *Goal, net money.Amount) money.Amount {
+	if g.RateOut() == 0 {
+		return net
+	}
+	return net.MulFloat(1/(1-g.RateOut())).Round(p.Currency.Places, p.Rounding)
+
 }
 
 // An Actual is a goal's real balance at the end of a month, as a statement
@@ -184,6 +310,9 @@ type Stream struct {
 	GrowInflation bool
 	Out           bool // a withdrawal
 	Income        bool // income from outside the account (see Goal.Income)
+	// Net says a withdrawal's Amount is what the household receives after
+	// the tax on withdrawals: the account pays [Plan.Gross] of it.
+	Net bool
 	// Rule decides a withdrawal's amount year by year (the zero value:
 	// the amount as written).
 	Rule WithdrawalRule

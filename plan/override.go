@@ -31,7 +31,7 @@ func (o Override) refuse(msg string) error {
 
 // OverrideKeys lists the keys an Override may set, in the order the help
 // shows them: each is the Set or SetOut name of one key of [Keys].
-var OverrideKeys = []string{"rate", "deposit", "withdrawal", "balance", "target", "by", "inflation", "fee", "grow", "every", "between", "leave"}
+var OverrideKeys = []string{"rate", "deposit", "withdrawal", "balance", "target", "by", "inflation", "fee", "grow", "every", "between", "leave", "tax", "tax_rate", "tax_later", "cap", "match", "match_up_to", "salary"}
 
 // SetKey returns the key of the goals file that the what-if name changes
 // and whether it changes a withdrawal stream (the name is the key's

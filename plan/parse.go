@@ -355,6 +355,27 @@ func (d *decoder) value(k *Key, n *yaml.Node, path string, t *target, v *value) 
 			}
 			v.x, ok = x, true
 		}
+	case FormShare:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			x, err := ParsePercent(s)
+			switch {
+			case err != nil:
+				d.errorf(n, path, "%v", err)
+			case x < 0 || x > 1:
+				d.errorf(n, path, "share %s is out of range (want 0%% to 100%%)", money.Quote(s))
+			default:
+				v.x, ok = x, true
+			}
+		}
+	case FormTaxRate:
+		if s, sok := d.scalar(n, path, want[k.Form]); sok {
+			x, err := ParseTaxRate(s)
+			if err != nil {
+				d.errorf(n, path, "%v", err)
+				return false
+			}
+			v.x, ok = x, true
+		}
 	case FormName:
 		v.text, ok = d.name(n, path)
 	case FormAmount, FormAmountToday, FormSignedAmount:

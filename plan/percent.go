@@ -32,3 +32,16 @@ func ParseVolatility(s string) (float64, error) {
 	}
 	return x, nil
 }
+
+// ParseTaxRate parses a flat tax rate, "25%", from 0% up to but not
+// including 100% (an amount net of a 100% tax has no gross).
+func ParseTaxRate(s string) (float64, error) {
+	x, err := ParsePercent(s)
+	if err != nil {
+		return 0, err
+	}
+	if x < 0 || x >= 1 {
+		return 0, fmt.Errorf("tax rate %q is out of range (want 0%% or more and below 100%%)", s)
+	}
+	return x, nil
+}

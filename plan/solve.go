@@ -108,6 +108,14 @@ type Answer struct {
 	Ledger   *Ledger      // the ledger under the answer
 	Equation *Equation    // the equation of value at Deadline (ForCapital: at Month) under the answer
 	Note     string       // a remark on the answer, in plain words
+
+	// What the answer means after tax, for a goal with a tax treatment
+	// (see [Treatment]); each equals its figure above when none applies.
+	// FromPay is what the deposit Amount costs from take-home pay (ForDeposit),
+	// Net what the withdrawal Amount leaves after the tax on withdrawals
+	// (ForWithdrawal), and BalanceAfterTax what Balance would leave if paid
+	// out (an account taxed on the way out).
+	FromPay, Net, BalanceAfterTax money.Amount
 }
 
 // horizonEnd is the last month a plan may reach.
@@ -148,6 +156,14 @@ func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q
 // solve answers q; with full unset it leaves out the answer's Ledger and
 // Equation, which what-if grids and the household status do not show.
 func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
+	a, err := solveFor(p, g, q, full)
+	if err == nil {
+		a.FromPay, a.Net, a.BalanceAfterTax = p.FromPay(g, a.Amount), p.AfterTax(g, a.Amount), p.AfterTax(g, a.Balance)
+	}
+	return a, err
+}
+
+func solveFor(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	switch q.For {
 	case ForTime:
 		return solveTime(p, g, full)
@@ -340,7 +356,7 @@ func unreachableReason(p *Plan, g *Goal, ends []float64) string {
 // only flows are the opening balance and one uniform deposit stream from the
 // start at a constant rate, and NaN otherwise.
 func closedFormPeriods(p *Plan, g *Goal) (float64, money.Frequency) {
-	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.TargetToday || g.Between != Compound {
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.TargetToday || g.Between != Compound || !untouched(p, g) {
 		return math.NaN(), 0
 	}
 	s := g.Deposits[0]
@@ -544,6 +560,10 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	}
 	c, ok := settleCents(meets, guess, int64(MaxAmountUnits)*int64(scale))
 	if !ok {
+		if g.HasCap && g.CapExcess != "" {
+			return nil, noSolution(g, "the yearly cap of %s keeps what goes in below what the target needs (what passes it goes to %s)",
+				g.Cap.Format(p.Currency, false), g.CapExcess)
+		}
 		return nil, noSolution(g, "no amount up to the %s limit meets the target", amountLimit)
 	}
 	set(c)
@@ -556,6 +576,12 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	s.prove(a, pr, full)
 	if c == 0 {
 		a.Note = "the target is met without it"
+	}
+	if g.HasCap {
+		if from, in, over := overCap(s.ledger(pr), g); over {
+			a.Note = fmt.Sprintf("it would put %s into the account in the year from %s, over the yearly cap of %s, which the goals file refuses",
+				in.Format(p.Currency, false), from, g.Cap.Format(p.Currency, false))
+		}
 	}
 	return a, nil
 }
@@ -1006,8 +1032,8 @@ func finishRate(s *schedule, a *Answer, pr *params, roots []float64, rising, ful
 // meets target, by the closed form (money.AnnuityRate); ok is false for
 // any other goal.
 func (s *schedule) annuityRoot(target money.Amount) (delta float64, ok bool) {
-	g := s.goal
-	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.Between != Compound {
+	p, g := s.plan, s.goal
+	if len(g.Deposits) != 1 || len(g.Withdrawals) > 0 || len(g.Once) > 0 || len(g.Rates) != 1 || g.Fee != 0 || g.Between != Compound || !untouched(p, g) {
 		return 0, false
 	}
 	st := g.Deposits[0]

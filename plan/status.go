@@ -32,6 +32,15 @@ type GoalStatus struct {
 	// Lasts is the drawdown answer for a goal with withdrawals.
 	Lasts    *Answer
 	LastsErr error
+	// After tax (see [Treatment]): what Projected would leave if paid out,
+	// and what MonthlyNow and MonthlyNeeded cost from take-home pay; each
+	// equals its figure when the goal has no tax treatment.
+	// EmployerMonthly is the employer's contributions in the plan's first
+	// year as a monthly equivalent (see Goal.Match), apart from the
+	// household's own MonthlyNow.
+	EmployerMonthly                         money.Amount
+	ProjectedAfterTax                       money.Amount
+	MonthlyNowFromPay, MonthlyNeededFromPay money.Amount
 	// Share is the goal's part of the budget, for a goal that draws on
 	// it: its projection, reach and track above count its shares, and
 	// Needed is left nil (the budget's rule decides its share).
@@ -46,6 +55,13 @@ type Status struct {
 	// the budget); MonthlyNeeded what they would need to be to make every
 	// deadline of the goals that do not draw on the budget.
 	MonthlyNow, MonthlyNeeded money.Amount
+	// EmployerMonthly is the employers' contributions a month in the
+	// plan's first year, over every goal: not the household's money.
+	EmployerMonthly money.Amount
+	// MonthlyNowFromPay and MonthlyNeededFromPay are those totals as they
+	// cost the household's take-home pay: deposits from pay before tax
+	// cost less than what lands in the account.
+	MonthlyNowFromPay, MonthlyNeededFromPay money.Amount
 	// Budget is the plan's budget split among the goals that draw on it,
 	// or nil; BudgetMonthly is its amount in the plan's first month as a
 	// monthly equivalent (zero when it starts later), and Smallest the
@@ -90,12 +106,15 @@ func StatusOf(p *Plan) *Status {
 			gs.MonthlyNeeded = gs.MonthlyNow
 			gs.Share = st.Budget.Shares[i]
 			budgetStatus(p, st.Budget, i, &gs)
+			afterTax(p, &gs)
+			st.addAfterTax(&gs)
 			st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
 			st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNow)
 			st.Goals = append(st.Goals, gs)
 			continue
 		}
 		gs := goalStatus(p, g)
+		st.addAfterTax(&gs)
 		st.MonthlyNow = st.MonthlyNow.Add(gs.MonthlyNow)
 		st.MonthlyNeeded = st.MonthlyNeeded.Add(gs.MonthlyNeeded)
 		st.Goals = append(st.Goals, gs)
@@ -155,7 +174,40 @@ func goalStatus(p *Plan, g *Goal) GoalStatus {
 	if len(g.Withdrawals) > 0 {
 		gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
 	}
+	afterTax(p, &gs)
 	return gs
+}
+
+// afterTax fills in goal status gs's figures after tax and its employer's
+// contributions.
+func afterTax(p *Plan, gs *GoalStatus) {
+	g := gs.Goal
+	gs.ProjectedAfterTax = p.AfterTax(g, gs.Projected)
+	gs.MonthlyNowFromPay, gs.MonthlyNeededFromPay = p.FromPay(g, gs.MonthlyNow), p.FromPay(g, gs.MonthlyNeeded)
+	if g.Match > 0 {
+		gs.EmployerMonthly = employerMonthly(p, g)
+	}
+}
+
+// addAfterTax adds goal status gs's figures after tax and its employer's
+// contributions to the household's totals.
+func (st *Status) addAfterTax(gs *GoalStatus) {
+	st.MonthlyNowFromPay = st.MonthlyNowFromPay.Add(gs.MonthlyNowFromPay)
+	st.MonthlyNeededFromPay = st.MonthlyNeededFromPay.Add(gs.MonthlyNeededFromPay)
+	st.EmployerMonthly = st.EmployerMonthly.Add(gs.EmployerMonthly)
+}
+
+// employerMonthly is goal g's employer contributions in the plan's first
+// year, from its ledger, divided by 12 and rounded once.
+func employerMonthly(p *Plan, g *Goal) money.Amount {
+	l, _ := Project(p, g, p.Start.Add(11))
+	year := money.Zero
+	for _, e := range l.Entries() {
+		if e.Kind == Employer {
+			year = year.Add(e.Amount)
+		}
+	}
+	return year.DivRound(12, p.Currency.Places, p.Rounding)
 }
 
 // monthlyDeposits is the monthly equivalent of the goal's deposits in force

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"slices"
 
 	"github.com/urfave/cli/v2"
 
@@ -19,26 +20,37 @@ import (
 const (
 	noteText = "A planning estimate, not financial, tax or investment advice. It assumes the rates " +
 		"and amounts given hold; taxes are not modelled. Consult a licensed professional before acting."
+	taxNoteText = "A planning estimate, not financial, tax or investment advice. It assumes the rates " +
+		"and amounts given hold. Tax is modelled only as the goals file states it: flat rates as given, on each " +
+		"year's interest, on the pay deposits come from, and on withdrawals, with any yearly cap it states; no " +
+		"brackets, allowances, credits, penalties or any country's rules. Consult a licensed tax professional before acting."
 	cautionText = "Running out of money is the risk that matters once withdrawals begin: " +
 		"review the withdrawals every year."
 )
 
 var (
 	noteNotice     = render.Notice{Kind: render.Note, Key: "note", Text: noteText}
+	taxNoteNotice  = render.Notice{Kind: render.Note, Key: "note", Text: taxNoteText}
 	drawdownNotice = render.Notice{Kind: render.Caution, Key: "caution", Text: cautionText}
 )
 
 // notices returns the note, and the drawdown caution when drawdown is set.
-func notices(drawdown bool) []render.Notice {
-	if drawdown {
-		return []render.Notice{noteNotice, drawdownNotice}
+// The note of a plan with a goal taxed (see [plan.Treatment]) says what of
+// tax is modelled and what is not.
+func notices(p *plan.Plan, drawdown bool) []render.Notice {
+	note := noteNotice
+	if p != nil && slices.ContainsFunc(p.Goals, taxed) {
+		note = taxNoteNotice
 	}
-	return []render.Notice{noteNotice}
+	if drawdown {
+		return []render.Notice{note, drawdownNotice}
+	}
+	return []render.Notice{note}
 }
 
 // newDoc returns a document about plan p (nil for none) with its notices.
 func newDoc(p *plan.Plan, drawdown bool) *render.Doc {
-	d := &render.Doc{Notices: notices(drawdown), Data: map[string]any{}}
+	d := &render.Doc{Notices: notices(p, drawdown), Data: map[string]any{}}
 	if p != nil {
 		d.Data = planJSON(p)
 	}

@@ -33,6 +33,9 @@ func TestScripts(t *testing.T) {
 		RequireExplicitExec: true,
 		RequireUniqueNames:  true,
 		Setup: func(e *testscript.Env) error {
+			if err := os.WriteFile(filepath.Join(e.WorkDir, "taxes.yaml"), examples.Taxes, 0o644); err != nil {
+				return err
+			}
 			if err := os.WriteFile(filepath.Join(e.WorkDir, "retirement.yaml"), examples.Retirement, 0o644); err != nil {
 				return err
 			}

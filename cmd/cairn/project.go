@@ -84,10 +84,12 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		period = "month"
 	}
 	d.Lead = []string{fmt.Sprintf("%s: projection by %s, %s to %s, in %s; \"today\" is the closing balance in money of %s.", g.Name, period, l.Start, l.End, p.Currency.Code, p.Start)}
-	var hasFees, hasOut, short, hasIncome bool
+	var hasFees, hasTax, hasOut, short, hasIncome, hasEmployer bool
 	for _, r := range rows {
 		hasIncome = hasIncome || !r.Income.IsZero()
 		hasFees = hasFees || !r.Fees.IsZero()
+		hasTax = hasTax || !r.Tax.IsZero()
+		hasEmployer = hasEmployer || !r.Employer.IsZero()
 		hasOut = hasOut || !r.Withdrawals.IsZero()
 		short = short || !r.Short.IsZero()
 	}
@@ -97,6 +99,12 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		{Head: "closing", Key: "closing", Numeric: true}, {Head: "today", Long: "in today’s money", Key: "closing_today", Numeric: true}}}
 	if hasIncome {
 		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "income", Long: "income paying withdrawals", Key: "income", Numeric: true})
+	}
+	if hasTax { // a column only where tax is paid from the account, so other goals' tables keep theirs
+		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "tax", Key: "tax", Numeric: true})
+	}
+	if hasEmployer { // the employer's money, apart from the household's deposits
+		t.Cols = slices.Insert(t.Cols, 3, render.Column{Head: "employer", Key: "employer", Numeric: true})
 	}
 	// the household's ages at the end of each row, where the file names people
 	names, _ := p.AgeList(l.End)
@@ -110,6 +118,12 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 			cash(p, r.Withdrawals), cash(p, r.Closing), cash(p, r.ClosingToday)}
 		if hasIncome { // income paying withdrawals, beside what the account paid
 			cells = slices.Insert(cells, 5, cash(p, r.Income))
+		}
+		if hasTax {
+			cells = slices.Insert(cells, 5, cash(p, r.Tax))
+		}
+		if hasEmployer {
+			cells = slices.Insert(cells, 3, cash(p, r.Employer))
 		}
 		if names != "" {
 			_, ages := p.AgeList(r.To)
@@ -140,6 +154,18 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	}
 	d.Blocks = []render.Block{t}
 	d.Data["goal"], d.Data["by"], d.Data["rows"] = g.Name, period, jrows
+	if g.HasCap && g.CapExcess != "" {
+		d.After = append(d.After, fmt.Sprintf("Deposits pass the yearly cap of %s by %s in all over these years; that goes to %s, at the end of each month it would have gone in here.",
+			amt(p, g.Cap), amt(p, l.Moved()), g.CapExcess))
+		d.Data["moved_over_cap"] = jamt(p, l.Moved())
+	}
+	if taxed(g) {
+		d.After = append(d.After, projectTaxLine(p, g, l))
+		d.Data["tax"] = taxJSON(p, g)
+		if g.RateOut() > 0 {
+			d.Data["closing_after_tax"] = jamt(p, p.AfterTax(g, l.Closing))
+		}
+	}
 	if hasIncome {
 		d.After = append(d.After, outsideIncomeWords(g))
 	}

@@ -187,7 +187,7 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 	if p.Applied != "" {
 		pg.Meta += fmt.Sprintf(" Under the scenario “%s”: %s.", p.Applied, scenarioText(p.Scenario(p.Applied)))
 	}
-	pg.Notices = notices(drawdown)
+	pg.Notices = notices(p, drawdown)
 	var b bytes.Buffer
 	if err := pg.Write(&b); err != nil {
 		return nil, nil, err
@@ -206,6 +206,12 @@ func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
 	} else {
 		fs.Add("Set aside now, all goals", render.Text(amt(p, st.MonthlyNow)+" a month"))
 	}
+	if !st.EmployerMonthly.IsZero() {
+		fs.Add("Employers add, apart", render.Text(amt(p, st.EmployerMonthly)+" a month in the first year"))
+	}
+	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 {
+		fs.Add("The goals' own deposits, from take-home pay", render.Text(amt(p, st.MonthlyNowFromPay)+" a month"))
+	}
 	short := st.Short()
 	if len(short) == 0 {
 		fs.Add("Short at a deadline", render.Text("none"))
@@ -216,6 +222,9 @@ func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
 	}
 	if st.Budget == nil || len(st.Budget.Shares) < len(p.Goals) {
 		fs.Add("The goals' own deposits needed to make every deadline", render.Text(amt(p, st.MonthlyNeeded)+" a month"))
+		if st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
+			fs.Add("Needed, from take-home pay", render.Text(amt(p, st.MonthlyNeededFromPay)+" a month"))
+		}
 	}
 	return fs
 }

@@ -41,7 +41,11 @@ var schemaSamples = map[plan.Form]struct{ tried, refused []string }{
 		[]string{"today", "250today", "-250 today", "250 yesterday", "", "25 0"}},
 	plan.FormSignedAmount: {[]string{"-1,000", "−250", "+5", "1000", "-$50", "1.5k"},
 		[]string{"--5", "5-", "1.2.3", "", "- 5"}},
-	plan.FormChoice: {[]string{"compound", "Simple", " none ", "end", "start", "Begin", "beginning", "priority", "One-at-a-time"},
+	plan.FormShare: {[]string{"50%", "0%", "100%", "12.5 %", ".5%", "+3%", "99.9%"},
+		[]string{"50", "-5%", "101%", "100.5%", "half", "1e1%", ""}},
+	plan.FormTaxRate: {[]string{"25%", "0%", "99.9%", "12.5 %", ".5%", "+3%"},
+		[]string{"25", "-5%", "100%", "101%", "25 percent", "1e1%", ""}},
+	plan.FormChoice: {[]string{"compound", "Simple", " none ", "end", "start", "Begin", "beginning", "yes", "No", "as-it-grows", "On-The-Way-Out", "never", "priority", "One-at-a-time"},
 		[]string{"compounded", "daily", "middle", ""}},
 	plan.FormFrequency: {[]string{"month", "Monthly", "2 weeks", "every 2 weeks", "half month", "twice a month",
 		"quarter", "year", "annually", "semi-monthly", "fortnightly", "per month", "every  two   weeks"},
@@ -72,7 +76,8 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 		b.WriteString(unless("cairn", "cairn: 1\n") + unless("start", "start: 2027-01\n") + kv + "\ngoals:\n  - name: g\n")
 	case plan.InGoal:
 		b.WriteString("cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month}\ngoals:\n  - name: g\n    " +
-			unless("by", "by: 2040-01\n    ") + unless("target", "target: 100\n    ") + kv + "\n")
+			unless("by", "by: 2040-01\n    ") + unless("target", "target: 100\n    ") +
+			unless("tax", "tax: on-the-way-out\n    ") + unless("salary", "salary: 50000\n    ") + kv + "\n")
 	case plan.InBudget:
 		b.WriteString("cairn: 1\nstart: 2027-01\nbudget:\n  " + unless("amount", "amount: 10\n  ") + unless("every", "every: month\n  ") +
 			kv + "\ngoals:\n  - {name: g, target: 100, priority: 1}\n")
@@ -97,7 +102,7 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 		b.WriteString("cairn: 1\nstart: 2027-01\npeople:\n  - " + unless("name", "name: Alex\n    ") + unless("born", "born: 1960-01\n    ") + kv +
 			"\ngoals:\n  - name: g\n")
 	case plan.InChange:
-		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    balance: 1000\n    by: 2040-01\n" +
+		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    balance: 1000\n    by: 2040-01\n    salary: 50000\n" +
 			"    deposits:\n      - amount: 10\n        every: month\n" +
 			"    withdrawals:\n      - amount: 10\n        every: month\n        from: 2040-02\n" +
 			"scenarios:\n  - name: s\n    changes:\n      - goal: g\n        " + kv + "\n")

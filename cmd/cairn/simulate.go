@@ -336,6 +336,14 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *rend
 		assume += fmt.Sprintf("; inflation: fixed at %s a year.", pct(p.Inflation.Effective()))
 	}
 	d.Lead = append(d.Lead, assume)
+	if taxed(g) {
+		line := fmt.Sprintf("The account is %s.", taxWords(g))
+		if g.RateOnGrowth() > 0 {
+			line = fmt.Sprintf("The account is %s; each path pays the tax on its own year's interest.", taxWords(g))
+		}
+		d.Lead = append(d.Lead, line)
+		j["tax"] = taxJSON(p, g)
+	}
 
 	// the deadline
 	if sim.HasDeadline {
@@ -357,6 +365,15 @@ func simulateDoc(p *plan.Plan, sim *plan.Simulation, dep *plan.SimDeposit) *rend
 			s += " The target has no deadline to be met by."
 		}
 		d.Lead = append(d.Lead, s)
+		if g.RateOut() > 0 {
+			var after plan.Percentiles
+			for i, a := range ad {
+				after[i] = p.AfterTax(g, a)
+			}
+			d.Lead = append(d.Lead, fmt.Sprintf("Paid out and taxed at %s, the balance at the deadline would leave %s to spend at the median, %s at the 5th percentile and %s at the 95th.",
+				pct(g.RateOut()), amt(p, after[2]), amt(p, after[0]), amt(p, after[4])))
+			j["at_deadline_after_tax"] = pctJSON(p, after)
+		}
 	} else if g.HasTarget {
 		d.Lead = append(d.Lead, "The goal has no deadline (by:), so no share of paths meeting its target.")
 	}

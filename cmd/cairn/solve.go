@@ -306,6 +306,9 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 	if a.Note != "" {
 		j["remark"] = a.Note
 	}
+	if taxed(g) {
+		solveTax(p, a, d, det)
+	}
 	d.Blocks = []render.Block{det}
 	if explain && a.Equation != nil {
 		eq, rows := equationTable(p, a.Equation)
@@ -319,6 +322,11 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		}
 		d.After = append(d.After, fmt.Sprintf("The terms sum to %s; %s is %s (each interest and fee posting is rounded to the cent).",
 			amt(p, a.Equation.Sum), what, amt(p, a.Equation.Balance)))
+		if eq := a.Equation; eq.TaxOnGrowth > 0 {
+			d.After = append(d.After, fmt.Sprintf("After the tax of %s on each year's interest, paid at each year's end, money held for whole years grows at %s a year effective (%s less the tax); the terms are valued with the tax.",
+				pct(eq.TaxOnGrowth), pct(eq.AfterTax), pct(g.Rates[0].Rate.Effective())))
+			j["after_tax_rate"] = jsonRate(eq.AfterTax)
+		}
 	}
 	return d
 }

@@ -179,6 +179,12 @@ func inFile(name string, err error) error {
 // statusDoc is every goal of p at a glance; its table and remarks are also
 // the first page of the report.
 func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
+	return statusDocTax(p, st, slices.ContainsFunc(p.Goals, taxed))
+}
+
+// statusDocTax is statusDoc with, when withTax is set, a column of what each
+// goal's projected balance leaves to spend after tax.
+func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 	d := newDoc(p, false)
 	t := &render.Table{Cols: []render.Column{
 		{Head: "goal", Key: "goal"}, {Head: "target", Key: "target", Numeric: true}, {Head: "at deadline", Key: "target_at_deadline", Numeric: true},
@@ -187,6 +193,9 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 		{Head: "needed", Key: "needed"}, {Head: "every", Key: "needed_every", Hidden: true},
 		{Head: "grows", Key: "needed_grows", Hidden: true}, {Head: "in today's money", Key: "target_in_todays_money", Hidden: true},
 	}}
+	if withTax {
+		t.Cols = slices.Insert(t.Cols, 5, render.Column{Head: "after tax", Key: "projected_after_tax", Numeric: true})
+	}
 	var goals []map[string]any
 	drawdown := false
 	for _, gs := range st.Goals {
@@ -247,6 +256,10 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 					jn["grow"], jn["amount_is"] = growthJSON(a.Stream), "first year"
 					d.After = append(d.After, fmt.Sprintf("%s: * %s.", goal.Name, fy))
 				}
+				if goal.HasCap && a.Note != "" {
+					d.After = append(d.After, fmt.Sprintf("%s: the needed deposit: %s.", goal.Name, a.Note))
+					jn["remark"] = a.Note
+				}
 				jg["needed"] = jn
 			} else {
 				jg["needed_reason"] = reasonOf(gs.NeededErr)
@@ -284,15 +297,56 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 			}
 		}
 		jg["monthly_now"], jg["monthly_needed"] = jamt(p, gs.MonthlyNow), jamt(p, gs.MonthlyNeeded)
-		t.Add(render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today)
+		if goal.HasCap {
+			line := fmt.Sprintf("%s: a yearly cap of %s on what goes in (the household's deposits and one-time amounts in)", goal.Name, amt(p, goal.Cap))
+			if goal.CapExcess != "" {
+				line += "; what passes it goes to " + goal.CapExcess
+			}
+			d.After = append(d.After, line+".")
+			jg["cap"] = jamt(p, goal.Cap)
+		}
+		if goal.Match > 0 {
+			jg["employer_monthly"] = jamt(p, gs.EmployerMonthly)
+			d.After = append(d.After, employerLine(p, gs))
+		}
+		if taxed(goal) {
+			jg["tax"] = taxJSON(p, goal)
+			jg["monthly_now_from_pay"], jg["monthly_needed_from_pay"] = jamt(p, gs.MonthlyNowFromPay), jamt(p, gs.MonthlyNeededFromPay)
+			d.After = append(d.After, statusTaxLine(p, gs))
+			if goal.HasTarget && goal.HasBy {
+				jg["projected_after_tax"] = jamt(p, gs.ProjectedAfterTax)
+			}
+			if gs.NeededErr == nil && gs.Needed != nil {
+				jg["needed"].(map[string]any)["from_pay"] = jamt(p, gs.Needed.FromPay)
+			}
+		}
+		row := []render.Cell{render.Text(goal.Name), target, atDeadline, deadline, projected, reached, status, shortBy, needed, neededEvery, neededGrows, today}
+		if withTax {
+			afterTax := render.None()
+			if taxed(goal) && goal.HasTarget && goal.HasBy {
+				afterTax = cash(p, gs.ProjectedAfterTax)
+			}
+			row = slices.Insert(row, 5, afterTax)
+		}
+		t.Add(row...)
 		goals = append(goals, jg)
 	}
 	d.Blocks = []render.Block{t}
 	drawdown = progress(d, p, goals) || drawdown
-	d.Notices = notices(drawdown)
+	d.Notices = notices(p, drawdown)
 	d.After = append(d.After, householdLine(p, st)...)
 	if st.Budget != nil {
 		d.Data["budget"] = budgetJSON(p, st)
+	}
+	if !st.EmployerMonthly.IsZero() {
+		d.After = append(d.After, fmt.Sprintf("Employers add %s a month in the first year, apart from the household's own deposits.", amt(p, st.EmployerMonthly)))
+		d.Data["employer_monthly"] = jamt(p, st.EmployerMonthly)
+	}
+	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
+		d.After = append(d.After, fmt.Sprintf("From take-home pay, after the tax not paid on deposits from pay before tax: %s a month now; %s a month needed.",
+			amt(p, st.MonthlyNowFromPay), amt(p, st.MonthlyNeededFromPay)))
+		d.Data["monthly_now_from_pay"] = jamt(p, st.MonthlyNowFromPay)
+		d.Data["monthly_needed_from_pay"] = jamt(p, st.MonthlyNeededFromPay)
 	}
 	d.Data["goals"] = goals
 	d.Data["monthly_now"] = jamt(p, st.MonthlyNow)
@@ -301,7 +355,7 @@ func statusDoc(p *plan.Plan, st *plan.Status) *render.Doc {
 }
 
 // caseColumns are the status columns shown for each case side by side.
-var caseColumns = []string{"target_at_deadline", "projected", "reached", "status", "short_by", "needed", "needed_every", "needed_grows"}
+var caseColumns = []string{"target_at_deadline", "projected", "projected_after_tax", "reached", "status", "short_by", "needed", "needed_every", "needed_grows"}
 
 // casesDoc is every goal under each case (the plan as written, then each
 // scenario) side by side: one row a goal and case, the goals in file order
@@ -315,15 +369,19 @@ func casesDoc(cases []plan.Case) *render.Doc {
 	for _, c := range cases[1:] {
 		d.Lead = append(d.Lead, fmt.Sprintf("%s: %s.", c.Name, scenarioText(base.Scenario(c.Name))))
 	}
+	withTax := slices.ContainsFunc(cases, func(c plan.Case) bool { return slices.ContainsFunc(c.Plan.Goals, taxed) })
 	docs := make([]*render.Doc, len(cases))
 	for i, c := range cases {
-		docs[i] = statusDoc(c.Plan, plan.StatusOf(c.Plan))
+		docs[i] = statusDocTax(c.Plan, plan.StatusOf(c.Plan), withTax)
 	}
 	st := docs[0].Tables()[0]
 	cols := []render.Column{{Head: "goal", Key: "goal"}, {Head: "case", Key: "case"}}
 	var idx []int
 	for _, k := range caseColumns {
 		i := slices.IndexFunc(st.Cols, func(c render.Column) bool { return c.Key == k })
+		if i < 0 {
+			continue // after tax, where no case taxes a goal
+		}
 		cols, idx = append(cols, st.Cols[i]), append(idx, i)
 	}
 	t := &render.Table{Cols: cols}
@@ -337,10 +395,11 @@ func casesDoc(cases []plan.Case) *render.Doc {
 		}
 	}
 	var jcases []map[string]any
-	drawdown := false
+	drawdown, taxNote := false, false
 	for i, c := range cases {
 		for _, n := range docs[i].Notices {
 			drawdown = drawdown || n == drawdownNotice
+			taxNote = taxNote || n == taxNoteNotice
 		}
 		for _, a := range docs[i].After {
 			if i == 0 || !slices.Contains(docs[0].After, a) {
@@ -353,7 +412,10 @@ func casesDoc(cases []plan.Case) *render.Doc {
 		}
 		jcases = append(jcases, jc)
 	}
-	d.Notices = notices(drawdown)
+	d.Notices = notices(base, drawdown)
+	if taxNote { // a scenario taxes a goal the plan as written does not
+		d.Notices[0] = taxNoteNotice
+	}
 	d.Blocks = []render.Block{t}
 	for _, k := range []string{"goals", "monthly_now", "monthly_needed"} {
 		d.Data[k] = docs[0].Data[k]

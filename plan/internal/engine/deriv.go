@@ -8,6 +8,7 @@ import "math"
 // Newton steps on the walk's own balance.
 type deriv struct {
 	bal, base, acc, accrued, low float64
+	taxable                      float64   // interest credited since the last tax (Shape.Tax)
 	dw                           []float64 // derivative of each weight (see Schedule.weights)
 }
 

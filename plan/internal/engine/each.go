@@ -6,11 +6,13 @@ package engine
 // fields are the walk's, one per source.
 type each struct {
 	bal, base, acc, accrued, low, pool []float64
+	taxable                            []float64 // interest credited since the last tax (Shape.Tax)
 }
 
 func newEach(n int) *each {
-	f := make([]float64, 6*n)
-	return &each{bal: f[:n:n], base: f[n : 2*n : 2*n], acc: f[2*n : 3*n : 3*n], accrued: f[3*n : 4*n : 4*n], low: f[4*n : 5*n : 5*n], pool: f[5*n:]}
+	f := make([]float64, 7*n)
+	return &each{bal: f[:n:n], base: f[n : 2*n : 2*n], acc: f[2*n : 3*n : 3*n], accrued: f[3*n : 4*n : 4*n], low: f[4*n : 5*n : 5*n],
+		pool: f[5*n : 6*n : 6*n], taxable: f[6*n:]}
 }
 
 // interest credits (or accrues) one interest date at rate j.
@@ -27,6 +29,7 @@ func (a *each) interest(j float64, none, accrue bool) {
 		} else {
 			a.bal[k] += x
 			a.base[k] = a.bal[k]
+			a.taxable[k] += x
 		}
 		a.acc[k] = 0
 		a.low[k] = a.base[k]
@@ -37,6 +40,7 @@ func (a *each) interest(j float64, none, accrue bool) {
 func (a *each) credit() {
 	for k := range a.bal {
 		a.bal[k] += a.accrued[k]
+		a.taxable[k] += a.accrued[k]
 		a.accrued[k] = 0
 	}
 }
@@ -72,5 +76,19 @@ func (a *each) payIncome(wIn, tau float64, none bool) {
 			a.flow(k, p, wIn, tau, none)
 			a.pool[k] = 0
 		}
+	}
+}
+
+// tax takes fraction rate of each balance's interest since the last tax, at
+// a year's end (an interest date: the next period's base). Each source's
+// share is taken whatever its sign, so that the shares sum to the whole
+// walk's tax when that is positive.
+func (a *each) tax(rate float64) {
+	for k := range a.bal {
+		x := a.taxable[k] * rate
+		a.taxable[k] = 0
+		a.bal[k] -= x
+		a.base[k] -= x
+		a.low[k] = a.bal[k] + a.accrued[k]
 	}
 }

@@ -31,6 +31,7 @@ type Kind uint8
 const (
 	Interest  Kind = iota // interest for the period ending (Count of them, a period apart)
 	Credit                // month end: accrued interest of a more-than-monthly compounding is credited
+	Tax                   // a year's end from the start: the interest credited in the year is taxed
 	Fee                   // the month's fee
 	FlowEnd               // an amount at the end of its period
 	Mark                  // the month end
@@ -69,6 +70,7 @@ type Shape struct {
 	PerYear  int     // interest periods a year (compounding)
 	StepFrom []int32 // the month each rate step begins
 	Fee      bool    // a monthly fee is taken
+	Tax      bool    // the interest credited each year is taxed at its end
 	Streams  []StreamShape
 	Once     []int32 // the month (at its end) of each one-time amount
 	OnceOut  []bool  // each one-time amount: money out
@@ -239,6 +241,9 @@ func Compile(sh *Shape) *Schedule {
 	// runs of interest dates (at most one a date, and one after each other
 	// event or start of a rate step)
 	perMonth := int64(1)
+	if sh.Tax {
+		perMonth++
+	}
 	if s.accrue {
 		perMonth++
 	}
@@ -281,6 +286,9 @@ func Compile(sh *Shape) *Schedule {
 		if s.accrue {
 			add(Event{Tick: t, Kind: Credit, Month: m})
 		}
+		if sh.Tax && (m+1)%12 == 0 {
+			add(Event{Tick: t, Kind: Tax, Month: m})
+		}
 		if sh.Fee {
 			add(Event{Tick: t, Kind: Fee, Month: m})
 		}
@@ -298,8 +306,8 @@ func Compile(sh *Shape) *Schedule {
 	k32 := int32(-1)
 	for i := range s.events {
 		e := &s.events[i]
-		if e.Kind == Interest || e.Kind == Credit || e.Kind == Mark {
-			continue
+		if e.Kind == Interest || e.Kind == Credit || e.Kind == Mark || e.Kind == Tax {
+			continue // a tax falls at a year's end, an interest date of every compounding: it starts the next period
 		}
 		next := (e.Tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
 		r := next - e.Tick

@@ -31,11 +31,27 @@ type Inputs struct {
 	Amounts []float64 // each source's amount, in currency units (before Event.Unit)
 	Out     []bool    // each source: money out (made negative; clamped to the balance when exact)
 	Fee     float64   // fraction of the balance taken each month
+	Tax     float64   // fraction of a year's credited interest taxed at its end (Shape.Tax)
 	// RateM and FeeM are Rates and Fee with their exact forms, which an
 	// exact walk reads only to settle a product lying near a half unit
 	// (see [money.RoundProduct]); RateM[k].Float() is Rates[k].
-	RateM    []money.Multiplier
-	FeeM     money.Multiplier
+	RateM []money.Multiplier
+	FeeM  money.Multiplier
+	TaxM  money.Multiplier
+	// Match is the share of each deposit of a source with Matched set
+	// that an employer adds (MatchM its exact form), on at most
+	// MatchLimit[y] of such deposits in year y from the start (currency
+	// units; nil: no limit). A walk of one source alone adds none.
+	Match      float64
+	MatchM     money.Multiplier
+	Matched    []bool
+	MatchLimit []float64
+	// Cap, when Capped is set, is the most the sources with Capped set
+	// may put in during each year from the start (currency units); what
+	// passes it does not enter the account and is posted as PostOver. A
+	// walk of one source alone applies no cap.
+	Cap      float64
+	Capped   []bool
 	Between  Between
 	Places   int            // decimal places of the minor unit
 	Rounding money.Rounding // rule for every rounding to the minor unit
@@ -192,6 +208,9 @@ const (
 	PostFee
 	PostFlow   // an amount of source Post.Src
 	PostIncome // an income amount of source Post.Src, received outside the account
+	PostTax    // the tax on a year's interest, paid from the account
+	PostMatch  // an employer's contribution matching a deposit of source Post.Src
+	PostOver   // the part of an amount of source Post.Src over the yearly cap, which goes elsewhere
 )
 
 // A Post is one movement, in minor units.
@@ -318,7 +337,14 @@ func roundMinor(x float64, r money.Rounding) float64 {
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
 	var bal, base, acc, accrued, peak float64
-	var pool float64 // the month's income not yet paid out
+	var pool float64    // the month's income not yet paid out
+	var taxable float64 // interest credited since the last tax (Shape.Tax)
+	// matched is the deposits matched in year matchYear (Inputs.Match)
+	var matched float64
+	matchYear := int32(-1)
+	// capped is what went in during year capYear (Inputs.Cap)
+	var capped float64
+	capYear := int32(-1)
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
@@ -397,6 +423,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					} else {
 						dv.bal += dx
 						dv.base = dv.bal
+						dv.taxable += dx
 					}
 					dv.acc, dv.low = 0, dv.base
 				}
@@ -417,6 +444,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 				}
 				bal += x
+				taxable += x
 				base, acc = bal, 0
 				low = base
 				if o.Log != nil && x != 0 {
@@ -431,6 +459,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			x := accrued
 			if dv != nil {
 				dv.bal += dv.accrued
+				dv.taxable += dv.accrued
 				dv.accrued = 0
 			}
 			if o.Mode == Exact {
@@ -438,8 +467,49 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 			bal += x
 			accrued -= x
+			taxable += x
 			if o.Log != nil && x != 0 {
 				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+			}
+		case Tax:
+			if ea != nil {
+				ea.tax(in.Tax)
+			}
+			// The tax on the year's interest, paid from the account at an
+			// interest date (Tau 1): it leaves the next period's base. A
+			// year whose interest is not positive pays none (no refund or
+			// credit is modelled).
+			t := taxable
+			x := t * in.Tax
+			taxable = 0
+			var dx float64 // its derivative (Options.DRates)
+			if dv != nil {
+				dx, dv.taxable = dv.taxable*in.Tax, 0
+			}
+			if x <= 0 {
+				continue
+			}
+			if dv != nil {
+				dv.bal -= dx
+				dv.base -= dx
+				dv.low = dv.bal + dv.accrued
+			}
+			if o.Mode == Exact {
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundPosting(t, in.TaxM, 0, in.Rounding)
+				}
+				x = min(x, max(bal, 0)) // what the account holds; no debt is modelled
+				if x == 0 {
+					continue
+				}
+			}
+			bal -= x
+			base -= x
+			low = bal + accrued
+			if o.Log != nil {
+				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if ea != nil {
@@ -595,7 +665,33 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				continue
 			}
-			var short, covered float64
+			var short, covered, emp, over float64
+			if in.Capped != nil && !o.One && in.Capped[e.Src] && x > 0 {
+				if y := e.Month / 12; y != capYear {
+					capYear, capped = y, 0
+				}
+				over = max(x-max(in.Cap*scale-capped, 0), 0)
+				x -= over
+				capped += x
+			}
+			if in.Match > 0 && !o.One && in.Matched[e.Src] && x > 0 {
+				if y := e.Month / 12; y != matchYear {
+					matchYear, matched = y, 0
+				}
+				m := x
+				if in.MatchLimit != nil {
+					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+				}
+				matched += m
+				emp = m * in.Match
+				if o.Mode == Exact {
+					if q, sure := money.RoundFast(emp); sure {
+						emp = q
+					} else {
+						emp = roundPosting(m, in.MatchM, 0, in.Rounding)
+					}
+				}
+			}
 			if in.Out[e.Src] {
 				x = -math.Abs(x)
 				if pool > 0 && o.Mode == Exact { // the month's income pays first
@@ -622,34 +718,41 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				continue
 			}
+			bal += emp // the employer's part arrives with the deposit
 			if dv != nil {
 				if none {
 					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
 				}
 				if e.Tau != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-					if x < 0 {
+					if x+emp < 0 {
 						wi++
 					}
-					dv.acc += x * dv.dw[wi]
+					dv.acc += (x + emp) * dv.dw[wi]
 				}
 			}
 			if none {
 				low = lowest(low, bal+accrued, e.Tau)
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
-				base += x
+			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+				base += in
 			} else if p == nil {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-				if x < 0 {
+				if in < 0 {
 					i++
 				}
-				acc += x * w[i]
+				acc += in * w[i]
 			} else {
-				acc += x * p.W[i]
+				acc += in * p.W[i]
 			}
 			if o.Log != nil {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				if emp != 0 {
+					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+				}
+				if over != 0 {
+					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+				}
 			}
 		}
 	}
@@ -686,6 +789,22 @@ func (s *Schedule) Weights(p *Paths, in *Inputs) {
 	}
 }
 
+// MaxMatchPosts returns the most employer contributions a walk of s can
+// post: one for each amount.
+func (s *Schedule) MaxMatchPosts() int {
+	n := 0
+	for i := range s.events {
+		if k := s.events[i].Kind; k == FlowEnd || k == FlowBegin {
+			n++
+		}
+	}
+	return n
+}
+
+// MaxOverPosts returns the most amounts over a yearly cap a walk of s can
+// post: one for each amount.
+func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
+
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
 // grow it.
@@ -696,7 +815,8 @@ func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, sh
 }
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with
-// room for them grows no more during the walk.
+// room for them grows no more during the walk. A walk with Inputs.Match
+// posts one more for each amount (see MaxMatchPosts).
 func (s *Schedule) MaxPosts() int {
 	n := len(s.events) // each event posts once, but a run of interest dates once a date
 	if !s.accrue {
