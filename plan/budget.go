@@ -1,6 +1,8 @@
 package plan
 
 import (
+	"fmt"
+
 	"gopkg.in/yaml.v3"
 
 	"cairn/money"
@@ -12,8 +14,19 @@ import (
 type Budget struct {
 	Stream      // the amounts, their frequency, timing, dates and growth
 	Rule   Rule // how each amount is split
+	// Changes are the amount from a month on, in month order, each after
+	// the stream's From (see the package doc, # Household budget).
+	Changes []BudgetChange
 
 	pos Position
+}
+
+// A BudgetChange is the budget's amount from the first budget date in
+// month From on; grow applies to it from From.
+type BudgetChange struct {
+	From   Month
+	Amount money.Amount // in today's money when Today is set
+	Today  bool
 }
 
 // A Rule says how each amount of a [Budget] is split among the goals that
@@ -51,7 +64,39 @@ func (d *decoder) budget(p *Plan, n *yaml.Node) *Budget {
 		d.errorf(given["until"], "budget.until", "month %s is before from %s", b.Stream.Until, b.Stream.From)
 		return nil
 	}
+	if v := given["changes"]; v != nil {
+		d.budgetChanges(p, b, v, "budget.changes")
+	}
 	return b
+}
+
+// budgetChanges decodes the budget's changes: each after the budget's from
+// and the change before it.
+func (d *decoder) budgetChanges(p *Plan, b *Budget, v *yaml.Node, path string) {
+	items, _ := d.list(v, path, "budget changes")
+	if len(items) > MaxBudgetChanges {
+		d.errorf(v, path, "%d budget changes, over the limit of %d", len(items), MaxBudgetChanges)
+		return
+	}
+	last := b.Stream.From
+	for i, cn := range items {
+		ip := fmt.Sprintf("%s[%d]", path, i)
+		c := BudgetChange{}
+		given := d.keys(resolve(cn), ip, InBudgetChange, &target{p: p, b: b, c: &c})
+		if given == nil || given["from"] == nil || given["amount"] == nil || d.bad[ip+".from"] || d.bad[ip+".amount"] {
+			continue
+		}
+		switch {
+		case len(b.Changes) == 0 && c.From <= last:
+			d.errorf(given["from"], ip+".from", "month %s is not after the budget's from %s (want a later month; the first amount is the budget's amount)", c.From, last)
+			continue
+		case c.From <= last:
+			d.errorf(given["from"], ip+".from", "month %s is not after the change before it, %s (want the changes in month order)", c.From, last)
+			continue
+		}
+		last = c.From
+		b.Changes = append(b.Changes, c)
+	}
 }
 
 // checkBudget checks the budget against the goals that draw on it: each

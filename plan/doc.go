@@ -228,4 +228,13 @@
 // [Allocate] splits the file's budget; [SmallestBudget] finds the least
 // budget amount, in whole cents, with which every goal (or the first k)
 // meets its deadline — one cent less misses one, by the same ledgers.
+//
+// The budget's amount may change from a month on (changes:, each a month
+// and an amount): from the first budget date in that month, on the
+// budget's own dates, the amount is the change's, until the next change.
+// Grow applies to each amount from its own start: a change's amount at a
+// date is the amount times (1 + grow) to the whole years from the change's
+// month to the date's month (an amount in today's money is first indexed
+// by inflation to the change's month). The smallest budget is the least
+// first amount; the changes stay as written.
 package plan

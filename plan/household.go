@@ -61,6 +61,7 @@ type household struct {
 	ticks []int64   // each budget date's tick
 	month []Month   // and month
 	unit  []float64 // and the unit of its amount (growth, indexing)
+	fixed []int64   // and its amount from a change, in minor units; -1: the first amount
 	goals []*member
 }
 
@@ -112,8 +113,10 @@ func newHousehold(p *Plan, end Month) (*household, error) {
 			h.ticks = append(h.ticks, e.Tick)
 			h.month = append(h.month, p.Start+Month(e.Month))
 			h.unit = append(h.unit, e.Unit)
+			h.fixed = append(h.fixed, -1)
 		}
 	}
+	h.changes()
 	for _, g := range gs {
 		sg := g.clone()
 		sg.Deposits = append([]*Stream{shareStream(p.Budget)}, sg.Deposits...)
@@ -152,6 +155,27 @@ func newHousehold(p *Plan, end Month) (*household, error) {
 	return h, nil
 }
 
+// changes sets the amount and unit of each budget date from a change of
+// the budget on: the change's amount, grown by the budget's grow in whole
+// years from the change's month (and, in today's money, indexed to it).
+func (h *household) changes() {
+	b, p := h.b, h.p
+	g := b.Stream.growth(p.Inflation)
+	for j, c := range b.Changes {
+		first := 1.0
+		if c.Today {
+			first = 1 + p.Inflation.Over(float64(c.From-p.Start)/12)
+		}
+		for k, mo := range h.month {
+			if mo < c.From || j+1 < len(b.Changes) && mo >= b.Changes[j+1].From {
+				continue
+			}
+			h.fixed[k] = int64(math.Round(c.Amount.Float() * h.scale))
+			h.unit[k] = first * math.Exp(float64((mo-c.From)/12)*math.Log1p(g))
+		}
+	}
+}
+
 // allocate splits a budget of c minor units a period among the goals of
 // h, date by date, by the budget's rule: the one definition of both rules
 // (see the package doc, # Household budget). With keep set it returns the
@@ -161,7 +185,11 @@ func (h *household) allocate(c int64, top int, keep bool) (*Allocation, bool) {
 	n := len(h.ticks)
 	left := make([]int64, n)
 	for k := range n {
-		left[k] = int64(money.RoundMinor(float64(c)*h.unit[k], h.p.Rounding))
+		x := c
+		if h.fixed[k] >= 0 {
+			x = h.fixed[k]
+		}
+		left[k] = int64(money.RoundMinor(float64(x)*h.unit[k], h.p.Rounding))
 	}
 	var a *Allocation
 	if keep {

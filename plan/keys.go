@@ -12,33 +12,35 @@ import (
 type Scope int
 
 const (
-	InPlan       Scope = iota // the top level
-	InGoal                    // each goal
-	InStream                  // each deposit or withdrawal stream
-	InWithdrawal              // withdrawal streams only
-	InOnce                    // each one-time amount
-	InRateStep                // each step of a rate schedule
-	InScenario                // each named scenario
-	InChange                  // each change of a scenario: a goal, a stream and what-if keys
-	InActual                  // each actual balance of a goal
-	InPerson                  // each of the household's people
-	InBudget                  // the budget: a stream's keys and its rule
+	InPlan         Scope = iota // the top level
+	InGoal                      // each goal
+	InStream                    // each deposit or withdrawal stream
+	InWithdrawal                // withdrawal streams only
+	InOnce                      // each one-time amount
+	InRateStep                  // each step of a rate schedule
+	InScenario                  // each named scenario
+	InChange                    // each change of a scenario: a goal, a stream and what-if keys
+	InActual                    // each actual balance of a goal
+	InPerson                    // each of the household's people
+	InBudget                    // the budget: a stream's keys and its rule
+	InBudgetChange              // each change of the budget's amount from a month on
 )
 
 // where says where in the file a key of each scope is written, in errors
 // about a key given in the wrong place.
 var where = map[Scope]string{
-	InPlan:       "the top level of the file",
-	InGoal:       "each goal (under goals:)",
-	InStream:     "each stream (under deposits: or withdrawals:)",
-	InWithdrawal: "each withdrawal or income stream (under withdrawals: or income:)",
-	InOnce:       "each one-time amount (under once:)",
-	InRateStep:   "each step of a rate schedule (under rate:)",
-	InScenario:   "each scenario (under scenarios:)",
-	InChange:     "each change of a scenario (under changes:)",
-	InActual:     "each actual balance (under actuals:)",
-	InPerson:     "each person (under people:)",
-	InBudget:     "the budget (under budget:)",
+	InPlan:         "the top level of the file",
+	InGoal:         "each goal (under goals:)",
+	InStream:       "each stream (under deposits: or withdrawals:)",
+	InWithdrawal:   "each withdrawal or income stream (under withdrawals: or income:)",
+	InOnce:         "each one-time amount (under once:)",
+	InRateStep:     "each step of a rate schedule (under rate:)",
+	InScenario:     "each scenario (under scenarios:)",
+	InChange:       "each change of a scenario (under changes:)",
+	InActual:       "each actual balance (under actuals:)",
+	InPerson:       "each person (under people:)",
+	InBudget:       "the budget (under budget:)",
+	InBudgetChange: "each change of the budget (under budget: changes:)",
 }
 
 // scopesOf says where the key name belongs, for every scope that has it
@@ -166,6 +168,7 @@ type target struct {
 	who *Person
 	a   *Actual
 	b   *Budget
+	c   *BudgetChange
 }
 
 // A value is a parsed value of any form.
@@ -524,6 +527,21 @@ var Keys = withChangeKeys([]*Key{
 			"  one-at-a-time  everything to the first goal until it\n" +
 			"                 is reached, then the next",
 		put: func(t *target, v *value) { t.b.Rule = Rule(v.n) }},
+	{Name: "changes", Scope: InBudget, Form: FormList, Items: InBudgetChange, MaxItems: MaxBudgetChanges,
+		Default: "none",
+		Help: "the amount from a month on, at the budget's dates from\n" +
+			"that month's first; grow rises each amount yearly from\n" +
+			"its own month, months in order, none before from:\n" +
+			"  - from: 2029-01\n" +
+			"    amount: 1,100"},
+	{Name: "from", Scope: InBudgetChange, Form: FormMonth, Required: true,
+		Missing: "want the month the amount changes, such as from: 2029-01",
+		Default: "required", Help: "the month the new amount starts",
+		put: func(t *target, v *value) { t.c.From = v.month }},
+	{Name: "amount", Scope: InBudgetChange, Form: FormAmountToday, Required: true,
+		Missing: "want the new amount, such as amount: 1,100",
+		Default: "required", Help: "per period from then; \"1,100 today\" is in today's money",
+		put: func(t *target, v *value) { t.c.Amount, t.c.Today = v.amount, v.today }},
 
 	// each scenario
 	{Name: "name", Scope: InScenario, Form: FormName, Required: true,

@@ -24,6 +24,7 @@ const (
 	MaxScenarios     = 50 // named scenarios in a file
 	MaxPeople        = 10 // people in a file
 	MaxChanges       = 50 // changes in one scenario
+	MaxBudgetChanges = 50 // changes of the budget's amount
 )
 
 // amountLimit is [MaxAmountUnits] as messages write it, grouped in

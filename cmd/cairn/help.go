@@ -109,7 +109,7 @@ func keySections() string {
 		{"EACH GOAL", []plan.Scope{plan.InGoal}},
 		{"EACH STREAM (deposits and withdrawals)", []plan.Scope{plan.InStream, plan.InWithdrawal}},
 		{"EACH PERSON (under people:)", []plan.Scope{plan.InPerson}},
-		{"THE BUDGET (under budget:; also a stream's keys: amount, every, timing, from, until, grow)", []plan.Scope{plan.InBudget}},
+		{"THE BUDGET (under budget:; also a stream's keys: amount, every, timing, from, until, grow)", []plan.Scope{plan.InBudget, plan.InBudgetChange}},
 		{"EACH SCENARIO (under scenarios:)", []plan.Scope{plan.InScenario}},
 		{"EACH CHANGE OF A SCENARIO (under changes:; values as --set takes them)", []plan.Scope{plan.InChange}},
 	} {

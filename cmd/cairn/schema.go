@@ -45,16 +45,17 @@ type jsonSchema struct {
 
 // scopeDefs names the schema of each scope's mappings under $defs.
 var scopeDefs = map[plan.Scope]string{
-	plan.InGoal:       "goal",
-	plan.InStream:     "deposit",
-	plan.InWithdrawal: "withdrawal",
-	plan.InOnce:       "once",
-	plan.InRateStep:   "rate_step",
-	plan.InScenario:   "scenario",
-	plan.InChange:     "change",
-	plan.InActual:     "actual",
-	plan.InPerson:     "person",
-	plan.InBudget:     "budget",
+	plan.InGoal:         "goal",
+	plan.InStream:       "deposit",
+	plan.InWithdrawal:   "withdrawal",
+	plan.InOnce:         "once",
+	plan.InRateStep:     "rate_step",
+	plan.InScenario:     "scenario",
+	plan.InChange:       "change",
+	plan.InActual:       "actual",
+	plan.InPerson:       "person",
+	plan.InBudget:       "budget",
+	plan.InBudgetChange: "budget_change",
 }
 
 // goalsSchema returns the JSON Schema of the goals file, indented, ending in

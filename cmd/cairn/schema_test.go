@@ -81,6 +81,9 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 	case plan.InBudget:
 		b.WriteString("cairn: 1\nstart: 2027-01\nbudget:\n  " + unless("amount", "amount: 10\n  ") + unless("every", "every: month\n  ") +
 			kv + "\ngoals:\n  - {name: g, target: 100, priority: 1}\n")
+	case plan.InBudgetChange:
+		b.WriteString("cairn: 1\nstart: 2027-01\nbudget:\n  amount: 10\n  every: month\n  changes:\n    - " +
+			unless("from", "from: 2028-01\n      ") + unless("amount", "amount: 20\n      ") + kv + "\ngoals:\n  - {name: g, target: 100, priority: 1}\n")
 	case plan.InStream:
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    deposits:\n      - " +
 			unless("amount", "amount: 10\n        ") + unless("every", "every: month\n        ") + kv + "\n")
