@@ -214,11 +214,14 @@ const (
 )
 
 // A Post is one movement, in minor units.
+//
+// Its fields are laid out so that a Post takes 48 bytes: a ledger holds one
+// for every movement, and writing them is most of a projection's time.
 type Post struct {
 	Tick                   int64
 	Month                  int32
+	Src                    int16 // sources are fewer than [math.MaxInt16]
 	Kind                   PostKind
-	Src                    int32
 	Amount, Balance, Short int64
 	Covered                int64 // a withdrawal: the part its month's income paid
 }
@@ -811,7 +814,7 @@ func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
 func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short, covered float64) {
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
-	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x), Balance: int64(bal), Short: int64(short), Covered: int64(covered)}
+	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: int16(src), Amount: int64(x), Balance: int64(bal), Short: int64(short), Covered: int64(covered)}
 }
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with
