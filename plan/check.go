@@ -30,6 +30,9 @@ func (p *Plan) settle() {
 			}
 		}
 	}
+	if b := p.Budget; b != nil && !b.growSet {
+		b.Grow, b.GrowInflation = 0, b.Today
+	}
 }
 
 // problems runs the cross-field checks over every goal of the plan. They run

@@ -140,7 +140,9 @@ type Key struct {
 	// withdrawal stream. A key of a stream changes the deposit (or, under
 	// SetOut, withdrawal) stream named by --stream, the first when none is
 	// named, so it needs the goal named when a file has several goals.
-	Set, SetOut string
+	// SetBudget is the name that changes the key of the budget's stream,
+	// which needs no goal named.
+	Set, SetOut, SetBudget string
 
 	put func(t *target, v *value) // stores a parsed value in the model
 }
@@ -422,7 +424,7 @@ var Keys = withChangeKeys([]*Key{
 		Default: "required (a withdrawal with a share-of-balance rule: none)",
 		Help: "per period, 0 or more; \"250 today\" is in today's money\n" +
 			"and rises with inflation unless grow says otherwise",
-		Set: "deposit", SetOut: "withdrawal",
+		Set: "deposit", SetOut: "withdrawal", SetBudget: "budget",
 		put: func(t *target, v *value) { t.s.Amount, t.s.Today = v.amount, v.today }},
 	{Name: "every", Scope: InStream, Form: FormFrequency, Required: true,
 		Missing: "want a frequency such as month",
@@ -577,11 +579,11 @@ var Keys = withChangeKeys([]*Key{
 func withChangeKeys(keys []*Key) []*Key {
 	for _, name := range OverrideKeys {
 		for _, k := range keys {
-			if k.Set != name && k.SetOut != name {
+			if k.Set != name && k.SetOut != name && k.SetBudget != name {
 				continue
 			}
 			c := *k
-			c.Name, c.Scope, c.Set, c.SetOut, c.put = name, InChange, "", "", nil
+			c.Name, c.Scope, c.Set, c.SetOut, c.SetBudget, c.put = name, InChange, "", "", "", nil
 			c.Required, c.Missing, c.Default = false, "", "unchanged"
 			if c.Form == FormRates {
 				c.Form, c.MaxItems = FormRate, 0
@@ -592,6 +594,8 @@ func withChangeKeys(keys []*Key) []*Key {
 				c.Help = "as --set " + name + "=VALUE: the plan's " + k.Name
 			case name == k.SetOut:
 				c.Help = "as --set " + name + "=VALUE: the withdrawal stream's " + k.Name
+			case name == k.SetBudget:
+				c.Help = "as --set " + name + "=VALUE: the budget's " + k.Name
 			case k.NeedsGoal():
 				c.Help = "as --set " + name + "=VALUE: the deposit stream's " + k.Name
 			}

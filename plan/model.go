@@ -344,6 +344,11 @@ func (p *Plan) Clone() *Plan {
 	for i, g := range p.Goals {
 		q.Goals[i] = g.clone()
 	}
+	if p.Budget != nil {
+		b := *p.Budget
+		b.Changes = append([]BudgetChange(nil), p.Budget.Changes...)
+		q.Budget = &b
+	}
 	return &q
 }
 

@@ -30,22 +30,28 @@ func (o Override) refuse(msg string) error {
 }
 
 // OverrideKeys lists the keys an Override may set, in the order the help
-// shows them: each is the Set or SetOut name of one key of [Keys].
-var OverrideKeys = []string{"rate", "deposit", "withdrawal", "balance", "target", "by", "inflation", "fee", "grow", "every", "between", "leave", "tax", "tax_rate", "tax_later", "cap", "match", "match_up_to", "salary"}
+// shows them: each is the Set, SetOut or SetBudget name of one key of [Keys].
+var OverrideKeys = []string{"rate", "deposit", "withdrawal", "budget", "balance", "target", "by", "inflation", "fee", "grow", "every", "between", "leave", "tax", "tax_rate", "tax_later", "cap", "match", "match_up_to", "salary"}
 
 // SetKey returns the key of the goals file that the what-if name changes
-// and whether it changes a withdrawal stream (the name is the key's
-// SetOut), or nil when no key has that name.
-func SetKey(name string) (k *Key, out bool) {
+// and the scope it changes it in: InWithdrawal for the key's SetOut,
+// InBudget for its SetBudget, the key's own scope for its Set; nil when no
+// key has that name.
+func SetKey(name string) (k *Key, in Scope) {
+	if name == "" {
+		return nil, 0
+	}
 	for _, k := range Keys {
 		switch name {
 		case k.Set:
-			return k, false
+			return k, k.Scope
 		case k.SetOut:
-			return k, true
+			return k, InWithdrawal
+		case k.SetBudget:
+			return k, InBudget
 		}
 	}
-	return nil, false
+	return nil, 0
 }
 
 // ParseOverride parses KEY=VALUE.
@@ -69,8 +75,8 @@ func (o Override) String() string { return o.Key + "=" + o.Value }
 // NeedsGoal reports whether the override changes one stream of a goal, so
 // that the goal must be named when a file has several.
 func (o Override) NeedsGoal() bool {
-	k, _ := SetKey(o.Key)
-	return k != nil && k.NeedsGoal()
+	k, in := SetKey(o.Key)
+	return k != nil && in != InBudget && k.NeedsGoal()
 }
 
 // With returns a copy of the plan with the overrides applied to the goal
@@ -119,12 +125,19 @@ func (p *Plan) With(goal, stream string, ovs []Override) (*Plan, *Goal, error) {
 // apply parses one override's value as its key of the goals file and
 // stores it in goal g (or its stream, or the plan).
 func (p *Plan) apply(g *Goal, stream string, o Override) error {
-	k, out := SetKey(o.Key)
+	k, in := SetKey(o.Key)
 	if k == nil {
 		return fmt.Errorf("unknown override key %s", money.Quote(o.Key))
 	}
 	t := &target{p: p, g: g}
-	if k.NeedsGoal() {
+	out := in == InWithdrawal
+	switch {
+	case in == InBudget:
+		if t.b = p.Budget; t.b == nil {
+			return o.refuse("the file has no budget to change (add budget: at the top)")
+		}
+		t.s = &t.b.Stream
+	case k.NeedsGoal():
 		if t.s = g.Stream(stream, out); t.s == nil {
 			kind := "deposit"
 			if out {

@@ -86,7 +86,7 @@ func TestKeys(t *testing.T) {
 	}
 	seen := map[string]bool{}
 	for _, k := range plan.Keys {
-		for _, s := range []string{k.Set, k.SetOut} {
+		for _, s := range []string{k.Set, k.SetOut, k.SetBudget} {
 			if s != "" && !slices.Contains(plan.OverrideKeys, s) {
 				t.Errorf("key %s is changed by %q, missing from OverrideKeys", k.Name, s)
 			}

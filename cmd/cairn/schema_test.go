@@ -102,7 +102,7 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 		b.WriteString("cairn: 1\nstart: 2027-01\npeople:\n  - " + unless("name", "name: Alex\n    ") + unless("born", "born: 1960-01\n    ") + kv +
 			"\ngoals:\n  - name: g\n")
 	case plan.InChange:
-		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    balance: 1000\n    by: 2040-01\n    salary: 50000\n" +
+		b.WriteString("cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month}\ngoals:\n  - name: g\n    balance: 1000\n    by: 2040-01\n    salary: 50000\n    priority: 1\n    target: 100000\n" +
 			"    deposits:\n      - amount: 10\n        every: month\n" +
 			"    withdrawals:\n      - amount: 10\n        every: month\n        from: 2040-02\n" +
 			"scenarios:\n  - name: s\n    changes:\n      - goal: g\n        " + kv + "\n")
