@@ -1,7 +1,6 @@
 package plan
 
 import (
-	"fmt"
 	"math"
 	"slices"
 	"sync/atomic"
@@ -42,8 +41,8 @@ type SimDeposit struct {
 // answer meets level and one minor unit less does not. It returns a
 // [*SolveError] when no amount up to the limit does.
 func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOptions) (*SimDeposit, error) {
-	if !(level > 0 && level <= 1) {
-		return nil, fmt.Errorf("success level %s is out of range (want more than 0%% and at most 100%%)", money.Percent(level, 4))
+	if err := checkLevel(level); err != nil {
+		return nil, err
 	}
 	st, err := resolveSim(p, g, opts)
 	if err != nil {
@@ -120,31 +119,9 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 
 	// The exact share on the same random numbers.
 	amounts := slices.Clone(pr.amountsF)
-	shareAt := func(c int64) int {
-		amounts[idx] = float64(c) / pg.scale // as the ledger sets an amount in cents
-		var hits atomic.Int64
-		pg.parallel(st, func(w *simWorker, paths *[simLanes]int) {
-			var o [simLanes]engine.Result
-			pg.walk(w, amounts, nil, paths, &o)
-			n := 0
-			for l, i := range paths {
-				if (l == 0 || i != paths[l-1]) && pg.meets(o[l].AtDeadline, target[i]) {
-					n++
-				}
-			}
-			hits.Add(int64(n))
-		})
-		return int(hits.Load())
-	}
-	counts := map[int64]int{}
-	ok := func(c int64) bool {
-		n, seen := counts[c]
-		if !seen {
-			n = shareAt(c)
-			counts[c] = n
-		}
-		return n >= need
-	}
+	ok, counts := pg.successTest(st, amounts, idx, need, func(w *simWorker, l, i int, r engine.Result) bool {
+		return pg.meets(r.AtDeadline, target[i])
+	})
 	c, found := searchCents(ok, guess, limit, true)
 	if !found {
 		return nil, noSolution(g, "no amount up to the %s limit meets the target in %s of the paths", amountLimit, money.Percent(level, 2))

@@ -1,10 +1,8 @@
 package plan
 
 import (
-	"fmt"
 	"math"
 	"slices"
-	"sync/atomic"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -39,8 +37,8 @@ type SimStart struct {
 // [SimStart]). Every candidate is tried on the same random numbers. It
 // returns a [*SolveError] when no balance up to the limit does.
 func SolveStartSim(p *Plan, g *Goal, level float64, opts SimOptions) (*SimStart, error) {
-	if !(level > 0 && level <= 1) {
-		return nil, fmt.Errorf("success level %s is out of range (want more than 0%% and at most 100%%)", money.Percent(level, 4))
+	if err := checkLevel(level); err != nil {
+		return nil, err
 	}
 	st, err := resolveSim(p, g, opts)
 	if err != nil {
@@ -115,31 +113,9 @@ func SolveStartSim(p *Plan, g *Goal, level float64, opts SimOptions) (*SimStart,
 	}
 
 	amounts := slices.Clone(pr.amountsF)
-	shareAt := func(c int64) int {
-		amounts[0] = float64(c) / pg.scale
-		var hits atomic.Int64
-		pg.parallel(st, func(w *simWorker, paths *[simLanes]int) {
-			var o [simLanes]engine.Result
-			pg.walk(w, amounts, nil, paths, &o)
-			n := 0
-			for l, i := range paths {
-				if (l == 0 || i != paths[l-1]) && succeeds(w, l, o[l]) {
-					n++
-				}
-			}
-			hits.Add(int64(n))
-		})
-		return int(hits.Load())
-	}
-	counts := map[int64]int{}
-	ok := func(c int64) bool {
-		n, seen := counts[c]
-		if !seen {
-			n = shareAt(c)
-			counts[c] = n
-		}
-		return n >= need
-	}
+	ok, counts := pg.successTest(st, amounts, 0, need, func(w *simWorker, l, i int, r engine.Result) bool {
+		return succeeds(w, l, r)
+	})
 	c, found := searchCentsFrom(ok, guess, max(guess/1000, 1), limit, true)
 	if !found {
 		return nil, noSolution(g, "no opening balance up to the %s limit succeeds in %s of the paths", amountLimit, money.Percent(level, 2))

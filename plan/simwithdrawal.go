@@ -1,9 +1,7 @@
 package plan
 
 import (
-	"fmt"
 	"math"
-	"sync/atomic"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -37,8 +35,8 @@ type SimWithdrawal struct {
 // tried on the same random numbers, so the share lasting falls as the
 // amount rises; the answer meets level and one minor unit more does not.
 func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts SimOptions) (*SimWithdrawal, error) {
-	if !(level > 0 && level <= 1) {
-		return nil, fmt.Errorf("success level %s is out of range (want more than 0%% and at most 100%%)", money.Percent(level, 4))
+	if err := checkLevel(level); err != nil {
+		return nil, err
 	}
 	st, err := resolveSim(p, g, opts)
 	if err != nil {
@@ -66,31 +64,9 @@ func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts Sim
 	leave := p.LeaveAt(g, end)
 	leaveMinor := pg.toMinor(leave)
 	amounts := append([]float64(nil), pr.amountsF...)
-	shareAt := func(c int64) int {
-		amounts[idx] = float64(c) / pg.scale
-		var hits atomic.Int64
-		pg.parallel(st, func(w *simWorker, paths *[simLanes]int) {
-			var o [simLanes]engine.Result
-			pg.walk(w, amounts, nil, paths, &o)
-			n := 0
-			for l, i := range paths {
-				if (l == 0 || i != paths[l-1]) && !o[l].Short && pg.meets(o[l].Closing, leaveMinor) {
-					n++
-				}
-			}
-			hits.Add(int64(n))
-		})
-		return int(hits.Load())
-	}
-	counts := map[int64]int{}
-	ok := func(c int64) bool {
-		n, seen := counts[c]
-		if !seen {
-			n = shareAt(c)
-			counts[c] = n
-		}
-		return n >= need
-	}
+	ok, counts := pg.successTest(st, amounts, idx, need, func(w *simWorker, l, i int, r engine.Result) bool {
+		return !r.Short && pg.meets(r.Closing, leaveMinor)
+	})
 	if !ok(0) {
 		return nil, noSolution(g, "even with no withdrawals the balance leaves %s in fewer than %s of the paths", leave.Format(p.Currency, false), money.Percent(level, 2))
 	}
