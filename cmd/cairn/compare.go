@@ -49,16 +49,8 @@ func compareCommand(e *env) *cli.Command {
 			if len(axes) == 0 {
 				return usagef("for example --vary rate=5%,6%,7%, or --scenarios to compare the file's scenarios", "--vary is required")
 			}
-			sets, err := overrides(c)
-			if err != nil {
+			if err := checkChanges(c, axes, q, "--vary"); err != nil {
 				return err
-			}
-			var all []plan.Vary
-			for _, o := range sets {
-				all = append(all, plan.Vary{Key: o.Key, Values: []string{o.Value}})
-			}
-			if err := plan.CheckAxes(append(all, axes...), q); err != nil {
-				return usagef("", "--vary: %v", err)
 			}
 			if _, err := parseFormat(c); err != nil {
 				return err
@@ -91,16 +83,8 @@ func compareCases(c *cli.Context, e *env) error {
 	if err != nil {
 		return usagef("", "--for: %v", err)
 	}
-	sets, err := overrides(c)
-	if err != nil {
+	if err := checkChanges(c, nil, q, "--set"); err != nil {
 		return err
-	}
-	var all []plan.Vary
-	for _, o := range sets {
-		all = append(all, plan.Vary{Key: o.Key, Values: []string{o.Value}})
-	}
-	if err := plan.CheckAxes(all, q); err != nil {
-		return usagef("", "--set: %v", err)
 	}
 	if _, err := parseFormat(c); err != nil {
 		return err
@@ -179,4 +163,22 @@ func compareDoc(p *plan.Plan, g *plan.Goal, gr *plan.Grid) *render.Doc {
 	d.Blocks = []render.Block{t}
 	d.Data["goal"], d.Data["for"], d.Data["base"], d.Data["cells"] = g.Name, gr.For.String(), jb, cells
 	return d
+}
+
+// checkChanges checks the --set changes and the --vary axes together, as
+// the grid applies them: no key changed twice, and not the quantity q
+// solved for. A refusal names flag.
+func checkChanges(c *cli.Context, axes []plan.Vary, q plan.Quantity, flag string) error {
+	sets, err := overrides(c)
+	if err != nil {
+		return err
+	}
+	var all []plan.Vary
+	for _, o := range sets {
+		all = append(all, plan.Vary{Key: o.Key, Values: []string{o.Value}})
+	}
+	if err := plan.CheckAxes(append(all, axes...), q); err != nil {
+		return usagef("", "%s: %v", flag, err)
+	}
+	return nil
 }
