@@ -376,6 +376,31 @@ func peakBound(p *Plan, g *Goal, end Month) float64 {
 	return in * math.Pow(1+rate, years)
 }
 
+// monthEnds returns goal g's balance at every month end through month
+// end, in currency units, from an exact walk of its default amounts. When
+// nothing moves after the goal's horizon (every stream has ended, every
+// one-time amount is paid) and the balance is zero there, it stays zero (an
+// emptied account earns nothing, and pays no fee): the walk stops at the
+// horizon and the rest is filled in, without compiling what follows.
+func monthEnds(p *Plan, g *Goal, end Month) []float64 {
+	ends := make([]float64, end-p.Start+1)
+	h := min(Horizon(p, g), end)
+	quiet := h < end && !p.receives(g)
+	for _, st := range streams(g) {
+		quiet = quiet && st.HasUntil && st.Until <= h
+	}
+	if quiet {
+		s := compile(p, g, h)
+		s.exact(s.defaultParams(), engine.Options{MonthEnds: ends[:h-p.Start+1]})
+		if ends[h-p.Start] == 0 {
+			return ends
+		}
+	}
+	s := compile(p, g, end)
+	s.exact(s.defaultParams(), engine.Options{MonthEnds: ends})
+	return ends
+}
+
 // flowOf reports whether e is an amount of source src (income included).
 func flowOf(e *engine.Event, src int32) bool {
 	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin || e.Kind == engine.Income) && e.Src == src

@@ -3,6 +3,7 @@ package plan
 import (
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
 
@@ -70,4 +71,46 @@ func TestBalanceLimitRefused(t *testing.T) {
 			t.Errorf("by %s: Parse walked %d times, want %d", tt.by, w, tt.walks)
 		}
 	}
+}
+
+// monthEnds, which stops at a goal's horizon when its balance is zero
+// there and nothing moves after it, gives every month end the walk through
+// the plan's end gives, on random plans and every example file; some of the
+// random plans run out of money before their horizon, and take the short
+// way.
+func TestMonthEndsShortWay(t *testing.T) {
+	short := 0
+	check := func(t *testing.T, name string, p *Plan, g *Goal) {
+		end := horizonEnd(p)
+		want := make([]float64, end-p.Start+1)
+		s := compile(p, g, end)
+		s.exact(s.defaultParams(), engine.Options{MonthEnds: want})
+		p.cache = new(engine.Cache) // what monthEnds compiles, alone
+		got := monthEnds(p, g, end)
+		if p.cache.Events() < len(s.events) {
+			short++
+		}
+		if !slices.Equal(got, want) {
+			t.Errorf("%s, goal %s: month ends differ from the walk through the end", name, g.Name)
+		}
+	}
+	eachRandomPlan(t, 15, func(t *testing.T, src string, p *Plan, g *Goal) { check(t, src, p, g) })
+	files, _ := filepath.Glob("../examples/*.yaml")
+	for _, f := range files {
+		data, err := os.ReadFile(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p, err := Parse(f, data, MonthOf(2026, 12))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, g := range p.Goals {
+			check(t, f, p, g)
+		}
+	}
+	if short == 0 {
+		t.Errorf("no plan took the short way")
+	}
+	t.Logf("%d took the short way", short)
 }
