@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"cairn/money"
 	"os"
 	"path/filepath"
 	"slices"
@@ -113,4 +114,102 @@ func TestMonthEndsShortWay(t *testing.T) {
 		t.Errorf("no plan took the short way")
 	}
 	t.Logf("%d took the short way", short)
+}
+
+// Rows, which sums the walk's postings in minor units, gives the sums of
+// the ledger's entries: each entry's amount added by its kind into its
+// month's or year's row (the way Rows summed them before), on random plans
+// and every example file, by year and by month.
+func TestRowsSumTheEntries(t *testing.T) {
+	check := func(t *testing.T, name string, p *Plan, g *Goal) {
+		l, err := Project(p, g, Horizon(p, g))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, by := range []Period{ByYear, ByMonth} {
+			rows := l.Rows(by, true)
+			want := make([]Row, len(rows))
+			rowOf := map[Month]int{}
+			for i, r := range rows[:len(rows)-1] {
+				for m := r.From; m <= r.To; m++ {
+					rowOf[m] = i
+				}
+			}
+			at := func(m Month) *Row {
+				i, ok := rowOf[m]
+				if !ok {
+					t.Fatalf("%s: no row for month %s", name, m)
+				}
+				return &want[i]
+			}
+			tot := &want[len(want)-1]
+			for _, e := range l.Entries() {
+				if e.Kind == Opening {
+					continue
+				}
+				for _, r := range []*Row{at(e.Month), tot} {
+					r.Income = r.Income.Add(e.FromIncome)
+					switch {
+					case e.Kind == Income:
+					case e.Kind == Interest:
+						r.Interest = r.Interest.Add(e.Amount)
+					case e.Kind == Fee:
+						r.Fees = r.Fees.Sub(e.Amount)
+					case e.Kind == Tax:
+						r.Tax = r.Tax.Sub(e.Amount)
+					case e.Kind == Employer:
+						r.Employer = r.Employer.Add(e.Amount)
+					case e.Kind == OverCap:
+						continue
+					case e.Amount.Sign() >= 0:
+						r.Deposits = r.Deposits.Add(e.Amount)
+					default:
+						r.Withdrawals = r.Withdrawals.Sub(e.Amount)
+					}
+					r.Short = r.Short.Add(e.Short)
+				}
+			}
+			for i, r := range rows {
+				w := want[i]
+				for _, f := range [][2]money.Amount{{r.Deposits, w.Deposits}, {r.Withdrawals, w.Withdrawals}, {r.Interest, w.Interest}, {r.Fees, w.Fees},
+					{r.Income, w.Income}, {r.Tax, w.Tax}, {r.Employer, w.Employer}, {r.Short, w.Short}} {
+					if f[0].Cmp(f[1]) != 0 {
+						t.Fatalf("%s, goal %s, row %s: %+v, want the entries' sums %+v", name, g.Name, r.Label, r, w)
+					}
+				}
+			}
+		}
+	}
+	n := 0
+	eachRandomPlan(t, 16, func(t *testing.T, src string, p *Plan, g *Goal) {
+		if n++; n%5 == 0 { // a fifth of them: each entry is a decimal
+			check(t, src, p, g)
+		}
+	})
+	files, _ := filepath.Glob("../examples/*.yaml")
+	for _, f := range files {
+		data, err := os.ReadFile(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p, err := Parse(f, data, MonthOf(2026, 12))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, g := range p.Goals {
+			check(t, f, p, g)
+		}
+	}
+}
+
+// A sum of minor units past an int64's reach is carried exactly: four
+// times 2⁶² − 1 is 18,446,744,073,709,551,612 (arithmetic, no source).
+func TestMinorSumCarries(t *testing.T) {
+	s := minorSum{places: 2}
+	for range 4 {
+		s.add(1<<62 - 1)
+	}
+	if got, want := s.amount().String(), "184467440737095516.12"; got != want {
+		t.Errorf("4 × (2⁶² − 1) minor units = %s, want %s", got, want)
+	}
 }
