@@ -198,17 +198,21 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	// An employer's contributions are no source's: no flow valued alone
 	// has them, and they too are a term of their own.
 	if g.Between == None || g.Match > 0 || g.HasCap && g.CapExcess != "" {
-		label, kind := "flows offsetting within interest periods (between none)", Interest
+		const rest = ": no flow valued alone has it, so it is what the walk of every flow leaves beyond the other terms"
+		label, kind, why := "offsetting flows", Interest, "flows offsetting within interest periods (between none)"
 		switch {
 		case g.HasCap && g.CapExcess != "":
-			label, kind = "less what passed the yearly cap, and any employer contributions or offsetting (between none)", OverCap
+			label, kind, why = "less what passed the cap", OverCap, "less what passed the yearly cap, with any employer contributions or flows offsetting within interest periods (between none)"
+			if g.Match > 0 {
+				label = "employer, less what passed the cap"
+			}
 		case g.Match > 0 && g.Between == None:
-			label, kind = "employer contributions, and flows offsetting within interest periods (between none)", Employer
+			label, kind, why = "employer contributions", Employer, "employer contributions, with flows offsetting within interest periods (between none)"
 		case g.Match > 0:
-			label, kind = "employer contributions", Employer
+			label, kind, why = "employer contributions", Employer, "the employer's contributions"
 		}
 		if d := money.FromFloat(all-sumV).Round(s.places, s.rounding); !d.IsZero() {
-			eq.Terms = append(eq.Terms, Term{Label: label, Kind: kind, Value: d})
+			eq.Terms = append(eq.Terms, Term{Label: label, Kind: kind, Value: d, Why: why + rest})
 			eq.Sum = eq.Sum.Add(d)
 		}
 	}
