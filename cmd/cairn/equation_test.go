@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/csv"
+	"encoding/json"
 	"os"
 	"path/filepath"
 	"strings"
@@ -54,5 +55,32 @@ func TestEquationFits(t *testing.T) {
 				t.Fatalf("csv head %v (%d rows)", rows[0], len(rows))
 			}
 		})
+	}
+}
+
+// Every goal of every example, solved for its time with --explain, fits
+// the line in text.
+func TestEquationFitsExamples(t *testing.T) {
+	files, err := filepath.Glob("../../examples/*.yaml")
+	if err != nil || len(files) == 0 {
+		t.Fatalf("no examples: %v", err)
+	}
+	now := func() time.Time { return fixedNow() }
+	for _, f := range files {
+		var stdout, stderr bytes.Buffer
+		run([]string{"cairn", "status", f, "--format", "json"}, strings.NewReader(""), &stdout, &stderr, now)
+		var st struct{ Goals []struct{ Goal string } }
+		if err := json.Unmarshal(stdout.Bytes(), &st); err != nil {
+			t.Fatalf("%s: status: %v", f, err)
+		}
+		for _, g := range st.Goals {
+			stdout.Reset()
+			run([]string{"cairn", "solve", f, "--goal", g.Goal, "--for", "time", "--explain"}, strings.NewReader(""), &stdout, &stderr, now)
+			for i, l := range strings.Split(stdout.String(), "\n") {
+				if n := utf8.RuneCountInString(l); n > 80 {
+					t.Errorf("%s %s: line %d is %d columns wide: %q", f, g.Goal, i+1, n, l)
+				}
+			}
+		}
 	}
 }
