@@ -810,11 +810,12 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// margin the answer keeps (below), so that the walk at the rate found
 	// is the walk at the answer: no walk to repeat it.
 	const margin = 1e-12
+	need := s.minorAtLeast(target) // the fewest minor units that meet the target
 	meets := func(delta float64) (float64, bool) {
 		r := money.ForceRate(delta + margin)
 		pr.rate = &r
-		bal, _ := s.closing(pr)
-		return bal.Float(), bal.Cmp(target) >= 0
+		c := s.exact(pr, engine.Options{}).Closing // whole minor units
+		return c / s.scale(), c >= need
 	}
 	if n > 1 {
 		// Money goes out: where a withdrawal is larger than the balance the
@@ -1008,6 +1009,20 @@ func hermiteRoot(dx, v0, l0, l1, v, h0 float64) (h, slope float64, ok bool) {
 		return 0, 0, false
 	}
 	return h, slope, true
+}
+
+// minorAtLeast returns the fewest whole minor units whose amount is at
+// least a, as a float64 (as the exact walk's balances are), so that a
+// search compares balances without a decimal each walk.
+func (s *schedule) minorAtLeast(a money.Amount) float64 {
+	c := int64(math.Ceil(a.MinorFloat(s.places)))
+	for money.Minor(c, s.places).Cmp(a) < 0 {
+		c++
+	}
+	for money.Minor(c-1, s.places).Cmp(a) >= 0 {
+		c--
+	}
+	return float64(c)
 }
 
 // amount returns bal, in currency units a whole number of minor units, as
