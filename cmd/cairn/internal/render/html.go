@@ -24,11 +24,22 @@ type Page struct {
 	Next    []string // what to do next, one sentence a goal's step
 	Notices []Notice
 	Goals   []Section
-	// Household, when not nil, is the household budget's page: sentences
-	// on when each goal is reached, then its allocation over time.
-	Household        *Table
-	HouseholdLead    []string
-	HouseholdCaption string
+	// Parts are the pages between the summary and the goals, each on a
+	// new page: the household budget's, the scenarios side by side.
+	Parts []Part
+}
+
+// A Part is a page of a [Page] about the whole household: its heading,
+// sentences, facts, one table under a subheading, remarks and notices.
+type Part struct {
+	ID, Name     string
+	Lead         []string
+	Facts        *Facts
+	TableHeading string
+	Table        *Table
+	Caption      string
+	Remarks      []string
+	Notices      []Notice
 }
 
 // A Section is one goal's part of a [Page].
@@ -57,10 +68,10 @@ func (p *Page) Write(w io.Writer) error {
 	}
 	d := pageData{Title: p.Title, Footer: cssString(p.Footer), Version: p.Version, Meta: p.Meta,
 		Status: htmlTableOf(p.Status, "status", p.StatusCaption), Remarks: p.Remarks, Budget: factsOf(p.Budget), Next: p.Next,
-		Notices: noticesOf(p.Notices), HouseholdLead: p.HouseholdLead}
-	if p.Household != nil {
-		d.Household = htmlTableOf(p.Household, "household", p.HouseholdCaption)
-		d.HasHousehold = true
+		Notices: noticesOf(p.Notices)}
+	for _, pt := range p.Parts {
+		d.Parts = append(d.Parts, partData{ID: pt.ID, Name: pt.Name, Lead: pt.Lead, Facts: factsOf(pt.Facts), TableHeading: pt.TableHeading,
+			Table: htmlTableOf(pt.Table, pt.ID, pt.Caption), Remarks: pt.Remarks, Notices: noticesOf(pt.Notices)})
 	}
 	for _, s := range p.Goals {
 		d.Goals = append(d.Goals, goalData{ID: s.ID, Kicker: s.Kicker, Name: s.Name, Facts: factsOf(s.Facts),
@@ -85,10 +96,17 @@ type pageData struct {
 	Next    []string
 	Notices []htmlNotice
 	Goals   []goalData
+	Parts   []partData
+}
 
-	HasHousehold  bool
-	Household     htmlTable
-	HouseholdLead []string
+type partData struct {
+	ID, Name     string
+	Lead         []string
+	Facts        []fact
+	TableHeading string
+	Table        htmlTable
+	Remarks      []string
+	Notices      []htmlNotice
 }
 
 type goalData struct {
@@ -254,7 +272,7 @@ nav ol { display: inline; padding: 0; }
 nav li { display: inline; margin-left: 0.4rem; }
 @media print {
   body { max-width: none; margin: 0; padding: 0; font-size: 10pt; }
-  section.goal { break-before: page; page-break-before: always; }
+  section.part, section.goal { break-before: page; page-break-before: always; }
   thead { display: table-header-group; }
   tfoot { display: table-row-group; }
   tr, figure, dl.facts, .note { break-inside: avoid; page-break-inside: avoid; }
@@ -313,14 +331,24 @@ nav li { display: inline; margin-left: 0.4rem; }
 </nav>
 {{template "note" .Notices}}
 </section>
-{{- if .HasHousehold}}
-<section id="household" class="goal" aria-labelledby="household-h">
-<h2 id="household-h">The household budget</h2>
-{{- range .HouseholdLead}}
+{{- range .Parts}}
+<section id="{{.ID}}" class="part" aria-labelledby="{{.ID}}-h">
+<h2 id="{{.ID}}-h">{{.Name}}</h2>
+{{- range .Lead}}
 <p class="remark">{{.}}</p>
 {{- end}}
-<h3 class="with-table">The budget split by year</h3>
-{{template "table" .Household}}
+{{- if .Facts}}
+<dl class="facts">
+{{- range .Facts}}
+<dt>{{.Term}}</dt><dd>{{.Detail}}</dd>
+{{- end}}
+</dl>
+{{- end}}
+<h3 class="with-table">{{.TableHeading}}</h3>
+{{template "table" .Table}}
+{{- range .Remarks}}
+<p class="remark">{{.}}</p>
+{{- end}}
 {{template "note" .Notices}}
 </section>
 {{- end}}
