@@ -203,7 +203,7 @@ func buildReport(p *plan.Plan, cases []plan.Case) ([]byte, []render.Notice, erro
 			Caption: "Each year: the budget, each goal's share in priority order, what no goal took, and the goals reached."})
 	}
 	if len(cases) > 1 {
-		pg.Parts = append(pg.Parts, scenariosPart(cases))
+		pg.Parts = append(pg.Parts, scenariosPart(cases, p == cases[0].Plan))
 	}
 	drawdown := false
 	for i, gs := range st.Goals {
@@ -239,9 +239,11 @@ func buildReport(p *plan.Plan, cases []plan.Case) ([]byte, []render.Notice, erro
 }
 
 // scenariosPart is the report's page of the cases side by side: what each
-// scenario changes, then status --scenarios' table and remarks. A report of
-// one goal (--goal) lists only the changes to that goal or to every goal.
-func scenariosPart(cases []plan.Case) render.Part {
+// scenario changes, then status --scenarios' table and remarks, without the
+// plan as written's own when page 1 already gives them (baseFirst). A
+// report of one goal (--goal) lists only the changes to that goal or to
+// every goal.
+func scenariosPart(cases []plan.Case, baseFirst bool) render.Part {
 	cd := casesDoc(cases)
 	base := cases[0].Plan
 	fs := &render.Facts{}
@@ -255,15 +257,21 @@ func scenariosPart(cases []plan.Case) render.Part {
 		}
 		fs.Add(c.Name, render.Text(what))
 	}
+	remarks, whose := cd.After, "each case’s"
+	if baseFirst {
+		// casesDoc names each remark's case first: "base: …"
+		remarks = slices.DeleteFunc(slices.Clone(remarks), func(s string) bool { return strings.HasPrefix(s, cases[0].Name+": ") })
+		whose = "each scenario’s"
+	}
 	return render.Part{
 		ID: "scenarios", Name: "The scenarios side by side",
-		Lead: []string{fmt.Sprintf("Each goal under the plan as written (base) and under %s, side by side: what each changes, as --set would write it, then each goal's figures in every case; the remarks after the table are each case's, a scenario's where they differ from the base's.",
-			plural(len(cases)-1, "the file's scenario", "the file's scenarios"))},
+		Lead: []string{fmt.Sprintf("Each goal under the plan as written (base) and under %s, side by side: what each changes, as --set would write it, then each goal’s figures in every case. The remarks after the table are %s where they differ from the plan as written’s.",
+			plural(len(cases)-1, "the file’s scenario", "the file’s scenarios"), whose)},
 		Facts:        fs,
 		TableHeading: "Each goal in every case",
 		Table:        cd.Tables()[0],
 		Caption:      "One row a goal and case: the target at the deadline, the balance projected there, when the target is reached, on track or short, and the deposit that makes the deadline.",
-		Remarks:      cd.After,
+		Remarks:      remarks,
 		Notices:      cd.Notices,
 	}
 }
@@ -650,12 +658,16 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 		}
 		add(term, words)
 	}
+	var once []string
 	for _, o := range g.Once {
 		name := o.Name
 		if name == "" {
 			name = "one-time amount"
 		}
-		add("One-time", fmt.Sprintf("%s: %s at the end of %s", name, amt(p, o.Amount), o.On))
+		once = append(once, fmt.Sprintf("%s: %s at the end of %s", name, amt(p, o.Amount), o.On))
+	}
+	if len(once) > 0 {
+		add("One-time", strings.Join(once, "; "))
 	}
 	if len(g.Withdrawals) > 0 {
 		leave := amt(p, g.Leave)
@@ -665,7 +677,6 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 		add("To leave", leave+" after the last withdrawal")
 	}
 	add("Rounding", fmt.Sprintf("each posting to %d decimal places, %s", p.Currency.Places, p.Rounding))
-	add("Shown through", v.Horizon.String())
 	return fs
 }
 

@@ -267,11 +267,18 @@ dl { display: grid; grid-template-columns: max-content auto; gap: 0.1rem 1rem; m
 dt { font-weight: bold; font-size: 9pt; }
 dd { margin: 0; }
 ul.remarks, ul.next { padding-left: 1.2rem; }
+p.remark { margin: 0.3rem 0; }
 ul.next li { margin: 0.15rem 0; }
 nav ol { display: inline; padding: 0; }
 nav li { display: inline; margin-left: 0.4rem; }
 @media print {
-  body { max-width: none; margin: 0; padding: 0; font-size: 10pt; }
+  body { max-width: none; margin: 0; padding: 0; font-size: 10pt; line-height: 1.3; }
+  nav { display: none; }
+  table.projection { line-height: 1.15; }
+  table.projection th, table.projection td { padding-top: 0.04rem; padding-bottom: 0.04rem; }
+  p.remark, ul.remarks { font-size: 9pt; }
+  dl { font-size: 9pt; line-height: 1.25; }
+  h3 { margin: 0.8rem 0 0.3rem; }
   section.part, section.goal { break-before: page; page-break-before: always; }
   thead { display: table-header-group; }
   tfoot { display: table-row-group; }
@@ -280,7 +287,9 @@ nav li { display: inline; margin-left: 0.4rem; }
   h1, h2, h3, caption, .kicker { break-after: avoid; page-break-after: avoid; }
   .keep, dl.budget, ul.next li { break-inside: avoid; page-break-inside: avoid; }
   h3.with-table + table thead, h3.with-table + table tbody tr:nth-child(-n+3) { break-before: avoid; page-break-before: avoid; }
-  svg.chart { max-height: 64mm; }
+  svg.chart { max-height: 46mm; }
+  figure { margin: 0.4rem 0; }
+  .note { font-size: 9pt; }
   a { color: inherit; text-decoration: none; }
 }
 </style>
@@ -311,15 +320,14 @@ nav li { display: inline; margin-left: 0.4rem; }
 </dl>
 </div>
 {{- end}}
-{{- if .Next}}
 <div class="keep">
+{{- if .Next}}
 <h3 id="next-h">What to do next</h3>
 <ul class="next" aria-labelledby="next-h">
 {{- range .Next}}
 <li>{{.}}</li>
 {{- end}}
 </ul>
-</div>
 {{- end}}
 <nav aria-label="goals">
 <div>Each goal follows on its own page:
@@ -330,6 +338,7 @@ nav li { display: inline; margin-left: 0.4rem; }
 </ol></div>
 </nav>
 {{template "note" .Notices}}
+</div>
 </section>
 {{- range .Parts}}
 <section id="{{.ID}}" class="part" aria-labelledby="{{.ID}}-h">
@@ -346,10 +355,12 @@ nav li { display: inline; margin-left: 0.4rem; }
 {{- end}}
 <h3 class="with-table">{{.TableHeading}}</h3>
 {{template "table" .Table}}
+<div class="keep">
 {{- range .Remarks}}
 <p class="remark">{{.}}</p>
 {{- end}}
 {{template "note" .Notices}}
+</div>
 </section>
 {{- end}}
 {{- range .Goals}}
@@ -372,6 +383,7 @@ nav li { display: inline; margin-left: 0.4rem; }
 {{- range .Remarks}}
 <p class="remark">{{.}}</p>
 {{- end}}
+<div class="keep">
 <h3>Assumptions</h3>
 <dl class="assumptions">
 {{- range .Assumptions}}
@@ -379,6 +391,7 @@ nav li { display: inline; margin-left: 0.4rem; }
 {{- end}}
 </dl>
 {{template "note" .Notices}}
+</div>
 </section>
 {{- end}}
 </main>
