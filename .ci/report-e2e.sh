@@ -3,8 +3,10 @@
 # to PDF in headless Chromium and check that it has a page for the summary
 # and one for each goal, the text every report must carry, a first page
 # worth reading, no heading stranded at a page's foot and no path from the
-# author's machine. The pages are left as images in .ci/artefacts
-# (report-page-N.png) to be looked at.
+# author's machine, and no page a few lines carried over from the page
+# before, for every example. The pages are left as images in .ci/artefacts
+# (report-page-N.png) to be looked at; REPORT_E2E_DOCS=1 also writes page 1
+# to docs/report-page-1.png, the README's picture.
 #
 # Installs Debian's chromium and poppler-utils with apt-get when they are
 # missing. Outside CI (CI unset, 0 or false) a machine where they cannot be
@@ -198,6 +200,12 @@ cp "$tmp/plan.pdf" "$artefacts/report.pdf"
 echo "== pages as images in $artefacts: $(cd "$artefacts" && echo report-page-*.png)"
 check "one image for each of the $pages pages" test "$(ls "$artefacts"/report-page-*.png | wc -l)" -eq "$pages"
 
+# REPORT_E2E_DOCS=1 refreshes the README's picture of page 1, small.
+if [ -n "${REPORT_E2E_DOCS:-}" ]; then
+  mkdir -p docs
+  pdftoppm -f 1 -l 1 -singlefile -scale-to 640 -png "$tmp/plan.pdf" docs/report-page-1
+  echo "== wrote docs/report-page-1.png"
+fi
 if [ -n "${REPORT_E2E_KEEP:-}" ]; then
   cp "$tmp/plan.pdf" "$tmp/plan.html" "$REPORT_E2E_KEEP"/
   echo "== kept plan.pdf and plan.html in $REPORT_E2E_KEEP"
