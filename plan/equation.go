@@ -25,7 +25,9 @@ type Term struct {
 	Why     string
 	// Per, when not 0, multiplies Amount before Factors: under between
 	// simple or none, what the amounts of one interest period come to at
-	// its end with the interest the rule gives them, in units of Amount.
+	// its end with the interest the rule gives them, in units of Amount;
+	// for amounts paid after the last interest date before the deadline,
+	// their sum at face value.
 	Per float64
 	// Note says how the factors describe the flow, where Factors alone do
 	// not: a between rule's Per, a yearly rise.
@@ -299,8 +301,20 @@ func (s *schedule) form(i int, rate money.Rate, to int64) ([]Term, string) {
 
 // formOn is form, with a flow on an interest date taken as paid at the end
 // of the period it ends when own is set.
-func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) ([]Term, string) {
+func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) (terms []Term, why string) {
 	g, src := s.goal, s.sources[i]
+	// amounts after the last interest date before the deadline (between
+	// simple or none): held at face value then, their interest not yet
+	// credited; a term of their own after the rest
+	var tail Term
+	defer func() {
+		if why == "" && tail.Count > 0 {
+			tail.Label = "after the last interest date"
+			tail.Note = fmt.Sprintf("between %s: paid after the last interest date before the deadline, %s at face value then, the interest on %s credited later",
+				g.Between, plural(tail.Count, "it is", "they are"), plural(tail.Count, "it", "them"))
+			terms = append(terms, tail)
+		}
+	}()
 	var flows []*engine.Event
 	for k := range s.events {
 		if e := &s.events[k]; flowOf(e, int32(i)) {
@@ -318,7 +332,7 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) ([]Term, s
 	if src.stream != nil && !between {
 		D, r = TicksPerYear/int64(src.stream.Every.PerYear()), rate.PerPeriod(src.stream.Every)
 	}
-	why := "between " + g.Between.String() + ": "
+	bw := "between " + g.Between.String() + ": "
 	gr := 0.0 // the yearly rise
 	if st := src.stream; st != nil {
 		gr = st.growth(s.plan.Inflation)
@@ -327,12 +341,17 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) ([]Term, s
 		p := point{tick: e.Tick, w: e.Unit / flows[0].Unit, year: e.Year, n: 1}
 		if between && !(own && e.Tick%s.period == 0) {
 			p.tick = e.Tick + int64(math.Round(e.Tau*float64(s.period)))
+			if p.tick > to {
+				tail.Count++
+				tail.Per += p.w
+				continue
+			}
 			p.w *= 1 + engine.Accrual(engine.Between(g.Between), j, math.Log1p(j), e.Tau, src.out)
 		}
 		if between {
 			if n := len(pts); n > 0 && pts[n-1].tick == p.tick {
 				if pts[n-1].year != p.year && gr != 0 {
-					return nil, why + "a yearly rise falls inside an interest period, so no series of equal or evenly rising amounts at the interest dates applies"
+					return nil, bw + "a yearly rise falls inside an interest period, so no series of equal or evenly rising amounts at the interest dates applies"
 				}
 				pts[n-1].w += p.w
 				pts[n-1].n++
@@ -341,12 +360,12 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) ([]Term, s
 		}
 		pts = append(pts, p)
 	}
+	if len(pts) == 0 {
+		return nil, ""
+	}
 	last := pts[len(pts)-1]
-	if last.tick > to {
-		if between {
-			return nil, why + "some amounts fall after the last interest date before the deadline and earn nothing credited by then"
-		}
-		return nil, "some amounts fall after the last interest date before the deadline"
+	if last.tick > to { // not between interest dates: not after the deadline
+		return nil, "some amounts fall after the deadline"
 	}
 	carry := func(from int64) []money.Factor { // from a point to the deadline
 		if n := float64(to-from) / float64(D); n > 0 {
@@ -375,7 +394,7 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) ([]Term, s
 	for k := 1; k < len(pts); k++ {
 		if pts[k].tick-pts[k-1].tick != D {
 			if between {
-				return nil, why + "some interest periods hold none of its amounts, so they are no series of amounts at the interest dates"
+				return nil, bw + "some interest periods hold none of its amounts, so they are no series of amounts at the interest dates"
 			}
 			return nil, "its amounts are not evenly spaced"
 		}
@@ -385,7 +404,7 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) ([]Term, s
 	for _, p := range pts {
 		if want := per * math.Pow(1+gr, float64(p.year)); math.Abs(p.w-want) > 1e-9*math.Abs(want) {
 			if between {
-				return nil, why + "its amounts fall at different points of each interest period, so what each period's amounts come to at its end differs and no series of equal amounts applies"
+				return nil, bw + "its amounts fall at different points of each interest period, so what each period's amounts come to at its end differs and no series of equal amounts applies"
 			}
 			return nil, "its amounts are not all equal, nor rise by one rate once a year"
 		}
@@ -420,7 +439,6 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) ([]Term, s
 	}
 	years, rest := n/m, n%m
 	iy := rate.Effective()
-	var terms []Term
 	if years > 0 {
 		full := pts[years*m-1]
 		t.Count = count(pts[:years*m])

@@ -72,6 +72,14 @@ func TestEquationStreamForms(t *testing.T) {
 			closed: 100 * (3 + j3) * (math.Pow(1+j3, 8) - 1) / j3,
 		},
 		{
+			// a deadline two months into a quarter: 7 quarters of 3 + j
+			// amounts, and the last 2 at face value, their interest not
+			// yet credited (by hand)
+			name: "simple, end, mid-quarter", kinds: []money.FactorKind{money.FA}, per: 3 + j3,
+			src:    head + "    rate: 4% compounded quarterly\n    between: simple\n    by: 2028-11\n    deposits:\n      - {amount: 100, every: month}\n",
+			closed: 100*(3+j3)*(math.Pow(1+j3, 7)-1)/j3 + 200,
+		},
+		{
 			// between none: a deposit earns nothing until the quarter
 			// ends, 3 amounts then
 			name: "none, end", kinds: []money.FactorKind{money.FA}, per: 3,
@@ -106,7 +114,7 @@ func TestEquationStreamForms(t *testing.T) {
 				for _, f := range term.Factors {
 					kinds = append(kinds, f.Kind)
 				}
-				if c.per != 0 && math.Abs(term.Per-c.per) > 1e-12 {
+				if c.per != 0 && len(term.Factors) > 0 && math.Abs(term.Per-c.per) > 1e-12 {
 					t.Errorf("%s: Per %v, want %v", term.Label, term.Per, c.per)
 				}
 				value += term.Value.Float()
