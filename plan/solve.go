@@ -797,19 +797,27 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// balance differs from the smooth one by its roundings. Settle on the
 	// lowest rate whose exact balance meets the target, to within a rate
 	// step worth one minor unit of balance (tol): a rate below that does
-	// not meet it and one above that does, above − below ≤ tol. Secant steps along the exact
-	// balance close in (each aiming a quarter unit past the target), and
-	// bisection finishes once the roundings' noise stalls them.
+	// not meet it and one above that does, above − below ≤ tol. The exact
+	// balance is a rising staircase, the smooth one plus the roundings' gap,
+	// which wanders some cents within a few tol and some dimes over
+	// hundreds: the first walk measures the gap, steps along the slope
+	// (aiming a unit of tol past the crossing) close in until the target is
+	// bracketed, and then the walk goes where the line between the
+	// bracket's balances crosses the target, at least tol inside it — a walk
+	// tol inside an end settles the answer when it falls on the other side —
+	// or to the middle when the bracket is within 2·tol (which settles it)
+	// or the same end has moved twice in a row.
 	//
 	// Each exact walk is made at the rate asked raised by margin, the
 	// margin the answer keeps (below), so that the walk at the rate found
 	// is the walk at the answer: no walk to repeat it.
 	const margin = 1e-12
+	need := s.minorAtLeast(target) // the fewest minor units that meet the target
 	meets := func(delta float64) (float64, bool) {
 		r := money.ForceRate(delta + margin)
 		pr.rate = &r
-		bal, _ := s.closing(pr)
-		return bal.Float(), bal.Cmp(target) >= 0
+		c := s.exact(pr, engine.Options{}).Closing // whole minor units
+		return c / s.scale(), c >= need
 	}
 	if n > 1 {
 		// Money goes out: where a withdrawal is larger than the balance the
@@ -858,44 +866,57 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	tol := min(max(1e-12, 1/s.scale()/slope), 1e-9)
 	t := target.Float()
 	below, above := math.Inf(-1), math.Inf(1) // below does not meet the target, above does
-	hiBal := 0.0
+	loBal, hiBal := 0.0, 0.0                  // the balances walked there
 	x, sl := delta, slope
 	reach := tol // how far to step at least while one side is open
 	bx, meet := meets(x)
+	same := 0 // bracketed walks in a row on the same side
 	for range 64 {
 		if meet {
 			above, hiBal = x, bx
 		} else {
-			below = x
+			below, loBal = x, bx
 		}
-		if above-below <= tol {
+		w := above - below
+		if w <= tol {
 			break
 		}
-		next := x + (t-bx)/sl + tol/4
+		next := x + (t-bx)/sl // where the balance is expected to cross the target
 		switch {
 		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
-			next = max(min(next, above-reach), lo) // but not past the search's range
-			reach *= 8
+			next = min(next-tol, above-reach)
+			next = max(next, lo) // but not past the search's range
 		case math.IsInf(above, 1): // none does: step up likewise
-			next = max(next, below+reach)
-			reach *= 8
-		case !(next > below && next < above):
-			next = below + (above-below)/2
+			next = max(next+tol, below+reach)
+		case w <= 2*tol || same >= 3: // one walk in the middle settles it; or interpolation stalls
+			next = below + w/2
+		default:
+			next = below + (t-loBal)/(hiBal-loBal)*w
+			next = min(max(next, below+tol), above-tol)
 		}
 		if next == x || math.IsNaN(next) || reach > 8 {
 			break
 		}
 		bn, m := meets(next)
+		if same++; m != meet || math.IsInf(below, -1) || math.IsInf(above, 1) {
+			same = 1
+		}
 		if m && next == lo { // the range's end meets it too
 			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
 		}
 		if math.IsInf(below, -1) || math.IsInf(above, 1) {
-			// still far: the secant of the exact balance; near the target
-			// its roundings make a secant noise, and the smooth slope is
-			// the better guide
-			if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) {
-				sl = d
+			// the step at least doubles while one side stays open, and
+			// grows faster where the balance is flat
+			reach *= 2
+			if bn == bx {
+				reach *= 4
 			}
+		}
+		// far from the target, the secant of the exact balance; near it
+		// the roundings make a secant noise, and the smooth slope is the
+		// better guide
+		if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) && math.Abs(bn-bx) >= 1000/s.scale() {
+			sl = d
 		} else {
 			sl = slope
 		}
@@ -918,14 +939,20 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 // newtonRate finds the force of interest at which the smooth balance meets
 // target t, when money only comes in, by Newton steps from x0 on the
 // balance's logarithm (nearly straight in the rate), each walk giving the
-// balance and its slope; the last step is taken without a walk once it is
-// worth less than a thousand currency units, its error then some minor
-// units at most, which the exact walks settle.
+// balance and its slope. From the second walk on, the step is taken on the
+// cubic through the last two walks' logarithms and slopes, whose error is of
+// a higher order than Newton's; once that step differs from Newton's by
+// less than a thousand currency units of balance (or the walk is itself that
+// close), it is taken without a walk, its error then some units at most,
+// which the exact walks settle (they differ from the smooth balance by their
+// roundings anyway). It returns the root and the balance's slope there.
 // ok is false when the steps do not settle (the caller brackets instead).
 func (s *schedule) newtonRate(pr *params, t, x0, lo, hi float64) (root, slope float64, ok bool) {
-	a, b := lo, hi // the root lies between
+	const near = 1000 // currency units of balance
+	a, b := lo, hi    // the root lies between
 	x := x0
-	for range 12 {
+	var px, pL, pl float64 // the previous walk: the rate, the logarithm and its slope
+	for i := range 12 {
 		bal, d := s.smoothForce(pr, x)
 		if !(d > 0) || math.IsInf(d, 0) || math.IsNaN(bal) {
 			return 0, 0, false
@@ -935,19 +962,69 @@ func (s *schedule) newtonRate(pr *params, t, x0, lo, hi float64) (root, slope fl
 		} else {
 			b = x
 		}
-		step := (t - bal) / d
+		step, sl, gap := (t-bal)/d, d, math.Abs(t-bal)
 		if bal > 0 && t > 0 {
-			step = math.Log(t/bal) * bal / d
+			L, l := math.Log(bal), d/bal
+			step = (math.Log(t) - L) / l
+			if i > 0 && x != px {
+				if h, dl, ok := hermiteRoot(px-x, pL-L, pl, l, math.Log(t)-L, step); ok {
+					gap = math.Abs(h-step) * d
+					step, sl = h, dl*t
+				}
+			}
+			px, pL, pl = x, L, l
 		}
 		next := x + step
 		if !(next > a && next < b) {
 			next = a + (b-a)/2
-		} else if math.Abs(step)*d <= 1000 && math.Abs(t-bal) <= 1000 {
-			return next, d, true
+		} else if gap <= near {
+			return next, sl, true
 		}
 		x = next
 	}
 	return 0, 0, false
+}
+
+// hermiteRoot returns the step h from a point where a function is 0 with
+// slope l1 to where it is v, on the cubic that also passes through dx away
+// with value v0 and slope l0, and the cubic's slope there; it starts from
+// the Newton step h0 and ok is false when the cubic gives no root near it.
+func hermiteRoot(dx, v0, l0, l1, v, h0 float64) (h, slope float64, ok bool) {
+	// p(h) = l1·h + c2·h² + c3·h³ with p(dx) = v0 and p′(dx) = l0
+	r1, r2 := v0-l1*dx, l0-l1
+	c3 := (r2*dx - 2*r1) / (dx * dx * dx)
+	c2 := (r1 - c3*dx*dx*dx) / (dx * dx)
+	h = h0
+	for range 8 {
+		dp := l1 + 2*c2*h + 3*c3*h*h
+		if !(dp > 0) {
+			return 0, 0, false
+		}
+		dh := (l1*h + c2*h*h + c3*h*h*h - v) / dp
+		h -= dh
+		if math.Abs(dh) <= 1e-12*math.Abs(h) {
+			break
+		}
+	}
+	slope = l1 + 2*c2*h + 3*c3*h*h
+	if math.IsNaN(h) || !(slope > 0) || math.Abs(h) > 2*math.Abs(h0)+1e-9 {
+		return 0, 0, false
+	}
+	return h, slope, true
+}
+
+// minorAtLeast returns the fewest whole minor units whose amount is at
+// least a, as a float64 (as the exact walk's balances are), so that a
+// search compares balances without a decimal each walk.
+func (s *schedule) minorAtLeast(a money.Amount) float64 {
+	c := int64(math.Ceil(a.MinorFloat(s.places)))
+	for money.Minor(c, s.places).Cmp(a) < 0 {
+		c++
+	}
+	for money.Minor(c-1, s.places).Cmp(a) >= 0 {
+		c--
+	}
+	return float64(c)
 }
 
 // amount returns bal, in currency units a whole number of minor units, as
