@@ -117,6 +117,7 @@ type Schedule struct {
 	// partial lists the flows and fees part way through an interest
 	// period (Tau < 1): the events a path's weights are computed for.
 	partial []int32
+	left    []int64 // the ticks left of the period for each of taus
 }
 
 // Events returns the schedule's events in order; the caller must not
@@ -162,8 +163,20 @@ func labelEnd(t int64) int32 {
 func labelBegin(t int64) int32 { return int32(t / TicksPerMonth) }
 
 // Compile lays shape sh on the tick grid.
-func Compile(sh *Shape) *Schedule {
+func Compile(sh *Shape) *Schedule { return compileFrom(sh, nil) }
+
+// compileFrom lays shape sh on the tick grid after old, a schedule of the
+// same shape through an earlier month (or nil): old's events are the first
+// of the schedule (a shape's events do not depend on how far it is
+// compiled, see [Schedule.Prefix]), and only the months after it are laid
+// down.
+func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	s := &Schedule{months: sh.Months, stepFrom: slices.Clone(sh.StepFrom)}
+	var m0 int32 // the first month laid down
+	var t0 int64 // and its start
+	if old != nil {
+		m0, t0 = old.months, old.endTick
+	}
 	s.endTick = int64(sh.Months) * TicksPerMonth
 	s.period = TicksPerYear / int64(sh.PerYear)
 	s.accrue = sh.PerYear > 12
@@ -185,11 +198,18 @@ func Compile(sh *Shape) *Schedule {
 		}
 		g := &gens[k]
 		*g = flowGen{st: st, src: src, P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
+		if t0 > g.from { // the first period whose amount falls after old's end
+			if st.Begin {
+				g.k = (t0 - g.from + g.P - 1) / g.P
+			} else {
+				g.k = (t0 - g.from) / g.P
+			}
+		}
 		last := s.endTick // the stream's amounts end by its until, if it has one
 		if st.HasUntil {
 			last = min(last, int64(st.Until+1)*TicksPerMonth+g.P)
 		}
-		nFlows += max(last-g.from, 0)/g.P + 2
+		nFlows += max(last-max(g.from, t0), 0)/g.P + 2
 		if g.advance(f.end, f.endTick) {
 			f.h = append(f.h, g)
 		}
@@ -197,7 +217,7 @@ func Compile(sh *Shape) *Schedule {
 	// Every one-time amount is a source, even one after the end, so that
 	// source indexes are the same whatever the horizon compiled.
 	for k, on := range sh.Once {
-		if on > f.end {
+		if on > f.end || on < m0 {
 			continue
 		}
 		src := int32(1 + len(sh.Streams) + k)
@@ -222,13 +242,22 @@ func Compile(sh *Shape) *Schedule {
 	if sh.Fee {
 		perMonth++
 	}
-	nRuns := min(n, int64(sh.Months)*perMonth+nFlows+int64(len(sh.StepFrom))+1)
-	c := compiler{s: s, n: n, f: &f, nextTick: s.period, stepEnd: make([]int64, len(sh.StepFrom))}
+	nRuns := min(n-t0/s.period, int64(sh.Months-m0)*perMonth+nFlows+int64(len(sh.StepFrom))+1)
+	c := compiler{s: s, n: n, f: &f, stepEnd: make([]int64, len(sh.StepFrom))}
 	for i, from := range sh.StepFrom {
 		c.stepEnd[i] = (int64(from)*TicksPerMonth + s.period - 1) / s.period
 	}
-	c.ev = make([]Event, 0, int64(sh.Months)*perMonth+nFlows+nRuns)
-	for m := range sh.Months {
+	room := int64(sh.Months-m0)*perMonth + nFlows + nRuns
+	if old == nil {
+		c.ev = make([]Event, 0, room)
+	} else {
+		c.ev = make([]Event, len(old.events), int64(len(old.events))+room)
+		copy(c.ev, old.events)
+		s.taus, c.left, s.partial = slices.Clone(old.taus), slices.Clone(old.left), slices.Clone(old.partial)
+		c.done = t0 / s.period
+	}
+	c.nextTick = (c.done + 1) * s.period
+	for m := m0; m < sh.Months; m++ {
 		t := int64(m+1) * TicksPerMonth
 		if s.accrue {
 			c.add(Event{Tick: t, Kind: Credit, Month: m})
@@ -246,7 +275,7 @@ func Compile(sh *Shape) *Schedule {
 		c.put(f.pop())
 	}
 	c.interestTo(s.endTick)
-	s.events = c.ev
+	s.events, s.left = c.ev, c.left
 	return s
 }
 
