@@ -187,7 +187,7 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	// events are laid down, so that no amount is stored but in the
 	// schedule itself, whatever the number of streams.
 	f := flows{end: sh.Months - 1, endTick: s.endTick}
-	gens := make([]flowGen, len(sh.Streams))
+	f.gens = make([]flowGen, len(sh.Streams))
 	nFlows := int64(0) // at least the amounts, for the room below
 	for k := range sh.Streams {
 		st := &sh.Streams[k]
@@ -196,7 +196,7 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		if st.First != 1 {
 			s.grow[src] = math.NaN()
 		}
-		g := &gens[k]
+		g := &f.gens[k]
 		*g = flowGen{st: st, src: src, P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
 		if t0 > g.from { // the first period whose amount falls after old's end
 			if st.Begin {
@@ -211,7 +211,7 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		}
 		nFlows += max(last-max(g.from, t0), 0)/g.P + 2
 		if g.advance(f.end, f.endTick) {
-			f.h = append(f.h, g)
+			f.h = append(f.h, int32(k))
 		}
 	}
 	// Every one-time amount is a source, even one after the end, so that
@@ -270,9 +270,10 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		}
 		c.add(Event{Tick: t, Kind: Mark, Month: m})
 	}
-	for e := f.peek(); e != nil; e = f.peek() {
+	for _, ok := f.next(); ok; _, ok = f.next() {
+		e := f.pop()
 		c.interestTo(e.Tick)
-		c.put(f.pop())
+		c.put(e)
 	}
 	c.interestTo(s.endTick)
 	s.events, s.left = c.ev, c.left
@@ -298,9 +299,13 @@ type compiler struct {
 
 // add lays down e after every amount that comes before it.
 func (c *compiler) add(e Event) {
-	for f := c.f.peek(); f != nil && before(f, &e); f = c.f.peek() {
+	for k := orderKey(&e); ; {
+		if f, ok := c.f.next(); !ok || f > k {
+			break
+		}
+		f := c.f.pop()
 		c.interestTo(f.Tick)
-		c.put(c.f.pop())
+		c.put(f)
 	}
 	c.interestTo(e.Tick)
 	c.put(e)
@@ -371,6 +376,7 @@ type flowGen struct {
 	lg, u       float64 // log(1 + grow); the unit of the year lastYear
 	k, lastYear int64   // the next period; the year of u
 	next        Event   // the amount advance found
+	key         uint64  // its order key
 }
 
 // advance sets g.next to the stream's next amount through month end (the
@@ -407,17 +413,19 @@ func (g *flowGen) advance(end int32, endTick int64) bool {
 		case st.Today:
 			e.IA = st.From
 		}
-		g.next = e
+		g.next, g.key = e, orderKey(&e)
 		return true
 	}
 }
 
 // flows merges the amounts of a schedule in event order: the streams'
-// generators through a binary min-heap by their next amount (each amount
-// is compared with about log₂ of the streams, never copied but into the
-// schedule), and the one-time amounts, sorted.
+// generators through a binary min-heap of their indexes by their next
+// amount's order key (each amount is compared with about log₂ of the
+// streams, never copied but into the schedule), and the one-time amounts,
+// sorted.
 type flows struct {
-	h       []*flowGen
+	gens    []flowGen
+	h       []int32 // indexes of gens with an amount left
 	once    []Event
 	oi      int // the next of once
 	end     int32
@@ -431,13 +439,13 @@ func (f *flows) init() {
 }
 
 func (f *flows) down(i int) {
-	h := f.h
+	h, g := f.h, f.gens
 	for {
 		m, l, r := i, 2*i+1, 2*i+2
-		if l < len(h) && before(&h[l].next, &h[m].next) {
+		if l < len(h) && g[h[l]].key < g[h[m]].key {
 			m = l
 		}
-		if r < len(h) && before(&h[r].next, &h[m].next) {
+		if r < len(h) && g[h[r]].key < g[h[m]].key {
 			m = r
 		}
 		if m == i {
@@ -448,26 +456,28 @@ func (f *flows) down(i int) {
 	}
 }
 
-// peek returns the next amount, nil when there is none.
-func (f *flows) peek() *Event {
-	var e *Event
+// next returns the order key of the next amount, and false when there is
+// none.
+func (f *flows) next() (uint64, bool) {
+	k, ok := uint64(0), false
 	if len(f.h) > 0 {
-		e = &f.h[0].next
+		k, ok = f.gens[f.h[0]].key, true
 	}
-	if f.oi < len(f.once) && (e == nil || before(&f.once[f.oi], e)) {
-		e = &f.once[f.oi]
+	if f.oi < len(f.once) {
+		if o := orderKey(&f.once[f.oi]); !ok || o < k {
+			k, ok = o, true
+		}
 	}
-	return e
+	return k, ok
 }
 
-// pop returns the next amount (peek's, which must not be nil) and moves
-// past it.
+// pop returns the next amount (there must be one) and moves past it.
 func (f *flows) pop() Event {
-	if f.oi < len(f.once) && (len(f.h) == 0 || before(&f.once[f.oi], &f.h[0].next)) {
+	if f.oi < len(f.once) && (len(f.h) == 0 || orderKey(&f.once[f.oi]) < f.gens[f.h[0]].key) {
 		f.oi++
 		return f.once[f.oi-1]
 	}
-	g := f.h[0]
+	g := &f.gens[f.h[0]]
 	e := g.next
 	if !g.advance(f.end, f.endTick) {
 		f.h[0] = f.h[len(f.h)-1]
@@ -521,16 +531,14 @@ func eventOrder(a, b Event) int {
 	return cmp.Compare(a.Src, b.Src)
 }
 
-// before reports whether x comes before y in event order (see eventOrder).
-func before(x, y *Event) bool {
-	if x.Tick != y.Tick {
-		return x.Tick < y.Tick
+// orderKey returns e's place in event order (see eventOrder) as one
+// number: its tick, kind, money in before money out, and source, packed
+// (ticks are fewer than 2⁴⁰ over the longest plan, sources fewer than
+// 2¹⁹).
+func orderKey(e *Event) uint64 {
+	k := uint64(e.Tick)<<24 | uint64(e.Kind)<<20 | uint64(e.Src)
+	if e.Out {
+		k |= 1 << 19
 	}
-	if x.Kind != y.Kind {
-		return x.Kind < y.Kind
-	}
-	if x.Out != y.Out {
-		return y.Out
-	}
-	return x.Src < y.Src
+	return k
 }
