@@ -797,16 +797,8 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// balance differs from the smooth one by its roundings. Settle on the
 	// lowest rate whose exact balance meets the target, to within a rate
 	// step worth one minor unit of balance (tol): a rate below that does
-	// not meet it and one above that does, above − below ≤ tol. The exact
-	// balance is a rising staircase, the smooth one plus the roundings' gap,
-	// which wanders some cents within a few tol and some dimes over
-	// hundreds: the first walk measures the gap, steps along the slope
-	// (aiming a unit of tol past the crossing) close in until the target is
-	// bracketed, and then the walk goes where the line between the
-	// bracket's balances crosses the target, at least tol inside it — a walk
-	// tol inside an end settles the answer when it falls on the other side —
-	// or to the middle when the bracket is within 2·tol (which settles it)
-	// or the same end has moved twice in a row.
+	// not meet it and one above that does, above − below ≤ tol (see
+	// [exactSearch]).
 	//
 	// Each exact walk is made at the rate asked raised by margin, the
 	// margin the answer keeps (below), so that the walk at the rate found
@@ -864,63 +856,11 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// goal of a million; a goal that hardly depends on the rate would make
 	// a minor unit worth a wide range)
 	tol := min(max(1e-12, 1/s.scale()/slope), 1e-9)
-	t := target.Float()
-	below, above := math.Inf(-1), math.Inf(1) // below does not meet the target, above does
-	loBal, hiBal := 0.0, 0.0                  // the balances walked there
-	x, sl := delta, slope
-	reach := tol // how far to step at least while one side is open
-	bx, meet := meets(x)
-	same := 0 // bracketed walks in a row on the same side
-	for range 64 {
-		if meet {
-			above, hiBal = x, bx
-		} else {
-			below, loBal = x, bx
-		}
-		w := above - below
-		if w <= tol {
-			break
-		}
-		next := x + (t-bx)/sl // where the balance is expected to cross the target
-		switch {
-		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
-			next = min(next-tol, above-reach)
-			next = max(next, lo) // but not past the search's range
-		case math.IsInf(above, 1): // none does: step up likewise
-			next = max(next+tol, below+reach)
-		case w <= 2*tol || same >= 3: // one walk in the middle settles it; or interpolation stalls
-			next = below + w/2
-		default:
-			next = below + (t-loBal)/(hiBal-loBal)*w
-			next = min(max(next, below+tol), above-tol)
-		}
-		if next == x || math.IsNaN(next) || reach > 8 {
-			break
-		}
-		bn, m := meets(next)
-		if same++; m != meet || math.IsInf(below, -1) || math.IsInf(above, 1) {
-			same = 1
-		}
-		if m && next == lo { // the range's end meets it too
-			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
-		}
-		if math.IsInf(below, -1) || math.IsInf(above, 1) {
-			// the step at least doubles while one side stays open, and
-			// grows faster where the balance is flat
-			reach *= 2
-			if bn == bx {
-				reach *= 4
-			}
-		}
-		// far from the target, the secant of the exact balance; near it
-		// the roundings make a secant noise, and the smooth slope is the
-		// better guide
-		if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) && math.Abs(bn-bx) >= 1000/s.scale() {
-			sl = d
-		} else {
-			sl = slope
-		}
-		x, bx, meet = next, bn, m
+	e := exactSearch{meets: meets, target: target.Float(), step: (need - 0.5) / s.scale(), slope: slope,
+		tol: tol, unit: 1 / s.scale() / slope, lo: lo, far: 1000 / s.scale()}
+	_, above, hiBal, lowEnd := e.settle(delta)
+	if lowEnd { // the range's end meets it too
+		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
 	}
 	if math.IsInf(above, 1) { // no rate in range meets it exactly: keep the smooth root
 		above = delta
@@ -934,6 +874,126 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	a := &Answer{Goal: g, For: ForRate, Rate: money.ForceRate(above), Periods: math.NaN(), Deadline: g.By, Target: target,
 		Balance: s.amount(hiBal)}
 	return finishRate(s, a, pr, roots, rising, full), nil
+}
+
+// exactSearch finds the lowest rate, a force of interest, whose exact
+// balance meets the target, to within tol, from near it: the smooth
+// balance's root. The exact balance is a rising staircase, the smooth one
+// plus the roundings' gap, which wanders some cents within a few tol and some
+// dimes over hundreds, and on a small goal stays on one minor unit over
+// many tol (a cent is worth much rate there, and each posting's rounding
+// absorbs a small change of rate).
+//
+// The first walk measures the gap; steps along the slope, aimed a tol past
+// the crossing and at least a reach that doubles each walk (and grows to
+// twice the last step where the balance did not move), close in until the
+// target is bracketed. Then each walk goes where the line between the
+// bracket's balances crosses step, the middle of the staircase's step onto
+// the target's minor unit (a line to the target itself would aim at an end
+// when the balance there equals it), at least tol inside the bracket — a
+// walk tol inside an end settles the answer when it falls on the other
+// side — and no farther from the bracket's middle than keeps the walks
+// within a budget: what halving the bracket would take to come within tol
+// (halvings), and bracketSpare more. A walk must leave a bracket that
+// halving would bring within tol in the walks the budget still has; where
+// the line aims well, walks are saved, and where it stalls (a flat
+// staircase), the walks pulled to the middle halve the bracket as bisection
+// would.
+type exactSearch struct {
+	meets        func(delta float64) (bal float64, ok bool) // the exact balance at force delta, and whether it meets the target
+	target, step float64                                    // the target, and where its minor unit's step is aimed (half a unit below)
+	slope        float64                                    // of the smooth balance near its root, by the force of interest
+	tol, unit    float64                                    // the answer's resolution; the force a minor unit is worth by slope
+	lo           float64                                    // the search range's lower end
+	far          float64                                    // a balance change past which the exact balance's own secant guides a step
+}
+
+// bracketSpare is how many walks a bracketed rate search may make beyond
+// what halving its first bracket would take (see [exactSearch]).
+const bracketSpare = 2
+
+// settle searches from force x. It returns the bracket found, below (does
+// not meet the target; −Inf when every rate walked meets it) and above
+// (meets it; +Inf when none does) with above − below ≤ tol when both are
+// finite, the balance walked at above, and whether the range's lower end
+// meets the target (then there is no answer).
+func (e *exactSearch) settle(x float64) (below, above, hiBal float64, lowEnd bool) {
+	below, above = math.Inf(-1), math.Inf(1)
+	loBal := 0.0
+	sl := e.slope
+	reach := max(e.tol, e.unit) // how far to step at least while one side is open
+	bx, meet := e.meets(x)
+	budget, used := -1, 0 // walks allowed once bracketed (-1 until then), and made
+	for range 64 {
+		if meet {
+			above, hiBal = x, bx
+		} else {
+			below, loBal = x, bx
+		}
+		w := above - below
+		if w <= e.tol {
+			break
+		}
+		open := math.IsInf(w, 1)
+		next := x + (e.target-bx)/sl // where the balance is expected to cross the target
+		switch {
+		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
+			next = min(next-e.tol, above-reach)
+			next = max(next, e.lo) // but not past the search's range
+		case math.IsInf(above, 1): // none does: step up likewise
+			next = max(next+e.tol, below+reach)
+		default:
+			if budget < 0 {
+				budget = halvings(w, e.tol) + bracketSpare
+			}
+			used++
+			mid := below + w/2
+			if w <= 2*e.tol { // one walk in the middle settles it
+				next = mid
+				break
+			}
+			next = below + (e.step-loBal)/(hiBal-loBal)*w
+			next = min(max(next, below+e.tol), above-e.tol)
+			// within r of the middle, the bracket left is at most
+			// tol·2^(budget−used): halving brings it within tol in the
+			// walks left
+			r := e.tol*math.Exp2(float64(budget-used)) - w/2
+			next = min(max(next, mid-r), mid+r)
+		}
+		if next == x || math.IsNaN(next) || reach > 8 {
+			break
+		}
+		bn, m := e.meets(next)
+		if m && next == e.lo {
+			return below, above, hiBal, true
+		}
+		if open {
+			reach *= 2
+			if bn == bx { // flat: step twice as far as the last step at least
+				reach = max(reach, 2*math.Abs(next-x))
+			}
+		}
+		// far from the target, the secant of the exact balance; near it
+		// the roundings make a secant noise, and the smooth slope is the
+		// better guide
+		if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) && math.Abs(bn-bx) >= e.far {
+			sl = d
+		} else {
+			sl = e.slope
+		}
+		x, bx, meet = next, bn, m
+	}
+	return below, above, hiBal, false
+}
+
+// halvings returns how many times a bracket w wide must be halved to come
+// within tol.
+func halvings(w, tol float64) int {
+	n := 0
+	for ; w > tol; w /= 2 {
+		n++
+	}
+	return n
 }
 
 // newtonRate finds the force of interest at which the smooth balance meets
