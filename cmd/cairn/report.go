@@ -193,8 +193,9 @@ func buildReport(p *plan.Plan, cases []plan.Case) ([]byte, []render.Notice, erro
 			file, len(p.Goals), plural(len(p.Goals), "goal", "goals"), p.Start, p.Currency.Code, pct(p.Inflation.Effective()), p.Start),
 		Status:        sd.Tables()[0],
 		StatusCaption: "Every goal: its target, the balance projected at its deadline, and the deposit that makes the deadline.",
-		Remarks:       sd.After,
-		Budget:        budgetFacts(p, st),
+		// the per-goal remarks: the household's sentences are budgetFacts
+		Remarks: sd.After[:len(sd.After)-len(householdLine(p, st))],
+		Budget:  budgetFacts(p, st),
 	}
 	if st.Budget != nil {
 		bd := budgetDoc(p, st.Budget, plan.ByYear, st.Smallest, st.SmallestErr)
