@@ -256,9 +256,10 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	reach := reaches(p, g)
 	// Most goals are reached by their own horizon, and nearly all within
-	// decades: walk the goal's horizon first, then 40 years, and go to the
-	// plan's end only when the target is not met by then. A schedule
-	// compiled to a nearer end is the prefix of a longer one.
+	// decades: walk the goal's horizon first, then twice as long (up to 40
+	// years), then 40 years, and go to the plan's end only when the target
+	// is not met by then. A schedule compiled to a nearer end is the
+	// prefix of a longer one.
 	var s *schedule
 	var pr *params
 	var r engine.Result
@@ -266,7 +267,9 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		return (!drawdown || p.Start+Month(m) < firstOut) && reach(p.Start+Month(m), bal)
 	}}
 	own := min(Horizon(p, g), end)
-	for _, h := range []Month{own, min(max(p.Start.Add(40*12-1), own), end), end} {
+	forty := p.Start.Add(40*12 - 1)
+	twice := min(p.Start.Add(2*int(own-p.Start+1)-1), forty, end) // a goal late by its own horizon is most often reached soon after
+	for _, h := range []Month{own, twice, min(max(forty, own), end), end} {
 		if s != nil && h <= s.end {
 			continue
 		}
@@ -277,14 +280,13 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 	}
 	if !r.Reached {
+		last := s.end
 		if drawdown {
-			s = compile(p, g, horizonEnd(p))
-			pr = s.defaultParams()
+			last = horizonEnd(p)
 		}
-		ends := make([]float64, s.end-p.Start+1)
-		s.exact(pr, engine.Options{MonthEnds: ends})
+		ends := monthEnds(p, g, last)
 		why := unreachableReason(p, g, ends)
-		for m := firstOut; drawdown && m <= s.end; m++ {
+		for m := firstOut; drawdown && m <= last; m++ {
 			if reach(m, ends[m-p.Start]) { // only after they begin
 				why = fmt.Sprintf("the balance does not reach the target before withdrawals begin in %s", firstOut)
 				break

@@ -5,6 +5,7 @@ import (
 	"html/template"
 	"io"
 	"strings"
+	"sync"
 )
 
 // A Page is the printable HTML report: the household's status, then one
@@ -78,7 +79,7 @@ func (p *Page) Write(w io.Writer) error {
 			Chart: s.Figure.SVG, ChartNote: s.Figure.Caption, Projection: htmlTableOf(s.Projection, "projection", s.ProjectionCaption),
 			Remarks: s.Remarks, Assumptions: factsOf(s.Assumptions), Notices: noticesOf(s.Notices)})
 	}
-	if err := page.Execute(w, d); err != nil {
+	if err := page().Execute(w, d); err != nil {
 		return fmt.Errorf("writing the report: %v", err)
 	}
 	return nil
@@ -225,8 +226,10 @@ func cssString(s string) template.CSS {
 // either. The @page margin boxes hold our own footer, which also keeps
 // Chromium from printing its date and file address there. Series are told
 // apart by dash and weight, the band by a grey fill, so that greyscale
-// printing loses nothing.
-var page = template.Must(template.Must(template.New("report").Parse(`<!DOCTYPE html>
+// printing loses nothing. It is parsed when first used: only the report
+// pays for it.
+var page = sync.OnceValue(func() *template.Template {
+	return template.Must(template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <html xmlns="http://www.w3.org/1999/xhtml" lang="en">
 <head>
 <meta charset="utf-8"/>
@@ -430,3 +433,4 @@ nav li { display: inline; margin-left: 0.4rem; }
 </div>
 {{- end}}
 `))
+})
