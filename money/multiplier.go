@@ -103,29 +103,29 @@ const tieMargin = 1e-13
 // RoundFast returns p, a float product about to be posted, rounded to a
 // whole number, and whether that is sure: whether p lies far enough from a
 // half unit that both rules agree and float noise cannot matter. When it is
-// not sure, call [RoundProduct] with the product's parts. It is small
-// enough to be inlined into a hot loop, where RoundProduct, which may do
-// exact arithmetic, is not:
+// not sure, the rounded value is not to be used: call [RoundProduct] with
+// the product's parts. It is small enough to be inlined into a hot loop,
+// where RoundProduct, which may do exact arithmetic, is not:
 //
 //	q, sure := money.RoundFast(x*m.Float() + plus)
 //	if !sure {
 //		q = money.RoundProduct(x, m, plus, rule)
 //	}
 //
-// The rounding is math.RoundToEven's value computed without a call (which
-// the processor may need for it, and which costs a hot loop its registers):
-// below 2⁵² in size, adding and taking away 2⁵² rounds the size to an
-// integer, ties to even; from 2⁵² on every float64 is an integer.
+// It makes no call: below 2⁵² in size, adding and
+// taking away 2⁵² rounds the size to an integer, ties to even (what
+// math.RoundToEven gives, which may need a call); a product is sure when
+// its distance from the half unit is over twice [tieMargin] of its size,
+// which no size from 2.5·10¹² minor units on is (nor a size of 2⁵² or more,
+// where the sum does not round, nor NaN or an infinity).
 func RoundFast(p float64) (float64, bool) {
-	q := p
-	if a := math.Abs(p); a < 1<<52 { // else an integer already, or not a number
-		q = (a + 1<<52) - 1<<52
-		if p < 0 {
-			q = -q
-		}
+	a := math.Abs(p)
+	t := (a + 1<<52) - 1<<52
+	sure := 0.5-math.Abs(a-t) > 2*tieMargin*a
+	if p < 0 {
+		t = -t
 	}
-	h := 0.25 - (p-q)*(p-q) // (½ − |p−q|)(½ + |p−q|): 0 at a half
-	return q, h*h > tieMargin*tieMargin*p*p
+	return t, sure
 }
 
 // RoundProduct returns x × m + plus rounded to a whole number under rule r,

@@ -488,8 +488,8 @@ func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 }
 
 // simLanes is how many paths a worker draws before it walks them: a group
-// whose walks share the schedule while it is in cache.
-const simLanes = 4
+// walked together (engine.WalkLanes).
+const simLanes = engine.Lanes
 
 // A simWorker holds one goroutine's generators and buffers for simLanes
 // paths; nothing in it grows with the number of paths. Lane l holds one
@@ -607,11 +607,11 @@ func expm1(x float64) float64 {
 func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, paths *[simLanes]int, res *[simLanes]engine.Result) {
 	in := pg.in
 	in.Amounts = amounts
-	o := engine.Options{Mode: engine.Exact, Rows: rows, HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
-	for l := range simLanes {
-		o.Paths, o.Path = &w.paths[l], paths[l]
-		res[l] = engine.Walk(pg.s.eng, &in, &o)
+	var os [simLanes]engine.Options
+	for l := range os {
+		os[l] = engine.Options{Mode: engine.Exact, Paths: &w.paths[l], Rows: rows, Path: paths[l], HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
 	}
+	*res = engine.WalkLanes(pg.s.eng, &in, &os)
 }
 
 // values returns, per lane of w, the value at the deadline of one unit of

@@ -338,11 +338,39 @@ func roundMinor(x float64, r money.Rounding) float64 {
 // the simulation are this walk with different options.
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
-	f := flagsOf(in, o)
+	f := flagsOf(s, in, o)
 	if r, ok := walkFixed(s, in, o, f); ok {
 		return r
 	}
 	return walk(s, in, o, f)
+}
+
+// Lanes is how many walks [WalkLanes] makes at once.
+const Lanes = 4
+
+// WalkLanes makes the walks [Walk] makes with options os[0], os[1], …, each
+// of schedule s with inputs in, and returns their results in order. When
+// every lane's options make the same decisions (the same mode, the same
+// options set) and none stops early (Options.Reach), it walks them
+// together, each event for every lane in turn: the same walk, whose lanes'
+// chains of arithmetic the processor overlaps.
+func WalkLanes(s *Schedule, in *Inputs, os *[Lanes]Options) [Lanes]Result {
+	f := flagsOf(s, in, &os[0])
+	together := true
+	for l := range os {
+		together = together && flagsOf(s, in, &os[l]) == f && os[l].Reach == nil
+	}
+	if together {
+		if r, ok := walkFixedLanes(s, in, os, f); ok {
+			walks.Add(Lanes)
+			return r
+		}
+	}
+	var r [Lanes]Result
+	for l := range os {
+		r[l] = Walk(s, in, &os[l])
+	}
+	return r
 }
 
 // flags are a walk's decisions that hold for the whole walk: what it
@@ -360,9 +388,11 @@ type flags struct {
 	ruled    bool // Inputs.Rules is set
 	capping  bool // a yearly cap applies (Inputs.Capped, not One)
 	matching bool // an employer's match applies (Inputs.Match, not One)
+	accrue   bool // interest accrues, credited at month ends (Schedule.accrue)
+	taxed    bool // a year's interest is taxed (Inputs.Tax)
 }
 
-func flagsOf(in *Inputs, o *Options) flags {
+func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 	return flags{
 		exact:    o.Mode == Exact,
 		paths:    o.Paths != nil,
@@ -376,6 +406,8 @@ func flagsOf(in *Inputs, o *Options) flags {
 		ruled:    in.Rules != nil,
 		capping:  in.Capped != nil && !o.One,
 		matching: in.Match > 0 && !o.One,
+		accrue:   s.accrue,
+		taxed:    in.Tax != 0,
 	}
 }
 
@@ -399,6 +431,8 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	ruled := f.ruled
 	capping := f.capping
 	matching := f.matching
+	accrue := f.accrue
+	taxed := f.taxed
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -455,6 +489,7 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 			ruleYear[k] = -1
 		}
 	}
+events:
 	for i := range s.events {
 		e := &s.events[i]
 		switch e.Kind {
@@ -479,7 +514,7 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 						db, dplus = dv.low, 0
 					}
 					dx := db*j + b*o.DRates[e.Step] + dplus
-					if s.accrue {
+					if accrue {
 						dv.accrued += dx
 						dv.base = dv.bal + dv.accrued
 					} else {
@@ -490,9 +525,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 					dv.acc, dv.low = 0, dv.base
 				}
 				if alone {
-					ea.interest(j, none, s.accrue)
+					ea.interest(j, none, accrue)
 				}
-				if s.accrue {
+				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
 					low = base
@@ -506,7 +541,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 					}
 				}
 				bal += x
-				taxable += x
+				if taxed {
+					taxable += x
+				}
 				base, acc = bal, 0
 				low = base
 				if logged && x != 0 {
@@ -529,7 +566,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 			}
 			bal += x
 			accrued -= x
-			taxable += x
+			if taxed {
+				taxable += x
+			}
 			if logged && x != 0 {
 				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
 			}
@@ -641,8 +680,7 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 			}
 			if o.Reach != nil && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
-				res.Closing, res.Peak = bal, peak
-				return res
+				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {

@@ -7,6 +7,7 @@ import (
 	"go/ast"
 	"go/format"
 	"go/parser"
+	"go/printer"
 	"go/token"
 	"os"
 	"reflect"
@@ -29,6 +30,19 @@ var fixedWalks = []struct {
 	{"walkPaths", flags{exact: true, paths: true}},   // a simulated path
 	{"walkSlope", flags{slope: true}},                // a rate search's Newton steps
 	{"walkEach", flags{alone: true}},                 // the equation of value
+	// the same, of a schedule compounding more often than monthly
+	{"walkExactAccrue", flags{exact: true, accrue: true}},
+	{"walkLedgerAccrue", flags{exact: true, logged: true, accrue: true}},
+	{"walkEachAccrue", flags{alone: true, accrue: true}},
+}
+
+// laneWalks are the flags the generated lane copies of walk are made for
+// (see WalkLanes): the simulation's paths.
+var laneWalks = []struct {
+	name string
+	f    flags
+}{
+	{"walkPathsLanes", flags{exact: true, paths: true}},
 }
 
 // flagLine is a line of walk's body that reads a flag: the generator makes
@@ -36,7 +50,8 @@ var fixedWalks = []struct {
 var flagLine = regexp.MustCompile(`(?m)^\t(\w+) := f\.(\w+)$`)
 
 // generateWalks returns walk_gen.go as walk.go's walk gives it: for each
-// of fixedWalks, walk with its flags constants, and the dispatch to them.
+// of fixedWalks, walk with its flags constants; for each of laneWalks, the
+// same walking Lanes walks at once; and the dispatch to them.
 func generateWalks(t *testing.T) []byte {
 	t.Helper()
 	src, err := os.ReadFile("walk.go")
@@ -66,35 +81,207 @@ func generateWalks(t *testing.T) []byte {
 	for _, w := range fixedWalks {
 		fmt.Fprintf(&b, "\tcase %s:\n\t\treturn %s(s, in, o, f), true\n", literal(w.f), w.name)
 	}
-	b.WriteString("\t}\n\treturn Result{}, false\n}\n")
+	b.WriteString("\t}\n\treturn Result{}, false\n}\n\n")
+	b.WriteString("// walkFixedLanes runs walk's lane copy for flags f, when it has one.\n")
+	b.WriteString("func walkFixedLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) ([Lanes]Result, bool) {\n\tswitch f {\n")
+	for _, w := range laneWalks {
+		fmt.Fprintf(&b, "\tcase %s:\n\t\treturn %s(s, in, os, f), true\n", literal(w.f), w.name)
+	}
+	b.WriteString("\t}\n\treturn [Lanes]Result{}, false\n}\n")
 	for _, w := range fixedWalks {
-		v := reflect.ValueOf(w.f)
-		seen := map[string]bool{}
-		body := flagLine.ReplaceAllStringFunc(fn, func(line string) string {
-			m := flagLine.FindStringSubmatch(line)
-			if m[1] != m[2] {
-				t.Fatalf("walk.go: %q: a flag's local must have its name", line)
-			}
-			fv := v.FieldByName(m[2])
-			if !fv.IsValid() {
-				t.Fatalf("walk.go: %q: no such flag", line)
-			}
-			seen[m[2]] = true
-			return fmt.Sprintf("\tconst %s = %v", m[1], fv.Bool())
-		})
-		for i := range v.NumField() {
-			if n := v.Type().Field(i).Name; !seen[n] {
-				t.Fatalf("walk.go: walk reads no line %q := f.%s", n, n)
-			}
-		}
 		fmt.Fprintf(&b, "\n// %s is walk under %s.\n", w.name, literal(w.f))
-		b.WriteString("func " + w.name + body[len("func walk"):] + "\n")
+		b.WriteString("func " + w.name + fixFlags(t, fn, w.f)[len("func walk"):] + "\n")
+	}
+	for _, w := range laneWalks {
+		fmt.Fprintf(&b, "\n// %s is walk under %s, for each of Lanes options at once.\n", w.name, literal(w.f))
+		b.WriteString(lanesOf(t, fixFlags(t, fn, w.f), w.name) + "\n")
 	}
 	out, err := format.Source(b.Bytes())
 	if err != nil {
 		t.Fatalf("generated walks: %v\n%s", err, b.Bytes())
 	}
 	return out
+}
+
+// fixFlags returns walk's source fn with each flag line made a constant
+// of f.
+func fixFlags(t *testing.T, fn string, f flags) string {
+	v := reflect.ValueOf(f)
+	seen := map[string]bool{}
+	body := flagLine.ReplaceAllStringFunc(fn, func(line string) string {
+		m := flagLine.FindStringSubmatch(line)
+		if m[1] != m[2] {
+			t.Fatalf("walk.go: %q: a flag's local must have its name", line)
+		}
+		fv := v.FieldByName(m[2])
+		if !fv.IsValid() {
+			t.Fatalf("walk.go: %q: no such flag", line)
+		}
+		seen[m[2]] = true
+		return fmt.Sprintf("\tconst %s = %v", m[1], fv.Bool())
+	})
+	for i := range v.NumField() {
+		if n := v.Type().Field(i).Name; !seen[n] {
+			t.Fatalf("walk.go: walk reads no line %q := f.%s", n, n)
+		}
+	}
+	return body
+}
+
+// lanesOf returns walk's source fn (its flags constants) as a function
+// name that walks Lanes walks at once, one a lane, each event's step of
+// every lane in turn, so that the processor overlaps the lanes' chains of
+// arithmetic: every local of walk but the event's index i and the event e
+// becomes one a lane (suffixed _0, _1, …; o is lane l's options, os[l]);
+// a continue of the events' loop goes to the next lane's step.
+func lanesOf(t *testing.T, fn, name string) string {
+	fs := token.NewFileSet()
+	file, err := parser.ParseFile(fs, "", "package engine\n\n"+fn, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fd := file.Decls[0].(*ast.FuncDecl)
+	body := fd.Body
+	// the locals: every variable declared in walk's body, and o
+	var locals []*ast.Ident
+	ast.Inspect(fd, func(n ast.Node) bool {
+		id, ok := n.(*ast.Ident)
+		if !ok || id.Obj == nil || id.Obj.Kind != ast.Var {
+			return true
+		}
+		d, ok := id.Obj.Decl.(ast.Node)
+		if !ok || (d.Pos() < body.Pos() && id.Name != "o") || id.Name == "i" || id.Name == "e" {
+			return true
+		}
+		locals = append(locals, id)
+		return true
+	})
+	// the events' loop, and the statements before and after it
+	k := -1
+	for i, st := range body.List {
+		if l, ok := st.(*ast.LabeledStmt); ok {
+			if r, ok := l.Stmt.(*ast.RangeStmt); ok && text(t, fs, r.X) == "s.events" {
+				k = i
+			}
+		}
+	}
+	if k < 0 {
+		t.Fatal("walk.go: walk has no loop events: for i := range s.events")
+	}
+	loop := body.List[k].(*ast.LabeledStmt)
+	rs := loop.Stmt.(*ast.RangeStmt)
+	ret, ok := body.List[len(body.List)-1].(*ast.ReturnStmt)
+	if !ok || len(ret.Results) != 1 {
+		t.Fatal("walk.go: walk does not end with return res")
+	}
+	var consts, pre []ast.Stmt
+	for _, st := range body.List[:k] {
+		if d, ok := st.(*ast.DeclStmt); ok && d.Decl.(*ast.GenDecl).Tok == token.CONST {
+			consts = append(consts, st)
+		} else {
+			pre = append(pre, st)
+		}
+	}
+	post := body.List[k+1 : len(body.List)-1]
+	if len(rs.Body.List) < 1 || text(t, fs, rs.Body.List[0]) != "e := &s.events[i]" {
+		t.Fatal("walk.go: the events' loop does not begin with e := &s.events[i]")
+	}
+	sw, ok := rs.Body.List[1].(*ast.SwitchStmt)
+	if len(rs.Body.List) != 2 || !ok {
+		t.Fatal("walk.go: the events' loop is not e := &s.events[i] and a switch")
+	}
+	names := make([]string, len(locals))
+	for i, id := range locals {
+		names[i] = id.Name
+	}
+	var b strings.Builder
+	fmt.Fprintf(&b, "func %s(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) [Lanes]Result {\n", name)
+	stmts := func(list []ast.Stmt) {
+		for _, st := range list {
+			b.WriteString(text(t, fs, st) + "\n")
+		}
+	}
+	stmts(consts)
+	lanes := func(do func(l int)) {
+		for l := range Lanes {
+			for i, id := range locals {
+				id.Name = fmt.Sprintf("%s_%d", names[i], l)
+			}
+			do(l)
+		}
+		for i, id := range locals {
+			id.Name = names[i]
+		}
+	}
+	lanes(func(l int) {
+		fmt.Fprintf(&b, "o_%d := &os[%d]\n", l, l)
+		stmts(pre)
+	})
+	fmt.Fprintf(&b, "%s:\nfor i := range s.events {\ne := &s.events[i]\nswitch %s {\n", loop.Label.Name, text(t, fs, sw.Tag))
+	for k, cc := range sw.Body.List {
+		cc := cc.(*ast.CaseClause)
+		var list []string
+		for _, x := range cc.List {
+			list = append(list, text(t, fs, x))
+		}
+		if len(list) == 0 {
+			t.Fatal("walk.go: the events' switch has a default")
+		}
+		fmt.Fprintf(&b, "case %s:\n", strings.Join(list, ", "))
+		// the continues of the events' loop (not of a loop inside it)
+		var next []*ast.BranchStmt
+		var find func(n ast.Node) bool
+		find = func(n ast.Node) bool {
+			switch n := n.(type) {
+			case *ast.ForStmt, *ast.RangeStmt, *ast.FuncLit:
+				return false
+			case *ast.BranchStmt:
+				if n.Tok == token.CONTINUE && n.Label == nil {
+					next = append(next, n)
+				}
+			}
+			return true
+		}
+		for _, st := range cc.Body {
+			ast.Inspect(st, find)
+		}
+		lanes(func(l int) {
+			// the last lane's continue goes on to the next event
+			label := fmt.Sprintf("next%d_%d", k, l)
+			for _, br := range next {
+				if l < Lanes-1 {
+					br.Tok, br.Label = token.GOTO, ast.NewIdent(label)
+				}
+			}
+			b.WriteString("{\n")
+			stmts(cc.Body)
+			b.WriteString("}\n")
+			if len(next) > 0 && l < Lanes-1 {
+				fmt.Fprintf(&b, "%s:\n", label)
+			}
+			for _, br := range next {
+				br.Tok, br.Label = token.CONTINUE, nil
+			}
+		})
+	}
+	b.WriteString("}\n")
+	b.WriteString("}\n")
+	var res []string
+	lanes(func(int) {
+		stmts(post)
+		res = append(res, text(t, fs, ret.Results[0]))
+	})
+	fmt.Fprintf(&b, "return [Lanes]Result{%s}\n}\n", strings.Join(res, ", "))
+	return b.String()
+}
+
+// text returns node n as Go source.
+func text(t *testing.T, fs *token.FileSet, n ast.Node) string {
+	var b bytes.Buffer
+	if err := printer.Fprint(&b, fs, n); err != nil {
+		t.Fatal(err)
+	}
+	return b.String()
 }
 
 // literal returns f as Go source: flags{…} with the flags set.
@@ -110,7 +297,8 @@ func literal(f flags) string {
 }
 
 // TestGeneratedWalks holds walk_gen.go to walk.go: each copy is walk with
-// its flags constant and nothing else changed (go test -run
+// its flags constant and nothing else changed, each lane copy walk with
+// its flags constant and its locals one a lane (go test -run
 // TestGeneratedWalks -update rewrites it; go generate runs that).
 func TestGeneratedWalks(t *testing.T) {
 	want := generateWalks(t)
