@@ -358,7 +358,7 @@ func WalkLanes(s *Schedule, in *Inputs, os *[Lanes]Options) [Lanes]Result {
 	f := flagsOf(s, in, &os[0])
 	together := true
 	for l := range os {
-		together = together && flagsOf(s, in, &os[l]) == f && os[l].Reach == nil
+		together = together && flagsOf(s, in, &os[l]) == f && !f.reach
 	}
 	if together {
 		if r, ok := walkFixedLanes(s, in, os, f); ok {
@@ -390,6 +390,7 @@ type flags struct {
 	matching bool // an employer's match applies (Inputs.Match, not One)
 	accrue   bool // interest accrues, credited at month ends (Schedule.accrue)
 	taxed    bool // a year's interest is taxed (Inputs.Tax)
+	reach    bool // Options.Reach is set
 }
 
 func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
@@ -408,6 +409,7 @@ func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 		matching: in.Match > 0 && !o.One,
 		accrue:   s.accrue,
 		taxed:    in.Tax != 0,
+		reach:    o.Reach != nil,
 	}
 }
 
@@ -433,6 +435,7 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	matching := f.matching
 	accrue := f.accrue
 	taxed := f.taxed
+	reach := f.reach
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -445,7 +448,7 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -477,8 +480,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -495,6 +499,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -530,7 +535,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -545,7 +552,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -608,7 +617,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -662,7 +673,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -678,7 +691,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -811,7 +824,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}

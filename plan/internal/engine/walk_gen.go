@@ -14,6 +14,8 @@ func walkFixed(s *Schedule, in *Inputs, o *Options, f flags) (Result, bool) {
 	switch f {
 	case flags{exact: true}:
 		return walkExact(s, in, o, f), true
+	case flags{exact: true, reach: true}:
+		return walkReach(s, in, o, f), true
 	case flags{exact: true, logged: true}:
 		return walkLedger(s, in, o, f), true
 	case flags{exact: true, paths: true}:
@@ -57,6 +59,7 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = false
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -69,7 +72,7 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -101,8 +104,9 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -119,6 +123,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -154,7 +159,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -169,7 +176,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -232,7 +241,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -286,7 +297,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -302,7 +315,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -435,7 +448,472 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
+				if logged {
+					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+				}
+				continue
+			}
+			bal += emp // the employer's part arrives with the deposit
+			if slope {
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau != 1 {
+					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+					if x+emp < 0 {
+						wi++
+					}
+					dv.acc += (x + emp) * dv.dw[wi]
+				}
+			}
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
+			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+				base += in
+			} else if !paths {
+				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+				if in < 0 {
+					i++
+				}
+				acc += in * w[i]
+			} else {
+				acc += in * o.Paths.W[i]
+			}
+			if logged {
+				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				if emp != 0 {
+					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+				}
+				if over != 0 {
+					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+				}
+			}
+		}
+	}
+	if alone {
+		copy(o.Each, ea.bal)
+	}
+	res.Closing, res.Peak = bal, peak
+	if slope {
+		res.DClosing = dv.bal
+	}
+	return res
+}
+
+// walkReach is walk under flags{exact: true, reach: true}.
+func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
+	const exact = true
+	const paths = false
+	const infl = false
+	const logged = false
+	const slope = false
+	const alone = false
+	const one = false
+	const none = false
+	const set = false
+	const ruled = false
+	const capping = false
+	const matching = false
+	const accrue = false
+	const taxed = false
+	const reach = true
+	var bal, base, acc, accrued, peak float64
+	var pool float64    // the month's income not yet paid out
+	var taxable float64 // interest credited since the last tax (Shape.Tax)
+	// matched is the deposits matched in year matchYear (Inputs.Match)
+	var matched float64
+	matchYear := int32(-1)
+	// capped is what went in during year capYear (Inputs.Cap)
+	var capped float64
+	capYear := int32(-1)
+	// low is the lowest balance (with interest accrued) held since the
+	// interest period began, what rule None pays interest on: a flow or
+	// fee at the period's first tick sets it, any later one can only
+	// lower it. It is kept only under rule None.
+	var low float64
+	res := Result{ShortTick: -1}
+	var scale float64 = 1 // minor units per currency unit (exact)
+	if exact {
+		scale = math.Pow(10, float64(in.Places))
+	}
+	var w []float64 // what a unit earns by the credit: see weight
+	if !paths {
+		w = s.weights(in.Rates, in.Between)
+	}
+	var dv *deriv // the derivatives (Options.DRates)
+	if slope {
+		dv = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
+	}
+	var ea *each // every source alone (Options.Each)
+	if alone {
+		ea = newEach(len(o.Each))
+		ea.bal[0] = in.Amounts[0]
+		ea.base[0], ea.low[0] = ea.bal[0], ea.bal[0]
+	}
+	if !one || o.Source == 0 {
+		bal = in.Amounts[0] * scale
+		if exact {
+			if q, sure := money.RoundFast(bal); sure {
+				bal = q
+			} else {
+				bal = roundAmount(bal, money.One, in.Rounding)
+			}
+		}
+		base = bal
+	}
+	if none {
+		low = base
+	}
+	// ruled and ruleYear are each ruled source's amount (currency units,
+	// before its Unit) and the year it was decided for.
+	var ruledAmt []float64
+	var ruleYear []int32
+	if ruled {
+		ruledAmt, ruleYear = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
+		for k := range ruleYear {
+			ruleYear[k] = -1
+		}
+	}
+events:
+	for i := range s.events {
+		e := &s.events[i]
+		switch e.Kind {
+		case Interest:
+			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
+				if paths {
+					j = o.Paths.J[e.Period+c]
+				} else {
+					j = in.Rates[e.Step]
+				}
+				b, plus := base, acc // the interest is b × j + plus
+				if none {
+					b, plus = low, 0
+					if exact && low < 0 { // the carried fraction of a cent below an empty account
+						b = 0
+					}
+				}
+				x := b*j + plus
+				if slope {
+					db, dplus := dv.base, dv.acc
+					if none {
+						db, dplus = dv.low, 0
+					}
+					dx := db*j + b*o.DRates[e.Step] + dplus
+					if accrue {
+						dv.accrued += dx
+						dv.base = dv.bal + dv.accrued
+					} else {
+						dv.bal += dx
+						dv.base = dv.bal
+						dv.taxable += dx
+					}
+					dv.acc, dv.low = 0, dv.base
+				}
+				if alone {
+					ea.interest(j, none, accrue)
+				}
+				if accrue {
+					accrued += x
+					base, acc = bal+accrued, 0
+					if none {
+						low = base
+					}
+					continue
+				}
+				if exact {
+					if q, sure := money.RoundFast(x); sure {
+						x = q
+					} else {
+						x = roundPosting(b, rateOf(in, e.Step, j), plus, in.Rounding)
+					}
+				}
+				bal += x
+				if taxed {
+					taxable += x
+				}
+				base, acc = bal, 0
+				if none {
+					low = base
+				}
+				if logged && x != 0 {
+					t := e.Tick + int64(c)*s.period
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+				}
+			}
+		case Credit:
+			if alone {
+				ea.credit()
+			}
+			x := accrued
+			if slope {
+				dv.bal += dv.accrued
+				dv.taxable += dv.accrued
+				dv.accrued = 0
+			}
+			if exact {
+				x = roundMinor(x, in.Rounding)
+			}
+			bal += x
+			accrued -= x
+			if taxed {
+				taxable += x
+			}
+			if logged && x != 0 {
+				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+			}
+		case Tax:
+			if alone {
+				ea.tax(in.Tax)
+			}
+			// The tax on the year's interest, paid from the account at an
+			// interest date (Tau 1): it leaves the next period's base. A
+			// year whose interest is not positive pays none (no refund or
+			// credit is modelled).
+			t := taxable
+			x := t * in.Tax
+			taxable = 0
+			var dx float64 // its derivative (Options.DRates)
+			if slope {
+				dx, dv.taxable = dv.taxable*in.Tax, 0
+			}
+			if x <= 0 {
+				continue
+			}
+			if slope {
+				dv.bal -= dx
+				dv.base -= dx
+				dv.low = dv.bal + dv.accrued
+			}
+			if exact {
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundPosting(t, in.TaxM, 0, in.Rounding)
+				}
+				x = min(x, max(bal, 0)) // what the account holds; no debt is modelled
+				if x == 0 {
+					continue
+				}
+			}
+			bal -= x
+			base -= x
+			if none {
+				low = bal + accrued
+			}
+			if logged {
+				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+			}
+		case Fee:
+			if alone {
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+			}
+			f := bal * in.Fee
+			if exact {
+				if bal <= 0 {
+					continue
+				}
+				if q, sure := money.RoundFast(f); sure {
+					f = q
+				} else {
+					f = roundPosting(bal, in.FeeM, 0, in.Rounding)
+				}
+				if f == 0 {
+					continue
+				}
+			}
+			bal -= f
+			if slope {
+				wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
+				df := dv.bal * in.Fee
+				dv.bal -= df
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau == 1 {
+					dv.base -= df
+				} else {
+					dv.acc -= df*w[wi] + f*dv.dw[wi]
+				}
+			}
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
+			if e.Tau == 1 { // a whole period's interest: part of the next base
+				base -= f
+			} else if !paths {
+				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
+			} else {
+				acc -= f * o.Paths.W[i]
+			}
+			if logged {
+				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+			}
+		case Mark:
+			pool = 0 // income its month's withdrawals did not need is not deposited
+			if alone {
+				clear(ea.pool)
+			}
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
+			m := e.Month
+			if logged {
+				o.Log.MonthEnd[m] = int64(bal)
+			}
+			if o.MonthEnds != nil {
+				o.MonthEnds[m] = bal / scale
+			}
+			if o.Rows != nil {
+				if row := o.Rows[m]; row != nil {
+					row[o.Path] = bal
+				}
+			}
+			if o.HasDeadline && m == o.Deadline {
+				res.AtDeadline = bal
+			}
+			if reach && o.Reach(m, bal/scale) {
+				res.Reached, res.ReachMonth = true, m
+				break events
+			}
+		case FlowEnd, FlowBegin, Income:
+			if alone && e.Kind != Income && in.Out[e.Src] {
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+			}
+			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
+				// the month's income, unclamped, as money in at its first
+				// withdrawal: linear in every amount, so that income is
+				// valued alone like any other source
+				if slope {
+					if none {
+						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					}
+					if e.Tau != 1 {
+						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+					}
+				}
+				if e.Tau == 1 {
+					base += pool
+				} else if !paths {
+					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+				} else {
+					acc += pool * o.Paths.W[i]
+				}
+				bal += pool
+				pool = 0
+				if none {
+					low = lowest(low, bal+accrued, e.Tau)
+				}
+			}
+			if one && e.Src != o.Source {
+				continue
+			}
+			a := in.Amounts[e.Src] * scale
+			if set && e.Src == in.SetSrc {
+				a = in.Set[i] * scale
+			}
+			if ruled && in.Rules[e.Src].Kind != RuleFixed {
+				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+					u := e.Unit
+					if infl && (e.IA != 0 || e.IB != 0) {
+						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					}
+					first := ruleYear[e.Src] < 0
+					if first {
+						ruledAmt[e.Src] = in.Amounts[e.Src]
+					}
+					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
+					ruleYear[e.Src] = e.Year
+				}
+				a = ruledAmt[e.Src] * scale
+			}
+			x := a * e.Unit
+			if infl && (e.IA != 0 || e.IB != 0) {
+				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+				if exact {
+					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
+				}
+			} else if exact {
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
+			}
+			if alone {
+				y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
+				if in.Out[e.Src] {
+					y, wi = -math.Abs(x), wi+1
+				}
+				if e.Kind == Income {
+					ea.pool[e.Src] += y
+				} else {
+					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+				}
+			}
+			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
+				pool += x
+				if logged {
+					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+				}
+				continue
+			}
+			var short, covered, emp, over float64
+			if capping && in.Capped[e.Src] && x > 0 {
+				if y := e.Month / 12; y != capYear {
+					capYear, capped = y, 0
+				}
+				over = max(x-max(in.Cap*scale-capped, 0), 0)
+				x -= over
+				capped += x
+			}
+			if matching && in.Matched[e.Src] && x > 0 {
+				if y := e.Month / 12; y != matchYear {
+					matchYear, matched = y, 0
+				}
+				m := x
+				if in.MatchLimit != nil {
+					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+				}
+				matched += m
+				emp = m * in.Match
+				if exact {
+					if q, sure := money.RoundFast(emp); sure {
+						emp = q
+					} else {
+						emp = roundPosting(m, in.MatchM, 0, in.Rounding)
+					}
+				}
+			}
+			if in.Out[e.Src] {
+				x = -math.Abs(x)
+				if pool > 0 && exact { // the month's income pays first
+					covered = min(pool, -x)
+					pool -= covered
+					x += covered
+				}
+				if exact && -x > bal {
+					if !res.Short {
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+					}
+					paid := max(bal, 0)
+					short, x = -x-paid, -paid
+				}
+			}
+			bal += x
+			if short > 0 {
+				// Emptied: what the money earned in this period before it
+				// left is forfeit, so the balance stays at zero until money
+				// comes in.
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -505,6 +983,7 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = false
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -517,7 +996,7 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -549,8 +1028,9 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -567,6 +1047,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -602,7 +1083,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -617,7 +1100,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -680,7 +1165,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -734,7 +1221,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -750,7 +1239,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -883,7 +1372,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -953,6 +1445,7 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = false
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -965,7 +1458,7 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -997,8 +1490,9 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1015,6 +1509,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -1050,7 +1545,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -1065,7 +1562,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -1128,7 +1627,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -1182,7 +1683,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -1198,7 +1701,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -1331,7 +1834,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -1401,6 +1907,7 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = false
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -1413,7 +1920,7 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -1445,8 +1952,9 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1463,6 +1971,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -1498,7 +2007,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -1513,7 +2024,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -1576,7 +2089,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -1630,7 +2145,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -1646,7 +2163,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -1779,7 +2296,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -1849,6 +2369,7 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = false
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -1861,7 +2382,7 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -1893,8 +2414,9 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1911,6 +2433,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -1946,7 +2469,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -1961,7 +2486,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -2024,7 +2551,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -2078,7 +2607,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -2094,7 +2625,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -2227,7 +2758,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -2297,6 +2831,7 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = true
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -2309,7 +2844,7 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -2341,8 +2876,9 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -2359,6 +2895,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -2394,7 +2931,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -2409,7 +2948,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -2472,7 +3013,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -2526,7 +3069,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -2542,7 +3087,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -2675,7 +3220,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -2745,6 +3293,7 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = true
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -2757,7 +3306,7 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -2789,8 +3338,9 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -2807,6 +3357,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -2842,7 +3393,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -2857,7 +3410,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -2920,7 +3475,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -2974,7 +3531,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -2990,7 +3549,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -3123,7 +3682,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -3193,6 +3755,7 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	const matching = false
 	const accrue = true
 	const taxed = false
+	const reach = false
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -3205,7 +3768,7 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
@@ -3237,8 +3800,9 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -3255,6 +3819,7 @@ events:
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
 				if paths {
 					j = o.Paths.J[e.Period+c]
 				} else {
@@ -3290,7 +3855,9 @@ events:
 				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
 				if exact {
@@ -3305,7 +3872,9 @@ events:
 					taxable += x
 				}
 				base, acc = bal, 0
-				low = base
+				if none {
+					low = base
+				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
@@ -3368,7 +3937,9 @@ events:
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
+			if none {
+				low = bal + accrued
+			}
 			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
@@ -3422,7 +3993,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
+			if bal > peak { // max(peak, bal), for a balance that is never NaN
+				peak = bal
+			}
 			m := e.Month
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
@@ -3438,7 +4011,7 @@ events:
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
 				break events
 			}
@@ -3571,7 +4144,10 @@ events:
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
 				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
@@ -3626,7 +4202,7 @@ events:
 }
 
 // walkPathsLanes is walk under flags{exact: true, paths: true}, for each of Lanes options at once.
-func walkPathsLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) [Lanes]Result {
+func walkPathsLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) (r [Lanes]Result) {
 	const exact = true
 	const paths = true
 	const infl = false
@@ -3641,200 +4217,61 @@ func walkPathsLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) [Lanes
 	const matching = false
 	const accrue = false
 	const taxed = false
-	o_0 := &os[0]
-	var bal_0, base_0, acc_0, accrued_0, peak_0 float64
-	var pool_0 float64
-	var taxable_0 float64
-	var matched_0 float64
-	matchYear_0 := int32(-1)
-	var capped_0 float64
-	capYear_0 := int32(-1)
-	var low_0 float64
-	res_0 := Result{ShortTick: -1}
-	var scale_0 float64 = 1
-	if exact {
-		scale_0 = math.Pow(10, float64(in.Places))
-	}
-	var w_0 []float64
-	if !paths {
-		w_0 = s.weights(in.Rates, in.Between)
-	}
-	var dv_0 *deriv
-	if slope {
-		dv_0 = &deriv{dw: s.dweights(in.Rates, o_0.DRates, in.Between)}
-	}
-	var ea_0 *each
-	if alone {
-		ea_0 = newEach(len(o_0.Each))
-		ea_0.bal[0] = in.Amounts[0]
-		ea_0.base[0], ea_0.low[0] = ea_0.bal[0], ea_0.bal[0]
-	}
-	if !one || o_0.Source == 0 {
-		bal_0 = in.Amounts[0] * scale_0
+	const reach = false
+	var bal, base, acc, accrued, peak [Lanes]float64
+	var pool [Lanes]float64
+	var taxable [Lanes]float64
+	var matched [Lanes]float64
+	var matchYear [Lanes]int32
+	var capped [Lanes]float64
+	var capYear [Lanes]int32
+	var low [Lanes]float64
+	var res [Lanes]Result
+	var scale [Lanes]float64
+	var w [Lanes][]float64
+	var dv [Lanes]*deriv
+	var ea [Lanes]*each
+	var ruledAmt [Lanes][]float64
+	var ruleYear [Lanes][]int32
+	for l := range Lanes {
+		o := &os[l]
+		matchYear[l] = int32(-1)
+		capYear[l] = int32(-1)
+		res[l] = Result{ShortTick: -1}
+		scale[l] = 1
 		if exact {
-			if q_0, sure_0 := money.RoundFast(bal_0); sure_0 {
-				bal_0 = q_0
-			} else {
-				bal_0 = roundAmount(bal_0, money.One, in.Rounding)
+			scale[l] = math.Pow(10, float64(in.Places))
+		}
+		if !paths {
+			w[l] = s.weights(in.Rates, in.Between)
+		}
+		if slope {
+			dv[l] = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
+		}
+		if alone {
+			ea[l] = newEach(len(o.Each))
+			ea[l].bal[0] = in.Amounts[0]
+			ea[l].base[0], ea[l].low[0] = ea[l].bal[0], ea[l].bal[0]
+		}
+		if !one || o.Source == 0 {
+			bal[l] = in.Amounts[0] * scale[l]
+			if exact {
+				if q, sure := money.RoundFast(bal[l]); sure {
+					bal[l] = q
+				} else {
+					bal[l] = roundAmount(bal[l], money.One, in.Rounding)
+				}
 			}
+			base[l] = bal[l]
 		}
-		base_0 = bal_0
-	}
-	low_0 = base_0
-	var j_0 float64
-	var ruledAmt_0 []float64
-	var ruleYear_0 []int32
-	if ruled {
-		ruledAmt_0, ruleYear_0 = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
-		for k_0 := range ruleYear_0 {
-			ruleYear_0[k_0] = -1
+		if none {
+			low[l] = base[l]
 		}
-	}
-	o_1 := &os[1]
-	var bal_1, base_1, acc_1, accrued_1, peak_1 float64
-	var pool_1 float64
-	var taxable_1 float64
-	var matched_1 float64
-	matchYear_1 := int32(-1)
-	var capped_1 float64
-	capYear_1 := int32(-1)
-	var low_1 float64
-	res_1 := Result{ShortTick: -1}
-	var scale_1 float64 = 1
-	if exact {
-		scale_1 = math.Pow(10, float64(in.Places))
-	}
-	var w_1 []float64
-	if !paths {
-		w_1 = s.weights(in.Rates, in.Between)
-	}
-	var dv_1 *deriv
-	if slope {
-		dv_1 = &deriv{dw: s.dweights(in.Rates, o_1.DRates, in.Between)}
-	}
-	var ea_1 *each
-	if alone {
-		ea_1 = newEach(len(o_1.Each))
-		ea_1.bal[0] = in.Amounts[0]
-		ea_1.base[0], ea_1.low[0] = ea_1.bal[0], ea_1.bal[0]
-	}
-	if !one || o_1.Source == 0 {
-		bal_1 = in.Amounts[0] * scale_1
-		if exact {
-			if q_1, sure_1 := money.RoundFast(bal_1); sure_1 {
-				bal_1 = q_1
-			} else {
-				bal_1 = roundAmount(bal_1, money.One, in.Rounding)
+		if ruled {
+			ruledAmt[l], ruleYear[l] = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
+			for k := range ruleYear[l] {
+				ruleYear[l][k] = -1
 			}
-		}
-		base_1 = bal_1
-	}
-	low_1 = base_1
-	var j_1 float64
-	var ruledAmt_1 []float64
-	var ruleYear_1 []int32
-	if ruled {
-		ruledAmt_1, ruleYear_1 = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
-		for k_1 := range ruleYear_1 {
-			ruleYear_1[k_1] = -1
-		}
-	}
-	o_2 := &os[2]
-	var bal_2, base_2, acc_2, accrued_2, peak_2 float64
-	var pool_2 float64
-	var taxable_2 float64
-	var matched_2 float64
-	matchYear_2 := int32(-1)
-	var capped_2 float64
-	capYear_2 := int32(-1)
-	var low_2 float64
-	res_2 := Result{ShortTick: -1}
-	var scale_2 float64 = 1
-	if exact {
-		scale_2 = math.Pow(10, float64(in.Places))
-	}
-	var w_2 []float64
-	if !paths {
-		w_2 = s.weights(in.Rates, in.Between)
-	}
-	var dv_2 *deriv
-	if slope {
-		dv_2 = &deriv{dw: s.dweights(in.Rates, o_2.DRates, in.Between)}
-	}
-	var ea_2 *each
-	if alone {
-		ea_2 = newEach(len(o_2.Each))
-		ea_2.bal[0] = in.Amounts[0]
-		ea_2.base[0], ea_2.low[0] = ea_2.bal[0], ea_2.bal[0]
-	}
-	if !one || o_2.Source == 0 {
-		bal_2 = in.Amounts[0] * scale_2
-		if exact {
-			if q_2, sure_2 := money.RoundFast(bal_2); sure_2 {
-				bal_2 = q_2
-			} else {
-				bal_2 = roundAmount(bal_2, money.One, in.Rounding)
-			}
-		}
-		base_2 = bal_2
-	}
-	low_2 = base_2
-	var j_2 float64
-	var ruledAmt_2 []float64
-	var ruleYear_2 []int32
-	if ruled {
-		ruledAmt_2, ruleYear_2 = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
-		for k_2 := range ruleYear_2 {
-			ruleYear_2[k_2] = -1
-		}
-	}
-	o_3 := &os[3]
-	var bal_3, base_3, acc_3, accrued_3, peak_3 float64
-	var pool_3 float64
-	var taxable_3 float64
-	var matched_3 float64
-	matchYear_3 := int32(-1)
-	var capped_3 float64
-	capYear_3 := int32(-1)
-	var low_3 float64
-	res_3 := Result{ShortTick: -1}
-	var scale_3 float64 = 1
-	if exact {
-		scale_3 = math.Pow(10, float64(in.Places))
-	}
-	var w_3 []float64
-	if !paths {
-		w_3 = s.weights(in.Rates, in.Between)
-	}
-	var dv_3 *deriv
-	if slope {
-		dv_3 = &deriv{dw: s.dweights(in.Rates, o_3.DRates, in.Between)}
-	}
-	var ea_3 *each
-	if alone {
-		ea_3 = newEach(len(o_3.Each))
-		ea_3.bal[0] = in.Amounts[0]
-		ea_3.base[0], ea_3.low[0] = ea_3.bal[0], ea_3.bal[0]
-	}
-	if !one || o_3.Source == 0 {
-		bal_3 = in.Amounts[0] * scale_3
-		if exact {
-			if q_3, sure_3 := money.RoundFast(bal_3); sure_3 {
-				bal_3 = q_3
-			} else {
-				bal_3 = roundAmount(bal_3, money.One, in.Rounding)
-			}
-		}
-		base_3 = bal_3
-	}
-	low_3 = base_3
-	var j_3 float64
-	var ruledAmt_3 []float64
-	var ruleYear_3 []int32
-	if ruled {
-		ruledAmt_3, ruleYear_3 = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
-		for k_3 := range ruleYear_3 {
-			ruleYear_3[k_3] = -1
 		}
 	}
 events:
@@ -3842,1481 +4279,399 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			{
-				for c_0 := range e.Count {
+			for l := range Lanes {
+				o := &os[l]
+				for c := range e.Count {
+					var j float64
 					if paths {
-						j_0 = o_0.Paths.J[e.Period+c_0]
+						j = o.Paths.J[e.Period+c]
 					} else {
-						j_0 = in.Rates[e.Step]
+						j = in.Rates[e.Step]
 					}
-					b_0, plus_0 := base_0, acc_0
+					b, plus := base[l], acc[l]
 					if none {
-						b_0, plus_0 = low_0, 0
-						if exact && low_0 < 0 {
-							b_0 = 0
+						b, plus = low[l], 0
+						if exact && low[l] < 0 {
+							b = 0
 						}
 					}
-					x_0 := b_0*j_0 + plus_0
+					x := b*j + plus
 					if slope {
-						db_0, dplus_0 := dv_0.base, dv_0.acc
+						db, dplus := dv[l].base, dv[l].acc
 						if none {
-							db_0, dplus_0 = dv_0.low, 0
+							db, dplus = dv[l].low, 0
 						}
-						dx_0 := db_0*j_0 + b_0*o_0.DRates[e.Step] + dplus_0
+						dx := db*j + b*o.DRates[e.Step] + dplus
 						if accrue {
-							dv_0.accrued += dx_0
-							dv_0.base = dv_0.bal + dv_0.accrued
+							dv[l].accrued += dx
+							dv[l].base = dv[l].bal + dv[l].accrued
 						} else {
-							dv_0.bal += dx_0
-							dv_0.base = dv_0.bal
-							dv_0.taxable += dx_0
+							dv[l].bal += dx
+							dv[l].base = dv[l].bal
+							dv[l].taxable += dx
 						}
-						dv_0.acc, dv_0.low = 0, dv_0.base
+						dv[l].acc, dv[l].low = 0, dv[l].base
 					}
 					if alone {
-						ea_0.interest(j_0, none, accrue)
+						ea[l].interest(j, none, accrue)
 					}
 					if accrue {
-						accrued_0 += x_0
-						base_0, acc_0 = bal_0+accrued_0, 0
-						low_0 = base_0
+						accrued[l] += x
+						base[l], acc[l] = bal[l]+accrued[l], 0
+						if none {
+							low[l] = base[l]
+						}
 						continue
 					}
 					if exact {
-						if q_0, sure_0 := money.RoundFast(x_0); sure_0 {
-							x_0 = q_0
+						if q, sure := money.RoundFast(x); sure {
+							x = q
 						} else {
-							x_0 = roundPosting(b_0, rateOf(in, e.Step, j_0), plus_0, in.Rounding)
+							x = roundPosting(b, rateOf(in, e.Step, j), plus, in.Rounding)
 						}
 					}
-					bal_0 += x_0
+					bal[l] += x
 					if taxed {
-						taxable_0 += x_0
+						taxable[l] += x
 					}
-					base_0, acc_0 = bal_0, 0
-					low_0 = base_0
-					if logged && x_0 != 0 {
-						t_0 := e.Tick + int64(c_0)*s.period
-						o_0.Log.post(t_0, labelEnd(t_0), PostInterest, 0, x_0, bal_0, 0, 0)
-					}
-				}
-			}
-			{
-				for c_1 := range e.Count {
-					if paths {
-						j_1 = o_1.Paths.J[e.Period+c_1]
-					} else {
-						j_1 = in.Rates[e.Step]
-					}
-					b_1, plus_1 := base_1, acc_1
+					base[l], acc[l] = bal[l], 0
 					if none {
-						b_1, plus_1 = low_1, 0
-						if exact && low_1 < 0 {
-							b_1 = 0
-						}
+						low[l] = base[l]
 					}
-					x_1 := b_1*j_1 + plus_1
-					if slope {
-						db_1, dplus_1 := dv_1.base, dv_1.acc
-						if none {
-							db_1, dplus_1 = dv_1.low, 0
-						}
-						dx_1 := db_1*j_1 + b_1*o_1.DRates[e.Step] + dplus_1
-						if accrue {
-							dv_1.accrued += dx_1
-							dv_1.base = dv_1.bal + dv_1.accrued
-						} else {
-							dv_1.bal += dx_1
-							dv_1.base = dv_1.bal
-							dv_1.taxable += dx_1
-						}
-						dv_1.acc, dv_1.low = 0, dv_1.base
-					}
-					if alone {
-						ea_1.interest(j_1, none, accrue)
-					}
-					if accrue {
-						accrued_1 += x_1
-						base_1, acc_1 = bal_1+accrued_1, 0
-						low_1 = base_1
-						continue
-					}
-					if exact {
-						if q_1, sure_1 := money.RoundFast(x_1); sure_1 {
-							x_1 = q_1
-						} else {
-							x_1 = roundPosting(b_1, rateOf(in, e.Step, j_1), plus_1, in.Rounding)
-						}
-					}
-					bal_1 += x_1
-					if taxed {
-						taxable_1 += x_1
-					}
-					base_1, acc_1 = bal_1, 0
-					low_1 = base_1
-					if logged && x_1 != 0 {
-						t_1 := e.Tick + int64(c_1)*s.period
-						o_1.Log.post(t_1, labelEnd(t_1), PostInterest, 0, x_1, bal_1, 0, 0)
-					}
-				}
-			}
-			{
-				for c_2 := range e.Count {
-					if paths {
-						j_2 = o_2.Paths.J[e.Period+c_2]
-					} else {
-						j_2 = in.Rates[e.Step]
-					}
-					b_2, plus_2 := base_2, acc_2
-					if none {
-						b_2, plus_2 = low_2, 0
-						if exact && low_2 < 0 {
-							b_2 = 0
-						}
-					}
-					x_2 := b_2*j_2 + plus_2
-					if slope {
-						db_2, dplus_2 := dv_2.base, dv_2.acc
-						if none {
-							db_2, dplus_2 = dv_2.low, 0
-						}
-						dx_2 := db_2*j_2 + b_2*o_2.DRates[e.Step] + dplus_2
-						if accrue {
-							dv_2.accrued += dx_2
-							dv_2.base = dv_2.bal + dv_2.accrued
-						} else {
-							dv_2.bal += dx_2
-							dv_2.base = dv_2.bal
-							dv_2.taxable += dx_2
-						}
-						dv_2.acc, dv_2.low = 0, dv_2.base
-					}
-					if alone {
-						ea_2.interest(j_2, none, accrue)
-					}
-					if accrue {
-						accrued_2 += x_2
-						base_2, acc_2 = bal_2+accrued_2, 0
-						low_2 = base_2
-						continue
-					}
-					if exact {
-						if q_2, sure_2 := money.RoundFast(x_2); sure_2 {
-							x_2 = q_2
-						} else {
-							x_2 = roundPosting(b_2, rateOf(in, e.Step, j_2), plus_2, in.Rounding)
-						}
-					}
-					bal_2 += x_2
-					if taxed {
-						taxable_2 += x_2
-					}
-					base_2, acc_2 = bal_2, 0
-					low_2 = base_2
-					if logged && x_2 != 0 {
-						t_2 := e.Tick + int64(c_2)*s.period
-						o_2.Log.post(t_2, labelEnd(t_2), PostInterest, 0, x_2, bal_2, 0, 0)
-					}
-				}
-			}
-			{
-				for c_3 := range e.Count {
-					if paths {
-						j_3 = o_3.Paths.J[e.Period+c_3]
-					} else {
-						j_3 = in.Rates[e.Step]
-					}
-					b_3, plus_3 := base_3, acc_3
-					if none {
-						b_3, plus_3 = low_3, 0
-						if exact && low_3 < 0 {
-							b_3 = 0
-						}
-					}
-					x_3 := b_3*j_3 + plus_3
-					if slope {
-						db_3, dplus_3 := dv_3.base, dv_3.acc
-						if none {
-							db_3, dplus_3 = dv_3.low, 0
-						}
-						dx_3 := db_3*j_3 + b_3*o_3.DRates[e.Step] + dplus_3
-						if accrue {
-							dv_3.accrued += dx_3
-							dv_3.base = dv_3.bal + dv_3.accrued
-						} else {
-							dv_3.bal += dx_3
-							dv_3.base = dv_3.bal
-							dv_3.taxable += dx_3
-						}
-						dv_3.acc, dv_3.low = 0, dv_3.base
-					}
-					if alone {
-						ea_3.interest(j_3, none, accrue)
-					}
-					if accrue {
-						accrued_3 += x_3
-						base_3, acc_3 = bal_3+accrued_3, 0
-						low_3 = base_3
-						continue
-					}
-					if exact {
-						if q_3, sure_3 := money.RoundFast(x_3); sure_3 {
-							x_3 = q_3
-						} else {
-							x_3 = roundPosting(b_3, rateOf(in, e.Step, j_3), plus_3, in.Rounding)
-						}
-					}
-					bal_3 += x_3
-					if taxed {
-						taxable_3 += x_3
-					}
-					base_3, acc_3 = bal_3, 0
-					low_3 = base_3
-					if logged && x_3 != 0 {
-						t_3 := e.Tick + int64(c_3)*s.period
-						o_3.Log.post(t_3, labelEnd(t_3), PostInterest, 0, x_3, bal_3, 0, 0)
+					if logged && x != 0 {
+						t := e.Tick + int64(c)*s.period
+						o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal[l], 0, 0)
 					}
 				}
 			}
 		case Credit:
-			{
+			for l := range Lanes {
+				o := &os[l]
 				if alone {
-					ea_0.credit()
+					ea[l].credit()
 				}
-				x_0 := accrued_0
+				x := accrued[l]
 				if slope {
-					dv_0.bal += dv_0.accrued
-					dv_0.taxable += dv_0.accrued
-					dv_0.accrued = 0
+					dv[l].bal += dv[l].accrued
+					dv[l].taxable += dv[l].accrued
+					dv[l].accrued = 0
 				}
 				if exact {
-					x_0 = roundMinor(x_0, in.Rounding)
+					x = roundMinor(x, in.Rounding)
 				}
-				bal_0 += x_0
-				accrued_0 -= x_0
+				bal[l] += x
+				accrued[l] -= x
 				if taxed {
-					taxable_0 += x_0
+					taxable[l] += x
 				}
-				if logged && x_0 != 0 {
-					o_0.Log.post(e.Tick, e.Month, PostInterest, 0, x_0, bal_0, 0, 0)
-				}
-			}
-			{
-				if alone {
-					ea_1.credit()
-				}
-				x_1 := accrued_1
-				if slope {
-					dv_1.bal += dv_1.accrued
-					dv_1.taxable += dv_1.accrued
-					dv_1.accrued = 0
-				}
-				if exact {
-					x_1 = roundMinor(x_1, in.Rounding)
-				}
-				bal_1 += x_1
-				accrued_1 -= x_1
-				if taxed {
-					taxable_1 += x_1
-				}
-				if logged && x_1 != 0 {
-					o_1.Log.post(e.Tick, e.Month, PostInterest, 0, x_1, bal_1, 0, 0)
-				}
-			}
-			{
-				if alone {
-					ea_2.credit()
-				}
-				x_2 := accrued_2
-				if slope {
-					dv_2.bal += dv_2.accrued
-					dv_2.taxable += dv_2.accrued
-					dv_2.accrued = 0
-				}
-				if exact {
-					x_2 = roundMinor(x_2, in.Rounding)
-				}
-				bal_2 += x_2
-				accrued_2 -= x_2
-				if taxed {
-					taxable_2 += x_2
-				}
-				if logged && x_2 != 0 {
-					o_2.Log.post(e.Tick, e.Month, PostInterest, 0, x_2, bal_2, 0, 0)
-				}
-			}
-			{
-				if alone {
-					ea_3.credit()
-				}
-				x_3 := accrued_3
-				if slope {
-					dv_3.bal += dv_3.accrued
-					dv_3.taxable += dv_3.accrued
-					dv_3.accrued = 0
-				}
-				if exact {
-					x_3 = roundMinor(x_3, in.Rounding)
-				}
-				bal_3 += x_3
-				accrued_3 -= x_3
-				if taxed {
-					taxable_3 += x_3
-				}
-				if logged && x_3 != 0 {
-					o_3.Log.post(e.Tick, e.Month, PostInterest, 0, x_3, bal_3, 0, 0)
+				if logged && x != 0 {
+					o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal[l], 0, 0)
 				}
 			}
 		case Tax:
-			{
+			for l := range Lanes {
+				o := &os[l]
 				if alone {
-					ea_0.tax(in.Tax)
+					ea[l].tax(in.Tax)
 				}
-				t_0 := taxable_0
-				x_0 := t_0 * in.Tax
-				taxable_0 = 0
-				var dx_0 float64
+				t := taxable[l]
+				x := t * in.Tax
+				taxable[l] = 0
+				var dx float64
 				if slope {
-					dx_0, dv_0.taxable = dv_0.taxable*in.Tax, 0
+					dx, dv[l].taxable = dv[l].taxable*in.Tax, 0
 				}
-				if x_0 <= 0 {
-					goto next2_0
-				}
-				if slope {
-					dv_0.bal -= dx_0
-					dv_0.base -= dx_0
-					dv_0.low = dv_0.bal + dv_0.accrued
-				}
-				if exact {
-					if q_0, sure_0 := money.RoundFast(x_0); sure_0 {
-						x_0 = q_0
-					} else {
-						x_0 = roundPosting(t_0, in.TaxM, 0, in.Rounding)
-					}
-					x_0 = min(x_0, max(bal_0, 0))
-					if x_0 == 0 {
-						goto next2_0
-					}
-				}
-				bal_0 -= x_0
-				base_0 -= x_0
-				low_0 = bal_0 + accrued_0
-				if logged {
-					o_0.Log.post(e.Tick, e.Month, PostTax, 0, -x_0, bal_0, 0, 0)
-				}
-			}
-		next2_0:
-			{
-				if alone {
-					ea_1.tax(in.Tax)
-				}
-				t_1 := taxable_1
-				x_1 := t_1 * in.Tax
-				taxable_1 = 0
-				var dx_1 float64
-				if slope {
-					dx_1, dv_1.taxable = dv_1.taxable*in.Tax, 0
-				}
-				if x_1 <= 0 {
-					goto next2_1
-				}
-				if slope {
-					dv_1.bal -= dx_1
-					dv_1.base -= dx_1
-					dv_1.low = dv_1.bal + dv_1.accrued
-				}
-				if exact {
-					if q_1, sure_1 := money.RoundFast(x_1); sure_1 {
-						x_1 = q_1
-					} else {
-						x_1 = roundPosting(t_1, in.TaxM, 0, in.Rounding)
-					}
-					x_1 = min(x_1, max(bal_1, 0))
-					if x_1 == 0 {
-						goto next2_1
-					}
-				}
-				bal_1 -= x_1
-				base_1 -= x_1
-				low_1 = bal_1 + accrued_1
-				if logged {
-					o_1.Log.post(e.Tick, e.Month, PostTax, 0, -x_1, bal_1, 0, 0)
-				}
-			}
-		next2_1:
-			{
-				if alone {
-					ea_2.tax(in.Tax)
-				}
-				t_2 := taxable_2
-				x_2 := t_2 * in.Tax
-				taxable_2 = 0
-				var dx_2 float64
-				if slope {
-					dx_2, dv_2.taxable = dv_2.taxable*in.Tax, 0
-				}
-				if x_2 <= 0 {
-					goto next2_2
-				}
-				if slope {
-					dv_2.bal -= dx_2
-					dv_2.base -= dx_2
-					dv_2.low = dv_2.bal + dv_2.accrued
-				}
-				if exact {
-					if q_2, sure_2 := money.RoundFast(x_2); sure_2 {
-						x_2 = q_2
-					} else {
-						x_2 = roundPosting(t_2, in.TaxM, 0, in.Rounding)
-					}
-					x_2 = min(x_2, max(bal_2, 0))
-					if x_2 == 0 {
-						goto next2_2
-					}
-				}
-				bal_2 -= x_2
-				base_2 -= x_2
-				low_2 = bal_2 + accrued_2
-				if logged {
-					o_2.Log.post(e.Tick, e.Month, PostTax, 0, -x_2, bal_2, 0, 0)
-				}
-			}
-		next2_2:
-			{
-				if alone {
-					ea_3.tax(in.Tax)
-				}
-				t_3 := taxable_3
-				x_3 := t_3 * in.Tax
-				taxable_3 = 0
-				var dx_3 float64
-				if slope {
-					dx_3, dv_3.taxable = dv_3.taxable*in.Tax, 0
-				}
-				if x_3 <= 0 {
+				if x <= 0 {
 					continue
 				}
 				if slope {
-					dv_3.bal -= dx_3
-					dv_3.base -= dx_3
-					dv_3.low = dv_3.bal + dv_3.accrued
+					dv[l].bal -= dx
+					dv[l].base -= dx
+					dv[l].low = dv[l].bal + dv[l].accrued
 				}
 				if exact {
-					if q_3, sure_3 := money.RoundFast(x_3); sure_3 {
-						x_3 = q_3
+					if q, sure := money.RoundFast(x); sure {
+						x = q
 					} else {
-						x_3 = roundPosting(t_3, in.TaxM, 0, in.Rounding)
+						x = roundPosting(t, in.TaxM, 0, in.Rounding)
 					}
-					x_3 = min(x_3, max(bal_3, 0))
-					if x_3 == 0 {
+					x = min(x, max(bal[l], 0))
+					if x == 0 {
 						continue
 					}
 				}
-				bal_3 -= x_3
-				base_3 -= x_3
-				low_3 = bal_3 + accrued_3
+				bal[l] -= x
+				base[l] -= x
+				if none {
+					low[l] = bal[l] + accrued[l]
+				}
 				if logged {
-					o_3.Log.post(e.Tick, e.Month, PostTax, 0, -x_3, bal_3, 0, 0)
+					o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal[l], 0, 0)
 				}
 			}
 		case Fee:
-			{
+			for l := range Lanes {
+				o := &os[l]
 				if alone {
-					ea_0.fee(in.Fee, w_0[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+					ea[l].fee(in.Fee, w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
 				}
-				f_0 := bal_0 * in.Fee
+				f := bal[l] * in.Fee
 				if exact {
-					if bal_0 <= 0 {
-						goto next3_0
-					}
-					if q_0, sure_0 := money.RoundFast(f_0); sure_0 {
-						f_0 = q_0
-					} else {
-						f_0 = roundPosting(bal_0, in.FeeM, 0, in.Rounding)
-					}
-					if f_0 == 0 {
-						goto next3_0
-					}
-				}
-				bal_0 -= f_0
-				if slope {
-					wi_0 := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
-					df_0 := dv_0.bal * in.Fee
-					dv_0.bal -= df_0
-					if none {
-						dv_0.low = dlowest(low_0, bal_0+accrued_0, e.Tau, dv_0.low, dv_0.bal+dv_0.accrued)
-					}
-					if e.Tau == 1 {
-						dv_0.base -= df_0
-					} else {
-						dv_0.acc -= df_0*w_0[wi_0] + f_0*dv_0.dw[wi_0]
-					}
-				}
-				if none {
-					low_0 = lowest(low_0, bal_0+accrued_0, e.Tau)
-				}
-				if e.Tau == 1 {
-					base_0 -= f_0
-				} else if !paths {
-					acc_0 -= f_0 * w_0[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
-				} else {
-					acc_0 -= f_0 * o_0.Paths.W[i]
-				}
-				if logged {
-					o_0.Log.post(e.Tick, e.Month, PostFee, 0, -f_0, bal_0, 0, 0)
-				}
-			}
-		next3_0:
-			{
-				if alone {
-					ea_1.fee(in.Fee, w_1[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
-				}
-				f_1 := bal_1 * in.Fee
-				if exact {
-					if bal_1 <= 0 {
-						goto next3_1
-					}
-					if q_1, sure_1 := money.RoundFast(f_1); sure_1 {
-						f_1 = q_1
-					} else {
-						f_1 = roundPosting(bal_1, in.FeeM, 0, in.Rounding)
-					}
-					if f_1 == 0 {
-						goto next3_1
-					}
-				}
-				bal_1 -= f_1
-				if slope {
-					wi_1 := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
-					df_1 := dv_1.bal * in.Fee
-					dv_1.bal -= df_1
-					if none {
-						dv_1.low = dlowest(low_1, bal_1+accrued_1, e.Tau, dv_1.low, dv_1.bal+dv_1.accrued)
-					}
-					if e.Tau == 1 {
-						dv_1.base -= df_1
-					} else {
-						dv_1.acc -= df_1*w_1[wi_1] + f_1*dv_1.dw[wi_1]
-					}
-				}
-				if none {
-					low_1 = lowest(low_1, bal_1+accrued_1, e.Tau)
-				}
-				if e.Tau == 1 {
-					base_1 -= f_1
-				} else if !paths {
-					acc_1 -= f_1 * w_1[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
-				} else {
-					acc_1 -= f_1 * o_1.Paths.W[i]
-				}
-				if logged {
-					o_1.Log.post(e.Tick, e.Month, PostFee, 0, -f_1, bal_1, 0, 0)
-				}
-			}
-		next3_1:
-			{
-				if alone {
-					ea_2.fee(in.Fee, w_2[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
-				}
-				f_2 := bal_2 * in.Fee
-				if exact {
-					if bal_2 <= 0 {
-						goto next3_2
-					}
-					if q_2, sure_2 := money.RoundFast(f_2); sure_2 {
-						f_2 = q_2
-					} else {
-						f_2 = roundPosting(bal_2, in.FeeM, 0, in.Rounding)
-					}
-					if f_2 == 0 {
-						goto next3_2
-					}
-				}
-				bal_2 -= f_2
-				if slope {
-					wi_2 := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
-					df_2 := dv_2.bal * in.Fee
-					dv_2.bal -= df_2
-					if none {
-						dv_2.low = dlowest(low_2, bal_2+accrued_2, e.Tau, dv_2.low, dv_2.bal+dv_2.accrued)
-					}
-					if e.Tau == 1 {
-						dv_2.base -= df_2
-					} else {
-						dv_2.acc -= df_2*w_2[wi_2] + f_2*dv_2.dw[wi_2]
-					}
-				}
-				if none {
-					low_2 = lowest(low_2, bal_2+accrued_2, e.Tau)
-				}
-				if e.Tau == 1 {
-					base_2 -= f_2
-				} else if !paths {
-					acc_2 -= f_2 * w_2[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
-				} else {
-					acc_2 -= f_2 * o_2.Paths.W[i]
-				}
-				if logged {
-					o_2.Log.post(e.Tick, e.Month, PostFee, 0, -f_2, bal_2, 0, 0)
-				}
-			}
-		next3_2:
-			{
-				if alone {
-					ea_3.fee(in.Fee, w_3[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
-				}
-				f_3 := bal_3 * in.Fee
-				if exact {
-					if bal_3 <= 0 {
+					if bal[l] <= 0 {
 						continue
 					}
-					if q_3, sure_3 := money.RoundFast(f_3); sure_3 {
-						f_3 = q_3
+					if q, sure := money.RoundFast(f); sure {
+						f = q
 					} else {
-						f_3 = roundPosting(bal_3, in.FeeM, 0, in.Rounding)
+						f = roundPosting(bal[l], in.FeeM, 0, in.Rounding)
 					}
-					if f_3 == 0 {
+					if f == 0 {
 						continue
 					}
 				}
-				bal_3 -= f_3
+				bal[l] -= f
 				if slope {
-					wi_3 := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
-					df_3 := dv_3.bal * in.Fee
-					dv_3.bal -= df_3
+					wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
+					df := dv[l].bal * in.Fee
+					dv[l].bal -= df
 					if none {
-						dv_3.low = dlowest(low_3, bal_3+accrued_3, e.Tau, dv_3.low, dv_3.bal+dv_3.accrued)
+						dv[l].low = dlowest(low[l], bal[l]+accrued[l], e.Tau, dv[l].low, dv[l].bal+dv[l].accrued)
 					}
 					if e.Tau == 1 {
-						dv_3.base -= df_3
+						dv[l].base -= df
 					} else {
-						dv_3.acc -= df_3*w_3[wi_3] + f_3*dv_3.dw[wi_3]
+						dv[l].acc -= df*w[l][wi] + f*dv[l].dw[wi]
 					}
 				}
 				if none {
-					low_3 = lowest(low_3, bal_3+accrued_3, e.Tau)
+					low[l] = lowest(low[l], bal[l]+accrued[l], e.Tau)
 				}
 				if e.Tau == 1 {
-					base_3 -= f_3
+					base[l] -= f
 				} else if !paths {
-					acc_3 -= f_3 * w_3[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
+					acc[l] -= f * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
 				} else {
-					acc_3 -= f_3 * o_3.Paths.W[i]
+					acc[l] -= f * o.Paths.W[i]
 				}
 				if logged {
-					o_3.Log.post(e.Tick, e.Month, PostFee, 0, -f_3, bal_3, 0, 0)
+					o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal[l], 0, 0)
 				}
 			}
 		case Mark:
-			{
-				pool_0 = 0
+			for l := range Lanes {
+				o := &os[l]
+				pool[l] = 0
 				if alone {
-					clear(ea_0.pool)
+					clear(ea[l].pool)
 				}
-				peak_0 = max(peak_0, bal_0)
-				m_0 := e.Month
+				if bal[l] > peak[l] {
+					peak[l] = bal[l]
+				}
+				m := e.Month
 				if logged {
-					o_0.Log.MonthEnd[m_0] = int64(bal_0)
+					o.Log.MonthEnd[m] = int64(bal[l])
 				}
-				if o_0.MonthEnds != nil {
-					o_0.MonthEnds[m_0] = bal_0 / scale_0
+				if o.MonthEnds != nil {
+					o.MonthEnds[m] = bal[l] / scale[l]
 				}
-				if o_0.Rows != nil {
-					if row_0 := o_0.Rows[m_0]; row_0 != nil {
-						row_0[o_0.Path] = bal_0
+				if o.Rows != nil {
+					if row := o.Rows[m]; row != nil {
+						row[o.Path] = bal[l]
 					}
 				}
-				if o_0.HasDeadline && m_0 == o_0.Deadline {
-					res_0.AtDeadline = bal_0
+				if o.HasDeadline && m == o.Deadline {
+					res[l].AtDeadline = bal[l]
 				}
-				if o_0.Reach != nil && o_0.Reach(m_0, bal_0/scale_0) {
-					res_0.Reached, res_0.ReachMonth = true, m_0
-					break events
-				}
-			}
-			{
-				pool_1 = 0
-				if alone {
-					clear(ea_1.pool)
-				}
-				peak_1 = max(peak_1, bal_1)
-				m_1 := e.Month
-				if logged {
-					o_1.Log.MonthEnd[m_1] = int64(bal_1)
-				}
-				if o_1.MonthEnds != nil {
-					o_1.MonthEnds[m_1] = bal_1 / scale_1
-				}
-				if o_1.Rows != nil {
-					if row_1 := o_1.Rows[m_1]; row_1 != nil {
-						row_1[o_1.Path] = bal_1
-					}
-				}
-				if o_1.HasDeadline && m_1 == o_1.Deadline {
-					res_1.AtDeadline = bal_1
-				}
-				if o_1.Reach != nil && o_1.Reach(m_1, bal_1/scale_1) {
-					res_1.Reached, res_1.ReachMonth = true, m_1
-					break events
-				}
-			}
-			{
-				pool_2 = 0
-				if alone {
-					clear(ea_2.pool)
-				}
-				peak_2 = max(peak_2, bal_2)
-				m_2 := e.Month
-				if logged {
-					o_2.Log.MonthEnd[m_2] = int64(bal_2)
-				}
-				if o_2.MonthEnds != nil {
-					o_2.MonthEnds[m_2] = bal_2 / scale_2
-				}
-				if o_2.Rows != nil {
-					if row_2 := o_2.Rows[m_2]; row_2 != nil {
-						row_2[o_2.Path] = bal_2
-					}
-				}
-				if o_2.HasDeadline && m_2 == o_2.Deadline {
-					res_2.AtDeadline = bal_2
-				}
-				if o_2.Reach != nil && o_2.Reach(m_2, bal_2/scale_2) {
-					res_2.Reached, res_2.ReachMonth = true, m_2
-					break events
-				}
-			}
-			{
-				pool_3 = 0
-				if alone {
-					clear(ea_3.pool)
-				}
-				peak_3 = max(peak_3, bal_3)
-				m_3 := e.Month
-				if logged {
-					o_3.Log.MonthEnd[m_3] = int64(bal_3)
-				}
-				if o_3.MonthEnds != nil {
-					o_3.MonthEnds[m_3] = bal_3 / scale_3
-				}
-				if o_3.Rows != nil {
-					if row_3 := o_3.Rows[m_3]; row_3 != nil {
-						row_3[o_3.Path] = bal_3
-					}
-				}
-				if o_3.HasDeadline && m_3 == o_3.Deadline {
-					res_3.AtDeadline = bal_3
-				}
-				if o_3.Reach != nil && o_3.Reach(m_3, bal_3/scale_3) {
-					res_3.Reached, res_3.ReachMonth = true, m_3
+				if reach && o.Reach(m, bal[l]/scale[l]) {
+					res[l].Reached, res[l].ReachMonth = true, m
 					break events
 				}
 			}
 		case FlowEnd, FlowBegin, Income:
-			{
+			for l := range Lanes {
+				o := &os[l]
 				if alone && e.Kind != Income && in.Out[e.Src] {
-					ea_0.payIncome(w_0[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+					ea[l].payIncome(w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
 				}
-				if pool_0 != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
+				if pool[l] != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 
 					if slope {
 						if none {
-							dv_0.low = dlowest(low_0, bal_0+pool_0+accrued_0, e.Tau, dv_0.low, dv_0.bal+dv_0.accrued)
+							dv[l].low = dlowest(low[l], bal[l]+pool[l]+accrued[l], e.Tau, dv[l].low, dv[l].bal+dv[l].accrued)
 						}
 						if e.Tau != 1 {
-							dv_0.acc += pool_0 * dv_0.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+							dv[l].acc += pool[l] * dv[l].dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 						}
 					}
 					if e.Tau == 1 {
-						base_0 += pool_0
+						base[l] += pool[l]
 					} else if !paths {
-						acc_0 += pool_0 * w_0[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+						acc[l] += pool[l] * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					} else {
-						acc_0 += pool_0 * o_0.Paths.W[i]
+						acc[l] += pool[l] * o.Paths.W[i]
 					}
-					bal_0 += pool_0
-					pool_0 = 0
+					bal[l] += pool[l]
+					pool[l] = 0
 					if none {
-						low_0 = lowest(low_0, bal_0+accrued_0, e.Tau)
+						low[l] = lowest(low[l], bal[l]+accrued[l], e.Tau)
 					}
 				}
-				if one && e.Src != o_0.Source {
-					goto next5_0
-				}
-				a_0 := in.Amounts[e.Src] * scale_0
-				if set && e.Src == in.SetSrc {
-					a_0 = in.Set[i] * scale_0
-				}
-				if ruled && in.Rules[e.Src].Kind != RuleFixed {
-					if ruleYear_0[e.Src] != e.Year {
-						u_0 := e.Unit
-						if infl && (e.IA != 0 || e.IB != 0) {
-							u_0 = u_0 * o_0.Paths.Infl[e.IA] / o_0.Paths.Infl[e.IB]
-						}
-						first_0 := ruleYear_0[e.Src] < 0
-						if first_0 {
-							ruledAmt_0[e.Src] = in.Amounts[e.Src]
-						}
-						ruledAmt_0[e.Src] = in.Rules[e.Src].decide(first_0, ruledAmt_0[e.Src], bal_0/scale_0, u_0)
-						ruleYear_0[e.Src] = e.Year
-					}
-					a_0 = ruledAmt_0[e.Src] * scale_0
-				}
-				x_0 := a_0 * e.Unit
-				if infl && (e.IA != 0 || e.IB != 0) {
-					x_0 = x_0 * o_0.Paths.Infl[e.IA] / o_0.Paths.Infl[e.IB]
-					if exact {
-						x_0 = roundMinor(x_0, in.Rounding)
-					}
-				} else if exact {
-					if q_0, sure_0 := money.RoundFast(x_0); sure_0 {
-						x_0 = q_0
-					} else {
-						x_0 = roundAmount(a_0, s.unitOf(e), in.Rounding)
-					}
-				}
-				if alone {
-					y_0, wi_0 := x_0, (int(e.Step)*len(s.taus)+int(e.Ti))*2
-					if in.Out[e.Src] {
-						y_0, wi_0 = -math.Abs(x_0), wi_0+1
-					}
-					if e.Kind == Income {
-						ea_0.pool[e.Src] += y_0
-					} else {
-						ea_0.flow(int(e.Src), y_0, w_0[wi_0], e.Tau, none)
-					}
-				}
-				if e.Kind == Income {
-					pool_0 += x_0
-					if logged {
-						o_0.Log.post(e.Tick, e.Month, PostIncome, e.Src, x_0, bal_0, 0, 0)
-					}
-					goto next5_0
-				}
-				var short_0, covered_0, emp_0, over_0 float64
-				if capping && in.Capped[e.Src] && x_0 > 0 {
-					if y_0 := e.Month / 12; y_0 != capYear_0 {
-						capYear_0, capped_0 = y_0, 0
-					}
-					over_0 = max(x_0-max(in.Cap*scale_0-capped_0, 0), 0)
-					x_0 -= over_0
-					capped_0 += x_0
-				}
-				if matching && in.Matched[e.Src] && x_0 > 0 {
-					if y_0 := e.Month / 12; y_0 != matchYear_0 {
-						matchYear_0, matched_0 = y_0, 0
-					}
-					m_0 := x_0
-					if in.MatchLimit != nil {
-						m_0 = min(m_0, max(in.MatchLimit[e.Month/12]*scale_0-matched_0, 0))
-					}
-					matched_0 += m_0
-					emp_0 = m_0 * in.Match
-					if exact {
-						if q_0, sure_0 := money.RoundFast(emp_0); sure_0 {
-							emp_0 = q_0
-						} else {
-							emp_0 = roundPosting(m_0, in.MatchM, 0, in.Rounding)
-						}
-					}
-				}
-				if in.Out[e.Src] {
-					x_0 = -math.Abs(x_0)
-					if pool_0 > 0 && exact {
-						covered_0 = min(pool_0, -x_0)
-						pool_0 -= covered_0
-						x_0 += covered_0
-					}
-					if exact && -x_0 > bal_0 {
-						if !res_0.Short {
-							res_0.Short, res_0.ShortTick, res_0.ShortMonth = true, e.Tick, e.Month
-						}
-						paid_0 := max(bal_0, 0)
-						short_0, x_0 = -x_0-paid_0, -paid_0
-					}
-				}
-				bal_0 += x_0
-				if short_0 > 0 {
-
-					base_0, acc_0, accrued_0, low_0 = 0, 0, 0, 0
-					if logged {
-						o_0.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_0, bal_0, short_0, covered_0)
-					}
-					goto next5_0
-				}
-				bal_0 += emp_0
-				if slope {
-					if none {
-						dv_0.low = dlowest(low_0, bal_0+accrued_0, e.Tau, dv_0.low, dv_0.bal+dv_0.accrued)
-					}
-					if e.Tau != 1 {
-						wi_0 := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-						if x_0+emp_0 < 0 {
-							wi_0++
-						}
-						dv_0.acc += (x_0 + emp_0) * dv_0.dw[wi_0]
-					}
-				}
-				if none {
-					low_0 = lowest(low_0, bal_0+accrued_0, e.Tau)
-				}
-				if in_0 := x_0 + emp_0; e.Tau == 1 {
-					base_0 += in_0
-				} else if !paths {
-					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-					if in_0 < 0 {
-						i++
-					}
-					acc_0 += in_0 * w_0[i]
-				} else {
-					acc_0 += in_0 * o_0.Paths.W[i]
-				}
-				if logged {
-					o_0.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_0, bal_0-emp_0, short_0, covered_0)
-					if emp_0 != 0 {
-						o_0.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp_0, bal_0, 0, 0)
-					}
-					if over_0 != 0 {
-						o_0.Log.post(e.Tick, e.Month, PostOver, e.Src, over_0, bal_0, 0, 0)
-					}
-				}
-			}
-		next5_0:
-			{
-				if alone && e.Kind != Income && in.Out[e.Src] {
-					ea_1.payIncome(w_1[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
-				}
-				if pool_1 != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
-
-					if slope {
-						if none {
-							dv_1.low = dlowest(low_1, bal_1+pool_1+accrued_1, e.Tau, dv_1.low, dv_1.bal+dv_1.accrued)
-						}
-						if e.Tau != 1 {
-							dv_1.acc += pool_1 * dv_1.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-						}
-					}
-					if e.Tau == 1 {
-						base_1 += pool_1
-					} else if !paths {
-						acc_1 += pool_1 * w_1[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-					} else {
-						acc_1 += pool_1 * o_1.Paths.W[i]
-					}
-					bal_1 += pool_1
-					pool_1 = 0
-					if none {
-						low_1 = lowest(low_1, bal_1+accrued_1, e.Tau)
-					}
-				}
-				if one && e.Src != o_1.Source {
-					goto next5_1
-				}
-				a_1 := in.Amounts[e.Src] * scale_1
-				if set && e.Src == in.SetSrc {
-					a_1 = in.Set[i] * scale_1
-				}
-				if ruled && in.Rules[e.Src].Kind != RuleFixed {
-					if ruleYear_1[e.Src] != e.Year {
-						u_1 := e.Unit
-						if infl && (e.IA != 0 || e.IB != 0) {
-							u_1 = u_1 * o_1.Paths.Infl[e.IA] / o_1.Paths.Infl[e.IB]
-						}
-						first_1 := ruleYear_1[e.Src] < 0
-						if first_1 {
-							ruledAmt_1[e.Src] = in.Amounts[e.Src]
-						}
-						ruledAmt_1[e.Src] = in.Rules[e.Src].decide(first_1, ruledAmt_1[e.Src], bal_1/scale_1, u_1)
-						ruleYear_1[e.Src] = e.Year
-					}
-					a_1 = ruledAmt_1[e.Src] * scale_1
-				}
-				x_1 := a_1 * e.Unit
-				if infl && (e.IA != 0 || e.IB != 0) {
-					x_1 = x_1 * o_1.Paths.Infl[e.IA] / o_1.Paths.Infl[e.IB]
-					if exact {
-						x_1 = roundMinor(x_1, in.Rounding)
-					}
-				} else if exact {
-					if q_1, sure_1 := money.RoundFast(x_1); sure_1 {
-						x_1 = q_1
-					} else {
-						x_1 = roundAmount(a_1, s.unitOf(e), in.Rounding)
-					}
-				}
-				if alone {
-					y_1, wi_1 := x_1, (int(e.Step)*len(s.taus)+int(e.Ti))*2
-					if in.Out[e.Src] {
-						y_1, wi_1 = -math.Abs(x_1), wi_1+1
-					}
-					if e.Kind == Income {
-						ea_1.pool[e.Src] += y_1
-					} else {
-						ea_1.flow(int(e.Src), y_1, w_1[wi_1], e.Tau, none)
-					}
-				}
-				if e.Kind == Income {
-					pool_1 += x_1
-					if logged {
-						o_1.Log.post(e.Tick, e.Month, PostIncome, e.Src, x_1, bal_1, 0, 0)
-					}
-					goto next5_1
-				}
-				var short_1, covered_1, emp_1, over_1 float64
-				if capping && in.Capped[e.Src] && x_1 > 0 {
-					if y_1 := e.Month / 12; y_1 != capYear_1 {
-						capYear_1, capped_1 = y_1, 0
-					}
-					over_1 = max(x_1-max(in.Cap*scale_1-capped_1, 0), 0)
-					x_1 -= over_1
-					capped_1 += x_1
-				}
-				if matching && in.Matched[e.Src] && x_1 > 0 {
-					if y_1 := e.Month / 12; y_1 != matchYear_1 {
-						matchYear_1, matched_1 = y_1, 0
-					}
-					m_1 := x_1
-					if in.MatchLimit != nil {
-						m_1 = min(m_1, max(in.MatchLimit[e.Month/12]*scale_1-matched_1, 0))
-					}
-					matched_1 += m_1
-					emp_1 = m_1 * in.Match
-					if exact {
-						if q_1, sure_1 := money.RoundFast(emp_1); sure_1 {
-							emp_1 = q_1
-						} else {
-							emp_1 = roundPosting(m_1, in.MatchM, 0, in.Rounding)
-						}
-					}
-				}
-				if in.Out[e.Src] {
-					x_1 = -math.Abs(x_1)
-					if pool_1 > 0 && exact {
-						covered_1 = min(pool_1, -x_1)
-						pool_1 -= covered_1
-						x_1 += covered_1
-					}
-					if exact && -x_1 > bal_1 {
-						if !res_1.Short {
-							res_1.Short, res_1.ShortTick, res_1.ShortMonth = true, e.Tick, e.Month
-						}
-						paid_1 := max(bal_1, 0)
-						short_1, x_1 = -x_1-paid_1, -paid_1
-					}
-				}
-				bal_1 += x_1
-				if short_1 > 0 {
-
-					base_1, acc_1, accrued_1, low_1 = 0, 0, 0, 0
-					if logged {
-						o_1.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_1, bal_1, short_1, covered_1)
-					}
-					goto next5_1
-				}
-				bal_1 += emp_1
-				if slope {
-					if none {
-						dv_1.low = dlowest(low_1, bal_1+accrued_1, e.Tau, dv_1.low, dv_1.bal+dv_1.accrued)
-					}
-					if e.Tau != 1 {
-						wi_1 := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-						if x_1+emp_1 < 0 {
-							wi_1++
-						}
-						dv_1.acc += (x_1 + emp_1) * dv_1.dw[wi_1]
-					}
-				}
-				if none {
-					low_1 = lowest(low_1, bal_1+accrued_1, e.Tau)
-				}
-				if in_1 := x_1 + emp_1; e.Tau == 1 {
-					base_1 += in_1
-				} else if !paths {
-					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-					if in_1 < 0 {
-						i++
-					}
-					acc_1 += in_1 * w_1[i]
-				} else {
-					acc_1 += in_1 * o_1.Paths.W[i]
-				}
-				if logged {
-					o_1.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_1, bal_1-emp_1, short_1, covered_1)
-					if emp_1 != 0 {
-						o_1.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp_1, bal_1, 0, 0)
-					}
-					if over_1 != 0 {
-						o_1.Log.post(e.Tick, e.Month, PostOver, e.Src, over_1, bal_1, 0, 0)
-					}
-				}
-			}
-		next5_1:
-			{
-				if alone && e.Kind != Income && in.Out[e.Src] {
-					ea_2.payIncome(w_2[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
-				}
-				if pool_2 != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
-
-					if slope {
-						if none {
-							dv_2.low = dlowest(low_2, bal_2+pool_2+accrued_2, e.Tau, dv_2.low, dv_2.bal+dv_2.accrued)
-						}
-						if e.Tau != 1 {
-							dv_2.acc += pool_2 * dv_2.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-						}
-					}
-					if e.Tau == 1 {
-						base_2 += pool_2
-					} else if !paths {
-						acc_2 += pool_2 * w_2[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-					} else {
-						acc_2 += pool_2 * o_2.Paths.W[i]
-					}
-					bal_2 += pool_2
-					pool_2 = 0
-					if none {
-						low_2 = lowest(low_2, bal_2+accrued_2, e.Tau)
-					}
-				}
-				if one && e.Src != o_2.Source {
-					goto next5_2
-				}
-				a_2 := in.Amounts[e.Src] * scale_2
-				if set && e.Src == in.SetSrc {
-					a_2 = in.Set[i] * scale_2
-				}
-				if ruled && in.Rules[e.Src].Kind != RuleFixed {
-					if ruleYear_2[e.Src] != e.Year {
-						u_2 := e.Unit
-						if infl && (e.IA != 0 || e.IB != 0) {
-							u_2 = u_2 * o_2.Paths.Infl[e.IA] / o_2.Paths.Infl[e.IB]
-						}
-						first_2 := ruleYear_2[e.Src] < 0
-						if first_2 {
-							ruledAmt_2[e.Src] = in.Amounts[e.Src]
-						}
-						ruledAmt_2[e.Src] = in.Rules[e.Src].decide(first_2, ruledAmt_2[e.Src], bal_2/scale_2, u_2)
-						ruleYear_2[e.Src] = e.Year
-					}
-					a_2 = ruledAmt_2[e.Src] * scale_2
-				}
-				x_2 := a_2 * e.Unit
-				if infl && (e.IA != 0 || e.IB != 0) {
-					x_2 = x_2 * o_2.Paths.Infl[e.IA] / o_2.Paths.Infl[e.IB]
-					if exact {
-						x_2 = roundMinor(x_2, in.Rounding)
-					}
-				} else if exact {
-					if q_2, sure_2 := money.RoundFast(x_2); sure_2 {
-						x_2 = q_2
-					} else {
-						x_2 = roundAmount(a_2, s.unitOf(e), in.Rounding)
-					}
-				}
-				if alone {
-					y_2, wi_2 := x_2, (int(e.Step)*len(s.taus)+int(e.Ti))*2
-					if in.Out[e.Src] {
-						y_2, wi_2 = -math.Abs(x_2), wi_2+1
-					}
-					if e.Kind == Income {
-						ea_2.pool[e.Src] += y_2
-					} else {
-						ea_2.flow(int(e.Src), y_2, w_2[wi_2], e.Tau, none)
-					}
-				}
-				if e.Kind == Income {
-					pool_2 += x_2
-					if logged {
-						o_2.Log.post(e.Tick, e.Month, PostIncome, e.Src, x_2, bal_2, 0, 0)
-					}
-					goto next5_2
-				}
-				var short_2, covered_2, emp_2, over_2 float64
-				if capping && in.Capped[e.Src] && x_2 > 0 {
-					if y_2 := e.Month / 12; y_2 != capYear_2 {
-						capYear_2, capped_2 = y_2, 0
-					}
-					over_2 = max(x_2-max(in.Cap*scale_2-capped_2, 0), 0)
-					x_2 -= over_2
-					capped_2 += x_2
-				}
-				if matching && in.Matched[e.Src] && x_2 > 0 {
-					if y_2 := e.Month / 12; y_2 != matchYear_2 {
-						matchYear_2, matched_2 = y_2, 0
-					}
-					m_2 := x_2
-					if in.MatchLimit != nil {
-						m_2 = min(m_2, max(in.MatchLimit[e.Month/12]*scale_2-matched_2, 0))
-					}
-					matched_2 += m_2
-					emp_2 = m_2 * in.Match
-					if exact {
-						if q_2, sure_2 := money.RoundFast(emp_2); sure_2 {
-							emp_2 = q_2
-						} else {
-							emp_2 = roundPosting(m_2, in.MatchM, 0, in.Rounding)
-						}
-					}
-				}
-				if in.Out[e.Src] {
-					x_2 = -math.Abs(x_2)
-					if pool_2 > 0 && exact {
-						covered_2 = min(pool_2, -x_2)
-						pool_2 -= covered_2
-						x_2 += covered_2
-					}
-					if exact && -x_2 > bal_2 {
-						if !res_2.Short {
-							res_2.Short, res_2.ShortTick, res_2.ShortMonth = true, e.Tick, e.Month
-						}
-						paid_2 := max(bal_2, 0)
-						short_2, x_2 = -x_2-paid_2, -paid_2
-					}
-				}
-				bal_2 += x_2
-				if short_2 > 0 {
-
-					base_2, acc_2, accrued_2, low_2 = 0, 0, 0, 0
-					if logged {
-						o_2.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_2, bal_2, short_2, covered_2)
-					}
-					goto next5_2
-				}
-				bal_2 += emp_2
-				if slope {
-					if none {
-						dv_2.low = dlowest(low_2, bal_2+accrued_2, e.Tau, dv_2.low, dv_2.bal+dv_2.accrued)
-					}
-					if e.Tau != 1 {
-						wi_2 := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-						if x_2+emp_2 < 0 {
-							wi_2++
-						}
-						dv_2.acc += (x_2 + emp_2) * dv_2.dw[wi_2]
-					}
-				}
-				if none {
-					low_2 = lowest(low_2, bal_2+accrued_2, e.Tau)
-				}
-				if in_2 := x_2 + emp_2; e.Tau == 1 {
-					base_2 += in_2
-				} else if !paths {
-					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-					if in_2 < 0 {
-						i++
-					}
-					acc_2 += in_2 * w_2[i]
-				} else {
-					acc_2 += in_2 * o_2.Paths.W[i]
-				}
-				if logged {
-					o_2.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_2, bal_2-emp_2, short_2, covered_2)
-					if emp_2 != 0 {
-						o_2.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp_2, bal_2, 0, 0)
-					}
-					if over_2 != 0 {
-						o_2.Log.post(e.Tick, e.Month, PostOver, e.Src, over_2, bal_2, 0, 0)
-					}
-				}
-			}
-		next5_2:
-			{
-				if alone && e.Kind != Income && in.Out[e.Src] {
-					ea_3.payIncome(w_3[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
-				}
-				if pool_3 != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
-
-					if slope {
-						if none {
-							dv_3.low = dlowest(low_3, bal_3+pool_3+accrued_3, e.Tau, dv_3.low, dv_3.bal+dv_3.accrued)
-						}
-						if e.Tau != 1 {
-							dv_3.acc += pool_3 * dv_3.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-						}
-					}
-					if e.Tau == 1 {
-						base_3 += pool_3
-					} else if !paths {
-						acc_3 += pool_3 * w_3[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-					} else {
-						acc_3 += pool_3 * o_3.Paths.W[i]
-					}
-					bal_3 += pool_3
-					pool_3 = 0
-					if none {
-						low_3 = lowest(low_3, bal_3+accrued_3, e.Tau)
-					}
-				}
-				if one && e.Src != o_3.Source {
+				if one && e.Src != o.Source {
 					continue
 				}
-				a_3 := in.Amounts[e.Src] * scale_3
+				a := in.Amounts[e.Src] * scale[l]
 				if set && e.Src == in.SetSrc {
-					a_3 = in.Set[i] * scale_3
+					a = in.Set[i] * scale[l]
 				}
 				if ruled && in.Rules[e.Src].Kind != RuleFixed {
-					if ruleYear_3[e.Src] != e.Year {
-						u_3 := e.Unit
+					if ruleYear[l][e.Src] != e.Year {
+						u := e.Unit
 						if infl && (e.IA != 0 || e.IB != 0) {
-							u_3 = u_3 * o_3.Paths.Infl[e.IA] / o_3.Paths.Infl[e.IB]
+							u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
 						}
-						first_3 := ruleYear_3[e.Src] < 0
-						if first_3 {
-							ruledAmt_3[e.Src] = in.Amounts[e.Src]
+						first := ruleYear[l][e.Src] < 0
+						if first {
+							ruledAmt[l][e.Src] = in.Amounts[e.Src]
 						}
-						ruledAmt_3[e.Src] = in.Rules[e.Src].decide(first_3, ruledAmt_3[e.Src], bal_3/scale_3, u_3)
-						ruleYear_3[e.Src] = e.Year
+						ruledAmt[l][e.Src] = in.Rules[e.Src].decide(first, ruledAmt[l][e.Src], bal[l]/scale[l], u)
+						ruleYear[l][e.Src] = e.Year
 					}
-					a_3 = ruledAmt_3[e.Src] * scale_3
+					a = ruledAmt[l][e.Src] * scale[l]
 				}
-				x_3 := a_3 * e.Unit
+				x := a * e.Unit
 				if infl && (e.IA != 0 || e.IB != 0) {
-					x_3 = x_3 * o_3.Paths.Infl[e.IA] / o_3.Paths.Infl[e.IB]
+					x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
 					if exact {
-						x_3 = roundMinor(x_3, in.Rounding)
+						x = roundMinor(x, in.Rounding)
 					}
 				} else if exact {
-					if q_3, sure_3 := money.RoundFast(x_3); sure_3 {
-						x_3 = q_3
+					if q, sure := money.RoundFast(x); sure {
+						x = q
 					} else {
-						x_3 = roundAmount(a_3, s.unitOf(e), in.Rounding)
+						x = roundAmount(a, s.unitOf(e), in.Rounding)
 					}
 				}
 				if alone {
-					y_3, wi_3 := x_3, (int(e.Step)*len(s.taus)+int(e.Ti))*2
+					y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
 					if in.Out[e.Src] {
-						y_3, wi_3 = -math.Abs(x_3), wi_3+1
+						y, wi = -math.Abs(x), wi+1
 					}
 					if e.Kind == Income {
-						ea_3.pool[e.Src] += y_3
+						ea[l].pool[e.Src] += y
 					} else {
-						ea_3.flow(int(e.Src), y_3, w_3[wi_3], e.Tau, none)
+						ea[l].flow(int(e.Src), y, w[l][wi], e.Tau, none)
 					}
 				}
 				if e.Kind == Income {
-					pool_3 += x_3
+					pool[l] += x
 					if logged {
-						o_3.Log.post(e.Tick, e.Month, PostIncome, e.Src, x_3, bal_3, 0, 0)
+						o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal[l], 0, 0)
 					}
 					continue
 				}
-				var short_3, covered_3, emp_3, over_3 float64
-				if capping && in.Capped[e.Src] && x_3 > 0 {
-					if y_3 := e.Month / 12; y_3 != capYear_3 {
-						capYear_3, capped_3 = y_3, 0
+				var short, covered, emp, over float64
+				if capping && in.Capped[e.Src] && x > 0 {
+					if y := e.Month / 12; y != capYear[l] {
+						capYear[l], capped[l] = y, 0
 					}
-					over_3 = max(x_3-max(in.Cap*scale_3-capped_3, 0), 0)
-					x_3 -= over_3
-					capped_3 += x_3
+					over = max(x-max(in.Cap*scale[l]-capped[l], 0), 0)
+					x -= over
+					capped[l] += x
 				}
-				if matching && in.Matched[e.Src] && x_3 > 0 {
-					if y_3 := e.Month / 12; y_3 != matchYear_3 {
-						matchYear_3, matched_3 = y_3, 0
+				if matching && in.Matched[e.Src] && x > 0 {
+					if y := e.Month / 12; y != matchYear[l] {
+						matchYear[l], matched[l] = y, 0
 					}
-					m_3 := x_3
+					m := x
 					if in.MatchLimit != nil {
-						m_3 = min(m_3, max(in.MatchLimit[e.Month/12]*scale_3-matched_3, 0))
+						m = min(m, max(in.MatchLimit[e.Month/12]*scale[l]-matched[l], 0))
 					}
-					matched_3 += m_3
-					emp_3 = m_3 * in.Match
+					matched[l] += m
+					emp = m * in.Match
 					if exact {
-						if q_3, sure_3 := money.RoundFast(emp_3); sure_3 {
-							emp_3 = q_3
+						if q, sure := money.RoundFast(emp); sure {
+							emp = q
 						} else {
-							emp_3 = roundPosting(m_3, in.MatchM, 0, in.Rounding)
+							emp = roundPosting(m, in.MatchM, 0, in.Rounding)
 						}
 					}
 				}
 				if in.Out[e.Src] {
-					x_3 = -math.Abs(x_3)
-					if pool_3 > 0 && exact {
-						covered_3 = min(pool_3, -x_3)
-						pool_3 -= covered_3
-						x_3 += covered_3
+					x = -math.Abs(x)
+					if pool[l] > 0 && exact {
+						covered = min(pool[l], -x)
+						pool[l] -= covered
+						x += covered
 					}
-					if exact && -x_3 > bal_3 {
-						if !res_3.Short {
-							res_3.Short, res_3.ShortTick, res_3.ShortMonth = true, e.Tick, e.Month
+					if exact && -x > bal[l] {
+						if !res[l].Short {
+							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month
 						}
-						paid_3 := max(bal_3, 0)
-						short_3, x_3 = -x_3-paid_3, -paid_3
+						paid := max(bal[l], 0)
+						short, x = -x-paid, -paid
 					}
 				}
-				bal_3 += x_3
-				if short_3 > 0 {
+				bal[l] += x
+				if short > 0 {
 
-					base_3, acc_3, accrued_3, low_3 = 0, 0, 0, 0
+					base[l], acc[l], accrued[l] = 0, 0, 0
+					if none {
+						low[l] = 0
+					}
 					if logged {
-						o_3.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_3, bal_3, short_3, covered_3)
+						o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal[l], short, covered)
 					}
 					continue
 				}
-				bal_3 += emp_3
+				bal[l] += emp
 				if slope {
 					if none {
-						dv_3.low = dlowest(low_3, bal_3+accrued_3, e.Tau, dv_3.low, dv_3.bal+dv_3.accrued)
+						dv[l].low = dlowest(low[l], bal[l]+accrued[l], e.Tau, dv[l].low, dv[l].bal+dv[l].accrued)
 					}
 					if e.Tau != 1 {
-						wi_3 := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-						if x_3+emp_3 < 0 {
-							wi_3++
+						wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+						if x+emp < 0 {
+							wi++
 						}
-						dv_3.acc += (x_3 + emp_3) * dv_3.dw[wi_3]
+						dv[l].acc += (x + emp) * dv[l].dw[wi]
 					}
 				}
 				if none {
-					low_3 = lowest(low_3, bal_3+accrued_3, e.Tau)
+					low[l] = lowest(low[l], bal[l]+accrued[l], e.Tau)
 				}
-				if in_3 := x_3 + emp_3; e.Tau == 1 {
-					base_3 += in_3
+				if in := x + emp; e.Tau == 1 {
+					base[l] += in
 				} else if !paths {
 					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-					if in_3 < 0 {
+					if in < 0 {
 						i++
 					}
-					acc_3 += in_3 * w_3[i]
+					acc[l] += in * w[l][i]
 				} else {
-					acc_3 += in_3 * o_3.Paths.W[i]
+					acc[l] += in * o.Paths.W[i]
 				}
 				if logged {
-					o_3.Log.post(e.Tick, e.Month, PostFlow, e.Src, x_3, bal_3-emp_3, short_3, covered_3)
-					if emp_3 != 0 {
-						o_3.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp_3, bal_3, 0, 0)
+					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal[l]-emp, short, covered)
+					if emp != 0 {
+						o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal[l], 0, 0)
 					}
-					if over_3 != 0 {
-						o_3.Log.post(e.Tick, e.Month, PostOver, e.Src, over_3, bal_3, 0, 0)
+					if over != 0 {
+						o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal[l], 0, 0)
 					}
 				}
 			}
 		}
 	}
-	if alone {
-		copy(o_0.Each, ea_0.bal)
+	for l := range Lanes {
+		o := &os[l]
+		if alone {
+			copy(o.Each, ea[l].bal)
+		}
+		res[l].Closing, res[l].Peak = bal[l], peak[l]
+		if slope {
+			res[l].DClosing = dv[l].bal
+		}
+		r[l] = res[l]
 	}
-	res_0.Closing, res_0.Peak = bal_0, peak_0
-	if slope {
-		res_0.DClosing = dv_0.bal
-	}
-	if alone {
-		copy(o_1.Each, ea_1.bal)
-	}
-	res_1.Closing, res_1.Peak = bal_1, peak_1
-	if slope {
-		res_1.DClosing = dv_1.bal
-	}
-	if alone {
-		copy(o_2.Each, ea_2.bal)
-	}
-	res_2.Closing, res_2.Peak = bal_2, peak_2
-	if slope {
-		res_2.DClosing = dv_2.bal
-	}
-	if alone {
-		copy(o_3.Each, ea_3.bal)
-	}
-	res_3.Closing, res_3.Peak = bal_3, peak_3
-	if slope {
-		res_3.DClosing = dv_3.bal
-	}
-	return [Lanes]Result{res_0, res_1, res_2, res_3}
+	return r
 }

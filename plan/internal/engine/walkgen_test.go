@@ -26,6 +26,7 @@ var fixedWalks = []struct {
 	f    flags
 }{
 	{"walkExact", flags{exact: true}},                // searches, the ledger's closing balance
+	{"walkReach", flags{exact: true, reach: true}},   // a search for a date
 	{"walkLedger", flags{exact: true, logged: true}}, // the ledger
 	{"walkPaths", flags{exact: true, paths: true}},   // a simulated path
 	{"walkSlope", flags{slope: true}},                // a rate search's Newton steps
@@ -129,34 +130,20 @@ func fixFlags(t *testing.T, fn string, f flags) string {
 }
 
 // lanesOf returns walk's source fn (its flags constants) as a function
-// name that walks Lanes walks at once, one a lane, each event's step of
-// every lane in turn, so that the processor overlaps the lanes' chains of
-// arithmetic: every local of walk but the event's index i and the event e
-// becomes one a lane (suffixed _0, _1, …; o is lane l's options, os[l]);
-// a continue of the events' loop goes to the next lane's step.
+// name that makes Lanes walks at once, each event for every lane in turn,
+// so that the processor overlaps the lanes' chains of arithmetic: each
+// variable declared before the events' loop (the walk's state) becomes an
+// array, one a lane, indexed by the lane l; the statements before the
+// loop, each event's case and those after the loop run for each lane, o
+// being lane l's options os[l]. A continue of the events' loop goes on to
+// the next lane, as it goes on to the next event in walk.
 func lanesOf(t *testing.T, fn, name string) string {
 	fs := token.NewFileSet()
 	file, err := parser.ParseFile(fs, "", "package engine\n\n"+fn, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
-	fd := file.Decls[0].(*ast.FuncDecl)
-	body := fd.Body
-	// the locals: every variable declared in walk's body, and o
-	var locals []*ast.Ident
-	ast.Inspect(fd, func(n ast.Node) bool {
-		id, ok := n.(*ast.Ident)
-		if !ok || id.Obj == nil || id.Obj.Kind != ast.Var {
-			return true
-		}
-		d, ok := id.Obj.Decl.(ast.Node)
-		if !ok || (d.Pos() < body.Pos() && id.Name != "o") || id.Name == "i" || id.Name == "e" {
-			return true
-		}
-		locals = append(locals, id)
-		return true
-	})
-	// the events' loop, and the statements before and after it
+	body := file.Decls[0].(*ast.FuncDecl).Body
 	k := -1
 	for i, st := range body.List {
 		if l, ok := st.(*ast.LabeledStmt); ok {
@@ -170,55 +157,94 @@ func lanesOf(t *testing.T, fn, name string) string {
 	}
 	loop := body.List[k].(*ast.LabeledStmt)
 	rs := loop.Stmt.(*ast.RangeStmt)
+	sw, ok := rs.Body.List[len(rs.Body.List)-1].(*ast.SwitchStmt)
+	if len(rs.Body.List) != 2 || !ok || text(t, fs, rs.Body.List[0]) != "e := &s.events[i]" {
+		t.Fatal("walk.go: the events' loop is not e := &s.events[i] and a switch")
+	}
 	ret, ok := body.List[len(body.List)-1].(*ast.ReturnStmt)
 	if !ok || len(ret.Results) != 1 {
 		t.Fatal("walk.go: walk does not end with return res")
 	}
-	var consts, pre []ast.Stmt
-	for _, st := range body.List[:k] {
-		if d, ok := st.(*ast.DeclStmt); ok && d.Decl.(*ast.GenDecl).Tok == token.CONST {
-			consts = append(consts, st)
-		} else {
-			pre = append(pre, st)
-		}
-	}
-	post := body.List[k+1 : len(body.List)-1]
-	if len(rs.Body.List) < 1 || text(t, fs, rs.Body.List[0]) != "e := &s.events[i]" {
-		t.Fatal("walk.go: the events' loop does not begin with e := &s.events[i]")
-	}
-	sw, ok := rs.Body.List[1].(*ast.SwitchStmt)
-	if len(rs.Body.List) != 2 || !ok {
-		t.Fatal("walk.go: the events' loop is not e := &s.events[i] and a switch")
-	}
-	names := make([]string, len(locals))
-	for i, id := range locals {
-		names[i] = id.Name
-	}
 	var b strings.Builder
-	fmt.Fprintf(&b, "func %s(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) [Lanes]Result {\n", name)
-	stmts := func(list []ast.Stmt) {
-		for _, st := range list {
-			b.WriteString(text(t, fs, st) + "\n")
-		}
-	}
-	stmts(consts)
-	lanes := func(do func(l int)) {
-		for l := range Lanes {
-			for i, id := range locals {
-				id.Name = fmt.Sprintf("%s_%d", names[i], l)
+	fmt.Fprintf(&b, "func %s(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) (r [Lanes]Result) {\n", name)
+	// the state: its declarations hoisted as arrays, their values set in
+	// the lane loop
+	state := map[*ast.Object]bool{}
+	for _, st := range body.List[:k] {
+		switch st := st.(type) {
+		case *ast.DeclStmt:
+			d := st.Decl.(*ast.GenDecl)
+			if d.Tok == token.CONST {
+				b.WriteString(text(t, fs, st) + "\n")
+				continue
 			}
-			do(l)
-		}
-		for i, id := range locals {
-			id.Name = names[i]
+			for _, sp := range d.Specs {
+				sp := sp.(*ast.ValueSpec)
+				if sp.Type == nil {
+					t.Fatalf("walk.go: %s: the walk's state is declared with its type", text(t, fs, st))
+				}
+				var names []string
+				for _, id := range sp.Names {
+					state[id.Obj] = true
+					names = append(names, id.Name)
+				}
+				fmt.Fprintf(&b, "var %s [Lanes]%s\n", strings.Join(names, ", "), text(t, fs, sp.Type))
+			}
+		case *ast.AssignStmt:
+			if st.Tok != token.DEFINE {
+				continue
+			}
+			if len(st.Lhs) != 1 {
+				t.Fatalf("walk.go: %s: declare the walk's state one at a time", text(t, fs, st))
+			}
+			id := st.Lhs[0].(*ast.Ident)
+			var typ ast.Expr
+			switch v := st.Rhs[0].(type) {
+			case *ast.CallExpr:
+				typ = v.Fun
+			case *ast.CompositeLit:
+				typ = v.Type
+			}
+			if typ == nil {
+				t.Fatalf("walk.go: %s: the walk's state is a conversion or a composite literal", text(t, fs, st))
+			}
+			state[id.Obj] = true
+			fmt.Fprintf(&b, "var %s [Lanes]%s\n", id.Name, text(t, fs, typ))
+			st.Tok = token.ASSIGN
 		}
 	}
-	lanes(func(l int) {
-		fmt.Fprintf(&b, "o_%d := &os[%d]\n", l, l)
-		stmts(pre)
+	// every use of the state is lane l's
+	ast.Inspect(body, func(n ast.Node) bool {
+		if id, ok := n.(*ast.Ident); ok && id.Obj != nil && state[id.Obj] {
+			id.Name += "[l]"
+		}
+		return true
 	})
+	b.WriteString("for l := range Lanes {\no := &os[l]\n")
+	for _, st := range body.List[:k] {
+		d, ok := st.(*ast.DeclStmt)
+		if !ok {
+			b.WriteString(text(t, fs, st) + "\n")
+			continue
+		}
+		if d.Decl.(*ast.GenDecl).Tok == token.CONST {
+			continue
+		}
+		for _, sp := range d.Decl.(*ast.GenDecl).Specs {
+			sp := sp.(*ast.ValueSpec)
+			if len(sp.Values) == 0 {
+				continue
+			}
+			var names, vals []string
+			for i := range sp.Names {
+				names, vals = append(names, sp.Names[i].Name), append(vals, text(t, fs, sp.Values[i]))
+			}
+			b.WriteString(strings.Join(names, ", ") + " = " + strings.Join(vals, ", ") + "\n")
+		}
+	}
+	b.WriteString("}\n")
 	fmt.Fprintf(&b, "%s:\nfor i := range s.events {\ne := &s.events[i]\nswitch %s {\n", loop.Label.Name, text(t, fs, sw.Tag))
-	for k, cc := range sw.Body.List {
+	for _, cc := range sw.Body.List {
 		cc := cc.(*ast.CaseClause)
 		var list []string
 		for _, x := range cc.List {
@@ -227,51 +253,17 @@ func lanesOf(t *testing.T, fn, name string) string {
 		if len(list) == 0 {
 			t.Fatal("walk.go: the events' switch has a default")
 		}
-		fmt.Fprintf(&b, "case %s:\n", strings.Join(list, ", "))
-		// the continues of the events' loop (not of a loop inside it)
-		var next []*ast.BranchStmt
-		var find func(n ast.Node) bool
-		find = func(n ast.Node) bool {
-			switch n := n.(type) {
-			case *ast.ForStmt, *ast.RangeStmt, *ast.FuncLit:
-				return false
-			case *ast.BranchStmt:
-				if n.Tok == token.CONTINUE && n.Label == nil {
-					next = append(next, n)
-				}
-			}
-			return true
-		}
+		fmt.Fprintf(&b, "case %s:\nfor l := range Lanes {\no := &os[l]\n", strings.Join(list, ", "))
 		for _, st := range cc.Body {
-			ast.Inspect(st, find)
+			b.WriteString(text(t, fs, st) + "\n")
 		}
-		lanes(func(l int) {
-			// the last lane's continue goes on to the next event
-			label := fmt.Sprintf("next%d_%d", k, l)
-			for _, br := range next {
-				if l < Lanes-1 {
-					br.Tok, br.Label = token.GOTO, ast.NewIdent(label)
-				}
-			}
-			b.WriteString("{\n")
-			stmts(cc.Body)
-			b.WriteString("}\n")
-			if len(next) > 0 && l < Lanes-1 {
-				fmt.Fprintf(&b, "%s:\n", label)
-			}
-			for _, br := range next {
-				br.Tok, br.Label = token.CONTINUE, nil
-			}
-		})
+		b.WriteString("}\n")
 	}
-	b.WriteString("}\n")
-	b.WriteString("}\n")
-	var res []string
-	lanes(func(int) {
-		stmts(post)
-		res = append(res, text(t, fs, ret.Results[0]))
-	})
-	fmt.Fprintf(&b, "return [Lanes]Result{%s}\n}\n", strings.Join(res, ", "))
+	b.WriteString("}\n}\nfor l := range Lanes {\no := &os[l]\n")
+	for _, st := range body.List[k+1 : len(body.List)-1] {
+		b.WriteString(text(t, fs, st) + "\n")
+	}
+	fmt.Fprintf(&b, "r[l] = %s\n}\nreturn r\n}\n", text(t, fs, ret.Results[0]))
 	return b.String()
 }
 
