@@ -607,11 +607,12 @@ func expm1(x float64) float64 {
 func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, paths *[simLanes]int, res *[simLanes]engine.Result) {
 	in := pg.in
 	in.Amounts = amounts
-	var os [simLanes]engine.Options
-	for l := range os {
-		os[l] = engine.Options{Mode: engine.Exact, Paths: &w.paths[l], Rows: rows, Path: paths[l], HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
+	o := engine.Options{Mode: engine.Exact, Rows: rows, HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
+	var ps [simLanes]*engine.Paths
+	for l := range ps {
+		ps[l] = &w.paths[l]
 	}
-	*res = engine.WalkLanes(pg.s.eng, &in, &os)
+	*res = engine.WalkLanes(pg.s.eng, &in, &o, &ps, paths)
 }
 
 // values returns, per lane of w, the value at the deadline of one unit of

@@ -348,27 +348,30 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 // Lanes is how many walks [WalkLanes] makes at once.
 const Lanes = 4
 
-// WalkLanes makes the walks [Walk] makes with options os[0], os[1], …, each
-// of schedule s with inputs in, and returns their results in order. When
-// every lane's options make the same decisions (the same mode, the same
-// options set) and none stops early (Options.Reach), it walks them
-// together, each event for every lane in turn: the same walk, whose lanes'
-// chains of arithmetic the processor overlaps.
-func WalkLanes(s *Schedule, in *Inputs, os *[Lanes]Options) [Lanes]Result {
-	f := flagsOf(s, in, &os[0])
-	together := true
-	for l := range os {
-		together = together && flagsOf(s, in, &os[l]) == f && !f.reach
+// WalkLanes makes the walks [Walk] makes with options o, each with its
+// own paths[l] and path index at[l] in place of o.Paths and o.Path, and
+// returns their results in order. When the options are ones it has a lane
+// copy of the walk for (see walk), it walks them together, each event for
+// every lane in turn: the same walk, whose lanes' chains of arithmetic the
+// processor overlaps.
+func WalkLanes(s *Schedule, in *Inputs, o *Options, paths *[Lanes]*Paths, at *[Lanes]int) [Lanes]Result {
+	lo := *o
+	lo.Paths = paths[0]
+	f := flagsOf(s, in, &lo)
+	together := !f.reach
+	for l := range paths {
+		together = together && (paths[l].Infl != nil) == f.infl
 	}
 	if together {
-		if r, ok := walkFixedLanes(s, in, os, f); ok {
+		if r, ok := walkFixedLanes(s, in, o, paths, at, f); ok {
 			walks.Add(Lanes)
 			return r
 		}
 	}
 	var r [Lanes]Result
-	for l := range os {
-		r[l] = Walk(s, in, &os[l])
+	for l := range paths {
+		lo.Paths, lo.Path = paths[l], at[l]
+		r[l] = Walk(s, in, &lo)
 	}
 	return r
 }
@@ -669,14 +672,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}

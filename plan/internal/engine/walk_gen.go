@@ -35,10 +35,10 @@ func walkFixed(s *Schedule, in *Inputs, o *Options, f flags) (Result, bool) {
 }
 
 // walkFixedLanes runs walk's lane copy for flags f, when it has one.
-func walkFixedLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) ([Lanes]Result, bool) {
+func walkFixedLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *[Lanes]int, f flags) ([Lanes]Result, bool) {
 	switch f {
 	case flags{exact: true, paths: true}:
-		return walkPathsLanes(s, in, os, f), true
+		return walkPathsLanes(s, in, o, ps, at), true
 	}
 	return [Lanes]Result{}, false
 }
@@ -293,14 +293,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -755,14 +753,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -1217,14 +1213,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -1679,14 +1673,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -2141,14 +2133,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -2603,14 +2593,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -3065,14 +3053,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -3527,14 +3513,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -3989,14 +3973,12 @@ events:
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
 			}
-			if bal > peak { // max(peak, bal), for a balance that is never NaN
-				peak = bal
-			}
-			m := e.Month
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -4202,7 +4184,7 @@ events:
 }
 
 // walkPathsLanes is walk under flags{exact: true, paths: true}, for each of Lanes options at once.
-func walkPathsLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) (r [Lanes]Result) {
+func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *[Lanes]int) (r [Lanes]Result) {
 	const exact = true
 	const paths = true
 	const infl = false
@@ -4219,43 +4201,46 @@ func walkPathsLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) (r [La
 	const taxed = false
 	const reach = false
 	var bal, base, acc, accrued, peak [Lanes]float64
+	_ = bal
+	_ = base
+	_ = acc
+	_ = accrued
+	_ = peak
 	var pool [Lanes]float64
+	_ = pool
 	var taxable [Lanes]float64
-	var matched [Lanes]float64
-	var matchYear [Lanes]int32
-	var capped [Lanes]float64
-	var capYear [Lanes]int32
-	var low [Lanes]float64
+	_ = taxable
+	var matched float64
+	_ = matched
+	matchYear := int32(-1)
+	_ = matchYear
+	var capped float64
+	_ = capped
+	capYear := int32(-1)
+	_ = capYear
+	var low float64
+	_ = low
 	var res [Lanes]Result
-	var scale [Lanes]float64
+	var scale float64 = 1
+	_ = scale
+	{
+		scale = math.Pow(10, float64(in.Places))
+	}
 	var w [Lanes][]float64
+	_ = w
 	var dv [Lanes]*deriv
+	_ = dv
 	var ea [Lanes]*each
+	_ = ea
 	var ruledAmt [Lanes][]float64
+	_ = ruledAmt
 	var ruleYear [Lanes][]int32
+	_ = ruleYear
 	for l := range Lanes {
-		o := &os[l]
-		matchYear[l] = int32(-1)
-		capYear[l] = int32(-1)
 		res[l] = Result{ShortTick: -1}
-		scale[l] = 1
-		if exact {
-			scale[l] = math.Pow(10, float64(in.Places))
-		}
-		if !paths {
-			w[l] = s.weights(in.Rates, in.Between)
-		}
-		if slope {
-			dv[l] = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
-		}
-		if alone {
-			ea[l] = newEach(len(o.Each))
-			ea[l].bal[0] = in.Amounts[0]
-			ea[l].base[0], ea[l].low[0] = ea[l].bal[0], ea[l].bal[0]
-		}
-		if !one || o.Source == 0 {
-			bal[l] = in.Amounts[0] * scale[l]
-			if exact {
+		{
+			bal[l] = in.Amounts[0] * scale
+			{
 				if q, sure := money.RoundFast(bal[l]); sure {
 					bal[l] = q
 				} else {
@@ -4264,66 +4249,23 @@ func walkPathsLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) (r [La
 			}
 			base[l] = bal[l]
 		}
-		if none {
-			low[l] = base[l]
-		}
-		if ruled {
-			ruledAmt[l], ruleYear[l] = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
-			for k := range ruleYear[l] {
-				ruleYear[l][k] = -1
-			}
-		}
 	}
-events:
 	for i := range s.events {
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
 			for l := range Lanes {
-				o := &os[l]
 				for c := range e.Count {
 					var j float64
-					if paths {
-						j = o.Paths.J[e.Period+c]
-					} else {
-						j = in.Rates[e.Step]
+					{
+						j = ps[l].J[e.Period+c]
 					}
+
 					b, plus := base[l], acc[l]
-					if none {
-						b, plus = low[l], 0
-						if exact && low[l] < 0 {
-							b = 0
-						}
-					}
+
 					x := b*j + plus
-					if slope {
-						db, dplus := dv[l].base, dv[l].acc
-						if none {
-							db, dplus = dv[l].low, 0
-						}
-						dx := db*j + b*o.DRates[e.Step] + dplus
-						if accrue {
-							dv[l].accrued += dx
-							dv[l].base = dv[l].bal + dv[l].accrued
-						} else {
-							dv[l].bal += dx
-							dv[l].base = dv[l].bal
-							dv[l].taxable += dx
-						}
-						dv[l].acc, dv[l].low = 0, dv[l].base
-					}
-					if alone {
-						ea[l].interest(j, none, accrue)
-					}
-					if accrue {
-						accrued[l] += x
-						base[l], acc[l] = bal[l]+accrued[l], 0
-						if none {
-							low[l] = base[l]
-						}
-						continue
-					}
-					if exact {
+
+					{
 						if q, sure := money.RoundFast(x); sure {
 							x = q
 						} else {
@@ -4331,65 +4273,34 @@ events:
 						}
 					}
 					bal[l] += x
-					if taxed {
-						taxable[l] += x
-					}
+
 					base[l], acc[l] = bal[l], 0
-					if none {
-						low[l] = base[l]
-					}
-					if logged && x != 0 {
-						t := e.Tick + int64(c)*s.period
-						o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal[l], 0, 0)
-					}
+
 				}
 			}
 		case Credit:
 			for l := range Lanes {
-				o := &os[l]
-				if alone {
-					ea[l].credit()
-				}
 				x := accrued[l]
-				if slope {
-					dv[l].bal += dv[l].accrued
-					dv[l].taxable += dv[l].accrued
-					dv[l].accrued = 0
-				}
-				if exact {
+				_ = x
+				{
 					x = roundMinor(x, in.Rounding)
 				}
 				bal[l] += x
 				accrued[l] -= x
-				if taxed {
-					taxable[l] += x
-				}
-				if logged && x != 0 {
-					o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal[l], 0, 0)
-				}
 			}
 		case Tax:
 			for l := range Lanes {
-				o := &os[l]
-				if alone {
-					ea[l].tax(in.Tax)
-				}
 				t := taxable[l]
+				_ = t
 				x := t * in.Tax
+				_ = x
 				taxable[l] = 0
 				var dx float64
-				if slope {
-					dx, dv[l].taxable = dv[l].taxable*in.Tax, 0
-				}
+				_ = dx
 				if x <= 0 {
 					continue
 				}
-				if slope {
-					dv[l].bal -= dx
-					dv[l].base -= dx
-					dv[l].low = dv[l].bal + dv[l].accrued
-				}
-				if exact {
+				{
 					if q, sure := money.RoundFast(x); sure {
 						x = q
 					} else {
@@ -4402,21 +4313,12 @@ events:
 				}
 				bal[l] -= x
 				base[l] -= x
-				if none {
-					low[l] = bal[l] + accrued[l]
-				}
-				if logged {
-					o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal[l], 0, 0)
-				}
 			}
 		case Fee:
 			for l := range Lanes {
-				o := &os[l]
-				if alone {
-					ea[l].fee(in.Fee, w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
-				}
 				f := bal[l] * in.Fee
-				if exact {
+				_ = f
+				{
 					if bal[l] <= 0 {
 						continue
 					}
@@ -4430,172 +4332,62 @@ events:
 					}
 				}
 				bal[l] -= f
-				if slope {
-					wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
-					df := dv[l].bal * in.Fee
-					dv[l].bal -= df
-					if none {
-						dv[l].low = dlowest(low[l], bal[l]+accrued[l], e.Tau, dv[l].low, dv[l].bal+dv[l].accrued)
-					}
-					if e.Tau == 1 {
-						dv[l].base -= df
-					} else {
-						dv[l].acc -= df*w[l][wi] + f*dv[l].dw[wi]
-					}
-				}
-				if none {
-					low[l] = lowest(low[l], bal[l]+accrued[l], e.Tau)
-				}
 				if e.Tau == 1 {
 					base[l] -= f
 				} else if !paths {
 					acc[l] -= f * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
 				} else {
-					acc[l] -= f * o.Paths.W[i]
-				}
-				if logged {
-					o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal[l], 0, 0)
+					acc[l] -= f * ps[l].W[i]
 				}
 			}
 		case Mark:
+			m := e.Month
+			_ = m
 			for l := range Lanes {
-				o := &os[l]
 				pool[l] = 0
-				if alone {
-					clear(ea[l].pool)
+				peak[l] = max(peak[l], bal[l])
+			}
+			if o.MonthEnds != nil {
+				for l := range Lanes {
+					o.MonthEnds[m] = bal[l] / scale
 				}
-				if bal[l] > peak[l] {
-					peak[l] = bal[l]
-				}
-				m := e.Month
-				if logged {
-					o.Log.MonthEnd[m] = int64(bal[l])
-				}
-				if o.MonthEnds != nil {
-					o.MonthEnds[m] = bal[l] / scale[l]
-				}
-				if o.Rows != nil {
+			}
+			if o.Rows != nil {
+				for l := range Lanes {
 					if row := o.Rows[m]; row != nil {
-						row[o.Path] = bal[l]
+						row[at[l]] = bal[l]
 					}
 				}
-				if o.HasDeadline && m == o.Deadline {
+			}
+			if o.HasDeadline && m == o.Deadline {
+				for l := range Lanes {
 					res[l].AtDeadline = bal[l]
-				}
-				if reach && o.Reach(m, bal[l]/scale[l]) {
-					res[l].Reached, res[l].ReachMonth = true, m
-					break events
 				}
 			}
 		case FlowEnd, FlowBegin, Income:
+			a := in.Amounts[e.Src] * scale
+			_ = a
+			x := a * e.Unit
+			_ = x
+			{
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
+			}
 			for l := range Lanes {
-				o := &os[l]
-				if alone && e.Kind != Income && in.Out[e.Src] {
-					ea[l].payIncome(w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
-				}
-				if pool[l] != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
-
-					if slope {
-						if none {
-							dv[l].low = dlowest(low[l], bal[l]+pool[l]+accrued[l], e.Tau, dv[l].low, dv[l].bal+dv[l].accrued)
-						}
-						if e.Tau != 1 {
-							dv[l].acc += pool[l] * dv[l].dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-						}
-					}
-					if e.Tau == 1 {
-						base[l] += pool[l]
-					} else if !paths {
-						acc[l] += pool[l] * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2]
-					} else {
-						acc[l] += pool[l] * o.Paths.W[i]
-					}
-					bal[l] += pool[l]
-					pool[l] = 0
-					if none {
-						low[l] = lowest(low[l], bal[l]+accrued[l], e.Tau)
-					}
-				}
-				if one && e.Src != o.Source {
-					continue
-				}
-				a := in.Amounts[e.Src] * scale[l]
-				if set && e.Src == in.SetSrc {
-					a = in.Set[i] * scale[l]
-				}
-				if ruled && in.Rules[e.Src].Kind != RuleFixed {
-					if ruleYear[l][e.Src] != e.Year {
-						u := e.Unit
-						if infl && (e.IA != 0 || e.IB != 0) {
-							u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
-						}
-						first := ruleYear[l][e.Src] < 0
-						if first {
-							ruledAmt[l][e.Src] = in.Amounts[e.Src]
-						}
-						ruledAmt[l][e.Src] = in.Rules[e.Src].decide(first, ruledAmt[l][e.Src], bal[l]/scale[l], u)
-						ruleYear[l][e.Src] = e.Year
-					}
-					a = ruledAmt[l][e.Src] * scale[l]
-				}
-				x := a * e.Unit
-				if infl && (e.IA != 0 || e.IB != 0) {
-					x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
-					if exact {
-						x = roundMinor(x, in.Rounding)
-					}
-				} else if exact {
-					if q, sure := money.RoundFast(x); sure {
-						x = q
-					} else {
-						x = roundAmount(a, s.unitOf(e), in.Rounding)
-					}
-				}
-				if alone {
-					y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
-					if in.Out[e.Src] {
-						y, wi = -math.Abs(x), wi+1
-					}
-					if e.Kind == Income {
-						ea[l].pool[e.Src] += y
-					} else {
-						ea[l].flow(int(e.Src), y, w[l][wi], e.Tau, none)
-					}
-				}
+				x := x
 				if e.Kind == Income {
 					pool[l] += x
-					if logged {
-						o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal[l], 0, 0)
-					}
+
 					continue
 				}
 				var short, covered, emp, over float64
-				if capping && in.Capped[e.Src] && x > 0 {
-					if y := e.Month / 12; y != capYear[l] {
-						capYear[l], capped[l] = y, 0
-					}
-					over = max(x-max(in.Cap*scale[l]-capped[l], 0), 0)
-					x -= over
-					capped[l] += x
-				}
-				if matching && in.Matched[e.Src] && x > 0 {
-					if y := e.Month / 12; y != matchYear[l] {
-						matchYear[l], matched[l] = y, 0
-					}
-					m := x
-					if in.MatchLimit != nil {
-						m = min(m, max(in.MatchLimit[e.Month/12]*scale[l]-matched[l], 0))
-					}
-					matched[l] += m
-					emp = m * in.Match
-					if exact {
-						if q, sure := money.RoundFast(emp); sure {
-							emp = q
-						} else {
-							emp = roundPosting(m, in.MatchM, 0, in.Rounding)
-						}
-					}
-				}
+				_ = covered
+				_ = emp
+				_ = over
+				_ = short
 				if in.Out[e.Src] {
 					x = -math.Abs(x)
 					if pool[l] > 0 && exact {
@@ -4615,30 +4407,10 @@ events:
 				if short > 0 {
 
 					base[l], acc[l], accrued[l] = 0, 0, 0
-					if none {
-						low[l] = 0
-					}
-					if logged {
-						o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal[l], short, covered)
-					}
+
 					continue
 				}
 				bal[l] += emp
-				if slope {
-					if none {
-						dv[l].low = dlowest(low[l], bal[l]+accrued[l], e.Tau, dv[l].low, dv[l].bal+dv[l].accrued)
-					}
-					if e.Tau != 1 {
-						wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
-						if x+emp < 0 {
-							wi++
-						}
-						dv[l].acc += (x + emp) * dv[l].dw[wi]
-					}
-				}
-				if none {
-					low[l] = lowest(low[l], bal[l]+accrued[l], e.Tau)
-				}
 				if in := x + emp; e.Tau == 1 {
 					base[l] += in
 				} else if !paths {
@@ -4648,29 +4420,13 @@ events:
 					}
 					acc[l] += in * w[l][i]
 				} else {
-					acc[l] += in * o.Paths.W[i]
-				}
-				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal[l]-emp, short, covered)
-					if emp != 0 {
-						o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal[l], 0, 0)
-					}
-					if over != 0 {
-						o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal[l], 0, 0)
-					}
+					acc[l] += in * ps[l].W[i]
 				}
 			}
 		}
 	}
 	for l := range Lanes {
-		o := &os[l]
-		if alone {
-			copy(o.Each, ea[l].bal)
-		}
 		res[l].Closing, res[l].Peak = bal[l], peak[l]
-		if slope {
-			res[l].DClosing = dv[l].bal
-		}
 		r[l] = res[l]
 	}
 	return r

@@ -12,6 +12,7 @@ import (
 	"os"
 	"reflect"
 	"regexp"
+	"slices"
 	"strings"
 	"testing"
 )
@@ -84,9 +85,9 @@ func generateWalks(t *testing.T) []byte {
 	}
 	b.WriteString("\t}\n\treturn Result{}, false\n}\n\n")
 	b.WriteString("// walkFixedLanes runs walk's lane copy for flags f, when it has one.\n")
-	b.WriteString("func walkFixedLanes(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) ([Lanes]Result, bool) {\n\tswitch f {\n")
+	b.WriteString("func walkFixedLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *[Lanes]int, f flags) ([Lanes]Result, bool) {\n\tswitch f {\n")
 	for _, w := range laneWalks {
-		fmt.Fprintf(&b, "\tcase %s:\n\t\treturn %s(s, in, os, f), true\n", literal(w.f), w.name)
+		fmt.Fprintf(&b, "\tcase %s:\n\t\treturn %s(s, in, o, ps, at), true\n", literal(w.f), w.name)
 	}
 	b.WriteString("\t}\n\treturn [Lanes]Result{}, false\n}\n")
 	for _, w := range fixedWalks {
@@ -95,7 +96,7 @@ func generateWalks(t *testing.T) []byte {
 	}
 	for _, w := range laneWalks {
 		fmt.Fprintf(&b, "\n// %s is walk under %s, for each of Lanes options at once.\n", w.name, literal(w.f))
-		b.WriteString(lanesOf(t, fixFlags(t, fn, w.f), w.name) + "\n")
+		b.WriteString(lanesOf(t, fixFlags(t, fn, w.f), w.name, w.f) + "\n")
 	}
 	out, err := format.Source(b.Bytes())
 	if err != nil {
@@ -131,19 +132,30 @@ func fixFlags(t *testing.T, fn string, f flags) string {
 
 // lanesOf returns walk's source fn (its flags constants) as a function
 // name that makes Lanes walks at once, each event for every lane in turn,
-// so that the processor overlaps the lanes' chains of arithmetic: each
-// variable declared before the events' loop (the walk's state) becomes an
-// array, one a lane, indexed by the lane l; the statements before the
-// loop, each event's case and those after the loop run for each lane, o
-// being lane l's options os[l]. A continue of the events' loop goes on to
-// the next lane, as it goes on to the next event in walk.
-func lanesOf(t *testing.T, fn, name string) string {
+// so that the processor overlaps the lanes' chains of arithmetic. The
+// lanes share the options o but for o.Paths and o.Path (paths[l], at[l]).
+// What a flag rules out is dropped first. Each variable declared before
+// the events' loop that the loop changes (the walk's state) becomes an
+// array, one element a lane, indexed by the lane l; the rest (what a walk
+// decides once from its inputs) is computed once. Each event's case runs
+// its statements that read no lane's state once, and the rest in loops
+// over the lanes: a loop ends where no later statement needs its
+// variables, and an if whose condition reads no lane's state holds its
+// own loop; from a statement that may continue on to the next event, the
+// case is one loop, whose continue goes on to the next lane.
+func lanesOf(t *testing.T, fn, name string, f flags) string {
 	fs := token.NewFileSet()
 	file, err := parser.ParseFile(fs, "", "package engine\n\n"+fn, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
+	consts := map[string]bool{}
+	v := reflect.ValueOf(f)
+	for i := range v.NumField() {
+		consts[v.Type().Field(i).Name] = v.Field(i).Bool()
+	}
 	body := file.Decls[0].(*ast.FuncDecl).Body
+	fold(body, consts)
 	k := -1
 	for i, st := range body.List {
 		if l, ok := st.(*ast.LabeledStmt); ok {
@@ -165,85 +177,112 @@ func lanesOf(t *testing.T, fn, name string) string {
 	if !ok || len(ret.Results) != 1 {
 		t.Fatal("walk.go: walk does not end with return res")
 	}
-	var b strings.Builder
-	fmt.Fprintf(&b, "func %s(s *Schedule, in *Inputs, os *[Lanes]Options, f flags) (r [Lanes]Result) {\n", name)
-	// the state: its declarations hoisted as arrays, their values set in
-	// the lane loop
+	pro, post := body.List[:k], body.List[k+1:len(body.List)-1]
+	// the variables declared before the loop, and which of them are the
+	// state: changed after the prologue, or set from the state or a
+	// lane's paths
+	declared := map[*ast.Object]bool{}
 	state := map[*ast.Object]bool{}
-	for _, st := range body.List[:k] {
-		switch st := st.(type) {
-		case *ast.DeclStmt:
-			d := st.Decl.(*ast.GenDecl)
-			if d.Tok == token.CONST {
-				b.WriteString(text(t, fs, st) + "\n")
+	for _, st := range pro {
+		for o := range declares(st) {
+			declared[o] = true
+			// a variable of no named type (a slice, a pointer) may be
+			// changed through: one a lane
+			if _, named := typeOf(o).(*ast.Ident); !named {
+				state[o] = true
+			}
+		}
+	}
+	for _, st := range append(append([]ast.Stmt{rs.Body}, post...), ret) {
+		for o := range assigned(st) {
+			if declared[o] {
+				state[o] = true
+			}
+		}
+	}
+	for changed := true; changed; {
+		changed = false
+		for _, st := range pro {
+			if !lanes(st, state) {
 				continue
 			}
-			for _, sp := range d.Specs {
+			for o := range assigned(st) {
+				if declared[o] && !state[o] {
+					state[o], changed = true, true
+				}
+			}
+		}
+	}
+	var b strings.Builder
+	fmt.Fprintf(&b, "func %s(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *[Lanes]int) (r [Lanes]Result) {\n", name)
+	// the state's declarations, as arrays; its settings in a lane loop
+	var lane []ast.Stmt
+	for _, st := range pro {
+		if !lanes(st, state) {
+			b.WriteString(stmtText(t, fs, st))
+			continue
+		}
+		switch st := st.(type) {
+		case *ast.DeclStmt:
+			for _, sp := range st.Decl.(*ast.GenDecl).Specs {
 				sp := sp.(*ast.ValueSpec)
 				if sp.Type == nil {
 					t.Fatalf("walk.go: %s: the walk's state is declared with its type", text(t, fs, st))
 				}
-				var names []string
-				for _, id := range sp.Names {
-					state[id.Obj] = true
+				var names, vals []string
+				for i, id := range sp.Names {
 					names = append(names, id.Name)
+					if len(sp.Values) > 0 {
+						vals = append(vals, text(t, fs, sp.Values[i]))
+					}
 				}
 				fmt.Fprintf(&b, "var %s [Lanes]%s\n", strings.Join(names, ", "), text(t, fs, sp.Type))
+				for _, n := range names {
+					fmt.Fprintf(&b, "_ = %s\n", n)
+				}
+				if len(vals) > 0 {
+					lane = append(lane, &ast.ExprStmt{X: ast.NewIdent(strings.Join(names, "[l], ") + "[l] = " + strings.Join(vals, ", "))})
+				}
 			}
 		case *ast.AssignStmt:
-			if st.Tok != token.DEFINE {
-				continue
+			if st.Tok == token.DEFINE {
+				id := st.Lhs[0].(*ast.Ident)
+				var typ ast.Expr
+				switch v := st.Rhs[0].(type) {
+				case *ast.CallExpr:
+					typ = v.Fun
+				case *ast.CompositeLit:
+					typ = v.Type
+				}
+				if len(st.Lhs) != 1 || typ == nil {
+					t.Fatalf("walk.go: %s: the walk's state is declared one at a time, with var, a conversion or a composite literal", text(t, fs, st))
+				}
+				fmt.Fprintf(&b, "var %s [Lanes]%s\n", id.Name, text(t, fs, typ))
+				st.Tok = token.ASSIGN
 			}
-			if len(st.Lhs) != 1 {
-				t.Fatalf("walk.go: %s: declare the walk's state one at a time", text(t, fs, st))
-			}
-			id := st.Lhs[0].(*ast.Ident)
-			var typ ast.Expr
-			switch v := st.Rhs[0].(type) {
-			case *ast.CallExpr:
-				typ = v.Fun
-			case *ast.CompositeLit:
-				typ = v.Type
-			}
-			if typ == nil {
-				t.Fatalf("walk.go: %s: the walk's state is a conversion or a composite literal", text(t, fs, st))
-			}
-			state[id.Obj] = true
-			fmt.Fprintf(&b, "var %s [Lanes]%s\n", id.Name, text(t, fs, typ))
-			st.Tok = token.ASSIGN
+			lane = append(lane, st)
+		default:
+			lane = append(lane, st)
 		}
 	}
 	// every use of the state is lane l's
-	ast.Inspect(body, func(n ast.Node) bool {
+	ast.Inspect(file, func(n ast.Node) bool {
 		if id, ok := n.(*ast.Ident); ok && id.Obj != nil && state[id.Obj] {
 			id.Name += "[l]"
 		}
 		return true
 	})
-	b.WriteString("for l := range Lanes {\no := &os[l]\n")
-	for _, st := range body.List[:k] {
-		d, ok := st.(*ast.DeclStmt)
-		if !ok {
-			b.WriteString(text(t, fs, st) + "\n")
-			continue
-		}
-		if d.Decl.(*ast.GenDecl).Tok == token.CONST {
-			continue
-		}
-		for _, sp := range d.Decl.(*ast.GenDecl).Specs {
-			sp := sp.(*ast.ValueSpec)
-			if len(sp.Values) == 0 {
-				continue
-			}
-			var names, vals []string
-			for i := range sp.Names {
-				names, vals = append(names, sp.Names[i].Name), append(vals, text(t, fs, sp.Values[i]))
-			}
-			b.WriteString(strings.Join(names, ", ") + " = " + strings.Join(vals, ", ") + "\n")
-		}
+	laneLoop(&b, t, fs, lane)
+	labelled := false // what the flags dropped may have held the loop's break
+	ast.Inspect(rs, func(n ast.Node) bool {
+		br, ok := n.(*ast.BranchStmt)
+		labelled = labelled || ok && br.Label != nil && br.Label.Name == loop.Label.Name
+		return true
+	})
+	if labelled {
+		fmt.Fprintf(&b, "%s:\n", loop.Label.Name)
 	}
-	b.WriteString("}\n")
-	fmt.Fprintf(&b, "%s:\nfor i := range s.events {\ne := &s.events[i]\nswitch %s {\n", loop.Label.Name, text(t, fs, sw.Tag))
+	fmt.Fprintf(&b, "for i := range s.events {\ne := &s.events[i]\nswitch %s {\n", text(t, fs, sw.Tag))
 	for _, cc := range sw.Body.List {
 		cc := cc.(*ast.CaseClause)
 		var list []string
@@ -253,18 +292,332 @@ func lanesOf(t *testing.T, fn, name string) string {
 		if len(list) == 0 {
 			t.Fatal("walk.go: the events' switch has a default")
 		}
-		fmt.Fprintf(&b, "case %s:\nfor l := range Lanes {\no := &os[l]\n", strings.Join(list, ", "))
-		for _, st := range cc.Body {
-			b.WriteString(text(t, fs, st) + "\n")
+		fmt.Fprintf(&b, "case %s:\n", strings.Join(list, ", "))
+		caseLanes(&b, t, fs, cc.Body, state)
+	}
+	b.WriteString("}\n}\n")
+	laneLoop(&b, t, fs, append(post, &ast.ExprStmt{X: ast.NewIdent("r[l] = " + text(t, fs, ret.Results[0]))}))
+	b.WriteString("return r\n}\n")
+	out := regexp.MustCompile(`\bo\.Paths\b`).ReplaceAllString(b.String(), "ps[l]")
+	return regexp.MustCompile(`\bo\.Path\b`).ReplaceAllString(out, "at[l]")
+}
+
+// caseLanes writes the statements of one event's case (see lanesOf).
+func caseLanes(b *strings.Builder, t *testing.T, fs *token.FileSet, list []ast.Stmt, state map[*ast.Object]bool) {
+	var group []ast.Stmt // the lane loop being gathered
+	laneVars := map[*ast.Object]bool{}
+	once := map[*ast.Object]bool{} // the case's variables computed once
+	copies := func(list []ast.Stmt) []string {
+		var c []string
+		for o := range once {
+			for _, st := range list {
+				if assigned(st)[o] {
+					c = append(c, o.Name)
+					break
+				}
+			}
 		}
-		b.WriteString("}\n")
+		slices.Sort(c)
+		return c
 	}
-	b.WriteString("}\n}\nfor l := range Lanes {\no := &os[l]\n")
-	for _, st := range body.List[k+1 : len(body.List)-1] {
-		b.WriteString(text(t, fs, st) + "\n")
+	flush := func() {
+		if len(group) > 0 {
+			laneLoop(b, t, fs, group, copies(group)...)
+			group = nil
+		}
 	}
-	fmt.Fprintf(&b, "r[l] = %s\n}\nreturn r\n}\n", text(t, fs, ret.Results[0]))
-	return b.String()
+	for i, st := range list {
+		if len(group) > 0 && (continues(group[len(group)-1]) || reads(st, laneVars)) {
+			group = append(group, st) // the loop must go on to here
+		} else if !lanes(st, state) && !reads(st, laneVars) {
+			// what every lane computes alike: once, after the lanes'
+			// loop when no later statement reads that loop's variables
+			if readLater(list[i:], laneVars) {
+				group = append(group, st)
+			} else {
+				flush()
+				b.WriteString(stmtText(t, fs, st))
+				for o := range declares(st) {
+					once[o] = true
+				}
+			}
+		} else if is, ok := st.(*ast.IfStmt); ok && is.Init == nil && is.Else == nil && !lanes(is.Cond, state) && !continues(is) && !reads(is, laneVars) && !readLater(list[i+1:], laneVars) {
+			flush()
+			fmt.Fprintf(b, "if %s {\n", text(t, fs, is.Cond))
+			laneLoop(b, t, fs, is.Body.List, copies(is.Body.List)...)
+			b.WriteString("}\n")
+		} else {
+			group = append(group, st)
+		}
+		for o := range declares(st) {
+			if len(group) > 0 && group[len(group)-1] == st {
+				laneVars[o] = true
+			}
+		}
+	}
+	flush()
+}
+
+// readLater reports whether any of list reads any of vars.
+func readLater(list []ast.Stmt, vars map[*ast.Object]bool) bool {
+	for _, x := range list {
+		if reads(x, vars) {
+			return true
+		}
+	}
+	return false
+}
+
+// laneLoop writes list in a loop over the lanes, each of copies (a
+// variable of the case that every lane starts from alike) the lane's own.
+func laneLoop(b *strings.Builder, t *testing.T, fs *token.FileSet, list []ast.Stmt, copies ...string) {
+	b.WriteString("for l := range Lanes {\n")
+	for _, c := range copies {
+		b.WriteString(c + " := " + c + "\n")
+	}
+	for _, st := range list {
+		b.WriteString(stmtText(t, fs, st))
+	}
+	b.WriteString("}\n")
+}
+
+// stmtText returns st as Go source, and for a declaration of variables a
+// use of each, which what the flags dropped may have been.
+func stmtText(t *testing.T, fs *token.FileSet, st ast.Stmt) string {
+	out := text(t, fs, st) + "\n"
+	var names []string
+	for o := range declares(st) {
+		names = append(names, o.Name)
+	}
+	slices.Sort(names)
+	for _, n := range names {
+		out += "_ = " + n + "\n"
+	}
+	return out
+}
+
+// typeOf returns the type a variable is declared with: written, or the
+// type of a conversion or a composite literal it is set to (nil if
+// neither).
+func typeOf(o *ast.Object) ast.Expr {
+	switch d := o.Decl.(type) {
+	case *ast.ValueSpec:
+		return d.Type
+	case *ast.AssignStmt:
+		for i, x := range d.Lhs {
+			if id, ok := x.(*ast.Ident); ok && id.Obj == o && len(d.Rhs) == len(d.Lhs) {
+				switch v := d.Rhs[i].(type) {
+				case *ast.CallExpr:
+					return v.Fun
+				case *ast.CompositeLit:
+					return v.Type
+				}
+			}
+		}
+	}
+	return nil
+}
+
+// declares returns the variables st declares at its own level.
+func declares(st ast.Stmt) map[*ast.Object]bool {
+	out := map[*ast.Object]bool{}
+	switch st := st.(type) {
+	case *ast.AssignStmt:
+		if st.Tok == token.DEFINE {
+			for _, x := range st.Lhs {
+				if id, ok := x.(*ast.Ident); ok && id.Obj != nil {
+					out[id.Obj] = true
+				}
+			}
+		}
+	case *ast.DeclStmt:
+		if st.Decl.(*ast.GenDecl).Tok != token.VAR {
+			break
+		}
+		for _, sp := range st.Decl.(*ast.GenDecl).Specs {
+			if sp, ok := sp.(*ast.ValueSpec); ok {
+				for _, id := range sp.Names {
+					out[id.Obj] = true
+				}
+			}
+		}
+	}
+	return out
+}
+
+// assigned returns the variables n sets, declares or takes the address of.
+func assigned(n ast.Node) map[*ast.Object]bool {
+	out := map[*ast.Object]bool{}
+	root := func(x ast.Expr) {
+		for {
+			switch y := x.(type) {
+			case *ast.IndexExpr:
+				x = y.X
+				continue
+			case *ast.ParenExpr:
+				x = y.X
+				continue
+			case *ast.SelectorExpr:
+				x = y.X
+				continue
+			case *ast.StarExpr:
+				x = y.X
+				continue
+			case *ast.Ident:
+				if y.Obj != nil {
+					out[y.Obj] = true
+				}
+			}
+			return
+		}
+	}
+	ast.Inspect(n, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.AssignStmt:
+			for _, x := range n.Lhs {
+				root(x)
+			}
+		case *ast.IncDecStmt:
+			root(n.X)
+		case *ast.UnaryExpr:
+			if n.Op == token.AND {
+				root(n.X)
+			}
+		case *ast.ValueSpec:
+			for _, id := range n.Names {
+				out[id.Obj] = true
+			}
+		}
+		return true
+	})
+	return out
+}
+
+// reads reports whether n mentions any of vars.
+func reads(n ast.Node, vars map[*ast.Object]bool) bool {
+	found := false
+	ast.Inspect(n, func(n ast.Node) bool {
+		if id, ok := n.(*ast.Ident); ok {
+			found = found || id.Obj != nil && vars[id.Obj]
+		}
+		return !found
+	})
+	return found
+}
+
+// lanes reports whether n reads a lane's own: the state, or the lane's
+// options (o.Paths, o.Path).
+func lanes(n ast.Node, state map[*ast.Object]bool) bool {
+	found := reads(n, state)
+	ast.Inspect(n, func(n ast.Node) bool {
+		if sel, ok := n.(*ast.SelectorExpr); ok {
+			if x, ok := sel.X.(*ast.Ident); ok && x.Name == "o" && (sel.Sel.Name == "Paths" || sel.Sel.Name == "Path") {
+				found = true
+			}
+		}
+		return !found
+	})
+	return found
+}
+
+// continues reports whether n continues the events' loop (a continue
+// not inside a loop of its own).
+func continues(n ast.Node) bool {
+	found := false
+	ast.Inspect(n, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.ForStmt, *ast.RangeStmt, *ast.FuncLit:
+			return false
+		case *ast.BranchStmt:
+			found = found || n.Tok == token.CONTINUE && n.Label == nil
+		}
+		return !found
+	})
+	return found
+}
+
+// fold drops what the constants rule out: the branch of an if whose
+// condition they decide, keeping the other as a block.
+func fold(n ast.Node, consts map[string]bool) {
+	ast.Inspect(n, func(n ast.Node) bool {
+		var list *[]ast.Stmt
+		switch n := n.(type) {
+		case *ast.BlockStmt:
+			list = &n.List
+		case *ast.CaseClause:
+			list = &n.Body
+		default:
+			return true
+		}
+		var out []ast.Stmt
+		for _, st := range *list {
+			for {
+				is, ok := st.(*ast.IfStmt)
+				if !ok || is.Init != nil {
+					break
+				}
+				v, known := value(is.Cond, consts)
+				if !known {
+					break
+				}
+				switch {
+				case v:
+					st = is.Body
+				case is.Else != nil:
+					st = is.Else
+				default:
+					st = nil
+				}
+				if st == nil {
+					break
+				}
+			}
+			if st != nil {
+				out = append(out, st)
+			}
+		}
+		*list = out
+		return true
+	})
+}
+
+// calls reports whether x calls a function.
+func calls(x ast.Expr) bool {
+	found := false
+	ast.Inspect(x, func(n ast.Node) bool {
+		_, ok := n.(*ast.CallExpr)
+		found = found || ok
+		return !found
+	})
+	return found
+}
+
+// value returns a condition's value when the constants decide it.
+func value(x ast.Expr, consts map[string]bool) (v, known bool) {
+	switch x := x.(type) {
+	case *ast.Ident:
+		v, known = consts[x.Name]
+		return v, known
+	case *ast.ParenExpr:
+		return value(x.X, consts)
+	case *ast.UnaryExpr:
+		if x.Op == token.NOT {
+			v, known = value(x.X, consts)
+			return !v, known
+		}
+	case *ast.BinaryExpr:
+		l, lk := value(x.X, consts)
+		r, rk := value(x.Y, consts)
+		switch {
+		case x.Op == token.LAND && lk && !l, x.Op == token.LOR && lk && l:
+			return l, true
+		case (x.Op == token.LAND || x.Op == token.LOR) && lk:
+			return r, rk
+		case x.Op == token.LAND && rk && !r && !calls(x.X), x.Op == token.LOR && rk && r && !calls(x.X):
+			return r, true // what x.X is does not matter, and finding it does nothing
+		}
+	}
+	return false, false
 }
 
 // text returns node n as Go source.
