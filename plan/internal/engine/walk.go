@@ -346,7 +346,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 }
 
 // Lanes is how many walks [WalkLanes] makes at once.
-const Lanes = 4
+const Lanes = 8
 
 // WalkLanes makes the walks [Walk] makes with options o, each with its
 // own paths[l] and path index at[l] in place of o.Paths and o.Path, and
