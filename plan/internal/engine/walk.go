@@ -4,6 +4,7 @@ package engine
 
 import (
 	"math"
+	"slices"
 	"sync/atomic"
 
 	"cairn/money"
@@ -237,10 +238,12 @@ type Log struct {
 
 // weights returns, for every rate step k and distinct tau i, what one unit
 // arriving (at 2(k·nt + i)) or leaving (the next) earns by the credit:
-// accrual's values, computed once per walk instead of once per event.
-func (s *Schedule) weights(js []float64, b Between) []float64 {
+// accrual's values, computed once per walk instead of once per event, in
+// w's storage when it has room (a walk's own, which a short walk does not
+// allocate).
+func (s *Schedule) weights(w, js []float64, b Between) []float64 {
 	nt := len(s.taus)
-	w := make([]float64, 2*len(js)*nt)
+	w = slices.Grow(w[:0], 2*len(js)*nt)[:2*len(js)*nt]
 	for k, j := range js {
 		l := math.Log1p(j)
 		for i, tau := range s.taus {
@@ -458,9 +461,10 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {

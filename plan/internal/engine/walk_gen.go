@@ -26,6 +26,8 @@ func walkFixed(s *Schedule, in *Inputs, o *Options, f flags) (Result, bool) {
 		return walkEach(s, in, o, f), true
 	case flags{exact: true, accrue: true}:
 		return walkExactAccrue(s, in, o, f), true
+	case flags{exact: true, accrue: true, reach: true}:
+		return walkReachAccrue(s, in, o, f), true
 	case flags{exact: true, logged: true, accrue: true}:
 		return walkLedgerAccrue(s, in, o, f), true
 	case flags{alone: true, accrue: true}:
@@ -79,9 +81,10 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -539,9 +542,10 @@ func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -999,9 +1003,10 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -1459,9 +1464,10 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -1919,9 +1925,10 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -2379,9 +2386,10 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -2839,9 +2847,471 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
+	}
+	var dv *deriv // the derivatives (Options.DRates)
+	if slope {
+		dv = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
+	}
+	var ea *each // every source alone (Options.Each)
+	if alone {
+		ea = newEach(len(o.Each))
+		ea.bal[0] = in.Amounts[0]
+		ea.base[0], ea.low[0] = ea.bal[0], ea.bal[0]
+	}
+	if !one || o.Source == 0 {
+		bal = in.Amounts[0] * scale
+		if exact {
+			if q, sure := money.RoundFast(bal); sure {
+				bal = q
+			} else {
+				bal = roundAmount(bal, money.One, in.Rounding)
+			}
+		}
+		base = bal
+	}
+	if none {
+		low = base
+	}
+	// ruled and ruleYear are each ruled source's amount (currency units,
+	// before its Unit) and the year it was decided for.
+	var ruledAmt []float64
+	var ruleYear []int32
+	if ruled {
+		ruledAmt, ruleYear = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
+		for k := range ruleYear {
+			ruleYear[k] = -1
+		}
+	}
+events:
+	for i := range s.events {
+		e := &s.events[i]
+		switch e.Kind {
+		case Interest:
+			for c := range e.Count { // each interest date of the run
+				var j float64 // the period's rate
+				if paths {
+					j = o.Paths.J[e.Period+c]
+				} else {
+					j = in.Rates[e.Step]
+				}
+				b, plus := base, acc // the interest is b × j + plus
+				if none {
+					b, plus = low, 0
+					if exact && low < 0 { // the carried fraction of a cent below an empty account
+						b = 0
+					}
+				}
+				x := b*j + plus
+				if slope {
+					db, dplus := dv.base, dv.acc
+					if none {
+						db, dplus = dv.low, 0
+					}
+					dx := db*j + b*o.DRates[e.Step] + dplus
+					if accrue {
+						dv.accrued += dx
+						dv.base = dv.bal + dv.accrued
+					} else {
+						dv.bal += dx
+						dv.base = dv.bal
+						dv.taxable += dx
+					}
+					dv.acc, dv.low = 0, dv.base
+				}
+				if alone {
+					ea.interest(j, none, accrue)
+				}
+				if accrue {
+					accrued += x
+					base, acc = bal+accrued, 0
+					if none {
+						low = base
+					}
+					continue
+				}
+				if exact {
+					if q, sure := money.RoundFast(x); sure {
+						x = q
+					} else {
+						x = roundPosting(b, rateOf(in, e.Step, j), plus, in.Rounding)
+					}
+				}
+				bal += x
+				if taxed {
+					taxable += x
+				}
+				base, acc = bal, 0
+				if none {
+					low = base
+				}
+				if logged && x != 0 {
+					t := e.Tick + int64(c)*s.period
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+				}
+			}
+		case Credit:
+			if alone {
+				ea.credit()
+			}
+			x := accrued
+			if slope {
+				dv.bal += dv.accrued
+				dv.taxable += dv.accrued
+				dv.accrued = 0
+			}
+			if exact {
+				x = roundMinor(x, in.Rounding)
+			}
+			bal += x
+			accrued -= x
+			if taxed {
+				taxable += x
+			}
+			if logged && x != 0 {
+				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+			}
+		case Tax:
+			if alone {
+				ea.tax(in.Tax)
+			}
+			// The tax on the year's interest, paid from the account at an
+			// interest date (Tau 1): it leaves the next period's base. A
+			// year whose interest is not positive pays none (no refund or
+			// credit is modelled).
+			t := taxable
+			x := t * in.Tax
+			taxable = 0
+			var dx float64 // its derivative (Options.DRates)
+			if slope {
+				dx, dv.taxable = dv.taxable*in.Tax, 0
+			}
+			if x <= 0 {
+				continue
+			}
+			if slope {
+				dv.bal -= dx
+				dv.base -= dx
+				dv.low = dv.bal + dv.accrued
+			}
+			if exact {
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundPosting(t, in.TaxM, 0, in.Rounding)
+				}
+				x = min(x, max(bal, 0)) // what the account holds; no debt is modelled
+				if x == 0 {
+					continue
+				}
+			}
+			bal -= x
+			base -= x
+			if none {
+				low = bal + accrued
+			}
+			if logged {
+				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+			}
+		case Fee:
+			if alone {
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+			}
+			f := bal * in.Fee
+			if exact {
+				if bal <= 0 {
+					continue
+				}
+				if q, sure := money.RoundFast(f); sure {
+					f = q
+				} else {
+					f = roundPosting(bal, in.FeeM, 0, in.Rounding)
+				}
+				if f == 0 {
+					continue
+				}
+			}
+			bal -= f
+			if slope {
+				wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
+				df := dv.bal * in.Fee
+				dv.bal -= df
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau == 1 {
+					dv.base -= df
+				} else {
+					dv.acc -= df*w[wi] + f*dv.dw[wi]
+				}
+			}
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
+			if e.Tau == 1 { // a whole period's interest: part of the next base
+				base -= f
+			} else if !paths {
+				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
+			} else {
+				acc -= f * o.Paths.W[i]
+			}
+			if logged {
+				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+			}
+		case Mark:
+			m := e.Month
+			pool = 0 // income its month's withdrawals did not need is not deposited
+			if alone {
+				clear(ea.pool)
+			}
+			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if logged {
+				o.Log.MonthEnd[m] = int64(bal)
+			}
+			if o.MonthEnds != nil {
+				o.MonthEnds[m] = bal / scale
+			}
+			if o.Rows != nil {
+				if row := o.Rows[m]; row != nil {
+					row[o.Path] = bal
+				}
+			}
+			if o.HasDeadline && m == o.Deadline {
+				res.AtDeadline = bal
+			}
+			if reach && o.Reach(m, bal/scale) {
+				res.Reached, res.ReachMonth = true, m
+				break events
+			}
+		case FlowEnd, FlowBegin, Income:
+			if alone && e.Kind != Income && in.Out[e.Src] {
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+			}
+			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
+				// the month's income, unclamped, as money in at its first
+				// withdrawal: linear in every amount, so that income is
+				// valued alone like any other source
+				if slope {
+					if none {
+						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					}
+					if e.Tau != 1 {
+						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+					}
+				}
+				if e.Tau == 1 {
+					base += pool
+				} else if !paths {
+					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+				} else {
+					acc += pool * o.Paths.W[i]
+				}
+				bal += pool
+				pool = 0
+				if none {
+					low = lowest(low, bal+accrued, e.Tau)
+				}
+			}
+			if one && e.Src != o.Source {
+				continue
+			}
+			a := in.Amounts[e.Src] * scale
+			if set && e.Src == in.SetSrc {
+				a = in.Set[i] * scale
+			}
+			if ruled && in.Rules[e.Src].Kind != RuleFixed {
+				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+					u := e.Unit
+					if infl && (e.IA != 0 || e.IB != 0) {
+						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					}
+					first := ruleYear[e.Src] < 0
+					if first {
+						ruledAmt[e.Src] = in.Amounts[e.Src]
+					}
+					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
+					ruleYear[e.Src] = e.Year
+				}
+				a = ruledAmt[e.Src] * scale
+			}
+			x := a * e.Unit
+			if infl && (e.IA != 0 || e.IB != 0) {
+				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+				if exact {
+					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
+				}
+			} else if exact {
+				if q, sure := money.RoundFast(x); sure {
+					x = q
+				} else {
+					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				}
+			}
+			if alone {
+				y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
+				if in.Out[e.Src] {
+					y, wi = -math.Abs(x), wi+1
+				}
+				if e.Kind == Income {
+					ea.pool[e.Src] += y
+				} else {
+					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+				}
+			}
+			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
+				pool += x
+				if logged {
+					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+				}
+				continue
+			}
+			var short, covered, emp, over float64
+			if capping && in.Capped[e.Src] && x > 0 {
+				if y := e.Month / 12; y != capYear {
+					capYear, capped = y, 0
+				}
+				over = max(x-max(in.Cap*scale-capped, 0), 0)
+				x -= over
+				capped += x
+			}
+			if matching && in.Matched[e.Src] && x > 0 {
+				if y := e.Month / 12; y != matchYear {
+					matchYear, matched = y, 0
+				}
+				m := x
+				if in.MatchLimit != nil {
+					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+				}
+				matched += m
+				emp = m * in.Match
+				if exact {
+					if q, sure := money.RoundFast(emp); sure {
+						emp = q
+					} else {
+						emp = roundPosting(m, in.MatchM, 0, in.Rounding)
+					}
+				}
+			}
+			if in.Out[e.Src] {
+				x = -math.Abs(x)
+				if pool > 0 && exact { // the month's income pays first
+					covered = min(pool, -x)
+					pool -= covered
+					x += covered
+				}
+				if exact && -x > bal {
+					if !res.Short {
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+					}
+					paid := max(bal, 0)
+					short, x = -x-paid, -paid
+				}
+			}
+			bal += x
+			if short > 0 {
+				// Emptied: what the money earned in this period before it
+				// left is forfeit, so the balance stays at zero until money
+				// comes in.
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
+				if logged {
+					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+				}
+				continue
+			}
+			bal += emp // the employer's part arrives with the deposit
+			if slope {
+				if none {
+					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+				}
+				if e.Tau != 1 {
+					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+					if x+emp < 0 {
+						wi++
+					}
+					dv.acc += (x + emp) * dv.dw[wi]
+				}
+			}
+			if none {
+				low = lowest(low, bal+accrued, e.Tau)
+			}
+			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+				base += in
+			} else if !paths {
+				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+				if in < 0 {
+					i++
+				}
+				acc += in * w[i]
+			} else {
+				acc += in * o.Paths.W[i]
+			}
+			if logged {
+				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				if emp != 0 {
+					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+				}
+				if over != 0 {
+					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+				}
+			}
+		}
+	}
+	if alone {
+		copy(o.Each, ea.bal)
+	}
+	res.Closing, res.Peak = bal, peak
+	if slope {
+		res.DClosing = dv.bal
+	}
+	return res
+}
+
+// walkReachAccrue is walk under flags{exact: true, accrue: true, reach: true}.
+func walkReachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
+	const exact = true
+	const paths = false
+	const infl = false
+	const logged = false
+	const slope = false
+	const alone = false
+	const one = false
+	const none = false
+	const set = false
+	const ruled = false
+	const capping = false
+	const matching = false
+	const accrue = true
+	const taxed = false
+	const reach = true
+	var bal, base, acc, accrued, peak float64
+	var pool float64    // the month's income not yet paid out
+	var taxable float64 // interest credited since the last tax (Shape.Tax)
+	// matched is the deposits matched in year matchYear (Inputs.Match)
+	var matched float64
+	matchYear := int32(-1)
+	// capped is what went in during year capYear (Inputs.Cap)
+	var capped float64
+	capYear := int32(-1)
+	// low is the lowest balance (with interest accrued) held since the
+	// interest period began, what rule None pays interest on: a flow or
+	// fee at the period's first tick sets it, any later one can only
+	// lower it. It is kept only under rule None.
+	var low float64
+	res := Result{ShortTick: -1}
+	var scale float64 = 1 // minor units per currency unit (exact)
+	if exact {
+		scale = math.Pow(10, float64(in.Places))
+	}
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
+	if !paths {
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -3299,9 +3769,10 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -3759,9 +4230,10 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
+	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
-		w = s.weights(in.Rates, in.Between)
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
@@ -4226,6 +4698,8 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	{
 		scale = math.Pow(10, float64(in.Places))
 	}
+	var wbuf [Lanes][16]float64
+	_ = wbuf
 	var w [Lanes][]float64
 	_ = w
 	var dv [Lanes]*deriv

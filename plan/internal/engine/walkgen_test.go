@@ -34,6 +34,7 @@ var fixedWalks = []struct {
 	{"walkEach", flags{alone: true}},                 // the equation of value
 	// the same, of a schedule compounding more often than monthly
 	{"walkExactAccrue", flags{exact: true, accrue: true}},
+	{"walkReachAccrue", flags{exact: true, accrue: true, reach: true}},
 	{"walkLedgerAccrue", flags{exact: true, logged: true, accrue: true}},
 	{"walkEachAccrue", flags{alone: true, accrue: true}},
 }
