@@ -3,8 +3,10 @@
 # to PDF in headless Chromium and check that it has a page for the summary
 # and one for each goal, the text every report must carry, a first page
 # worth reading, no heading stranded at a page's foot and no path from the
-# author's machine. The pages are left as images in .ci/artefacts
-# (report-page-N.png) to be looked at.
+# author's machine, and no page a few lines carried over from the page
+# before, for every example. The pages are left as images in .ci/artefacts
+# (report-page-N.png) to be looked at; REPORT_E2E_DOCS=1 also writes page 1
+# to docs/report-page-1.png, the README's picture.
 #
 # Installs Debian's chromium and poppler-utils with apt-get when they are
 # missing. Outside CI (CI unset, 0 or false) a machine where they cannot be
@@ -144,6 +146,51 @@ for ((pg = 1; pg <= pages; pg++)); do
   check "page $pg does not end with a heading (last line: ${last_line:0:60})" test -z "$stranded"
 done
 
+# No page is a few lines carried from the page before: a page that does
+# not begin a part of the report (page 1, a goal's "Goal i of n" line, the
+# household budget's or the scenarios' heading) holds at least a fifth of
+# the text block, for the example household and for every other example.
+# fill PDF prints, a line a page: the page's number, the share of the text
+# block (the page less its margins, 15 mm at the head and 16 mm at the
+# foot) down to its last text above the footer, and its first line of text.
+fill() {
+  pdftotext -q -bbox "$1" - | awk '
+    function done() { if (n) printf "%d %.2f %s\n", n, (bottom - 42.52) / (h - 45.35 - 42.52), first }
+    /<page / { done(); n++; bottom = 0; first = ""; closed = 0; match($0, /height="[0-9.]+"/); h = substr($0, RSTART + 8, RLENGTH - 9) + 0 }
+    /<word / {
+      match($0, /yMin="[0-9.]+"/); y0 = substr($0, RSTART + 6, RLENGTH - 7) + 0
+      match($0, /yMax="[0-9.]+"/); y1 = substr($0, RSTART + 6, RLENGTH - 7) + 0
+      if (y0 >= h - 45.35) next # the footer
+      w = $0; sub(/^[^>]*>/, "", w); sub(/<.*$/, "", w)
+      if (first == "") { first = w; firstY = y0 } else if (!closed && y0 - firstY < 1 && firstY - y0 < 1) { first = first " " w } else { closed = 1 }
+      if (y1 > bottom) bottom = y1
+    }
+    END { done() }'
+}
+carried() { # carried PDF NAME: check that no page of PDF is a few lines carried over
+  local pg share first
+  while read -r pg share first; do
+    [ "$pg" -eq 1 ] && continue
+    case "$first" in "Goal "[0-9]*" of "[0-9]*":"* | "The household budget" | "The scenarios side by side") continue ;; esac
+    check "$2 page $pg, carried over, fills at least a fifth of the page (${share}; first line: ${first:0:40})" \
+      awk -v s="$share" 'BEGIN { exit !(s >= 0.20) }'
+  done < <(fill "$1")
+}
+carried "$tmp/plan.pdf" household.yaml
+for f in examples/*.yaml; do
+  name=$(basename "$f")
+  [ "$name" = household.yaml ] && continue
+  "$tmp/cairn" report "$f" --as-of 2026-12 --out "$tmp/${name%.yaml}.html" >/dev/null
+  if ! timeout 180 chromium --headless --no-sandbox --disable-gpu --no-first-run --disable-background-networking \
+    --disable-component-update --disable-sync --disable-quic --user-data-dir="$tmp/profile" \
+    --print-to-pdf="$tmp/${name%.yaml}.pdf" "file://$tmp/${name%.yaml}.html" >"$tmp/chromium.log" 2>&1; then
+    cat "$tmp/chromium.log" >&2
+    check "chromium prints the report of $name" false
+    continue
+  fi
+  carried "$tmp/${name%.yaml}.pdf" "$name"
+done
+
 # The pages as images, to look at: CI keeps .ci/artefacts.
 artefacts=.ci/artefacts
 mkdir -p "$artefacts"
@@ -153,6 +200,12 @@ cp "$tmp/plan.pdf" "$artefacts/report.pdf"
 echo "== pages as images in $artefacts: $(cd "$artefacts" && echo report-page-*.png)"
 check "one image for each of the $pages pages" test "$(ls "$artefacts"/report-page-*.png | wc -l)" -eq "$pages"
 
+# REPORT_E2E_DOCS=1 refreshes the README's picture of page 1, small.
+if [ -n "${REPORT_E2E_DOCS:-}" ]; then
+  mkdir -p docs
+  pdftoppm -f 1 -l 1 -singlefile -scale-to 640 -png "$tmp/plan.pdf" docs/report-page-1
+  echo "== wrote docs/report-page-1.png"
+fi
 if [ -n "${REPORT_E2E_KEEP:-}" ]; then
   cp "$tmp/plan.pdf" "$tmp/plan.html" "$REPORT_E2E_KEEP"/
   echo "== kept plan.pdf and plan.html in $REPORT_E2E_KEEP"

@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"fmt"
 	"math"
 	"slices"
 
@@ -190,8 +191,12 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"
 		}
-		if st := src.stream; plain && st != nil && !st.Income && (h.Between == Compound || s.onCredits(int32(i))) {
+		st := src.stream
+		if plain && st != nil && !st.Income && (h.Between == Compound || s.onCredits(int32(i))) {
 			t.Factors = annuityFactors(st, rate, units, first, last, atTick)
+		}
+		if len(t.Factors) == 0 {
+			t.Why = s.capitalWhy(st, plain, at, i)
 		}
 		eq.Terms = append(eq.Terms, t)
 		eq.Sum = eq.Sum.Add(t.Value)
@@ -201,7 +206,8 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 		// valued alone shows them: they are what the walk of every source
 		// spends beyond the other terms.
 		v := -(s.smooth(pr, false, 0)-capital.Float()*grow)/grow - sumV
-		t := Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: money.FromFloat(v).Round(s.places, s.rounding)}
+		t := Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: money.FromFloat(v).Round(s.places, s.rounding),
+			Why: "each amount is decided by its rule from the whole balance"}
 		eq.Terms = slices.Insert(eq.Terms, ruled, t)
 		eq.Sum = eq.Sum.Add(t.Value)
 	}
@@ -210,10 +216,49 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 		if plain && s.endTick%s.period == 0 {
 			t.Factors = []money.Factor{{Kind: money.PF, I: rate.PerPeriod(s.comp), N: float64(s.endTick-atTick) / float64(s.period)}}
 		}
+		if len(t.Factors) == 0 {
+			t.Why = s.capitalWhy(nil, plain, at, -1)
+			if plain {
+				t.Why = "left at the end of " + s.end.String() + ", between interest dates: discounted by what the capital grows to then"
+			}
+		}
 		eq.Terms = append(eq.Terms, t)
 		eq.Sum = eq.Sum.Add(t.Value)
 	}
 	return eq
+}
+
+// capitalWhy says why no standard factors give the present value at the
+// end of month at of stream st (source i; nil for the leave), where plain
+// is false or the stream's amounts are no plain annuity.
+func (s *schedule) capitalWhy(st *Stream, plain bool, at Month, i int) string {
+	h := s.goal
+	const valued = "; valued by the engine's walk and discounted by what the capital grows to"
+	switch {
+	case st != nil && st.Income:
+		return "income from outside the account: valued where it pays the month's withdrawals, by the engine's walk, and discounted by what the capital grows to"
+	case h.Fee != 0:
+		return fmt.Sprintf("a fee of %s a year is taken from the balance each month", pct(h.Fee)) + valued
+	case h.RateOnGrowth() > 0:
+		return fmt.Sprintf("each year's interest is taxed at %s, paid from the account", pct(h.RateOnGrowth())) + valued
+	case h.Match > 0:
+		return "the employer's contributions follow the deposits" + valued
+	case h.HasCap && h.CapExcess != "":
+		return "what passes the yearly cap leaves the account" + valued
+	case !plain && !untouched(s.plan, h):
+		return "another goal sends this one what passes its cap" + valued
+	case !plain:
+		for _, st := range h.Rates[1:] {
+			if st.From > at {
+				return "the rate changes in " + st.From.String() + valued
+			}
+		}
+	case st != nil && h.Between != Compound && !s.onCredits(int32(i)):
+		return "between " + h.Between.String() + ": its amounts fall between interest dates" + valued
+	case st != nil:
+		return "its amounts are neither a level series nor one rising once a year over whole years, beginning one period after " + at.String() + valued
+	}
+	return "valued by the engine's walk and discounted by what the capital grows to"
 }
 
 // onCredits reports whether every flow of source src lies on an interest

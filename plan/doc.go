@@ -98,8 +98,8 @@
 // a sum is not the sum of the lowest balances — so the values of the flows
 // each taken alone add up to the balance only when no interest period
 // holds, after its first instant, money both in and out or a fee. Otherwise
-// the equation of value shows the difference as a term of its own, "flows
-// offsetting within interest periods".
+// the equation of value shows the difference as a term of its own,
+// "offsetting flows".
 //
 // # Order at one instant
 //

@@ -5,6 +5,7 @@ import (
 	"math"
 	"slices"
 	"strconv"
+	"strings"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -22,7 +23,16 @@ type Term struct {
 	// Empty when no standard factor describes the flow; Why then says why.
 	Factors []money.Factor
 	Why     string
-	Value   money.Amount // at the end of month At, signed
+	// Per, when not 0, multiplies Amount before Factors: under between
+	// simple or none, what the amounts of one interest period come to at
+	// its end with the interest the rule gives them, in units of Amount;
+	// for amounts paid after the last interest date before the deadline,
+	// their sum at face value.
+	Per float64
+	// Note says how the factors describe the flow, where Factors alone do
+	// not: a between rule's Per, a yearly rise.
+	Note  string
+	Value money.Amount // at the end of month At, signed
 	// Uncredited is the part of Value not in the balance at the end of
 	// month At: interest the flow earned after the last interest date,
 	// paid only at the next one.
@@ -70,28 +80,14 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	g, at := s.goal, s.end
 	eq := &Equation{At: at, Balance: l.Closing, TaxOnGrowth: g.RateOnGrowth()}
 	counts := make([]int, len(s.sources))
-	first := make([]int64, len(s.sources))
-	last := make([]int64, len(s.sources))
-	uniform := make([]bool, len(s.sources))
-	units := make([]float64, len(s.sources))
-	for i := range uniform {
-		uniform[i] = true
-		first[i] = -1
-	}
+	units := make([]float64, len(s.sources)) // each source's first unit
 	for i := range s.events {
-		e := &s.events[i]
-		if !flowOf(e, e.Src) {
-			continue
+		if e := &s.events[i]; flowOf(e, e.Src) {
+			if counts[e.Src] == 0 {
+				units[e.Src] = e.Unit
+			}
+			counts[e.Src]++
 		}
-		if first[e.Src] < 0 {
-			first[e.Src] = e.Tick
-			units[e.Src] = e.Unit
-		}
-		last[e.Src] = e.Tick
-		if e.Unit != units[e.Src] {
-			uniform[e.Src] = false
-		}
-		counts[e.Src]++
 	}
 	counts[0] = 1
 	// One rate over the whole horizon and no fee: factors describe the flows.
@@ -107,21 +103,17 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	}
 	eq.AfterTax = rate.Effective() * (1 - eq.TaxOnGrowth)
 	lastCredit := (s.endTick / s.period) * s.period
-	onCredits := func(i int) bool { // every flow of source i lies on an interest date
-		for k := range s.events {
-			if e := &s.events[k]; flowOf(e, int32(i)) && e.Tick%s.period != 0 {
-				return false
-			}
-		}
-		return true
-	}
 	// Every source valued alone, and all together, in one smooth walk.
 	in := s.inputs(pr)
 	alone := make([]float64, len(s.sources))
 	all := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
-	var sumV float64       // the terms' values, unrounded
+	var sumV float64       // the sources' values alone, unrounded
 	var uncredited float64 // what the terms with factors earned after the last interest date
 	ruled := -1            // the first source whose amounts its rule decides
+	to := lastCredit       // under simple or none a part period earns at its end
+	if g.Between == Compound {
+		to = s.endTick
+	}
 	for i, src := range s.sources {
 		if i > 0 && counts[i] == 0 || i == 0 && pr.amounts[0].IsZero() {
 			continue // no flow, no term
@@ -132,59 +124,59 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 			}
 			continue
 		}
+		a := pr.amountsF[i] // the amount, before each flow's unit
 		amt := pr.amounts[i]
 		if src.out {
-			amt = amt.Abs().Neg()
+			amt, a = amt.Abs().Neg(), -math.Abs(a)
 		}
 		v := alone[i]
-		if src.stream != nil && units[i] != 1 {
-			amt = amt.MulFloat(units[i]).Round(s.places, s.rounding)
-			if a := pr.amountsF[i]; uniform[i] && a != 0 && (pr.set == nil || pr.setSrc != int32(i)) {
-				// The ledger posts the indexed amount rounded to the cent:
-				// value that amount, so that Amount × Factors is Value (a
-				// source's value is linear in its amount).
-				v *= amt.Abs().Float() / units[i] / math.Abs(a)
-			}
-		}
 		sumV += v
+		if src.stream != nil && units[i] != 1 {
+			a *= units[i]
+			amt = amt.MulFloat(units[i]).Round(s.places, s.rounding)
+		}
 		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding)}
 		if t.Label == "" {
 			t.Label = src.kind.String() + "s"
 		}
-		t.Why = s.noFactor(i, uniform[i], constRate, onCredits)
-		if t.Why == "" {
-			// The trade's form: each amount carried at the effective rate
-			// per period (per deposit period for a stream) to the deadline.
-			j := rate.PerPeriod(s.comp)
-			to := lastCredit // under simple or none a part period earns at its end
-			if g.Between == Compound {
-				to = s.endTick
-			}
-			switch {
-			case i == 0 || src.stream == nil:
-				from := int64(0)
-				if i > 0 {
-					from = first[i]
-				}
-				if n := float64(to-from) / float64(s.period); n > 0 {
-					t.Factors = []money.Factor{{Kind: money.FP, I: j, N: n}}
-				}
-			default:
-				P := TicksPerYear / int64(src.stream.Every.PerYear())
-				ip := rate.PerPeriod(src.stream.Every)
-				t.Factors = []money.Factor{{Kind: money.FA, I: ip, N: float64(counts[i])}}
-				if k := float64(to-last[i]) / float64(P); k > 0 {
-					t.Factors = append(t.Factors, money.Factor{Kind: money.FP, I: ip, N: k})
-				}
-			}
-			if pv := t.Product(); !math.IsNaN(pv) {
-				t.Value = money.FromFloat(pv).Round(s.places, s.rounding)
-				t.Uncredited = money.FromFloat(pv-v).Round(s.places, s.rounding)
-				uncredited += pv - v
-			}
+		t.Why = s.noFactor(i, constRate)
+		if t.Why == "" && pr.set != nil && pr.setSrc == int32(i) {
+			t.Why = "its amounts are set one by one"
 		}
-		eq.Terms = append(eq.Terms, t)
-		eq.Sum = eq.Sum.Add(t.Value)
+		var parts []Term
+		if t.Why == "" {
+			parts, t.Why = s.form(i, rate, to)
+		}
+		if len(parts) == 0 {
+			eq.Terms = append(eq.Terms, t)
+			eq.Sum = eq.Sum.Add(t.Value)
+			continue
+		}
+		// The terms value the amount as the ledger posts it, rounded to
+		// the cent; the engine values it unrounded (a source's value is
+		// linear in its amount).
+		if a != 0 {
+			v *= amt.Float() / a
+		}
+		var pv float64
+		for k := range parts {
+			pt := &parts[k]
+			pt.Kind, pt.Amount = src.kind, amt
+			if pt.Label == "" {
+				pt.Label = t.Label
+			} else {
+				pt.Label = t.Label + ", " + pt.Label
+			}
+			x := pt.Product()
+			pv += x
+			pt.Value = money.FromFloat(x).Round(s.places, s.rounding)
+			eq.Sum = eq.Sum.Add(pt.Value)
+		}
+		// interest the factors carry past the last interest date: on the
+		// source's last term
+		parts[len(parts)-1].Uncredited = money.FromFloat(pv-v).Round(s.places, s.rounding)
+		uncredited += pv - v
+		eq.Terms = append(eq.Terms, parts...)
 	}
 	if d := money.FromFloat(uncredited).Round(s.places, s.rounding); !d.IsZero() {
 		eq.Uncredited = d
@@ -208,17 +200,21 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	// An employer's contributions are no source's: no flow valued alone
 	// has them, and they too are a term of their own.
 	if g.Between == None || g.Match > 0 || g.HasCap && g.CapExcess != "" {
-		label, kind := "flows offsetting within interest periods (between none)", Interest
+		const rest = ": no flow valued alone has it, so it is what the walk of every flow leaves beyond the other terms"
+		label, kind, why := "offsetting flows", Interest, "flows offsetting within interest periods (between none)"
 		switch {
 		case g.HasCap && g.CapExcess != "":
-			label, kind = "less what passed the yearly cap, and any employer contributions or offsetting (between none)", OverCap
+			label, kind, why = "less what passed the cap", OverCap, "less what passed the yearly cap, with any employer contributions or flows offsetting within interest periods (between none)"
+			if g.Match > 0 {
+				label = "employer, less what passed the cap"
+			}
 		case g.Match > 0 && g.Between == None:
-			label, kind = "employer contributions, and flows offsetting within interest periods (between none)", Employer
+			label, kind, why = "employer contributions", Employer, "employer contributions, with flows offsetting within interest periods (between none)"
 		case g.Match > 0:
-			label, kind = "employer contributions", Employer
+			label, kind, why = "employer contributions", Employer, "the employer's contributions"
 		}
 		if d := money.FromFloat(all-sumV).Round(s.places, s.rounding); !d.IsZero() {
-			eq.Terms = append(eq.Terms, Term{Label: label, Kind: kind, Value: d})
+			eq.Terms = append(eq.Terms, Term{Label: label, Kind: kind, Value: d, Why: why + rest})
 			eq.Sum = eq.Sum.Add(d)
 		}
 	}
@@ -226,23 +222,25 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 }
 
 // Product returns the amount times its factors, the check of a term by
-// hand; NaN when the term has no factors.
+// hand; NaN when the term has no factors (nor Per).
 func (t Term) Product() float64 {
-	if len(t.Factors) == 0 {
+	if len(t.Factors) == 0 && t.Per == 0 {
 		return math.NaN()
 	}
 	v := t.Amount.Float()
+	if t.Per != 0 {
+		v *= t.Per
+	}
 	for _, f := range t.Factors {
 		v *= f.Value()
 	}
 	return v
 }
 
-// noFactor says why no chain of standard factors describes source i of s,
-// or "" when one does: uniform says its amounts are all equal, constRate
-// that one rate holds throughout with no fee, onCredits whether every flow
-// of a source lies on an interest date.
-func (s *schedule) noFactor(i int, uniform, constRate bool, onCredits func(int) bool) string {
+// noFactor says why no chain of standard factors describes source i of s
+// whatever its flows, or "" when its flows decide (see [schedule.form]):
+// constRate says that one rate holds throughout with no fee.
+func (s *schedule) noFactor(i int, constRate bool) string {
 	g, src := s.goal, s.sources[i]
 	switch {
 	case src.kind == Income:
@@ -257,15 +255,246 @@ func (s *schedule) noFactor(i int, uniform, constRate bool, onCredits func(int) 
 				return "the rate changes in " + st.From.String()
 			}
 		}
-	case !uniform:
-		if src.stream != nil && src.stream.Grow != 0 || src.stream != nil && src.stream.GrowInflation {
-			return fmt.Sprintf("raised %s a year, paid %d times a year: no single factor", pct(src.stream.growth(s.plan.Inflation)), src.stream.Every.PerYear())
-		}
-		return "its amounts are not all equal"
-	case g.Between != Compound && !onCredits(i):
-		return "between " + g.Between.String() + ": part periods earn no compound interest"
 	}
 	return ""
+}
+
+// A point is what a source's flows come to on one date of its form: a
+// flow itself, or under between simple or none the flows one interest
+// date credits, each with its interest for the part period.
+type point struct {
+	tick int64
+	w    float64 // in units of the source's amount
+	year int32   // whole years of growth
+	n    int     // how many flows
+}
+
+// form returns source i's flows in the trade's form, carried at rate to
+// tick to: one term, or two for a stream raised once a year whose last
+// year is not whole (its whole years, then the last). Each term holds
+// Count, Per, Factors and Note; the caller sets the rest. Where no form
+// applies it returns why.
+//
+// A flow on an interest date, or any flow under between compound, is
+// carried at the effective rate per its own period: (F/P, j, n) for a
+// single amount, (F/A, i, n) for a level stream of n amounts at i per
+// deposit period. Under between simple or none a flow between interest
+// dates is first taken to the next one with what it earns there (engine
+// rule: j·τ, or nothing; a withdrawal under none loses the whole period);
+// a stream whose interest periods each hold the same amounts is then a
+// series of equal amounts at the interest dates, Per times its amount.
+// A stream raised by g once a year is a series of yearly blocks: each
+// year's m amounts carried to its last, (F/A, i, m), and the blocks a
+// geometric series one year apart at the effective annual rate,
+// (F/A, g, i, years); a last part year is its own term, its amount grown
+// by (F/P, g, years).
+//
+// A flow on an interest date belongs to the period it begins, or to the
+// one it ends: whichever gives a series (start or end of period timing).
+func (s *schedule) form(i int, rate money.Rate, to int64) ([]Term, string) {
+	terms, why := s.formOn(i, rate, to, false)
+	if why != "" && s.goal.Between != Compound {
+		return s.formOn(i, rate, to, true)
+	}
+	return terms, why
+}
+
+// formOn is form, with a flow on an interest date taken as paid at the end
+// of the period it ends when own is set.
+func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) (terms []Term, why string) {
+	g, src := s.goal, s.sources[i]
+	// amounts after the last interest date before the deadline (between
+	// simple or none): held at face value then, their interest not yet
+	// credited; a term of their own after the rest
+	var tail Term
+	defer func() {
+		if why == "" && tail.Count > 0 {
+			tail.Label = "after the last interest date"
+			tail.Note = fmt.Sprintf("between %s: paid after the last interest date before the deadline, %s at face value then, the interest on %s credited later",
+				g.Between, plural(tail.Count, "it is", "they are"), plural(tail.Count, "it", "them"))
+			terms = append(terms, tail)
+		}
+	}()
+	var flows []*engine.Event
+	for k := range s.events {
+		if e := &s.events[k]; flowOf(e, int32(i)) {
+			flows = append(flows, e)
+		}
+	}
+	if i == 0 { // the opening balance, at the plan's start
+		flows = []*engine.Event{{Tick: 0, Tau: 1, Unit: 1}}
+	}
+	between := g.Between != Compound && !s.onCredits(int32(i)) && i != 0
+	j := rate.PerPeriod(s.comp)
+	// the points, D ticks apart, at rate r per D
+	var pts []point
+	D, r := s.period, j
+	if src.stream != nil && !between {
+		D, r = TicksPerYear/int64(src.stream.Every.PerYear()), rate.PerPeriod(src.stream.Every)
+	}
+	bw := "between " + g.Between.String() + ": "
+	gr := 0.0 // the yearly rise
+	if st := src.stream; st != nil {
+		gr = st.growth(s.plan.Inflation)
+	}
+	for _, e := range flows {
+		p := point{tick: e.Tick, w: e.Unit / flows[0].Unit, year: e.Year, n: 1}
+		if between && !(own && e.Tick%s.period == 0) {
+			p.tick = e.Tick + int64(math.Round(e.Tau*float64(s.period)))
+			if p.tick > to {
+				tail.Count++
+				tail.Per += p.w
+				continue
+			}
+			p.w *= 1 + engine.Accrual(engine.Between(g.Between), j, math.Log1p(j), e.Tau, src.out)
+		}
+		if between {
+			if n := len(pts); n > 0 && pts[n-1].tick == p.tick {
+				if pts[n-1].year != p.year && gr != 0 {
+					return nil, bw + "a yearly rise falls inside an interest period, so no series of equal or evenly rising amounts at the interest dates applies"
+				}
+				pts[n-1].w += p.w
+				pts[n-1].n++
+				continue
+			}
+		}
+		pts = append(pts, p)
+	}
+	if len(pts) == 0 {
+		return nil, ""
+	}
+	last := pts[len(pts)-1]
+	if last.tick > to { // not between interest dates: not after the deadline
+		return nil, "some amounts fall after the deadline"
+	}
+	carry := func(from int64) []money.Factor { // from a point to the deadline
+		if n := float64(to-from) / float64(D); n > 0 {
+			return []money.Factor{{Kind: money.FP, I: r, N: n}}
+		}
+		return nil
+	}
+	if len(pts) == 1 {
+		t := Term{Count: pts[0].n, Factors: carry(pts[0].tick)}
+		if src.stream == nil {
+			t.Factors = nil
+			if n := float64(to-pts[0].tick) / float64(s.period); n > 0 {
+				t.Factors = []money.Factor{{Kind: money.FP, I: j, N: n}}
+			}
+		}
+		if between {
+			t.Per = pts[0].w
+			t.Note = s.perNote(src, 1, t.Per)
+		}
+		if len(t.Factors) == 0 && t.Per == 0 {
+			t.Why = "paid at the deadline: its value is its amount"
+			return nil, t.Why
+		}
+		return []Term{t}, ""
+	}
+	for k := 1; k < len(pts); k++ {
+		if pts[k].tick-pts[k-1].tick != D {
+			if between {
+				return nil, bw + "some interest periods hold none of its amounts, so they are no series of amounts at the interest dates"
+			}
+			return nil, "its amounts are not evenly spaced"
+		}
+	}
+	// the amounts: level, or raised by gr once a year
+	per := pts[0].w
+	for _, p := range pts {
+		if want := per * math.Pow(1+gr, float64(p.year)); math.Abs(p.w-want) > 1e-9*math.Abs(want) {
+			if between {
+				return nil, bw + "its amounts fall at different points of each interest period, so what each period's amounts come to at its end differs and no series of equal amounts applies"
+			}
+			return nil, "its amounts are not all equal, nor rise by one rate once a year"
+		}
+	}
+	n := len(pts)
+	count := func(pts []point) int {
+		c := 0
+		for _, p := range pts {
+			c += p.n
+		}
+		return c
+	}
+	t := Term{Count: count(pts)}
+	if between {
+		t.Per = per
+	}
+	m := int(TicksPerYear / D) // points a year
+	if gr == 0 || pts[n-1].year == 0 {
+		t.Factors = append([]money.Factor{{Kind: money.FA, I: r, N: float64(n)}}, carry(pts[n-1].tick)...)
+		if between {
+			t.Note = s.perNote(src, pts[0].n, per)
+		}
+		return []Term{t}, ""
+	}
+	if TicksPerYear%D != 0 {
+		return nil, "its yearly rise does not fall on one of its periods"
+	}
+	for k, p := range pts {
+		if int(p.year) != k/m {
+			return nil, "its yearly rise does not fall every " + strconv.Itoa(m) + " of its amounts"
+		}
+	}
+	years, rest := n/m, n%m
+	iy := rate.Effective()
+	if years > 0 {
+		full := pts[years*m-1]
+		t.Count = count(pts[:years*m])
+		if m == 1 {
+			t.Factors = []money.Factor{{Kind: money.FGeo, I: iy, G: gr, N: float64(years)}}
+		} else {
+			t.Factors = []money.Factor{{Kind: money.FA, I: r, N: float64(m)}, {Kind: money.FGeo, I: iy, G: gr, N: float64(years)}}
+		}
+		t.Factors = append(t.Factors, carry(full.tick)...)
+		t.Note = fmt.Sprintf("raised %s a year: each year's %d %s to its last, the years a geometric series at %s a year",
+			pct(gr), m, plural(m, "amount", "amounts"), pct(iy))
+		if rest > 0 {
+			t.Label = fmt.Sprintf("years 1–%d", years)
+		}
+		terms = append(terms, t)
+	}
+	if rest > 0 {
+		u := Term{Count: count(pts[years*m:]), Per: t.Per, Label: fmt.Sprintf("year %d", years+1)}
+		u.Factors = []money.Factor{{Kind: money.FP, I: gr, N: float64(years)}, {Kind: money.FA, I: r, N: float64(rest)}}
+		u.Factors = append(u.Factors, carry(pts[n-1].tick)...)
+		u.Note = fmt.Sprintf("the amount raised %s a year for %d %s, then its %d %s", pct(gr), years, plural(years, "year", "years"), rest, plural(rest, "amount", "amounts"))
+		terms = append(terms, u)
+	}
+	if between {
+		note := s.perNote(src, pts[0].n, per)
+		for k := range terms {
+			terms[k].Note = note + "; " + terms[k].Note
+		}
+	}
+	return terms, ""
+}
+
+// perNote says what Per is for source src under the goal's between rule:
+// what its k amounts in each interest period come to at the period's end.
+func (s *schedule) perNote(src source, k int, per float64) string {
+	g := s.goal
+	earn := "with simple interest to its end"
+	if g.Between == None {
+		earn = "earning nothing until its end"
+		if src.out {
+			earn = "each losing the period's interest"
+		}
+	}
+	what := fmt.Sprintf("each interest period's %d amounts, %s, come to", k, earn)
+	if k == 1 {
+		what = fmt.Sprintf("the amount, %s, comes to", strings.Replace(earn, "each ", "", 1))
+	}
+	return fmt.Sprintf("between %s: %s %s times the amount then", g.Between, what,
+		strings.TrimSuffix(strings.TrimRight(strconv.FormatFloat(per, 'f', 6, 64), "0"), "."))
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
 }
 
 // pct is fraction x as a percentage, with no more digits than it needs.

@@ -38,11 +38,16 @@ func TestEquationFactors(t *testing.T) {
 			uncred: 33.555,
 		},
 		{
-			name: "growing", term: "deposits", why: "raised 3% a year",
+			// raised 3% a year (issue 17): each year's 12 amounts at
+			// i = 1.05^(1/12) − 1 per month, then a geometric series of
+			// the years (common practice, no source)
+			name: "growing", term: "deposits", factor: money.FA, i: math.Pow(1.05, 1.0/12) - 1,
 			src: "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate: 5%\n    target: 20000\n    by: 2031-12\n    deposits:\n      - amount: 100\n        every: month\n        grow: 3%\n",
 		},
 		{
-			name: "simple", term: "deposits", why: "between simple",
+			// between simple (issue 17): each quarter's amounts with their
+			// simple interest at its end, a series at 1% a quarter
+			name: "simple", term: "deposits", factor: money.FA, i: 0.01,
 			src: "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate: 4% compounded quarterly\n    between: simple\n    target: 20000\n    by: 2031-12\n    deposits:\n      - amount: 100\n        every: month\n",
 		},
 	} {
@@ -54,7 +59,7 @@ func TestEquationFactors(t *testing.T) {
 			var found bool
 			for _, term := range eq.Terms {
 				sum = sum.Add(term.Value)
-				if len(term.Factors) > 0 {
+				if len(term.Factors) > 0 || term.Per != 0 {
 					if d := math.Abs(term.Product() - term.Value.Float()); d > 0.005 {
 						t.Errorf("%s: amount × factors %.4f, value %s", term.Label, term.Product(), term.Value)
 					}
@@ -87,6 +92,43 @@ func TestEquationFactors(t *testing.T) {
 				t.Errorf("uncredited %s, want some cents", eq.Uncredited)
 			case c.uncred >= 0 && math.Abs(u-c.uncred) > 0.006:
 				t.Errorf("uncredited %s, want %.3f", eq.Uncredited, c.uncred)
+			}
+		})
+	}
+}
+
+// Every capital term (issue 17) shows its factors or says why none
+// applies: a fee, a rate that changes, amounts between interest dates.
+func TestCapitalEquationWhy(t *testing.T) {
+	w := "      - {amount: 1000, every: month, from: 2027-02, for: 10 years}\n"
+	for _, c := range []struct{ name, extra, why string }{
+		{"fee", "    fee: 0.5%\n", "a fee of 0.5% a year"},
+		{"rate change", "", "the rate changes in 2030-01"},
+		{"plain", "", ""},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			rate := "5%"
+			if c.name == "rate change" {
+				rate = "[{rate: 5%}, {from: 2030-01, rate: 4%}]"
+			}
+			src := "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate: " + rate + "\n" + c.extra + "    withdrawals:\n" + w
+			p := mustParse(t, c.name, src)
+			a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if len(a.Equation.Terms) == 0 {
+				t.Fatal("no terms")
+			}
+			for _, term := range a.Equation.Terms {
+				switch {
+				case len(term.Factors) == 0 && term.Why == "":
+					t.Errorf("%s: no factors and no reason", term.Label)
+				case c.why != "" && !strings.Contains(term.Why, c.why):
+					t.Errorf("%s: why %q, want it to contain %q", term.Label, term.Why, c.why)
+				case c.why == "" && len(term.Factors) == 0:
+					t.Errorf("%s: no factors (%s), want a plain annuity's", term.Label, term.Why)
+				}
 			}
 		})
 	}

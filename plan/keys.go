@@ -4,6 +4,7 @@ import (
 	"regexp"
 	"slices"
 	"strings"
+	"sync"
 
 	"cairn/money"
 )
@@ -651,9 +652,9 @@ func (k *Key) Pattern() string {
 		}
 		return `^\s*` + words(ws) + `\s*$`
 	case FormRates:
-		return patterns[FormRate]
+		return patterns()[FormRate]
 	}
-	return patterns[k.Form]
+	return patterns()[k.Form]
 }
 
 // Words returns the words a value of k may be, in lower case, for a schema's
@@ -690,7 +691,9 @@ var (
 	rateEffective = []string{"effective", "apy", "effective annual", "annual effective", "effective a year", "ear"}
 	roundingWords = []string{"half-even", "halfeven", "half_even", "half-up", "halfup", "half_up"}
 
-	patterns = func() map[Form]string {
+	// patterns is built when first asked for (the schema, the help, their
+	// tests), not by every command at start-up.
+	patterns = sync.OnceValue(func() map[Form]string {
 		var all, payment, periodic []string
 		for w, f := range money.FrequencyWords() {
 			all = append(all, w)
@@ -728,7 +731,7 @@ var (
 			FormTaxRate:      `^\s*\+?0*(?:\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 			FormShare:        `^\s*\+?0*(?:100(?:\.0*)?|\d{1,2}(?:\.\d*)?|\.\d+)\s*%\s*$`,
 		}
-	}()
+	})
 )
 
 // words returns a group matching any of ws in any case, a run of white

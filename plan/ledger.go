@@ -177,20 +177,13 @@ type Row struct {
 
 // Rows sums the ledger by year or by month. The last row is the totals when
 // totals is true (its Opening is the ledger's opening and Closing its
-// closing).
+// closing). It sums the walk's postings in minor units, without making an
+// [Entry] of each.
 func (l *Ledger) Rows(by Period, totals bool) []Row {
 	var rows []Row
-	key := func(m Month) Month {
-		if by == ByYear {
-			return MonthOf(m.Year(), 1)
-		}
-		return m
-	}
-	idx := map[Month]int{}
+	rowOf := make([]int32, l.End-l.Start+1) // each month's row
 	for m := l.Start; m <= l.End; m++ {
-		k := key(m)
-		i, ok := idx[k]
-		if !ok {
+		if len(rows) == 0 || by == ByMonth || m.Year() != rows[len(rows)-1].From.Year() {
 			label := m.String()
 			if by == ByYear {
 				label = fmt.Sprint(m.Year())
@@ -200,45 +193,51 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 				opening = l.BalanceAt(m - 1)
 			}
 			rows = append(rows, Row{Label: label, From: m, Opening: opening})
-			i = len(rows) - 1
-			idx[k] = i
 		}
-		rows[i].To = m
-		rows[i].Closing = l.BalanceAt(m)
+		rowOf[m-l.Start] = int32(len(rows) - 1)
+		rows[len(rows)-1].To = m
+		rows[len(rows)-1].Closing = l.BalanceAt(m)
+	}
+	// each row's sums, in minor units: deposits, withdrawals, interest,
+	// fees, income, tax, employer, short
+	const nSums = 8
+	sums := make([]minorSum, nSums*len(rows))
+	for i := range sums {
+		sums[i].places = l.places
+	}
+	for i := range l.log.Posts {
+		r := &l.log.Posts[i]
+		if r.Month < 0 || int(r.Month) >= len(rowOf) {
+			continue
+		}
+		row := sums[nSums*int(rowOf[r.Month]):][:nSums]
+		row[4].add(r.Covered)
+		switch {
+		case (r.Kind == engine.PostFlow || r.Kind == engine.PostIncome) && l.sources[r.Src].kind == Income:
+			// received outside the account: counted where it pays
+		case r.Kind == engine.PostFee:
+			row[3].add(-r.Amount)
+		case r.Kind == engine.PostTax:
+			row[5].add(-r.Amount)
+		case r.Kind == engine.PostMatch:
+			row[6].add(r.Amount)
+		case r.Kind == engine.PostOver:
+			continue // gone to another goal: no movement here
+		case r.Kind != engine.PostFlow && r.Kind != engine.PostIncome:
+			row[2].add(r.Amount)
+		case r.Amount >= 0:
+			row[0].add(r.Amount)
+		default:
+			row[1].add(-r.Amount)
+		}
+		row[7].add(r.Short)
 	}
 	var tot Row
-	for _, e := range l.Entries() {
-		if e.Kind == Opening {
-			continue
-		}
-		i, ok := idx[key(e.Month)]
-		if !ok {
-			continue
-		}
-		r := &rows[i]
-		r.Income = r.Income.Add(e.FromIncome)
-		switch {
-		case e.Kind == Income:
-			// received outside the account: counted where it pays
-		case e.Kind == Interest:
-			r.Interest = r.Interest.Add(e.Amount)
-		case e.Kind == Fee:
-			r.Fees = r.Fees.Sub(e.Amount)
-		case e.Kind == Tax:
-			r.Tax = r.Tax.Sub(e.Amount)
-		case e.Kind == Employer:
-			r.Employer = r.Employer.Add(e.Amount)
-		case e.Kind == OverCap:
-			continue // gone to another goal: no movement here
-		case e.Amount.Sign() >= 0:
-			r.Deposits = r.Deposits.Add(e.Amount)
-		default:
-			r.Withdrawals = r.Withdrawals.Sub(e.Amount)
-		}
-		r.Short = r.Short.Add(e.Short)
-	}
 	for i := range rows {
 		r := &rows[i]
+		row := sums[nSums*i:][:nSums]
+		r.Deposits, r.Withdrawals, r.Interest, r.Fees = row[0].amount(), row[1].amount(), row[2].amount(), row[3].amount()
+		r.Income, r.Tax, r.Employer, r.Short = row[4].amount(), row[5].amount(), row[6].amount(), row[7].amount()
 		r.ClosingToday = l.Plan.Today(r.Closing, r.To)
 		tot.Deposits = tot.Deposits.Add(r.Deposits)
 		tot.Withdrawals = tot.Withdrawals.Add(r.Withdrawals)
@@ -257,3 +256,22 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 	}
 	return rows
 }
+
+// A minorSum adds whole minor units exactly: in an int64 while it holds
+// them (every posting is below 2⁵³), carried into a decimal past 2⁶².
+type minorSum struct {
+	n      int64
+	places int
+	carry  money.Amount
+}
+
+func (s *minorSum) add(x int64) {
+	if s.n > 1<<62 || s.n < -1<<62 {
+		s.carry = s.carry.Add(money.Minor(s.n, s.places))
+		s.n = 0
+	}
+	s.n += x
+}
+
+// amount returns the sum in currency units.
+func (s *minorSum) amount() money.Amount { return money.Minor(s.n, s.places).Add(s.carry) }

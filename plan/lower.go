@@ -326,12 +326,79 @@ func (p *Plan) checkBounds(g *Goal) error {
 	if g.HasTarget && p.TargetAt(g).Cmp(limit) > 0 {
 		return fmt.Errorf("goal %s: the target grown to the deadline passes the limit of %s", money.Quote(g.Name), limit.Format(p.Currency, false))
 	}
-	s := compile(p, g, Horizon(p, g))
+	end := Horizon(p, g)
+	if peakBound(p, g, end) <= MaxBalanceUnits/2 {
+		return nil // no walk could pass the limit
+	}
+	s := compile(p, g, end)
 	r := s.exact(s.defaultParams(), engine.Options{})
 	if !(r.Peak/s.scale() <= MaxBalanceUnits) {
 		return fmt.Errorf("goal %s: the projected balance passes the limit of %s; check its amounts and rates", money.Quote(g.Name), limit.Format(p.Currency, false))
 	}
 	return nil
+}
+
+// peakBound returns a bound, in currency units, of every month-end balance
+// goal g's walk through month end could reach (+Inf when it cannot tell):
+// everything paid in, each amount at its largest growth, grown at the
+// highest of its rates over the whole horizon. Money out, fees and tax only
+// lower a balance, and each posting's rounding moves it by at most half a
+// minor unit, far below the half of [MaxBalanceUnits] the caller allows, so
+// a plan within the bound is within the limit without compiling it.
+func peakBound(p *Plan, g *Goal, end Month) float64 {
+	if g.Fee < 0 || g.RateOnGrowth() < 0 || g.Match < 0 || p.receives(g) {
+		return math.Inf(1)
+	}
+	years := float64(end-p.Start+1)/12 + 1 // and a part period
+	rate := 0.0
+	for _, st := range g.Rates {
+		rate = max(rate, st.Rate.Effective())
+	}
+	in := max(g.Balance.Float(), 0)
+	for _, st := range g.Deposits {
+		if st.Rule.Kind != Fixed {
+			return math.Inf(1)
+		}
+		first := 1.0
+		if st.Today {
+			first = 1 + max(p.Inflation.Over(float64(st.From-p.Start)/12), 0)
+		}
+		last := end
+		if st.HasUntil {
+			last = min(last, st.Until)
+		}
+		n := float64(st.Every.PerYear())*(float64(last-st.From+1)/12) + 2
+		in += max(n, 0) * max(st.Amount.Float(), 0) * (1 + g.Match) * first * math.Pow(1+max(st.growth(p.Inflation), 0), years)
+	}
+	for _, o := range g.Once {
+		in += max(o.Amount.Float(), 0)
+	}
+	return in * math.Pow(1+rate, years)
+}
+
+// monthEnds returns goal g's balance at every month end through month
+// end, in currency units, from an exact walk of its default amounts. When
+// nothing moves after the goal's horizon (every stream has ended, every
+// one-time amount is paid) and the balance is zero there, it stays zero (an
+// emptied account earns nothing, and pays no fee): the walk stops at the
+// horizon and the rest is filled in, without compiling what follows.
+func monthEnds(p *Plan, g *Goal, end Month) []float64 {
+	ends := make([]float64, end-p.Start+1)
+	h := min(Horizon(p, g), end)
+	quiet := h < end && !p.receives(g)
+	for _, st := range streams(g) {
+		quiet = quiet && st.HasUntil && st.Until <= h
+	}
+	if quiet {
+		s := compile(p, g, h)
+		s.exact(s.defaultParams(), engine.Options{MonthEnds: ends[:h-p.Start+1]})
+		if ends[h-p.Start] == 0 {
+			return ends
+		}
+	}
+	s := compile(p, g, end)
+	s.exact(s.defaultParams(), engine.Options{MonthEnds: ends})
+	return ends
 }
 
 // flowOf reports whether e is an amount of source src (income included).

@@ -5,6 +5,7 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+	"sync"
 
 	"cairn/money"
 )
@@ -19,7 +20,7 @@ type Person struct {
 }
 
 // ageForm is a month written as a person's age: "Alex at 67".
-var ageForm = regexp.MustCompile(`(?i)^\s*(\S.*?)\s+at\s+(\d{1,3})\s*$`)
+var ageForm = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`(?i)^\s*(\S.*?)\s+at\s+(\d{1,3})\s*$`) })
 
 // MonthOf parses a month as the goals file writes it: YYYY-MM, or a
 // person's age such as "Alex at 67", the month of that birthday.
@@ -28,7 +29,7 @@ func (p *Plan) MonthOf(s string) (Month, error) {
 	if err == nil {
 		return m, nil
 	}
-	sub := ageForm.FindStringSubmatch(s)
+	sub := ageForm().FindStringSubmatch(s)
 	if sub == nil {
 		if len(p.People) > 0 {
 			return 0, fmt.Errorf("%v, or an age such as %s at 67", err, p.People[0].Name)

@@ -557,14 +557,14 @@ func TestEquationOf_Property(t *testing.T) {
 			t.Fatalf("EquationOf(%s): Sum %s, Balance %s, off by %.4f > %.4f (%d postings)", m, eq.Sum, eq.Balance, d, bound, postings)
 		}
 		for _, term := range eq.Terms {
-			if len(term.Factors) == 0 {
+			if len(term.Factors) == 0 && term.Per == 0 {
 				if !math.IsNaN(term.Product()) {
 					t.Fatalf("Term %q with no factors: Product() = %v, want NaN", term.Label, term.Product())
 				}
 				continue
 			}
 			if d := math.Abs(term.Product() - term.Value.Float()); d > 0.01 {
-				t.Fatalf("Term %q: %s × %v = %.4f, want its value %s within a cent", term.Label, term.Amount, term.Factors, term.Product(), term.Value)
+				t.Fatalf("Term %q: %s × %v × %v = %.4f, want its value %s within a cent", term.Label, term.Amount, term.Per, term.Factors, term.Product(), term.Value)
 			}
 		}
 	})

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"regexp"
 	"strings"
+	"sync"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -38,8 +39,10 @@ type WithdrawalRule struct {
 
 var (
 	ruleNumber  = `\s*\+?(\d+(?:\.\d*)?|\.\d+)\s*%\s*`
-	ruleShare   = regexp.MustCompile(`^(?i)` + ruleNumber + `of\s+(?:the\s+)?balance\s*$`)
-	ruleGuarded = regexp.MustCompile(`^(?i)\s*cut` + ruleNumber + `above` + ruleNumber + `,?\s*raise` + ruleNumber + `below` + ruleNumber + `$`)
+	ruleShare   = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^(?i)` + ruleNumber + `of\s+(?:the\s+)?balance\s*$`) })
+	ruleGuarded = sync.OnceValue(func() *regexp.Regexp {
+		return regexp.MustCompile(`^(?i)\s*cut` + ruleNumber + `above` + ruleNumber + `,?\s*raise` + ruleNumber + `below` + ruleNumber + `$`)
+	})
 )
 
 // ruleWant says how a rule is written, in errors and help.
@@ -53,14 +56,14 @@ func ParseRule(s string) (WithdrawalRule, error) {
 		fmt.Sscan(t, &x)
 		return x / 100
 	}
-	if m := ruleShare.FindStringSubmatch(s); m != nil {
+	if m := ruleShare().FindStringSubmatch(s); m != nil {
 		r := WithdrawalRule{Kind: OfBalance, Share: pct(m[1])}
 		if r.Share <= 0 || r.Share > 1 {
 			return r, fmt.Errorf("share of the balance %s is out of range (want more than 0%% and at most 100%%)", money.Quote(strings.TrimSpace(m[1])+"%"))
 		}
 		return r, nil
 	}
-	if m := ruleGuarded.FindStringSubmatch(s); m != nil {
+	if m := ruleGuarded().FindStringSubmatch(s); m != nil {
 		r := WithdrawalRule{Kind: Guarded, Cut: pct(m[1]), Upper: pct(m[2]), Raise: pct(m[3]), Lower: pct(m[4])}
 		switch {
 		case r.Cut <= 0 || r.Cut >= 1:

@@ -256,9 +256,10 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	reach := reaches(p, g)
 	// Most goals are reached by their own horizon, and nearly all within
-	// decades: walk the goal's horizon first, then 40 years, and go to the
-	// plan's end only when the target is not met by then. A schedule
-	// compiled to a nearer end is the prefix of a longer one.
+	// decades: walk the goal's horizon first, then twice as long (up to 40
+	// years), then 40 years, and go to the plan's end only when the target
+	// is not met by then. A schedule compiled to a nearer end is the
+	// prefix of a longer one.
 	var s *schedule
 	var pr *params
 	var r engine.Result
@@ -266,7 +267,9 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		return (!drawdown || p.Start+Month(m) < firstOut) && reach(p.Start+Month(m), bal)
 	}}
 	own := min(Horizon(p, g), end)
-	for _, h := range []Month{own, min(max(p.Start.Add(40*12-1), own), end), end} {
+	forty := p.Start.Add(40*12 - 1)
+	twice := min(p.Start.Add(2*int(own-p.Start+1)-1), forty, end) // a goal late by its own horizon is most often reached soon after
+	for _, h := range []Month{own, twice, min(max(forty, own), end), end} {
 		if s != nil && h <= s.end {
 			continue
 		}
@@ -277,14 +280,13 @@ func solveTime(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 	}
 	if !r.Reached {
+		last := s.end
 		if drawdown {
-			s = compile(p, g, horizonEnd(p))
-			pr = s.defaultParams()
+			last = horizonEnd(p)
 		}
-		ends := make([]float64, s.end-p.Start+1)
-		s.exact(pr, engine.Options{MonthEnds: ends})
+		ends := monthEnds(p, g, last)
 		why := unreachableReason(p, g, ends)
-		for m := firstOut; drawdown && m <= s.end; m++ {
+		for m := firstOut; drawdown && m <= last; m++ {
 			if reach(m, ends[m-p.Start]) { // only after they begin
 				why = fmt.Sprintf("the balance does not reach the target before withdrawals begin in %s", firstOut)
 				break
@@ -795,19 +797,19 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// balance differs from the smooth one by its roundings. Settle on the
 	// lowest rate whose exact balance meets the target, to within a rate
 	// step worth one minor unit of balance (tol): a rate below that does
-	// not meet it and one above that does, above − below ≤ tol. Secant steps along the exact
-	// balance close in (each aiming a quarter unit past the target), and
-	// bisection finishes once the roundings' noise stalls them.
+	// not meet it and one above that does, above − below ≤ tol (see
+	// [exactSearch]).
 	//
 	// Each exact walk is made at the rate asked raised by margin, the
 	// margin the answer keeps (below), so that the walk at the rate found
 	// is the walk at the answer: no walk to repeat it.
 	const margin = 1e-12
+	need := s.minorAtLeast(target) // the fewest minor units that meet the target
 	meets := func(delta float64) (float64, bool) {
 		r := money.ForceRate(delta + margin)
 		pr.rate = &r
-		bal, _ := s.closing(pr)
-		return bal.Float(), bal.Cmp(target) >= 0
+		c := s.exact(pr, engine.Options{}).Closing // whole minor units
+		return c / s.scale(), c >= need
 	}
 	if n > 1 {
 		// Money goes out: where a withdrawal is larger than the balance the
@@ -854,50 +856,11 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	// goal of a million; a goal that hardly depends on the rate would make
 	// a minor unit worth a wide range)
 	tol := min(max(1e-12, 1/s.scale()/slope), 1e-9)
-	t := target.Float()
-	below, above := math.Inf(-1), math.Inf(1) // below does not meet the target, above does
-	hiBal := 0.0
-	x, sl := delta, slope
-	reach := tol // how far to step at least while one side is open
-	bx, meet := meets(x)
-	for range 64 {
-		if meet {
-			above, hiBal = x, bx
-		} else {
-			below = x
-		}
-		if above-below <= tol {
-			break
-		}
-		next := x + (t-bx)/sl + tol/4
-		switch {
-		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
-			next = max(min(next, above-reach), lo) // but not past the search's range
-			reach *= 8
-		case math.IsInf(above, 1): // none does: step up likewise
-			next = max(next, below+reach)
-			reach *= 8
-		case !(next > below && next < above):
-			next = below + (above-below)/2
-		}
-		if next == x || math.IsNaN(next) || reach > 8 {
-			break
-		}
-		bn, m := meets(next)
-		if m && next == lo { // the range's end meets it too
-			return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
-		}
-		if math.IsInf(below, -1) || math.IsInf(above, 1) {
-			// still far: the secant of the exact balance; near the target
-			// its roundings make a secant noise, and the smooth slope is
-			// the better guide
-			if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) {
-				sl = d
-			}
-		} else {
-			sl = slope
-		}
-		x, bx, meet = next, bn, m
+	e := exactSearch{meets: meets, target: target.Float(), step: (need - 0.5) / s.scale(), slope: slope,
+		tol: tol, unit: 1 / s.scale() / slope, lo: lo, far: 1000 / s.scale()}
+	_, above, hiBal, lowEnd := e.settle(delta)
+	if lowEnd { // the range's end meets it too
+		return nil, noSolution(g, "even at %s a year the balance exceeds the target: the deposits alone meet it", money.Percent(minSolveRate, 0))
 	}
 	if math.IsInf(above, 1) { // no rate in range meets it exactly: keep the smooth root
 		above = delta
@@ -913,17 +876,143 @@ func solveRate(p *Plan, g *Goal, full bool) (*Answer, error) {
 	return finishRate(s, a, pr, roots, rising, full), nil
 }
 
+// exactSearch finds the lowest rate, a force of interest, whose exact
+// balance meets the target, to within tol, from near it: the smooth
+// balance's root. The exact balance is a rising staircase, the smooth one
+// plus the roundings' gap, which wanders some cents within a few tol and some
+// dimes over hundreds, and on a small goal stays on one minor unit over
+// many tol (a cent is worth much rate there, and each posting's rounding
+// absorbs a small change of rate).
+//
+// The first walk measures the gap; steps along the slope, aimed a tol past
+// the crossing and at least a reach that doubles each walk (and grows to
+// twice the last step where the balance did not move), close in until the
+// target is bracketed. Then each walk goes where the line between the
+// bracket's balances crosses step, the middle of the staircase's step onto
+// the target's minor unit (a line to the target itself would aim at an end
+// when the balance there equals it), at least tol inside the bracket — a
+// walk tol inside an end settles the answer when it falls on the other
+// side — and no farther from the bracket's middle than keeps the walks
+// within a budget: what halving the bracket would take to come within tol
+// (halvings), and bracketSpare more. A walk must leave a bracket that
+// halving would bring within tol in the walks the budget still has; where
+// the line aims well, walks are saved, and where it stalls (a flat
+// staircase), the walks pulled to the middle halve the bracket as bisection
+// would.
+type exactSearch struct {
+	meets        func(delta float64) (bal float64, ok bool) // the exact balance at force delta, and whether it meets the target
+	target, step float64                                    // the target, and where its minor unit's step is aimed (half a unit below)
+	slope        float64                                    // of the smooth balance near its root, by the force of interest
+	tol, unit    float64                                    // the answer's resolution; the force a minor unit is worth by slope
+	lo           float64                                    // the search range's lower end
+	far          float64                                    // a balance change past which the exact balance's own secant guides a step
+}
+
+// bracketSpare is how many walks a bracketed rate search may make beyond
+// what halving its first bracket would take (see [exactSearch]).
+const bracketSpare = 2
+
+// settle searches from force x. It returns the bracket found, below (does
+// not meet the target; −Inf when every rate walked meets it) and above
+// (meets it; +Inf when none does) with above − below ≤ tol when both are
+// finite, the balance walked at above, and whether the range's lower end
+// meets the target (then there is no answer).
+func (e *exactSearch) settle(x float64) (below, above, hiBal float64, lowEnd bool) {
+	below, above = math.Inf(-1), math.Inf(1)
+	loBal := 0.0
+	sl := e.slope
+	reach := max(e.tol, e.unit) // how far to step at least while one side is open
+	bx, meet := e.meets(x)
+	budget, used := -1, 0 // walks allowed once bracketed (-1 until then), and made
+	for range 64 {
+		if meet {
+			above, hiBal = x, bx
+		} else {
+			below, loBal = x, bx
+		}
+		w := above - below
+		if w <= e.tol {
+			break
+		}
+		open := math.IsInf(w, 1)
+		next := x + (e.target-bx)/sl // where the balance is expected to cross the target
+		switch {
+		case math.IsInf(below, -1): // every rate tried meets it: step down, ever further
+			next = min(next-e.tol, above-reach)
+			next = max(next, e.lo) // but not past the search's range
+		case math.IsInf(above, 1): // none does: step up likewise
+			next = max(next+e.tol, below+reach)
+		default:
+			if budget < 0 {
+				budget = halvings(w, e.tol) + bracketSpare
+			}
+			used++
+			mid := below + w/2
+			if w <= 2*e.tol { // one walk in the middle settles it
+				next = mid
+				break
+			}
+			next = below + (e.step-loBal)/(hiBal-loBal)*w
+			next = min(max(next, below+e.tol), above-e.tol)
+			// within r of the middle, the bracket left is at most
+			// tol·2^(budget−used): halving brings it within tol in the
+			// walks left
+			r := e.tol*math.Exp2(float64(budget-used)) - w/2
+			next = min(max(next, mid-r), mid+r)
+		}
+		if next == x || math.IsNaN(next) || reach > 8 {
+			break
+		}
+		bn, m := e.meets(next)
+		if m && next == e.lo {
+			return below, above, hiBal, true
+		}
+		if open {
+			reach *= 2
+			if bn == bx { // flat: step twice as far as the last step at least
+				reach = max(reach, 2*math.Abs(next-x))
+			}
+		}
+		// far from the target, the secant of the exact balance; near it
+		// the roundings make a secant noise, and the smooth slope is the
+		// better guide
+		if d := (bn - bx) / (next - x); d > 0 && !math.IsInf(d, 0) && math.Abs(bn-bx) >= e.far {
+			sl = d
+		} else {
+			sl = e.slope
+		}
+		x, bx, meet = next, bn, m
+	}
+	return below, above, hiBal, false
+}
+
+// halvings returns how many times a bracket w wide must be halved to come
+// within tol.
+func halvings(w, tol float64) int {
+	n := 0
+	for ; w > tol; w /= 2 {
+		n++
+	}
+	return n
+}
+
 // newtonRate finds the force of interest at which the smooth balance meets
 // target t, when money only comes in, by Newton steps from x0 on the
 // balance's logarithm (nearly straight in the rate), each walk giving the
-// balance and its slope; the last step is taken without a walk once it is
-// worth less than a thousand currency units, its error then some minor
-// units at most, which the exact walks settle.
+// balance and its slope. From the second walk on, the step is taken on the
+// cubic through the last two walks' logarithms and slopes, whose error is of
+// a higher order than Newton's; once that step differs from Newton's by
+// less than a thousand currency units of balance (or the walk is itself that
+// close), it is taken without a walk, its error then some units at most,
+// which the exact walks settle (they differ from the smooth balance by their
+// roundings anyway). It returns the root and the balance's slope there.
 // ok is false when the steps do not settle (the caller brackets instead).
 func (s *schedule) newtonRate(pr *params, t, x0, lo, hi float64) (root, slope float64, ok bool) {
-	a, b := lo, hi // the root lies between
+	const near = 1000 // currency units of balance
+	a, b := lo, hi    // the root lies between
 	x := x0
-	for range 12 {
+	var px, pL, pl float64 // the previous walk: the rate, the logarithm and its slope
+	for i := range 12 {
 		bal, d := s.smoothForce(pr, x)
 		if !(d > 0) || math.IsInf(d, 0) || math.IsNaN(bal) {
 			return 0, 0, false
@@ -933,19 +1022,69 @@ func (s *schedule) newtonRate(pr *params, t, x0, lo, hi float64) (root, slope fl
 		} else {
 			b = x
 		}
-		step := (t - bal) / d
+		step, sl, gap := (t-bal)/d, d, math.Abs(t-bal)
 		if bal > 0 && t > 0 {
-			step = math.Log(t/bal) * bal / d
+			L, l := math.Log(bal), d/bal
+			step = (math.Log(t) - L) / l
+			if i > 0 && x != px {
+				if h, dl, ok := hermiteRoot(px-x, pL-L, pl, l, math.Log(t)-L, step); ok {
+					gap = math.Abs(h-step) * d
+					step, sl = h, dl*t
+				}
+			}
+			px, pL, pl = x, L, l
 		}
 		next := x + step
 		if !(next > a && next < b) {
 			next = a + (b-a)/2
-		} else if math.Abs(step)*d <= 1000 && math.Abs(t-bal) <= 1000 {
-			return next, d, true
+		} else if gap <= near {
+			return next, sl, true
 		}
 		x = next
 	}
 	return 0, 0, false
+}
+
+// hermiteRoot returns the step h from a point where a function is 0 with
+// slope l1 to where it is v, on the cubic that also passes through dx away
+// with value v0 and slope l0, and the cubic's slope there; it starts from
+// the Newton step h0 and ok is false when the cubic gives no root near it.
+func hermiteRoot(dx, v0, l0, l1, v, h0 float64) (h, slope float64, ok bool) {
+	// p(h) = l1·h + c2·h² + c3·h³ with p(dx) = v0 and p′(dx) = l0
+	r1, r2 := v0-l1*dx, l0-l1
+	c3 := (r2*dx - 2*r1) / (dx * dx * dx)
+	c2 := (r1 - c3*dx*dx*dx) / (dx * dx)
+	h = h0
+	for range 8 {
+		dp := l1 + 2*c2*h + 3*c3*h*h
+		if !(dp > 0) {
+			return 0, 0, false
+		}
+		dh := (l1*h + c2*h*h + c3*h*h*h - v) / dp
+		h -= dh
+		if math.Abs(dh) <= 1e-12*math.Abs(h) {
+			break
+		}
+	}
+	slope = l1 + 2*c2*h + 3*c3*h*h
+	if math.IsNaN(h) || !(slope > 0) || math.Abs(h) > 2*math.Abs(h0)+1e-9 {
+		return 0, 0, false
+	}
+	return h, slope, true
+}
+
+// minorAtLeast returns the fewest whole minor units whose amount is at
+// least a, as a float64 (as the exact walk's balances are), so that a
+// search compares balances without a decimal each walk.
+func (s *schedule) minorAtLeast(a money.Amount) float64 {
+	c := int64(math.Ceil(a.MinorFloat(s.places)))
+	for money.Minor(c, s.places).Cmp(a) < 0 {
+		c++
+	}
+	for money.Minor(c-1, s.places).Cmp(a) >= 0 {
+		c--
+	}
+	return float64(c)
 }
 
 // amount returns bal, in currency units a whole number of minor units, as

@@ -16,6 +16,7 @@ import (
 	"io"
 	"regexp"
 	"strings"
+	"sync"
 	"unicode"
 	"unicode/utf8"
 
@@ -54,7 +55,7 @@ func decodeDocument(file string, data []byte, root *yaml.Node) *Error {
 	return checkNodes(file, root)
 }
 
-var docMarker = regexp.MustCompile(`^(---|\.\.\.)([ \t]|$)`)
+var docMarker = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^(---|\.\.\.)([ \t]|$)`) })
 
 // secondDocument returns the line of a document marker (--- or ...) that
 // follows content and is itself followed by content. A marker before the
@@ -63,7 +64,7 @@ func secondDocument(data []byte) (int, bool) {
 	content, marker := false, 0
 	for i, ln := range strings.Split(string(data), "\n") {
 		ln = strings.TrimRight(ln, "\r")
-		if m := docMarker.FindString(ln); m != "" {
+		if m := docMarker().FindString(ln); m != "" {
 			if content && marker == 0 {
 				marker = i + 1
 			}
@@ -146,12 +147,12 @@ func split(a, b *yaml.Node) bool {
 	if a.Line != b.Line || b.Column != a.Column+utf8.RuneCountInString(a.Value)+1 {
 		return false
 	}
-	return thousandsHead.MatchString(a.Value) && thousandsTail.MatchString(b.Value)
+	return thousandsHead().MatchString(a.Value) && thousandsTail().MatchString(b.Value)
 }
 
 var (
-	thousandsHead = regexp.MustCompile(`^[-+]?[0-9]{1,3}$`)
-	thousandsTail = regexp.MustCompile(`^[0-9]{3}(\.[0-9]*)?[kM]?$`)
+	thousandsHead = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^[-+]?[0-9]{1,3}$`) })
+	thousandsTail = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^[0-9]{3}(\.[0-9]*)?[kM]?$`) })
 )
 
 // syntaxError turns a yaml.v3 error into a positioned error in cairn's
@@ -259,7 +260,7 @@ func (s *scan) line(n int, text string) {
 	if !significant(text) {
 		return
 	}
-	if docMarker.MatchString(text) || len(s.stack) == 0 && text[0] == '%' { // a directive
+	if docMarker().MatchString(text) || len(s.stack) == 0 && text[0] == '%' { // a directive
 		s.stack, s.open = nil, false
 		return
 	}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"slices"
 	"strings"
+	"sync"
 
 	"github.com/urfave/cli/v2"
 
@@ -12,8 +13,10 @@ import (
 )
 
 // fileHelp documents every key of the goals file with its default; the
-// keys, defaults and meanings come from plan's table of keys.
-var fileHelp = `THE GOALS FILE (format version 1)
+// keys, defaults and meanings come from plan's table of keys. It is written
+// when first asked for (help file, the man page), not at every start.
+var fileHelp = sync.OnceValue(func() string {
+	return `THE GOALS FILE (format version 1)
 
 A household's goals, in one YAML file. Indent with spaces. Amounts are written
 as people write them: 1500, 1,500.00, 1_500, $1,500, 1.5k, 1.2M. Months are
@@ -70,13 +73,13 @@ SIMULATION (cairn simulate)
 
 LIMITS
 ` + fmt.Sprintf("  a file of at most %d MiB, %d goals, %d streams and %s one-time amounts a\n"+
-	"  goal, %d rate steps; dates within %d years of the start; amounts up to\n"+
-	"  %s; rates from %d%% to %d%% a year effective; fees up to %d%%;\n"+
-	"  inflation from %d%% to %d%%.",
-	plan.MaxFileSize>>20, plan.MaxGoals, plan.MaxStreams, render.Grouped(plan.MaxOnce),
-	plan.MaxRateSteps, plan.HorizonYears, render.Grouped(plan.MaxAmountUnits),
-	plan.MinRatePercent, plan.MaxRatePercent, plan.MaxFeePercent,
-	-plan.MaxInflationPct, plan.MaxInflationPct) + `
+		"  goal, %d rate steps; dates within %d years of the start; amounts up to\n"+
+		"  %s; rates from %d%% to %d%% a year effective; fees up to %d%%;\n"+
+		"  inflation from %d%% to %d%%.",
+		plan.MaxFileSize>>20, plan.MaxGoals, plan.MaxStreams, render.Grouped(plan.MaxOnce),
+		plan.MaxRateSteps, plan.HorizonYears, render.Grouped(plan.MaxAmountUnits),
+		plan.MinRatePercent, plan.MaxRatePercent, plan.MaxFeePercent,
+		-plan.MaxInflationPct, plan.MaxInflationPct) + `
 
 EXAMPLE
   cairn: 1
@@ -96,6 +99,7 @@ EXAMPLE
 cairn is a planning aid: its results are estimates, not financial, tax or
 investment advice.
 `
+})
 
 // keySections lists the keys of the goals file by where they appear, each
 // with its default and meaning, from [plan.Keys].
@@ -175,7 +179,7 @@ func helpCommand(e *env) *cli.Command {
 			case "":
 				return cli.ShowAppHelp(c)
 			case "file":
-				fmt.Fprint(e.stdout, fileHelp)
+				fmt.Fprint(e.stdout, fileHelp())
 				return nil
 			}
 			if c.App.Command(topic) == nil {

@@ -29,7 +29,7 @@ func manPage(app *cli.App) []byte {
 			b.WriteString(manFlag(f))
 		}
 	}
-	b.WriteString(".SH \"THE GOALS FILE\"\n" + preformatted(fileHelp))
+	b.WriteString(".SH \"THE GOALS FILE\"\n" + preformatted(fileHelp()))
 	b.WriteString(".SH \"EXIT STATUS\"\n.TP\n0\nanswered\n.TP\n1\nthe question has no answer; the reason is printed\n" +
 		".TP\n2\nbad input or usage\n")
 	b.WriteString(".SH \"SEE ALSO\"\n" +

@@ -37,31 +37,42 @@ func reportCommand(e *env) *cli.Command {
 			"file unless --force is given; --out - writes the HTML to standard output.\n\n" +
 			"Example:\n   cairn report examples/household.yaml --out plan.html\n" +
 			"   cairn report examples/household.yaml --goal Retirement --out retirement.html --force\n\n" +
-			"With --scenario NAME the report is of the plan with the file's scenario NAME applied.",
+			"When the file has scenarios, a page shows each goal under the plan as written and under each\n" +
+			"scenario side by side, as status --scenarios does; --scenario NAME given more than once picks\n" +
+			"the scenarios shown there. With one --scenario NAME the report is of the plan with the file's\n" +
+			"scenario NAME applied, and that page shows it beside the plan as written. --scenarios, as in\n" +
+			"status and compare, asks for every scenario (what the report shows unasked) and fails on a\n" +
+			"file without scenarios.",
 		Flags: []cli.Flag{
-			goalFlag(false), scenarioFlag,
+			goalFlag(false), scenarioFlag, scenariosFlag,
 			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Value: "plan.html", Usage: "write the report to `FILE`; - for standard output"},
 			&cli.BoolFlag{Name: "force", Usage: "overwrite an existing file"},
 			&cli.StringFlag{Name: "as-of", Usage: "today's `MONTH` (YYYY-MM); the plan starts the month after unless the file says start:"},
 		},
 		Action: func(c *cli.Context) error {
-			p, err := readPlan(c, e)
+			cases, err := reportCases(c, e)
 			if err != nil {
 				return err
 			}
 			if name := c.String("goal"); name != "" {
-				if p.Goal(name) == nil {
-					return usagef("the goals are: "+goalNames(p), "no goal named %q", name)
+				if cases[0].Plan.Goal(name) == nil {
+					return usagef("the goals are: "+goalNames(cases[0].Plan), "no goal named %q", name)
 				}
-				q := *p
-				q.Goals = []*plan.Goal{p.Goal(name)}
-				p = &q
+				for i := range cases {
+					q := *cases[i].Plan
+					q.Goals = []*plan.Goal{q.Goal(name)}
+					cases[i].Plan = &q
+				}
 			}
 			name := c.String("out")
 			if name == "" {
 				return usagef("for example --out plan.html, or --out - for standard output", "--out needs a file name")
 			}
-			data, notices, err := buildReport(p)
+			p := cases[0].Plan
+			if len(c.StringSlice("scenario")) == 1 {
+				p = cases[1].Plan // the report of the one scenario named
+			}
+			data, notices, err := buildReport(p, cases)
 			if err != nil {
 				return err
 			}
@@ -141,11 +152,34 @@ func bandOf(g *plan.Goal, sim *plan.Simulation) (*simBand, error) {
 	return b, nil
 }
 
+// reportCases are the cases of the report: the plan as written, then each
+// scenario named by --scenario, or every scenario of the file when none is
+// named (the report's scenarios page shows them all unasked).
+func reportCases(c *cli.Context, e *env) ([]plan.Case, error) {
+	p, err := parsePlan(c, e)
+	if err != nil {
+		return nil, err
+	}
+	cases, err := casesOf(c, p)
+	if err != nil || c.IsSet("scenario") || c.Bool("scenarios") {
+		return cases, err
+	}
+	for _, n := range p.ScenarioNames() {
+		q, err := scenarioCase(c, p, n)
+		if err != nil {
+			return nil, err
+		}
+		cases = append(cases, plan.Case{Name: q.Applied, Plan: q})
+	}
+	return cases, nil
+}
+
 // buildReport renders the report of every goal of p from the documents
 // status and project print, and returns it with the notices of its first
 // page. Under a scenario, the sentence under the title says which and what
-// it changes.
-func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
+// it changes. With more than one case (the plan as written first), a page
+// shows them side by side.
+func buildReport(p *plan.Plan, cases []plan.Case) ([]byte, []render.Notice, error) {
 	st := plan.StatusOf(p)
 	sd := statusDoc(p, st)
 	// The file's name only: a path from the author's machine means nothing
@@ -159,13 +193,18 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 			file, len(p.Goals), plural(len(p.Goals), "goal", "goals"), p.Start, p.Currency.Code, pct(p.Inflation.Effective()), p.Start),
 		Status:        sd.Tables()[0],
 		StatusCaption: "Every goal: its target, the balance projected at its deadline, and the deposit that makes the deadline.",
-		Remarks:       sd.After,
-		Budget:        budgetFacts(p, st),
+		// the per-goal remarks: the household's sentences are budgetFacts
+		Remarks: sd.After[:len(sd.After)-len(householdLine(p, st))],
+		Budget:  budgetFacts(p, st),
 	}
 	if st.Budget != nil {
 		bd := budgetDoc(p, st.Budget, plan.ByYear, st.Smallest, st.SmallestErr)
-		pg.Household, pg.HouseholdLead = bd.Tables()[0], append(bd.Lead, bd.After...)
-		pg.HouseholdCaption = "Each year: the budget, each goal's share in priority order, what no goal took, and the goals reached."
+		pg.Parts = append(pg.Parts, render.Part{ID: "household", Name: "The household budget", Lead: append(bd.Lead, bd.After...),
+			TableHeading: "The budget split by year", Table: bd.Tables()[0],
+			Caption: "Each year: the budget, each goal's share in priority order, what no goal took, and the goals reached."})
+	}
+	if len(cases) > 1 {
+		pg.Parts = append(pg.Parts, scenariosPart(cases, p == cases[0].Plan))
 	}
 	drawdown := false
 	for i, gs := range st.Goals {
@@ -188,11 +227,54 @@ func buildReport(p *plan.Plan) ([]byte, []render.Notice, error) {
 		pg.Meta += fmt.Sprintf(" Under the scenario “%s”: %s.", p.Applied, scenarioText(p.Scenario(p.Applied)))
 	}
 	pg.Notices = notices(p, drawdown)
+	for i := range pg.Parts {
+		if pg.Parts[i].Notices == nil {
+			pg.Parts[i].Notices = pg.Notices
+		}
+	}
 	var b bytes.Buffer
 	if err := pg.Write(&b); err != nil {
 		return nil, nil, err
 	}
 	return b.Bytes(), pg.Notices, nil
+}
+
+// scenariosPart is the report's page of the cases side by side: what each
+// scenario changes, then status --scenarios' table and remarks, without the
+// plan as written's own when page 1 already gives them (baseFirst). A
+// report of one goal (--goal) lists only the changes to that goal or to
+// every goal.
+func scenariosPart(cases []plan.Case, baseFirst bool) render.Part {
+	cd := casesDoc(cases)
+	base := cases[0].Plan
+	fs := &render.Facts{}
+	fs.Add(cases[0].Name, render.Text("the plan as written"))
+	for _, c := range cases[1:] {
+		sc := *base.Scenario(c.Name)
+		sc.Changes = slices.DeleteFunc(slices.Clone(sc.Changes), func(ch plan.Change) bool { return ch.Goal != "" && base.Goal(ch.Goal) == nil })
+		what := scenarioText(&sc)
+		if len(sc.Changes) == 0 {
+			what = "no change to " + base.Goals[0].Name
+		}
+		fs.Add(c.Name, render.Text(what))
+	}
+	remarks, whose := cd.After, "each case’s"
+	if baseFirst {
+		// casesDoc names each remark's case first: "base: …"
+		remarks = slices.DeleteFunc(slices.Clone(remarks), func(s string) bool { return strings.HasPrefix(s, cases[0].Name+": ") })
+		whose = "each scenario’s"
+	}
+	return render.Part{
+		ID: "scenarios", Name: "The scenarios side by side",
+		Lead: []string{fmt.Sprintf("Each goal under the plan as written (base) and under %s, side by side: what each changes, as --set would write it, then each goal’s figures in every case. The remarks after the table are %s where they differ from the plan as written’s.",
+			plural(len(cases)-1, "the file’s scenario", "the file’s scenarios"), whose)},
+		Facts:        fs,
+		TableHeading: "Each goal in every case",
+		Table:        cd.Tables()[0],
+		Caption:      "One row a goal and case: the target at the deadline, the balance projected there, when the target is reached, on track or short, and the deposit that makes the deadline.",
+		Remarks:      remarks,
+		Notices:      cd.Notices,
+	}
 }
 
 // budgetFacts is the household's monthly saving, as status's household
@@ -577,12 +659,16 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 		}
 		add(term, words)
 	}
+	var once []string
 	for _, o := range g.Once {
 		name := o.Name
 		if name == "" {
 			name = "one-time amount"
 		}
-		add("One-time", fmt.Sprintf("%s: %s at the end of %s", name, amt(p, o.Amount), o.On))
+		once = append(once, fmt.Sprintf("%s: %s at the end of %s", name, amt(p, o.Amount), o.On))
+	}
+	if len(once) > 0 {
+		add("One-time", strings.Join(once, "; "))
 	}
 	if len(g.Withdrawals) > 0 {
 		leave := amt(p, g.Leave)
@@ -592,7 +678,6 @@ func assumptions(p *plan.Plan, g *plan.Goal) *render.Facts {
 		add("To leave", leave+" after the last withdrawal")
 	}
 	add("Rounding", fmt.Sprintf("each posting to %d decimal places, %s", p.Currency.Places, p.Rounding))
-	add("Shown through", v.Horizon.String())
 	return fs
 }
 

@@ -10,6 +10,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -405,9 +406,10 @@ func TestReport_Rules(t *testing.T) {
 			if len(goals) != len(p.Goals) {
 				t.Fatalf("%d goal sections for %d goals", len(goals), len(p.Goals))
 			}
+			parts := root.find(func(n *node) bool { return n.name == "section" && n.hasClass("part") })
 			text := root.allText()
-			if got, want := strings.Count(text, "Note: "+noteText), 1+len(p.Goals); got != want {
-				t.Errorf("the note is in the report %d times, want %d (the summary and every goal)", got, want)
+			if got, want := strings.Count(text, "Note: "+noteText), 1+len(parts)+len(p.Goals); got != want {
+				t.Errorf("the note is in the report %d times, want %d (the summary, every page of the household and every goal)", got, want)
 			}
 			for i, s := range goals {
 				g := p.Goals[i]
@@ -752,5 +754,116 @@ func TestReport_HandOver(t *testing.T) {
 		if strings.HasPrefix(dt.allText(), "The money") {
 			t.Errorf("label %q is not plain: say what it is", dt.allText())
 		}
+	}
+}
+
+// TestReport_Scenarios checks the report's page of scenarios side by side
+// (issue 17): shown unasked when the file has scenarios, every scenario or
+// those --scenario names, each row the status figures of its case as the
+// plan package computes them; with one --scenario the report is of that
+// scenario beside the plan as written; no page for a file without
+// scenarios, and --scenarios refused there.
+func TestReport_Scenarios(t *testing.T) {
+	tests := []struct {
+		name  string
+		yaml  []byte
+		args  []string
+		cases []string // the cases on the page, the plan as written first; nil for no page
+		under string   // the scenario the report is of, or ""
+	}{
+		{"every scenario unasked", examples.Household, nil, []string{"base", "bigger paycheck deposit", "lower returns"}, ""},
+		{"--scenarios", examples.Household, []string{"--scenarios"}, []string{"base", "bigger paycheck deposit", "lower returns"}, ""},
+		{"two named", examples.Household, []string{"--scenario", "lower returns", "--scenario", "bigger paycheck deposit"},
+			[]string{"base", "lower returns", "bigger paycheck deposit"}, ""},
+		{"one named", examples.Household, []string{"--scenario", "lower returns"}, []string{"base", "lower returns"}, "lower returns"},
+		{"one goal", examples.Household, []string{"--goal", "Home deposit"}, []string{"base", "bigger paycheck deposit", "lower returns"}, ""},
+		{"no scenarios", examples.Budget, nil, nil, ""},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			root := parseXHTML(t, reportOf(t, tt.yaml, tt.args...))
+			meta := root.find(func(n *node) bool { return n.hasClass("meta") })[0].allText()
+			if got := strings.Contains(meta, "Under the scenario"); got != (tt.under != "") {
+				t.Errorf("the sentence under the title names a scenario: %v, want %v: %s", got, tt.under != "", meta)
+			} else if tt.under != "" && !strings.Contains(meta, "Under the scenario “"+tt.under+"”") {
+				t.Errorf("the sentence under the title does not name %q: %s", tt.under, meta)
+			}
+			page := root.find(func(n *node) bool { return n.name == "section" && n.attrs["id"] == "scenarios" })
+			if tt.cases == nil {
+				if len(page) != 0 {
+					t.Fatal("a page of scenarios for a file without scenarios")
+				}
+				return
+			}
+			if len(page) != 1 {
+				t.Fatalf("%d pages of scenarios, want 1", len(page))
+			}
+			base, err := plan.Parse("plan.yaml", tt.yaml, plan.MonthOf(2026, 12))
+			if err != nil {
+				t.Fatal(err)
+			}
+			goals := base.Goals
+			if i := slices.Index(tt.args, "--goal"); i >= 0 {
+				goals = []*plan.Goal{base.Goal(tt.args[i+1])}
+			}
+			// what each scenario changes, as --set writes it
+			var terms []string
+			for _, dt := range page[0].find(func(n *node) bool { return n.name == "dt" }) {
+				terms = append(terms, dt.allText())
+			}
+			if !slices.Equal(terms, tt.cases) {
+				t.Errorf("the page lists the cases %q, want %q", terms, tt.cases)
+			}
+			// a report of one goal names no other goal
+			for _, g := range base.Goals {
+				if !slices.Contains(goals, g) && strings.Contains(page[0].allText(), g.Name) {
+					t.Errorf("the page of a report of %s names %s", goals[0].Name, g.Name)
+				}
+			}
+			// one row a goal and case, the goals in file order, each row's
+			// projected balance and status the plan's for that case
+			rows := page[0].find(func(n *node) bool { return n.name == "tr" && n.parent.name == "tbody" })
+			if len(rows) != len(goals)*len(tt.cases) {
+				t.Fatalf("%d rows, want %d goals × %d cases", len(rows), len(goals), len(tt.cases))
+			}
+			for i, c := range tt.cases {
+				p := base
+				if c != "base" {
+					if p, err = base.WithScenario(c); err != nil {
+						t.Fatal(err)
+					}
+				}
+				st := plan.StatusOf(p)
+				for j, g := range goals {
+					var gs plan.GoalStatus
+					for _, s := range st.Goals {
+						if s.Goal.Name == g.Name {
+							gs = s
+						}
+					}
+					cells := rows[j*len(tt.cases)+i].elems()
+					got := []string{cells[0].allText(), cells[1].allText(), cells[3].allText()}
+					want := []string{g.Name, c, amt(p, gs.Projected)}
+					if !slices.Equal(got, want) {
+						t.Errorf("row %d: %q, want %q (plan.StatusOf under %q)", j*len(tt.cases)+i+1, got, want, c)
+					}
+				}
+			}
+			if !strings.Contains(page[0].allText(), "Note: "+noteText) {
+				t.Error("the page of scenarios has no note")
+			}
+		})
+	}
+	var stdout, stderr bytes.Buffer
+	t.Chdir(t.TempDir())
+	if err := os.WriteFile("budget.yaml", examples.Budget, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	argv := []string{"cairn", "report", "budget.yaml", "--scenarios", "--out", "-", "--as-of", "2026-12"}
+	if code := run(argv, strings.NewReader(""), &stdout, &stderr, fixedNow); code != exitBadInput || !strings.Contains(stderr.String(), "--scenarios: no scenarios to show") {
+		t.Errorf("%q: exit %d, %q; want exit %d, --scenarios: no scenarios to show", argv, code, stderr.String(), exitBadInput)
+	}
+	if stdout.Len() > 0 {
+		t.Errorf("%q wrote a report:\n%.200s", argv, stdout.String())
 	}
 }

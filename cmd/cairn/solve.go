@@ -9,6 +9,7 @@ import (
 	"github.com/urfave/cli/v2"
 
 	"cairn/cmd/cairn/internal/render"
+	"cairn/money"
 	"cairn/plan"
 )
 
@@ -331,23 +332,35 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 	return d
 }
 
-// equationTable is the equation of value eq, and its JSON form.
+// equationTable is the equation of value eq, and its JSON form. In text
+// each term's factors, or why none applies, go on a line of their own
+// under it, so that the table fits the line.
 func equationTable(p *plan.Plan, eq *plan.Equation) (*render.Table, []map[string]any) {
 	t := &render.Table{Title: "Equation of value at the end of " + eq.At.String(),
-		Cols: []render.Column{{Head: "term", Key: "term"}, {Head: "amount", Key: "amount", Numeric: true}, {Head: "count", Key: "count", Numeric: true}, {Head: "factors", Key: "factors"}, {Head: "value", Key: "value", Numeric: true}}}
+		Cols: []render.Column{{Head: "term", Key: "term"}, {Head: "amount", Key: "amount", Numeric: true}, {Head: "count", Key: "count", Numeric: true}, {Head: "factors", Key: "factors", Below: true}, {Head: "value", Key: "value", Numeric: true}}}
 	var rows []map[string]any
 	for _, term := range eq.Terms {
 		var fs, fj []string
+		if term.Per != 0 {
+			fs = append(fs, perText(term.Per))
+			fj = append(fj, perText(term.Per))
+		}
 		for _, f := range term.Factors {
 			fs = append(fs, fmt.Sprintf("%s = %.6f", f, f.Value()))
 			fj = append(fj, f.String())
 		}
-		factors := strings.Join(fs, " × ")
-		if len(fs) == 0 {
-			factors = term.Why
-			if factors == "" { // a capital term (plan/capital.go) gives no reason yet
-				factors = "grown at the plan's rates"
+		factors := ""
+		if len(fs) > 0 {
+			factors = "× " + strings.Join(fs, " × ")
+		}
+		for _, s := range []string{term.Note, term.Why} {
+			if s != "" {
+				factors = strings.TrimSpace(factors + "; " + s)
 			}
+		}
+		factors = strings.TrimPrefix(factors, "; ")
+		if !term.Uncredited.IsZero() {
+			factors += fmt.Sprintf("; %s of it is interest after the last interest date, not yet credited", amt(p, term.Uncredited))
 		}
 		a, n := cash(p, term.Amount), render.Int(term.Count)
 		if term.Count == 0 {
@@ -358,10 +371,21 @@ func equationTable(p *plan.Plan, eq *plan.Equation) (*render.Table, []map[string
 		if len(term.Factors) > 0 {
 			var fo []map[string]any
 			for _, f := range term.Factors {
-				fo = append(fo, map[string]any{"factor": f.Kind.String(), "i": strconv.FormatFloat(f.I*100, 'f', 8, 64), "n": strconv.FormatFloat(f.N, 'f', -1, 64), "value": strconv.FormatFloat(f.Value(), 'f', 8, 64)})
+				o := map[string]any{"factor": f.Kind.String(), "i": strconv.FormatFloat(f.I*100, 'f', 8, 64), "n": strconv.FormatFloat(f.N, 'f', -1, 64), "value": strconv.FormatFloat(f.Value(), 'f', 8, 64)}
+				if f.Kind == money.PGeo || f.Kind == money.FGeo {
+					o["g"] = strconv.FormatFloat(f.G*100, 'f', 8, 64)
+				}
+				fo = append(fo, o)
 			}
 			row["factors"] = fo
-		} else if term.Why != "" {
+		}
+		if term.Per != 0 {
+			row["per"] = strconv.FormatFloat(term.Per, 'f', 8, 64)
+		}
+		if term.Note != "" {
+			row["note"] = term.Note
+		}
+		if len(term.Factors) == 0 && term.Why != "" {
 			row["why"] = term.Why
 		}
 		if !term.Uncredited.IsZero() {
@@ -371,6 +395,12 @@ func equationTable(p *plan.Plan, eq *plan.Equation) (*render.Table, []map[string
 	}
 	t.Total = []render.Cell{render.Text("sum"), render.Text(""), render.Text(""), render.Text(""), cash(p, eq.Sum)}
 	return t, rows
+}
+
+// perText is a term's Per, to six places at most.
+func perText(x float64) string {
+	s := strings.TrimRight(strconv.FormatFloat(x, 'f', 6, 64), "0")
+	return strings.TrimSuffix(s, ".")
 }
 
 // noAnswerDoc says why question q about goal g has no answer.

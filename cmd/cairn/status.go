@@ -339,12 +339,9 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 		d.Data["budget"] = budgetJSON(p, st)
 	}
 	if !st.EmployerMonthly.IsZero() {
-		d.After = append(d.After, fmt.Sprintf("Employers add %s a month in the first year, apart from the household's own deposits.", amt(p, st.EmployerMonthly)))
 		d.Data["employer_monthly"] = jamt(p, st.EmployerMonthly)
 	}
 	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
-		d.After = append(d.After, fmt.Sprintf("From take-home pay, after the tax not paid on deposits from pay before tax: %s a month now; %s a month needed.",
-			amt(p, st.MonthlyNowFromPay), amt(p, st.MonthlyNeededFromPay)))
 		d.Data["monthly_now_from_pay"] = jamt(p, st.MonthlyNowFromPay)
 		d.Data["monthly_needed_from_pay"] = jamt(p, st.MonthlyNeededFromPay)
 	}
@@ -451,7 +448,9 @@ func scenarioText(sc *plan.Scenario) string {
 // householdLine is the household's saving in plain sentences: the budget
 // (the household's own money) apart from the goals' own deposits (an
 // employer's, a gift), and the goals short at their deadlines and by how
-// much, so that no total reads as a surplus while a goal is short.
+// much, so that no total reads as a surplus while a goal is short; what
+// employers add and what it costs from take-home pay. statusDoc ends with
+// these; the report, which says them as facts of its own, drops them.
 func householdLine(p *plan.Plan, st *plan.Status) []string {
 	var out []string
 	if st.Budget != nil {
@@ -473,6 +472,13 @@ func householdLine(p *plan.Plan, st *plan.Status) []string {
 			s = strings.TrimSuffix(s, ".") + fmt.Sprintf(" (the goals' own deposits would need %s a month to make every deadline).", amt(p, st.MonthlyNeeded))
 		}
 		out = append(out, s)
+	}
+	if !st.EmployerMonthly.IsZero() {
+		out = append(out, fmt.Sprintf("Employers add %s a month in the first year, apart from the household's own deposits.", amt(p, st.EmployerMonthly)))
+	}
+	if st.MonthlyNowFromPay.Cmp(st.MonthlyNow) != 0 || st.MonthlyNeededFromPay.Cmp(st.MonthlyNeeded) != 0 {
+		out = append(out, fmt.Sprintf("From take-home pay, after the tax not paid on deposits from pay before tax: %s a month now; %s a month needed.",
+			amt(p, st.MonthlyNowFromPay), amt(p, st.MonthlyNeededFromPay)))
 	}
 	if st.Budget != nil {
 		if st.SmallestErr == nil {

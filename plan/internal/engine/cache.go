@@ -63,7 +63,8 @@ func appendKey(b []byte, v reflect.Value) []byte {
 }
 
 // Compile returns the schedule of shape sh, compiling it unless the cache
-// holds it or a longer one of the same shape.
+// holds it or a longer one of the same shape; from a shorter one of the
+// same shape it compiles only the months after it.
 func (c *Cache) Compile(sh *Shape) *Schedule {
 	if c == nil {
 		return Compile(sh)
@@ -77,7 +78,7 @@ func (c *Cache) Compile(sh *Shape) *Schedule {
 	if ok && s.months >= sh.Months {
 		return s.Prefix(sh.Months)
 	}
-	s = Compile(sh)
+	s = compileFrom(sh, s) // a shorter one is extended, not compiled again
 	c.mu.Lock()
 	defer c.mu.Unlock()
 	if old, ok := c.m[key]; ok {

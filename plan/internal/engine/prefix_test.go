@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"math/rand/v2"
 	"reflect"
 	"testing"
 )
@@ -58,6 +59,43 @@ func TestCacheSharesLengthsAndIsBoundedByEvents(t *testing.T) {
 		c.Compile(&sh)
 		if c.Events() > MaxCachedEvents {
 			t.Fatalf("after %d shapes the cache holds %d events, over %d", k+1, c.Events(), MaxCachedEvents)
+		}
+	}
+}
+
+// A schedule extended from a shorter one of its shape (what a cache does
+// when a longer horizon is asked for) is the schedule compiled afresh, on
+// random shapes: every event, fraction of the period and partial event.
+func TestExtendIsTheLongerCompile(t *testing.T) {
+	r := rand.New(rand.NewPCG(14, 1))
+	per := []int{1, 2, 4, 6, 12, 24, 26, 52, 365}
+	for range 2000 {
+		sh := Shape{Months: int32(2 + r.IntN(200)), PerYear: per[r.IntN(len(per))], Fee: r.IntN(2) == 0, Tax: r.IntN(2) == 0, StepFrom: []int32{0}}
+		for k := r.IntN(3); k > 0; k-- {
+			sh.StepFrom = append(sh.StepFrom, sh.StepFrom[len(sh.StepFrom)-1]+int32(1+r.IntN(60)))
+		}
+		for k := r.IntN(5); k > 0; k-- {
+			st := StreamShape{PerYear: per[r.IntN(len(per))], Begin: r.IntN(2) == 0, From: int32(r.IntN(50)), Out: r.IntN(3) == 0,
+				First: 1, Grow: []float64{0, 0.03, -0.01}[r.IntN(3)], GrowInflation: r.IntN(4) == 0, Income: r.IntN(5) == 0}
+			if r.IntN(2) == 0 {
+				st.HasUntil, st.Until = true, st.From+int32(r.IntN(150))
+			}
+			if r.IntN(4) == 0 {
+				st.First, st.Today = 1.07, true
+			}
+			if r.IntN(5) == 0 {
+				st.Resume = st.From + int32(r.IntN(30))
+			}
+			sh.Streams = append(sh.Streams, st)
+		}
+		for k := r.IntN(4); k > 0; k-- {
+			sh.Once, sh.OnceOut = append(sh.Once, int32(r.IntN(220))), append(sh.OnceOut, r.IntN(2) == 0)
+		}
+		short := sh
+		short.Months = 1 + r.Int32N(sh.Months-1)
+		want, got := Compile(&sh), compileFrom(&sh, Compile(&short))
+		if !reflect.DeepEqual(got.events, want.events) || !reflect.DeepEqual(got.taus, want.taus) || !reflect.DeepEqual(got.partial, want.partial) || !reflect.DeepEqual(got.left, want.left) {
+			t.Fatalf("%+v from %d months: the extended schedule (%d events) differs from the compiled one (%d)", sh, short.Months, len(got.events), len(want.events))
 		}
 	}
 }

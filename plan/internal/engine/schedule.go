@@ -117,6 +117,7 @@ type Schedule struct {
 	// partial lists the flows and fees part way through an interest
 	// period (Tau < 1): the events a path's weights are computed for.
 	partial []int32
+	left    []int64 // the ticks left of the period for each of taus
 }
 
 // Events returns the schedule's events in order; the caller must not
@@ -162,78 +163,69 @@ func labelEnd(t int64) int32 {
 func labelBegin(t int64) int32 { return int32(t / TicksPerMonth) }
 
 // Compile lays shape sh on the tick grid.
-func Compile(sh *Shape) *Schedule {
-	end := sh.Months - 1
+func Compile(sh *Shape) *Schedule { return compileFrom(sh, nil) }
+
+// compileFrom lays shape sh on the tick grid after old, a schedule of the
+// same shape through an earlier month (or nil): old's events are the first
+// of the schedule (a shape's events do not depend on how far it is
+// compiled, see [Schedule.Prefix]), and only the months after it are laid
+// down.
+func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	s := &Schedule{months: sh.Months, stepFrom: slices.Clone(sh.StepFrom)}
+	var m0 int32 // the first month laid down
+	var t0 int64 // and its start
+	if old != nil {
+		m0, t0 = old.months, old.endTick
+	}
 	s.endTick = int64(sh.Months) * TicksPerMonth
 	s.period = TicksPerYear / int64(sh.PerYear)
 	s.accrue = sh.PerYear > 12
 	s.sources = 1 + len(sh.Streams) + len(sh.Once)
 	s.grow = make([]float64, s.sources)
-	// Each stream's amounts are laid down in tick order as a run of their
-	// own; the runs are then merged, which is cheaper than sorting the whole.
-	var runs [][]Event
-	for k, st := range sh.Streams {
+	// Each stream's amounts come from a generator of their own, in tick
+	// order; the generators and the one-time amounts are merged as the
+	// events are laid down, so that no amount is stored but in the
+	// schedule itself, whatever the number of streams.
+	f := flows{end: sh.Months - 1, endTick: s.endTick}
+	f.gens = make([]flowGen, len(sh.Streams))
+	nFlows := int64(0) // at least the amounts, for the room below
+	for k := range sh.Streams {
+		st := &sh.Streams[k]
 		src := int32(1 + k)
 		s.grow[src] = st.Grow
 		if st.First != 1 {
 			s.grow[src] = math.NaN()
 		}
-		P := TicksPerYear / int64(st.PerYear)
-		from := int64(st.From) * TicksPerMonth
-		lg := math.Log1p(st.Grow)
+		g := &f.gens[k]
+		*g = flowGen{st: st, src: src, P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
+		if t0 > g.from { // the first period whose amount falls after old's end
+			if st.Begin {
+				g.k = (t0 - g.from + g.P - 1) / g.P
+			} else {
+				g.k = (t0 - g.from) / g.P
+			}
+		}
 		last := s.endTick // the stream's amounts end by its until, if it has one
 		if st.HasUntil {
-			last = min(last, int64(st.Until+1)*TicksPerMonth+P)
+			last = min(last, int64(st.Until+1)*TicksPerMonth+g.P)
 		}
-		ev := make([]Event, 0, max(last-from, 0)/P+2)
-		lastYear, u := int64(0), st.First
-		for k := int64(0); ; k++ {
-			ps := from + k*P
-			t, kd, label := ps, FlowBegin, labelBegin(ps)
-			if !st.Begin {
-				t, kd, label = ps+P, FlowEnd, labelEnd(ps+P)
-			}
-			if label > end || (st.HasUntil && label > st.Until) || t > s.endTick || (kd == FlowBegin && t >= s.endTick) {
-				break
-			}
-			year := (ps - from) / TicksPerYear
-			if year != lastYear && st.Grow != 0 {
-				lastYear, u = year, st.First*math.Exp(float64(year)*lg)
-			}
-			if label < st.Resume {
-				continue
-			}
-			e := Event{Tick: t, Kind: kd, Src: src, Out: st.Out, Unit: u, Year: int32(year), Month: label}
-			if st.Income { // income is pooled for its month's withdrawals from the month's start
-				e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
-			}
-			anniv := st.From + 12*int32(year)
-			switch {
-			case st.GrowInflation && st.Today:
-				e.IA = anniv
-			case st.GrowInflation:
-				e.IA, e.IB = anniv, st.From
-			case st.Today:
-				e.IA = st.From
-			}
-			ev = append(ev, e)
+		nFlows += max(last-max(g.from, t0), 0)/g.P + 2
+		if g.advance(f.end, f.endTick) {
+			f.h = append(f.h, int32(k))
 		}
-		runs = append(runs, ev)
 	}
 	// Every one-time amount is a source, even one after the end, so that
 	// source indexes are the same whatever the horizon compiled.
-	var ev []Event
 	for k, on := range sh.Once {
-		if on > end {
+		if on > f.end || on < m0 {
 			continue
 		}
 		src := int32(1 + len(sh.Streams) + k)
-		ev = append(ev, Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: src, Out: sh.OnceOut[k], Unit: 1, Month: on})
+		f.once = append(f.once, Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: src, Out: sh.OnceOut[k], Unit: 1, Month: on})
 	}
-	slices.SortFunc(ev, eventOrder) // one-time amounts may be written in any order
-	runs = append(runs, ev)
-	flows := mergeRuns(runs) // the (usual) single run is used as it is
+	slices.SortFunc(f.once, eventOrder) // one-time amounts may be written in any order
+	nFlows += int64(len(f.once))
+	f.init()
 	// the regular events, interest dates and month ends, in order, with the
 	// amounts merged in as they come
 	n := s.endTick / s.period
@@ -250,83 +242,249 @@ func Compile(sh *Shape) *Schedule {
 	if sh.Fee {
 		perMonth++
 	}
-	nRuns := min(n, int64(sh.Months)*perMonth+int64(len(flows)+len(sh.StepFrom))+1)
-	ev = make([]Event, 0, int64(sh.Months)*perMonth+int64(len(flows))+nRuns)
-	fi := 0
-	// Interest dates in a row, with nothing between them and one rate step,
-	// are one event: the walk runs through them in a tight loop. interestTo
-	// adds the dates up to tick t (which come before any other event at t).
-	done := int64(0) // interest dates added: the first done of them
-	interestTo := func(t int64) {
-		for last := min(t/s.period, n); done < last; {
-			first := done + 1
-			start := (first - 1) * s.period // the first period's start
-			step, end := s.StepAt(start), last
-			for _, from := range s.stepFrom { // the step holds until a step's month begins
-				if b := int64(from) * TicksPerMonth; b > start {
-					end = min(end, (b+s.period-1)/s.period) // the last period starting before b
-				}
-			}
-			ti := first * s.period
-			ev = append(ev, Event{Tick: ti, Kind: Interest, Step: step, Period: int32(first - 1), Month: labelEnd(ti), Count: int32(end - first + 1)})
-			done = end
-		}
+	nRuns := min(n-t0/s.period, int64(sh.Months-m0)*perMonth+nFlows+int64(len(sh.StepFrom))+1)
+	c := compiler{s: s, n: n, f: &f, stepEnd: make([]int64, len(sh.StepFrom))}
+	for i, from := range sh.StepFrom {
+		c.stepEnd[i] = (int64(from)*TicksPerMonth + s.period - 1) / s.period
 	}
-	add := func(e Event) {
-		for fi < len(flows) && before(&flows[fi], &e) {
-			interestTo(flows[fi].Tick)
-			ev = append(ev, flows[fi])
-			fi++
-		}
-		interestTo(e.Tick)
-		ev = append(ev, e)
+	room := int64(sh.Months-m0)*perMonth + nFlows + nRuns
+	if old == nil {
+		c.ev = make([]Event, 0, room)
+	} else {
+		c.ev = make([]Event, len(old.events), int64(len(old.events))+room)
+		copy(c.ev, old.events)
+		s.taus, c.left, s.partial = slices.Clone(old.taus), slices.Clone(old.left), slices.Clone(old.partial)
+		c.done = t0 / s.period
 	}
-	for m := range sh.Months {
+	c.nextTick = (c.done + 1) * s.period
+	for m := m0; m < sh.Months; m++ {
 		t := int64(m+1) * TicksPerMonth
 		if s.accrue {
-			add(Event{Tick: t, Kind: Credit, Month: m})
+			c.add(Event{Tick: t, Kind: Credit, Month: m})
 		}
 		if sh.Tax && (m+1)%12 == 0 {
-			add(Event{Tick: t, Kind: Tax, Month: m})
+			c.add(Event{Tick: t, Kind: Tax, Month: m})
 		}
 		if sh.Fee {
-			add(Event{Tick: t, Kind: Fee, Month: m})
+			c.add(Event{Tick: t, Kind: Fee, Month: m})
 		}
-		add(Event{Tick: t, Kind: Mark, Month: m})
+		c.add(Event{Tick: t, Kind: Mark, Month: m})
 	}
-	for ; fi < len(flows); fi++ {
-		interestTo(flows[fi].Tick)
-		ev = append(ev, flows[fi])
+	for _, ok := f.next(); ok; _, ok = f.next() {
+		e := f.pop()
+		c.interestTo(e.Tick)
+		c.put(e)
 	}
-	interestTo(s.endTick)
-	s.events = ev
-	// fraction of the interest period left, and the step of that period;
-	// the distinct fractions are few, found by the ticks left
-	var left []int64 // ticks left of each of s.taus
-	k32 := int32(-1)
-	for i := range s.events {
-		e := &s.events[i]
-		if e.Kind == Interest || e.Kind == Credit || e.Kind == Mark || e.Kind == Tax {
-			continue // a tax falls at a year's end, an interest date of every compounding: it starts the next period
+	c.interestTo(s.endTick)
+	s.events, s.left = c.ev, c.left
+	return s
+}
+
+// A compiler lays a schedule's events down in order (see [Compile]).
+type compiler struct {
+	s    *Schedule
+	ev   []Event
+	f    *flows
+	n    int64 // interest dates through the end
+	done int64 // interest dates laid down: the first done of them
+	// nextTick is the tick of interest date done+1; stepEnd, for each
+	// rate step, the last period starting before the step's month
+	nextTick int64
+	stepEnd  []int64
+	// left is the ticks left of the period for each of s.taus, and k the
+	// index of the last one found
+	left []int64
+	k    int32
+}
+
+// add lays down e after every amount that comes before it.
+func (c *compiler) add(e Event) {
+	for k := orderKey(&e); ; {
+		if f, ok := c.f.next(); !ok || f > k {
+			break
 		}
-		next := (e.Tick/s.period + 1) * s.period // a flow at a credit tick comes after the credit
+		f := c.f.pop()
+		c.interestTo(f.Tick)
+		c.put(f)
+	}
+	c.interestTo(e.Tick)
+	c.put(e)
+}
+
+// interestTo lays down the interest dates up to tick t (which come before
+// any other event at t). Interest dates in a row, with nothing between them
+// and one rate step, are one event: the walk runs through them in a tight
+// loop. Events come in tick order, so most calls find no date due, which
+// is told without a division.
+func (c *compiler) interestTo(t int64) {
+	s := c.s
+	if t < c.nextTick {
+		return
+	}
+	for last := min(t/s.period, c.n); c.done < last; {
+		first := c.done + 1
+		start := (first - 1) * s.period // the first period's start
+		step, end := s.StepAt(start), last
+		for i, from := range s.stepFrom { // the step holds until a step's month begins
+			if int64(from)*TicksPerMonth > start {
+				end = min(end, c.stepEnd[i])
+			}
+		}
+		ti := first * s.period
+		c.ev = append(c.ev, Event{Tick: ti, Kind: Interest, Step: step, Period: int32(first - 1), Month: labelEnd(ti), Count: int32(end - first + 1)})
+		c.done = end
+	}
+	c.nextTick = (c.done + 1) * s.period
+}
+
+// put appends e; an amount or a fee is given the fraction of the interest
+// period left until its credit, and the period and step it is in (the
+// distinct fractions are few, found by the ticks left).
+func (c *compiler) put(e Event) {
+	switch e.Kind {
+	case Interest, Credit, Mark, Tax:
+		// a tax falls at a year's end, an interest date of every
+		// compounding: it starts the next period
+	default:
+		s := c.s
+		q := c.done                // the period e is in: interestTo(e.Tick) came before
+		next := (q + 1) * s.period // a flow at a credit tick comes after the credit
 		r := next - e.Tick
-		if k32 < 0 || left[k32] != r {
-			k32 = int32(slices.Index(left, r))
-			if k32 < 0 {
-				k32 = int32(len(left))
-				left = append(left, r)
+		if len(c.left) == 0 || c.left[c.k] != r {
+			c.k = int32(slices.Index(c.left, r))
+			if c.k < 0 {
+				c.k = int32(len(c.left))
+				c.left = append(c.left, r)
 				s.taus = append(s.taus, float64(r)/float64(s.period))
 			}
 		}
-		e.Tau, e.Ti = s.taus[k32], k32
+		e.Tau, e.Ti = s.taus[c.k], c.k
 		if e.Tau < 1 {
-			s.partial = append(s.partial, int32(i))
+			s.partial = append(s.partial, int32(len(c.ev)))
 		}
-		e.Period = int32(e.Tick / s.period)
+		e.Period = int32(q)
 		e.Step = s.StepAt(next - s.period)
 	}
-	return s
+	c.ev = append(c.ev, e)
+}
+
+// A flowGen gives one stream's amounts in tick order, one at a time.
+type flowGen struct {
+	st          *StreamShape
+	src         int32
+	P, from     int64   // ticks a period; the first period's start
+	lg, u       float64 // log(1 + grow); the unit of the year lastYear
+	k, lastYear int64   // the next period; the year of u
+	next        Event   // the amount advance found
+	key         uint64  // its order key
+}
+
+// advance sets g.next to the stream's next amount through month end (the
+// last month, ending at endTick), and reports whether there is one.
+func (g *flowGen) advance(end int32, endTick int64) bool {
+	st := g.st
+	for {
+		ps := g.from + g.k*g.P
+		g.k++
+		t, kd, label := ps, FlowBegin, labelBegin(ps)
+		if !st.Begin {
+			t, kd, label = ps+g.P, FlowEnd, labelEnd(ps+g.P)
+		}
+		if label > end || (st.HasUntil && label > st.Until) || t > endTick || (kd == FlowBegin && t >= endTick) {
+			return false
+		}
+		year := (ps - g.from) / TicksPerYear
+		if year != g.lastYear && st.Grow != 0 {
+			g.lastYear, g.u = year, st.First*math.Exp(float64(year)*g.lg)
+		}
+		if label < st.Resume {
+			continue
+		}
+		e := Event{Tick: t, Kind: kd, Src: g.src, Out: st.Out, Unit: g.u, Year: int32(year), Month: label}
+		if st.Income { // income is pooled for its month's withdrawals from the month's start
+			e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
+		}
+		anniv := st.From + 12*int32(year)
+		switch {
+		case st.GrowInflation && st.Today:
+			e.IA = anniv
+		case st.GrowInflation:
+			e.IA, e.IB = anniv, st.From
+		case st.Today:
+			e.IA = st.From
+		}
+		g.next, g.key = e, orderKey(&e)
+		return true
+	}
+}
+
+// flows merges the amounts of a schedule in event order: the streams'
+// generators through a binary min-heap of their indexes by their next
+// amount's order key (each amount is compared with about log₂ of the
+// streams, never copied but into the schedule), and the one-time amounts,
+// sorted.
+type flows struct {
+	gens    []flowGen
+	h       []int32 // indexes of gens with an amount left
+	once    []Event
+	oi      int // the next of once
+	end     int32
+	endTick int64
+}
+
+func (f *flows) init() {
+	for i := len(f.h)/2 - 1; i >= 0; i-- {
+		f.down(i)
+	}
+}
+
+func (f *flows) down(i int) {
+	h, g := f.h, f.gens
+	for {
+		m, l, r := i, 2*i+1, 2*i+2
+		if l < len(h) && g[h[l]].key < g[h[m]].key {
+			m = l
+		}
+		if r < len(h) && g[h[r]].key < g[h[m]].key {
+			m = r
+		}
+		if m == i {
+			return
+		}
+		h[i], h[m] = h[m], h[i]
+		i = m
+	}
+}
+
+// next returns the order key of the next amount, and false when there is
+// none.
+func (f *flows) next() (uint64, bool) {
+	k, ok := uint64(0), false
+	if len(f.h) > 0 {
+		k, ok = f.gens[f.h[0]].key, true
+	}
+	if f.oi < len(f.once) {
+		if o := orderKey(&f.once[f.oi]); !ok || o < k {
+			k, ok = o, true
+		}
+	}
+	return k, ok
+}
+
+// pop returns the next amount (there must be one) and moves past it.
+func (f *flows) pop() Event {
+	if f.oi < len(f.once) && (len(f.h) == 0 || orderKey(&f.once[f.oi]) < f.gens[f.h[0]].key) {
+		f.oi++
+		return f.once[f.oi-1]
+	}
+	g := &f.gens[f.h[0]]
+	e := g.next
+	if !g.advance(f.end, f.endTick) {
+		f.h[0] = f.h[len(f.h)-1]
+		f.h = f.h[:len(f.h)-1]
+	}
+	f.down(0)
+	return e
 }
 
 // Prefix returns the schedule through the end of month months−1 (counted
@@ -373,94 +531,14 @@ func eventOrder(a, b Event) int {
 	return cmp.Compare(a.Src, b.Src)
 }
 
-// mergeRuns merges runs, each already in event order, into one: a merge
-// of all of them at once through a heap of the runs' next events, so that
-// each event is copied once whatever the number of runs (merging 50
-// streams one after another copied the first stream's events 50 times).
-// A single non-empty run is returned as it is; two are merged directly.
-func mergeRuns(runs [][]Event) []Event {
-	runs = slices.DeleteFunc(slices.Clone(runs), func(r []Event) bool { return len(r) == 0 })
-	switch len(runs) {
-	case 0:
-		return nil
-	case 1:
-		return runs[0]
-	case 2:
-		return merge(runs[0], runs[1])
+// orderKey returns e's place in event order (see eventOrder) as one
+// number: its tick, kind, money in before money out, and source, packed
+// (ticks are fewer than 2⁴⁰ over the longest plan, sources fewer than
+// 2¹⁹).
+func orderKey(e *Event) uint64 {
+	k := uint64(e.Tick)<<24 | uint64(e.Kind)<<20 | uint64(e.Src)
+	if e.Out {
+		k |= 1 << 19
 	}
-	n := 0
-	for _, r := range runs {
-		n += len(r)
-	}
-	out := make([]Event, 0, n)
-	// h is a binary min-heap of the runs by their next event; a run is
-	// dropped from it when it is used up
-	h := make([][]Event, len(runs))
-	copy(h, runs)
-	less := func(i, j int) bool { return before(&h[i][0], &h[j][0]) }
-	down := func(i int) {
-		for {
-			m, l, r := i, 2*i+1, 2*i+2
-			if l < len(h) && less(l, m) {
-				m = l
-			}
-			if r < len(h) && less(r, m) {
-				m = r
-			}
-			if m == i {
-				return
-			}
-			h[i], h[m] = h[m], h[i]
-			i = m
-		}
-	}
-	for i := len(h)/2 - 1; i >= 0; i-- {
-		down(i)
-	}
-	for len(h) > 0 {
-		out = append(out, h[0][0])
-		if h[0] = h[0][1:]; len(h[0]) == 0 {
-			h[0] = h[len(h)-1]
-			h = h[:len(h)-1]
-		}
-		down(0)
-	}
-	return out
-}
-
-// merge merges a and b, each in event order, into one; when either is
-// empty it returns the other.
-func merge(a, b []Event) []Event {
-	if len(a) == 0 {
-		return b
-	}
-	if len(b) == 0 {
-		return a
-	}
-	out := make([]Event, len(a)+len(b))
-	i, j := 0, 0
-	for k := range out {
-		if j == len(b) || i < len(a) && before(&a[i], &b[j]) {
-			out[k] = a[i]
-			i++
-		} else {
-			out[k] = b[j]
-			j++
-		}
-	}
-	return out
-}
-
-// before reports whether x comes before y in event order (see eventOrder).
-func before(x, y *Event) bool {
-	if x.Tick != y.Tick {
-		return x.Tick < y.Tick
-	}
-	if x.Kind != y.Kind {
-		return x.Kind < y.Kind
-	}
-	if x.Out != y.Out {
-		return y.Out
-	}
-	return x.Src < y.Src
+	return k
 }

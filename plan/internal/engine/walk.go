@@ -938,9 +938,17 @@ func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, sh
 // room for them grows no more during the walk. A walk with Inputs.Match
 // posts one more for each amount (see MaxMatchPosts).
 func (s *Schedule) MaxPosts() int {
-	n := len(s.events) // each event posts once, but a run of interest dates once a date
-	if !s.accrue {
-		n += int(s.endTick / s.period)
+	n := 0
+	for i := range s.events {
+		switch e := &s.events[i]; e.Kind {
+		case Mark: // a month end posts nothing
+		case Interest: // a run of interest dates posts once a date at most, or at the credits
+			if !s.accrue {
+				n += int(e.Count)
+			}
+		default:
+			n++
+		}
 	}
 	return n
 }

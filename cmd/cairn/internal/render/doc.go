@@ -52,6 +52,11 @@ type Column struct {
 	Key     string // in CSV
 	Numeric bool   // right-aligned
 	Hidden  bool   // left out of text, Markdown and the report; kept in CSV
+	// Below puts the column's cell, in plain text, on lines of its own
+	// under its row, indented and wrapped to [LineWidth], so that a long
+	// explanation does not widen the table; a column as any other in the
+	// other formats.
+	Below bool
 }
 
 // A Table is a grid of typed cells with an optional totals row.
@@ -74,7 +79,7 @@ func (t *Table) Add(cells ...Cell) { t.Rows = append(t.Rows, cells) }
 func (t *Table) Width() int {
 	total := 0
 	for i, c := range t.Cols {
-		if c.Hidden {
+		if c.Hidden || c.Below {
 			continue
 		}
 		w := len([]rune(c.Head))

@@ -23,7 +23,10 @@ func (d *Doc) finite() error {
 }
 
 func (p *Page) finite() error {
-	ts := []*Table{p.Status, p.Household}
+	ts := []*Table{p.Status, factsTable(p.Budget)}
+	for _, pt := range p.Parts {
+		ts = append(ts, pt.Table, factsTable(pt.Facts))
+	}
 	for _, s := range p.Goals {
 		ts = append(ts, s.Projection, factsTable(s.Facts), factsTable(s.Assumptions))
 	}

@@ -5,6 +5,7 @@ import (
 	"html/template"
 	"io"
 	"strings"
+	"sync"
 )
 
 // A Page is the printable HTML report: the household's status, then one
@@ -24,11 +25,22 @@ type Page struct {
 	Next    []string // what to do next, one sentence a goal's step
 	Notices []Notice
 	Goals   []Section
-	// Household, when not nil, is the household budget's page: sentences
-	// on when each goal is reached, then its allocation over time.
-	Household        *Table
-	HouseholdLead    []string
-	HouseholdCaption string
+	// Parts are the pages between the summary and the goals, each on a
+	// new page: the household budget's, the scenarios side by side.
+	Parts []Part
+}
+
+// A Part is a page of a [Page] about the whole household: its heading,
+// sentences, facts, one table under a subheading, remarks and notices.
+type Part struct {
+	ID, Name     string
+	Lead         []string
+	Facts        *Facts
+	TableHeading string
+	Table        *Table
+	Caption      string
+	Remarks      []string
+	Notices      []Notice
 }
 
 // A Section is one goal's part of a [Page].
@@ -57,17 +69,17 @@ func (p *Page) Write(w io.Writer) error {
 	}
 	d := pageData{Title: p.Title, Footer: cssString(p.Footer), Version: p.Version, Meta: p.Meta,
 		Status: htmlTableOf(p.Status, "status", p.StatusCaption), Remarks: p.Remarks, Budget: factsOf(p.Budget), Next: p.Next,
-		Notices: noticesOf(p.Notices), HouseholdLead: p.HouseholdLead}
-	if p.Household != nil {
-		d.Household = htmlTableOf(p.Household, "household", p.HouseholdCaption)
-		d.HasHousehold = true
+		Notices: noticesOf(p.Notices)}
+	for _, pt := range p.Parts {
+		d.Parts = append(d.Parts, partData{ID: pt.ID, Name: pt.Name, Lead: pt.Lead, Facts: factsOf(pt.Facts), TableHeading: pt.TableHeading,
+			Table: htmlTableOf(pt.Table, pt.ID, pt.Caption), Remarks: pt.Remarks, Notices: noticesOf(pt.Notices)})
 	}
 	for _, s := range p.Goals {
 		d.Goals = append(d.Goals, goalData{ID: s.ID, Kicker: s.Kicker, Name: s.Name, Facts: factsOf(s.Facts),
 			Chart: s.Figure.SVG, ChartNote: s.Figure.Caption, Projection: htmlTableOf(s.Projection, "projection", s.ProjectionCaption),
 			Remarks: s.Remarks, Assumptions: factsOf(s.Assumptions), Notices: noticesOf(s.Notices)})
 	}
-	if err := page.Execute(w, d); err != nil {
+	if err := page().Execute(w, d); err != nil {
 		return fmt.Errorf("writing the report: %v", err)
 	}
 	return nil
@@ -85,10 +97,17 @@ type pageData struct {
 	Next    []string
 	Notices []htmlNotice
 	Goals   []goalData
+	Parts   []partData
+}
 
-	HasHousehold  bool
-	Household     htmlTable
-	HouseholdLead []string
+type partData struct {
+	ID, Name     string
+	Lead         []string
+	Facts        []fact
+	TableHeading string
+	Table        htmlTable
+	Remarks      []string
+	Notices      []htmlNotice
 }
 
 type goalData struct {
@@ -207,8 +226,10 @@ func cssString(s string) template.CSS {
 // either. The @page margin boxes hold our own footer, which also keeps
 // Chromium from printing its date and file address there. Series are told
 // apart by dash and weight, the band by a grey fill, so that greyscale
-// printing loses nothing.
-var page = template.Must(template.Must(template.New("report").Parse(`<!DOCTYPE html>
+// printing loses nothing. It is parsed when first used: only the report
+// pays for it.
+var page = sync.OnceValue(func() *template.Template {
+	return template.Must(template.Must(template.New("report").Parse(`<!DOCTYPE html>
 <html xmlns="http://www.w3.org/1999/xhtml" lang="en">
 <head>
 <meta charset="utf-8"/>
@@ -249,12 +270,19 @@ dl { display: grid; grid-template-columns: max-content auto; gap: 0.1rem 1rem; m
 dt { font-weight: bold; font-size: 9pt; }
 dd { margin: 0; }
 ul.remarks, ul.next { padding-left: 1.2rem; }
+p.remark { margin: 0.3rem 0; }
 ul.next li { margin: 0.15rem 0; }
 nav ol { display: inline; padding: 0; }
 nav li { display: inline; margin-left: 0.4rem; }
 @media print {
-  body { max-width: none; margin: 0; padding: 0; font-size: 10pt; }
-  section.goal { break-before: page; page-break-before: always; }
+  body { max-width: none; margin: 0; padding: 0; font-size: 10pt; line-height: 1.3; }
+  nav { display: none; }
+  table.projection { line-height: 1.15; }
+  table.projection th, table.projection td { padding-top: 0.04rem; padding-bottom: 0.04rem; }
+  p.remark, ul.remarks { font-size: 9pt; }
+  dl { font-size: 9pt; line-height: 1.25; }
+  h3 { margin: 0.8rem 0 0.3rem; }
+  section.part, section.goal { break-before: page; page-break-before: always; }
   thead { display: table-header-group; }
   tfoot { display: table-row-group; }
   tr, figure, dl.facts, .note { break-inside: avoid; page-break-inside: avoid; }
@@ -262,7 +290,9 @@ nav li { display: inline; margin-left: 0.4rem; }
   h1, h2, h3, caption, .kicker { break-after: avoid; page-break-after: avoid; }
   .keep, dl.budget, ul.next li { break-inside: avoid; page-break-inside: avoid; }
   h3.with-table + table thead, h3.with-table + table tbody tr:nth-child(-n+3) { break-before: avoid; page-break-before: avoid; }
-  svg.chart { max-height: 64mm; }
+  svg.chart { max-height: 46mm; }
+  figure { margin: 0.4rem 0; }
+  .note { font-size: 9pt; }
   a { color: inherit; text-decoration: none; }
 }
 </style>
@@ -293,15 +323,14 @@ nav li { display: inline; margin-left: 0.4rem; }
 </dl>
 </div>
 {{- end}}
-{{- if .Next}}
 <div class="keep">
+{{- if .Next}}
 <h3 id="next-h">What to do next</h3>
 <ul class="next" aria-labelledby="next-h">
 {{- range .Next}}
 <li>{{.}}</li>
 {{- end}}
 </ul>
-</div>
 {{- end}}
 <nav aria-label="goals">
 <div>Each goal follows on its own page:
@@ -312,16 +341,29 @@ nav li { display: inline; margin-left: 0.4rem; }
 </ol></div>
 </nav>
 {{template "note" .Notices}}
+</div>
 </section>
-{{- if .HasHousehold}}
-<section id="household" class="goal" aria-labelledby="household-h">
-<h2 id="household-h">The household budget</h2>
-{{- range .HouseholdLead}}
+{{- range .Parts}}
+<section id="{{.ID}}" class="part" aria-labelledby="{{.ID}}-h">
+<h2 id="{{.ID}}-h">{{.Name}}</h2>
+{{- range .Lead}}
 <p class="remark">{{.}}</p>
 {{- end}}
-<h3 class="with-table">The budget split by year</h3>
-{{template "table" .Household}}
+{{- if .Facts}}
+<dl class="facts">
+{{- range .Facts}}
+<dt>{{.Term}}</dt><dd>{{.Detail}}</dd>
+{{- end}}
+</dl>
+{{- end}}
+<h3 class="with-table">{{.TableHeading}}</h3>
+{{template "table" .Table}}
+<div class="keep">
+{{- range .Remarks}}
+<p class="remark">{{.}}</p>
+{{- end}}
 {{template "note" .Notices}}
+</div>
 </section>
 {{- end}}
 {{- range .Goals}}
@@ -344,6 +386,7 @@ nav li { display: inline; margin-left: 0.4rem; }
 {{- range .Remarks}}
 <p class="remark">{{.}}</p>
 {{- end}}
+<div class="keep">
 <h3>Assumptions</h3>
 <dl class="assumptions">
 {{- range .Assumptions}}
@@ -351,6 +394,7 @@ nav li { display: inline; margin-left: 0.4rem; }
 {{- end}}
 </dl>
 {{template "note" .Notices}}
+</div>
 </section>
 {{- end}}
 </main>
@@ -389,3 +433,4 @@ nav li { display: inline; margin-left: 0.4rem; }
 </div>
 {{- end}}
 `))
+})

@@ -153,3 +153,44 @@ func TestPage_Write(t *testing.T) {
 		}
 	}
 }
+
+// TestBelow checks that a column marked Below goes, in text, on lines of
+// its own under its row, indented and wrapped to LineWidth without
+// breaking a parenthesised group, and stays a column in CSV and Markdown.
+func TestBelow(t *testing.T) {
+	long := "× (F/A, 0.44717%, 12) = 12.299576 × (F/A, 3%, 5.5%, 13) = 21.489607 × (F/P, 0.44717%, 8) = 1.036339"
+	tb := &Table{Cols: []Column{{Head: "term", Key: "term"}, {Head: "factors", Key: "factors", Below: true}, {Head: "value", Key: "value", Numeric: true}}}
+	tb.Add(Text("deposits"), Text(long), Text("32,248.34"))
+	tb.Add(Text("gift"), Text(""), Text("1,970.29"))
+	var text bytes.Buffer
+	if err := tb.writeGrid(&text, false); err != nil {
+		t.Fatal(err)
+	}
+	want := "term          value\n" +
+		"---------------------\n" + // the rule runs under the last column's padding too
+		"deposits  32,248.34\n" +
+		"  × (F/A, 0.44717%, 12) = 12.299576 × (F/A, 3%, 5.5%, 13) = 21.489607 ×\n" +
+		"  (F/P, 0.44717%, 8) = 1.036339\n" +
+		"gift       1,970.29\n"
+	if text.String() != want {
+		t.Errorf("text:\n%s\nwant:\n%s", text.String(), want)
+	}
+	if w := tb.Width(); w != len("deposits  32,248.34") {
+		t.Errorf("Width() = %d, want the shown columns' %d", w, len("deposits  32,248.34"))
+	}
+	var md bytes.Buffer
+	if err := tb.writeGrid(&md, true); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(md.String(), "factors") || !strings.Contains(md.String(), "(F/P, 0.44717%, 8)") {
+		t.Errorf("markdown lacks the factors column:\n%s", md.String())
+	}
+	d := &Doc{Blocks: []Block{tb}}
+	var csv, stderr bytes.Buffer
+	if err := d.writeCSV(&csv, &stderr); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.HasPrefix(csv.String(), "term,factors,value\n") {
+		t.Errorf("csv:\n%s", csv.String())
+	}
+}

@@ -192,7 +192,7 @@ func machineRow(r []Cell) []string {
 func (t *Table) shown(r []Cell, md bool) []string {
 	var out []string
 	for i, c := range r {
-		if i < len(t.Cols) && t.Cols[i].Hidden {
+		if i < len(t.Cols) && (t.Cols[i].Hidden || t.Cols[i].Below && !md) {
 			continue
 		}
 		s := c.text(t.WholeUnits)
@@ -209,7 +209,7 @@ func (t *Table) writeGrid(w io.Writer, md bool) error {
 	var align []tw.Align
 	var head []string
 	for _, c := range t.Cols {
-		if c.Hidden {
+		if c.Hidden || c.Below && !md {
 			continue
 		}
 		a := tw.AlignLeft
@@ -269,24 +269,62 @@ func (t *Table) writeGrid(w io.Writer, md bool) error {
 	if err := tb.Render(); err != nil {
 		return err
 	}
+	k := -2 // the row a line shows: the head and its rule come first
 	for _, line := range strings.Split(strings.TrimRight(buf.String(), "\n"), "\n") {
 		line = strings.TrimRight(line, " ")
 		if line == "" {
 			continue
 		}
 		fmt.Fprintln(w, line)
+		if k >= 0 && k < len(t.Rows) && !md {
+			t.writeBelow(w, t.Rows[k])
+		}
+		k++
 	}
 	return nil
+}
+
+// writeBelow writes the cells of row r in the columns shown below it,
+// each on lines of its own, indented two spaces and wrapped to
+// [LineWidth]; a line breaks between words but not inside parentheses.
+func (t *Table) writeBelow(w io.Writer, r []Cell) {
+	for i, c := range t.Cols {
+		if !c.Below || c.Hidden || i >= len(r) {
+			continue
+		}
+		text := r[i].text(t.WholeUnits)
+		if text == "" {
+			continue
+		}
+		// the words, each parenthesised group one word
+		var words []string
+		depth := 0
+		for _, f := range strings.Fields(text) {
+			if depth > 0 {
+				words[len(words)-1] += " " + f
+			} else {
+				words = append(words, f)
+			}
+			depth += strings.Count(f, "(") - strings.Count(f, ")")
+		}
+		for _, l := range strings.Split(strings.TrimRight(wrapWords(words, LineWidth-2), "\n"), "\n") {
+			fmt.Fprintln(w, "  "+l)
+		}
+	}
 }
 
 func mdEscape(s string) string { return strings.ReplaceAll(s, "|", `\|`) }
 
 // Wrap breaks text into lines of at most width characters, each ended by a
 // newline.
-func Wrap(text string, width int) string {
+func Wrap(text string, width int) string { return wrapWords(strings.Fields(text), width) }
+
+// wrapWords joins words by spaces into lines of at most width characters
+// (a longer word alone on its line), each ended by a newline.
+func wrapWords(words []string, width int) string {
 	var b strings.Builder
 	line := 0
-	for i, word := range strings.Fields(text) {
+	for i, word := range words {
 		if i > 0 && line+1+len([]rune(word)) > width {
 			b.WriteString("\n")
 			line = 0
