@@ -4850,18 +4850,21 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					x = roundAmount(a, s.unitOf(e), in.Rounding)
 				}
 			}
-			for l := range Lanes {
-				x := x
-				if e.Kind == Income {
+			if e.Kind == Income {
+				for l := range Lanes {
 					pool[l] += x
-
-					continue
 				}
-				var short, covered, emp, over float64
-				_ = covered
-				_ = emp
-				_ = over
-				_ = short
+				continue
+			}
+			var short, covered, emp, over float64
+			_ = covered
+			_ = emp
+			_ = over
+			_ = short
+			for l := range Lanes {
+				covered := covered
+				short := short
+				x := x
 				if in.Out[e.Src] {
 					x = -math.Abs(x)
 					if pool[l] > 0 && exact {

@@ -321,40 +321,64 @@ func caseLanes(b *strings.Builder, t *testing.T, fs *token.FileSet, list []ast.S
 		slices.Sort(c)
 		return c
 	}
+	goesOn := false // the lane loop being gathered may continue
 	flush := func() {
 		if len(group) > 0 {
 			laneLoop(b, t, fs, group, copies(group)...)
-			group = nil
+			group, goesOn = nil, false
 		}
 	}
 	for i, st := range list {
-		if len(group) > 0 && (continues(group[len(group)-1]) || reads(st, laneVars)) {
+		setsOnce := false // st sets a variable computed once
+		for o := range assigned(st) {
+			setsOnce = setsOnce || once[o]
+		}
+		is, _ := st.(*ast.IfStmt)
+		lanesIf := is != nil && is.Init == nil && is.Else == nil && !lanes(is.Cond, state) && !reads(is, laneVars) && !setsOnce && !readLater(list[i+1:], laneVars)
+		switch {
+		case len(group) > 0 && (goesOn || reads(st, laneVars)):
 			group = append(group, st) // the loop must go on to here
-		} else if !lanes(st, state) && !reads(st, laneVars) {
+		case !lanes(st, state) && !reads(st, laneVars):
 			// what every lane computes alike: once, after the lanes'
 			// loop when no later statement reads that loop's variables
 			if readLater(list[i:], laneVars) {
 				group = append(group, st)
-			} else {
-				flush()
-				b.WriteString(stmtText(t, fs, st))
-				for o := range declares(st) {
-					once[o] = true
-				}
+				break
 			}
-		} else if is, ok := st.(*ast.IfStmt); ok && is.Init == nil && is.Else == nil && !lanes(is.Cond, state) && !continues(is) && !reads(is, laneVars) && !readLater(list[i+1:], laneVars) {
+			flush()
+			b.WriteString(stmtText(t, fs, st))
+			for o := range declares(st) {
+				once[o] = true
+			}
+			continue
+		case lanesIf && !continues(is):
+			// an if every lane takes alike, around its own lane loop
 			flush()
 			fmt.Fprintf(b, "if %s {\n", text(t, fs, is.Cond))
-			laneLoop(b, t, fs, is.Body.List, copies(is.Body.List)...)
+			laneLoop(b, t, fs, is.Body.List)
 			b.WriteString("}\n")
-		} else {
+			continue
+		case lanesIf && len(is.Body.List) > 0 && isContinue(is.Body.List[len(is.Body.List)-1]) && !continues(&ast.BlockStmt{List: is.Body.List[:len(is.Body.List)-1]}):
+			// the same, when it ends by going on to the next event: every
+			// lane does
+			flush()
+			fmt.Fprintf(b, "if %s {\n", text(t, fs, is.Cond))
+			laneLoop(b, t, fs, is.Body.List[:len(is.Body.List)-1])
+			b.WriteString("continue\n}\n")
+			continue
+		default:
 			group = append(group, st)
 		}
+		// st is in the lane loop: what it declares or sets is the lane's
 		for o := range declares(st) {
-			if len(group) > 0 && group[len(group)-1] == st {
+			laneVars[o] = true
+		}
+		for o := range assigned(st) {
+			if once[o] {
 				laneVars[o] = true
 			}
 		}
+		goesOn = goesOn || continues(st)
 	}
 	flush()
 }
@@ -367,6 +391,12 @@ func readLater(list []ast.Stmt, vars map[*ast.Object]bool) bool {
 		}
 	}
 	return false
+}
+
+// isContinue reports whether st is a continue of the events' loop.
+func isContinue(st ast.Stmt) bool {
+	br, ok := st.(*ast.BranchStmt)
+	return ok && br.Tok == token.CONTINUE && br.Label == nil
 }
 
 // laneLoop writes list in a loop over the lanes, each of copies (a
