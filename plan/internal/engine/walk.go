@@ -423,9 +423,12 @@ func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 // holds copies of it for the commonest flags (see fixedWalks in
 // walkgen_test.go), generated from this source with those flags made
 // constants, so that the compiler drops what such a walk never does and
-// its loop keeps its balances in registers. Every per-walk decision is
-// read from a flag declared at the top of the body, one a line, which is
-// what the generator replaces.
+// its loop keeps its balances in registers, and the lane copies
+// [WalkLanes] runs (laneWalks there). Every per-walk decision is read from
+// a flag declared at the top of the body, one a line, which is what the
+// generator replaces; the lane copies also need the walk's state declared
+// before its loop of events, with its type, and the loop to be one switch
+// on the event's kind (the generator says so when they are not).
 func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	exact := f.exact
 	paths := f.paths
