@@ -193,7 +193,7 @@ type Options struct {
 // A Result is what a walk reports, in the walk's units (see [Mode]).
 type Result struct {
 	Closing    float64
-	Peak       float64 // the largest balance at a month end (at least 0)
+	Peak       float64 // the largest balance at a month end (at least 0; 0 with Options.Paths)
 	Short      bool    // a withdrawal was short (exact mode)
 	ShortTick  int64   // the first short withdrawal's tick and month
 	ShortMonth int32
@@ -684,7 +684,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}

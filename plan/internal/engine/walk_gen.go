@@ -301,7 +301,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -762,7 +764,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -1223,7 +1227,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -1684,7 +1690,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -2145,7 +2153,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -2606,7 +2616,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -3067,7 +3079,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -3528,7 +3542,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -3989,7 +4005,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -4450,7 +4468,9 @@ events:
 			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal) // without a branch, which a path's balance would make unpredictable
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
 			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
@@ -4819,7 +4839,6 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			_ = m
 			for l := range Lanes {
 				pool[l] = 0
-				peak[l] = max(peak[l], bal[l])
 			}
 			if o.MonthEnds != nil {
 				for l := range Lanes {
