@@ -464,7 +464,7 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)

@@ -81,7 +81,7 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -544,7 +544,7 @@ func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -1007,7 +1007,7 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -1470,7 +1470,7 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -1933,7 +1933,7 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -2396,7 +2396,7 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -2859,7 +2859,7 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -3322,7 +3322,7 @@ func walkReachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -3785,7 +3785,7 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -4248,7 +4248,7 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [16]float64 // room for w: 8 distinct fractions of a period at one rate
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
 	var w []float64      // what a unit earns by the credit: see weight
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
@@ -4718,7 +4718,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	{
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var wbuf [Lanes][16]float64
+	var wbuf [Lanes][64]float64
 	_ = wbuf
 	var w [Lanes][]float64
 	_ = w
