@@ -300,7 +300,7 @@ func roundAmount(x float64, m money.Multiplier, r money.Rounding) float64 {
 // rateOf returns the exact form of periodic rate j of rate step k: the
 // input's, when j is that step's rate (a simulated path's rate may be
 // another), else the float alone.
-func rateOf(in *Inputs, k int32, j float64) money.Multiplier {
+func rateOf(in *Inputs, k uint16, j float64) money.Multiplier {
 	if int(k) < len(in.RateM) && in.RateM[k].Float() == j {
 		return in.RateM[k]
 	}
@@ -508,10 +508,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -589,7 +589,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -631,11 +631,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -657,18 +657,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -676,10 +676,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -707,7 +707,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -715,13 +715,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -731,7 +731,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -742,23 +742,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -777,19 +779,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -797,12 +799,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -823,7 +825,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -839,16 +841,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -857,9 +859,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -871,12 +873,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -909,21 +911,19 @@ func lowest(low, bal, tau float64) float64 {
 func (s *Schedule) Weights(p *Paths, in *Inputs) {
 	for _, i := range s.partial {
 		e := &s.events[i]
-		k := e.Period
-		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
+		k := s.Period(e)
+		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], s.taus[e.Ti], e.Kind == Fee || in.Out[e.Src])
 	}
 }
 
 // MaxMatchPosts returns the most employer contributions a walk of s can
 // post: one for each amount.
 func (s *Schedule) MaxMatchPosts() int {
-	n := 0
-	for i := range s.events {
-		if k := s.events[i].Kind; k == FlowEnd || k == FlowBegin {
-			n++
-		}
+	if s.posts < 0 { // a prefix
+		_, n := countPosts(s.events, s.accrue)
+		return n
 	}
-	return n
+	return s.amounts
 }
 
 // MaxOverPosts returns the most amounts over a yearly cap a walk of s can
@@ -941,19 +941,32 @@ func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, sh
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with
 // room for them grows no more during the walk. A walk with Inputs.Match
-// posts one more for each amount (see MaxMatchPosts).
+// posts one more for each amount (see MaxMatchPosts). The compiler counts
+// them as it lays the events down; a prefix counts its own.
 func (s *Schedule) MaxPosts() int {
-	n := 0
-	for i := range s.events {
-		switch e := &s.events[i]; e.Kind {
+	if s.posts < 0 {
+		n, _ := countPosts(s.events, s.accrue)
+		return n
+	}
+	return s.posts
+}
+
+// countPosts returns the most movements a walk of events can post, and
+// how many of them are amounts into or out of the account (not income).
+func countPosts(events []Event, accrue bool) (posts, amounts int) {
+	for i := range events {
+		switch e := &events[i]; e.Kind {
 		case Mark: // a month end posts nothing
 		case Interest: // a run of interest dates posts once a date at most, or at the credits
-			if !s.accrue {
-				n += int(e.Count)
+			if !accrue {
+				posts += int(e.Count)
 			}
+		case FlowEnd, FlowBegin:
+			posts++
+			amounts++
 		default:
-			n++
+			posts++
 		}
 	}
-	return n
+	return posts, amounts
 }

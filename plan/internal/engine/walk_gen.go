@@ -125,10 +125,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -206,7 +206,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -248,11 +248,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -274,18 +274,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -293,10 +293,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -324,7 +324,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -332,13 +332,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -348,7 +348,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -359,23 +359,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -394,19 +396,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -414,12 +416,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -440,7 +442,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -456,16 +458,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -474,9 +476,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -488,12 +490,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -588,10 +590,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -669,7 +671,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -711,11 +713,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -737,18 +739,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -756,10 +758,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -787,7 +789,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -795,13 +797,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -811,7 +813,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -822,23 +824,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -857,19 +861,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -877,12 +881,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -903,7 +907,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -919,16 +923,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -937,9 +941,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -951,12 +955,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -1051,10 +1055,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1132,7 +1136,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -1174,11 +1178,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -1200,18 +1204,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -1219,10 +1223,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1250,7 +1254,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -1258,13 +1262,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -1274,7 +1278,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -1285,23 +1289,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -1320,19 +1326,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -1340,12 +1346,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -1366,7 +1372,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -1382,16 +1388,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -1400,9 +1406,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -1414,12 +1420,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -1514,10 +1520,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1595,7 +1601,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -1637,11 +1643,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -1663,18 +1669,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -1682,10 +1688,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1713,7 +1719,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -1721,13 +1727,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -1737,7 +1743,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -1748,23 +1754,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -1783,19 +1791,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -1803,12 +1811,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -1829,7 +1837,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -1845,16 +1853,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -1863,9 +1871,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -1877,12 +1885,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -1977,10 +1985,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2058,7 +2066,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -2100,11 +2108,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -2126,18 +2134,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -2145,10 +2153,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2176,7 +2184,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -2184,13 +2192,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -2200,7 +2208,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -2211,23 +2219,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -2246,19 +2256,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -2266,12 +2276,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -2292,7 +2302,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -2308,16 +2318,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -2326,9 +2336,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -2340,12 +2350,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -2440,10 +2450,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2521,7 +2531,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -2563,11 +2573,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -2589,18 +2599,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -2608,10 +2618,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2639,7 +2649,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -2647,13 +2657,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -2663,7 +2673,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -2674,23 +2684,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -2709,19 +2721,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -2729,12 +2741,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -2755,7 +2767,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -2771,16 +2783,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -2789,9 +2801,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -2803,12 +2815,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -2903,10 +2915,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2984,7 +2996,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3026,11 +3038,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -3052,18 +3064,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3071,10 +3083,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3102,7 +3114,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -3110,13 +3122,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -3126,7 +3138,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -3137,23 +3149,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -3172,19 +3186,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -3192,12 +3206,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -3218,7 +3232,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -3234,16 +3248,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -3252,9 +3266,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -3266,12 +3280,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -3366,10 +3380,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3447,7 +3461,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3489,11 +3503,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -3515,18 +3529,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3534,10 +3548,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3565,7 +3579,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -3573,13 +3587,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -3589,7 +3603,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -3600,23 +3614,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -3635,19 +3651,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -3655,12 +3671,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -3681,7 +3697,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -3697,16 +3713,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -3715,9 +3731,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -3729,12 +3745,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -3829,10 +3845,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3910,7 +3926,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3952,11 +3968,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -3978,18 +3994,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3997,10 +4013,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4028,7 +4044,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -4036,13 +4052,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -4052,7 +4068,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -4063,23 +4079,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -4098,19 +4116,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -4118,12 +4136,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -4144,7 +4162,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -4160,16 +4178,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -4178,9 +4196,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -4192,12 +4210,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -4292,10 +4310,10 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[s.Period(e)+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -4373,7 +4391,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -4415,11 +4433,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -4441,18 +4459,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -4460,10 +4478,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4491,7 +4509,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -4499,13 +4517,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if s.taus[e.Ti] != 1 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -4515,7 +4533,7 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
 			if one && e.Src != o.Source {
@@ -4526,23 +4544,25 @@ events:
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -4561,19 +4581,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -4581,12 +4601,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -4607,7 +4627,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -4623,16 +4643,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if s.taus[e.Ti] != 1 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -4641,9 +4661,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -4655,12 +4675,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
 				}
 			}
 		}
@@ -4749,10 +4769,10 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 		switch e.Kind {
 		case Interest:
 			for l := range Lanes {
-				for c := range e.Count {
+				for c := range int32(e.Count) {
 					var j float64
 					{
-						j = ps[l].J[e.Period+c]
+						j = ps[l].J[s.Period(e)+c]
 					}
 
 					b, plus := base[l], acc[l]
@@ -4826,7 +4846,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					}
 				}
 				bal[l] -= f
-				if e.Tau == 1 {
+				if s.taus[e.Ti] == 1 {
 					base[l] -= f
 				} else if !paths {
 					acc[l] -= f * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -4835,7 +4855,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				}
 			}
 		case Mark:
-			m := e.Month
+			m := e.Month()
 			_ = m
 			for l := range Lanes {
 				pool[l] = 0
@@ -4893,7 +4913,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					}
 					if exact && -x > bal[l] {
 						if !res[l].Short {
-							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month
+							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month()
 						}
 						paid := max(bal[l], 0)
 						short, x = -x-paid, -paid
@@ -4907,7 +4927,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					continue
 				}
 				bal[l] += emp
-				if in := x + emp; e.Tau == 1 {
+				if in := x + emp; s.taus[e.Ti] == 1 {
 					base[l] += in
 				} else if !paths {
 					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
