@@ -218,15 +218,30 @@ const (
 
 // A Post is one movement, in minor units.
 //
-// Its fields are laid out so that a Post takes 48 bytes: a ledger holds one
+// Its fields are laid out so that a Post takes 24 bytes: a ledger holds one
 // for every movement, and writing them is most of a projection's time.
+// What is rare is kept beside the posts (Log.Parts), and the balance after
+// each post is the running sum of the amounts that move it (see
+// [PostKind.Moves]) from Log.Opening.
 type Post struct {
-	Tick                   int64
-	Month                  int32
-	Src                    int16 // sources are fewer than [math.MaxInt16]
-	Kind                   PostKind
-	Amount, Balance, Short int64
-	Covered                int64 // a withdrawal: the part its month's income paid
+	Tick   int64
+	Amount int64
+	Month  int32
+	Src    int16 // sources are fewer than [math.MaxInt16]
+	Kind   PostKind
+}
+
+// Moves reports whether a posting of kind k moves the account's balance
+// by its amount: every kind but income, received outside the account,
+// and the part of an amount over a cap, gone elsewhere.
+func (k PostKind) Moves() bool { return k != PostIncome && k != PostOver }
+
+// A Part is what a withdrawal did not take from the account: Short, what
+// could not be paid, and Covered, what its month's income paid; Post is
+// the withdrawal's index in Log.Posts.
+type Part struct {
+	Post           int32
+	Short, Covered int64
 }
 
 // A Log records an exact walk: every movement, and the balance at each
@@ -234,6 +249,8 @@ type Post struct {
 type Log struct {
 	Posts    []Post
 	MonthEnd []int64
+	Opening  int64  // the balance before the first post
+	Parts    []Part // the withdrawals paid in part or by income, in order
 }
 
 // weights returns, for every rate step k and distinct tau i, what one unit
@@ -493,6 +510,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -567,7 +587,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -589,7 +609,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -631,7 +651,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -676,7 +696,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -785,7 +805,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -841,7 +861,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -873,12 +893,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -932,11 +952,14 @@ func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
 
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
-// grow it.
-func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short, covered float64) {
+// grow it (but for a withdrawal's rare parts).
+func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, short, covered float64) {
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
-	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: int16(src), Amount: int64(x), Balance: int64(bal), Short: int64(short), Covered: int64(covered)}
+	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: int16(src), Amount: int64(x)}
+	if short != 0 || covered != 0 {
+		g.Parts = append(g.Parts, Part{Post: int32(n), Short: int64(short), Covered: int64(covered)})
+	}
 }
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with

@@ -110,6 +110,9 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -184,7 +187,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -206,7 +209,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -248,7 +251,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -293,7 +296,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -402,7 +405,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -458,7 +461,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -490,12 +493,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -575,6 +578,9 @@ func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -649,7 +655,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -671,7 +677,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -713,7 +719,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -758,7 +764,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -867,7 +873,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -923,7 +929,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -955,12 +961,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -1040,6 +1046,9 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1114,7 +1123,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -1136,7 +1145,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -1178,7 +1187,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -1223,7 +1232,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -1332,7 +1341,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -1388,7 +1397,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -1420,12 +1429,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -1505,6 +1514,9 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1579,7 +1591,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -1601,7 +1613,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -1643,7 +1655,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -1688,7 +1700,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -1797,7 +1809,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -1853,7 +1865,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -1885,12 +1897,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -1970,6 +1982,9 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -2044,7 +2059,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -2066,7 +2081,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -2108,7 +2123,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -2153,7 +2168,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -2262,7 +2277,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -2318,7 +2333,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -2350,12 +2365,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -2435,6 +2450,9 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -2509,7 +2527,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -2531,7 +2549,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -2573,7 +2591,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -2618,7 +2636,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -2727,7 +2745,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -2783,7 +2801,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -2815,12 +2833,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -2900,6 +2918,9 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -2974,7 +2995,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -2996,7 +3017,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3038,7 +3059,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -3083,7 +3104,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -3192,7 +3213,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -3248,7 +3269,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -3280,12 +3301,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -3365,6 +3386,9 @@ func walkReachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -3439,7 +3463,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -3461,7 +3485,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3503,7 +3527,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -3548,7 +3572,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -3657,7 +3681,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -3713,7 +3737,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -3745,12 +3769,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -3830,6 +3854,9 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -3904,7 +3931,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -3926,7 +3953,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3968,7 +3995,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -4013,7 +4040,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -4122,7 +4149,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -4178,7 +4205,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -4210,12 +4237,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -4295,6 +4322,9 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -4369,7 +4399,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -4391,7 +4421,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -4433,7 +4463,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -4478,7 +4508,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			m := e.Month()
@@ -4587,7 +4617,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -4643,7 +4673,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -4675,12 +4705,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
