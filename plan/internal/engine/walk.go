@@ -476,6 +476,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -531,7 +534,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -589,6 +592,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {

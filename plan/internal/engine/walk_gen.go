@@ -76,6 +76,9 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -131,7 +134,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -189,6 +192,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -544,6 +550,9 @@ func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -599,7 +608,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -657,6 +666,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -1012,6 +1024,9 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -1067,7 +1082,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1125,6 +1140,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -1480,6 +1498,9 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -1535,7 +1556,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1593,6 +1614,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -1948,6 +1972,9 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -2003,7 +2030,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2061,6 +2088,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -2416,6 +2446,9 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -2471,7 +2504,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2529,6 +2562,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -2884,6 +2920,9 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -2939,7 +2978,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2997,6 +3036,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -3352,6 +3394,9 @@ func walkReachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -3407,7 +3452,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3465,6 +3510,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -3820,6 +3868,9 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -3875,7 +3926,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3933,6 +3984,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -4288,6 +4342,9 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
+	// dates is the interest dates walked: the index of the period the
+	// next run of them ends (read with Options.Paths)
+	var dates int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -4343,7 +4400,7 @@ events:
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[s.Period(e)+c]
+					j = o.Paths.J[dates+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -4401,6 +4458,9 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
+			}
+			if paths {
+				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -4762,6 +4822,8 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = capYear
 	var low float64
 	_ = low
+	var dates [Lanes]int32
+	_ = dates
 	var res [Lanes]Result
 	var scale float64 = 1
 	_ = scale
@@ -4802,7 +4864,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				for c := range int32(e.Count) {
 					var j float64
 					{
-						j = ps[l].J[s.Period(e)+c]
+						j = ps[l].J[dates[l]+c]
 					}
 
 					b, plus := base[l], acc[l]
@@ -4820,6 +4882,9 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 
 					base[l], acc[l] = bal[l], 0
 
+				}
+				{
+					dates[l] += int32(e.Count)
 				}
 			}
 		case Credit:
