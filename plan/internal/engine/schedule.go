@@ -24,7 +24,7 @@ const TicksPerMonth = TicksPerYear / 12
 
 // A Kind is the kind of an event. The kinds are a closed set; at one tick
 // they happen in this order, and amounts of one kind at one tick come in
-// before they go out (Event.Out), so that money arriving at an instant can
+// before they go out (their source's Out), so that money arriving at an instant can
 // pay what leaves at it.
 type Kind uint8
 
@@ -44,21 +44,22 @@ const (
 // month end.
 //
 // It holds only what cannot be had cheaply from its tick or a table of its
-// schedule, so that an event takes 32 bytes (a schedule is most of what a
+// schedule, so that an event takes 24 bytes (a schedule is most of what a
 // cold projection writes): its month is [Event.Month], its interest period
 // [Schedule.Period], its fraction of the period left [Schedule.Tau] (from
 // Ti), and a flow's inflation indexes [Schedule.IndexOf] (from its
-// source's stream and Year).
+// source's stream and Year); whether a flow is money out is its source's
+// (Inputs.Out). Compile panics on a shape past the sizes below, which
+// plan's limits keep far within.
 type Event struct {
 	Tick  int64
 	Unit  float64 // flows: amount per unit of the source's amount (growth, indexing)
-	Src   int32   // flows: the source (see [Shape]); others: 0
+	Src   int16   // flows: the source (see [Shape]; fewer than 2¹⁵); others: 0
 	Ti    uint16  // flows and fees: index of the fraction of the interest period left until its credit among the schedule's distinct values
-	Step  uint16  // the rate step in force for the interest period the event is in (rate steps are fewer than 2¹⁶)
-	Count uint16  // interest: how many interest dates in a row, one period apart (at least 1; a run never passes a month end)
-	Year  uint16  // flows: whole years of growth in Unit (a plan is far shorter than 2¹⁶ years)
+	Step  uint8   // the rate step in force for the interest period the event is in (at most 256 steps)
+	Count uint8   // interest: how many interest dates in a row, one period apart (at least 1; a run never passes a month end, so at most 31)
+	Year  uint8   // flows: whole years of growth in Unit (at most 255)
 	Kind  Kind
-	Out   bool // flows: money out (after the same kind's money in at the tick)
 }
 
 // Month returns the month the event is shown in, counted from the start
@@ -245,6 +246,9 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	s.period = TicksPerYear / int64(sh.PerYear)
 	s.accrue = sh.PerYear > 12
 	s.sources = 1 + len(sh.Streams) + len(sh.Once)
+	if s.sources > math.MaxInt16 || len(sh.StepFrom) > math.MaxUint8+1 {
+		panic("engine: a shape with more sources or rate steps than an event can index")
+	}
 	s.grow = make([]float64, s.sources)
 	s.index = make([]indexing, s.sources)
 	// Each stream's amounts come from a generator of their own, in tick
@@ -263,7 +267,7 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 			s.grow[src] = math.NaN()
 		}
 		g := &f.gens[k]
-		*g = flowGen{st: st, src: src, P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
+		*g = flowGen{st: st, src: int16(src), P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
 		if t0 > g.from { // the first period whose amount falls after old's end
 			if st.Begin {
 				g.k = (t0 - g.from + g.P - 1) / g.P
@@ -286,10 +290,10 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		if on > f.end || on < m0 {
 			continue
 		}
-		src := int32(1 + len(sh.Streams) + k)
-		f.once = append(f.once, Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: src, Out: sh.OnceOut[k], Unit: 1})
+		e := Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: int16(1 + len(sh.Streams) + k), Unit: 1}
+		f.once = append(f.once, onceFlow{e, orderKey(&e, sh.OnceOut[k])})
 	}
-	slices.SortFunc(f.once, eventOrder) // one-time amounts may be written in any order
+	slices.SortFunc(f.once, func(a, b onceFlow) int { return cmp.Compare(a.key, b.key) }) // one-time amounts may be written in any order
 	nFlows += int64(len(f.once))
 	f.init()
 	// the regular events, interest dates and month ends, in order, with the
@@ -369,7 +373,7 @@ type compiler struct {
 
 // add lays down e after every amount that comes before it.
 func (c *compiler) add(e Event) {
-	for k := orderKey(&e); ; {
+	for k := orderKey(&e, false); ; {
 		if f, ok := c.f.next(); !ok || f > k {
 			break
 		}
@@ -401,7 +405,7 @@ func (c *compiler) interestTo(t int64) {
 			}
 		}
 		ti := first * s.period
-		c.ev = append(c.ev, Event{Tick: ti, Kind: Interest, Step: uint16(step), Count: uint16(end - first + 1)})
+		c.ev = append(c.ev, Event{Tick: ti, Kind: Interest, Step: uint8(step), Count: uint8(end - first + 1)})
 		if !s.accrue { // else posted at the credits
 			s.posts += int(end - first + 1)
 		}
@@ -444,7 +448,7 @@ func (c *compiler) put(e Event) {
 		if s.taus[c.k] < 1 {
 			s.partial = append(s.partial, int32(len(c.ev)))
 		}
-		e.Step = uint16(s.StepAt(next - s.period))
+		e.Step = uint8(s.StepAt(next - s.period))
 	}
 	c.ev = append(c.ev, e)
 }
@@ -452,7 +456,7 @@ func (c *compiler) put(e Event) {
 // A flowGen gives one stream's amounts in tick order, one at a time.
 type flowGen struct {
 	st          *StreamShape
-	src         int32
+	src         int16
 	P, from     int64   // ticks a period; the first period's start
 	lg, u       float64 // log(1 + grow); the unit of the year lastYear
 	k, lastYear int64   // the next period; the year of u
@@ -481,11 +485,14 @@ func (g *flowGen) advance(end int32, endTick int64) bool {
 		if label < st.Resume {
 			continue
 		}
-		e := Event{Tick: t, Kind: kd, Src: g.src, Out: st.Out, Unit: g.u, Year: uint16(year)}
+		if year > math.MaxUint8 {
+			panic("engine: a stream of more years than an event can count")
+		}
+		e := Event{Tick: t, Kind: kd, Src: g.src, Unit: g.u, Year: uint8(year)}
 		if st.Income { // income is pooled for its month's withdrawals from the month's start
 			e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
 		}
-		g.next, g.key = e, orderKey(&e)
+		g.next, g.key = e, orderKey(&e, st.Out)
 		return true
 	}
 }
@@ -498,7 +505,7 @@ func (g *flowGen) advance(end int32, endTick int64) bool {
 type flows struct {
 	gens    []flowGen
 	h       []int32 // indexes of gens with an amount left
-	once    []Event
+	once    []onceFlow
 	oi      int // the next of once
 	end     int32
 	endTick int64
@@ -536,7 +543,7 @@ func (f *flows) next() (uint64, bool) {
 		k, ok = f.gens[f.h[0]].key, true
 	}
 	if f.oi < len(f.once) {
-		if o := orderKey(&f.once[f.oi]); !ok || o < k {
+		if o := f.once[f.oi].key; !ok || o < k {
 			k, ok = o, true
 		}
 	}
@@ -545,9 +552,9 @@ func (f *flows) next() (uint64, bool) {
 
 // pop returns the next amount (there must be one) and moves past it.
 func (f *flows) pop() Event {
-	if f.oi < len(f.once) && (len(f.h) == 0 || orderKey(&f.once[f.oi]) < f.gens[f.h[0]].key) {
+	if f.oi < len(f.once) && (len(f.h) == 0 || f.once[f.oi].key < f.gens[f.h[0]].key) {
 		f.oi++
-		return f.once[f.oi-1]
+		return f.once[f.oi-1].e
 	}
 	g := &f.gens[f.h[0]]
 	e := g.next
@@ -585,32 +592,20 @@ func (s *Schedule) Prefix(months int32) *Schedule {
 	return &p
 }
 
-// eventOrder orders events by tick, then kind, then money in before money
-// out, then source; tick, kind and source together are unique to an event,
-// so the order is total.
-func eventOrder(a, b Event) int {
-	if c := cmp.Compare(a.Tick, b.Tick); c != 0 {
-		return c
-	}
-	if c := cmp.Compare(a.Kind, b.Kind); c != 0 {
-		return c
-	}
-	if a.Out != b.Out {
-		if b.Out {
-			return -1
-		}
-		return 1
-	}
-	return cmp.Compare(a.Src, b.Src)
+// A onceFlow is a one-time amount and its order key.
+type onceFlow struct {
+	e   Event
+	key uint64
 }
 
-// orderKey returns e's place in event order (see eventOrder) as one
-// number: its tick, kind, money in before money out, and source, packed
-// (ticks are fewer than 2⁴⁰ over the longest plan, sources fewer than
-// 2¹⁹).
-func orderKey(e *Event) uint64 {
+// orderKey returns e's place in event order as one number: events come by
+// tick, then kind, then money in before money out (out), then source;
+// tick, kind and source together are unique to an event, so the order is
+// total. They are packed (ticks are fewer than 2⁴⁰ over the longest plan,
+// sources fewer than 2¹⁵).
+func orderKey(e *Event, out bool) uint64 {
 	k := uint64(e.Tick)<<24 | uint64(e.Kind)<<20 | uint64(e.Src)
-	if e.Out {
+	if out {
 		k |= 1 << 19
 	}
 	return k

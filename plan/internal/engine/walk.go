@@ -317,7 +317,7 @@ func roundAmount(x float64, m money.Multiplier, r money.Rounding) float64 {
 // rateOf returns the exact form of periodic rate j of rate step k: the
 // input's, when j is that step's rate (a simulated path's rate may be
 // another), else the float alone.
-func rateOf(in *Inputs, k uint16, j float64) money.Multiplier {
+func rateOf(in *Inputs, k uint8, j float64) money.Multiplier {
 	if int(k) < len(in.RateM) && in.RateM[k].Float() == j {
 		return in.RateM[k]
 	}
@@ -760,11 +760,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -959,10 +959,10 @@ func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
 // grow it (but for a withdrawal's rare parts).
-func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, short, covered float64) {
+func (g *Log) post(tick int64, month int32, kind PostKind, src int16, x, short, covered float64) {
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
-	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: int16(src), Amount: int64(x)}
+	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x)}
 	if short != 0 || covered != 0 {
 		g.Parts = append(g.Parts, Part{Post: int32(n), Short: int64(short), Covered: int64(covered)})
 	}

@@ -360,11 +360,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -834,11 +834,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -1308,11 +1308,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -1782,11 +1782,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -2256,11 +2256,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -2730,11 +2730,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -3204,11 +3204,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -3678,11 +3678,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -4152,11 +4152,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
@@ -4626,11 +4626,11 @@ events:
 					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
