@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"slices"
 	"testing"
 	"unsafe"
 )
@@ -23,6 +24,9 @@ func TestEventDerivedFields(t *testing.T) {
 		Streams: []StreamShape{{PerYear: 26, First: 1, Grow: 0.03}, {PerYear: 12, Begin: true, From: 2, First: 1, Income: true}},
 		Once:    []int32{5, 40}, OnceOut: []bool{true, false}}
 	s := Compile(&sh)
+	if s.taus[0] != 1 || slices.Contains(s.taus[1:], 1) {
+		t.Errorf("taus %v: want a whole period first, and only there", s.taus)
+	}
 	marks := int32(0)
 	for i := range s.events {
 		e := &s.events[i]

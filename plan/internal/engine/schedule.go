@@ -55,7 +55,7 @@ type Event struct {
 	Tick  int64
 	Unit  float64 // flows: amount per unit of the source's amount (growth, indexing)
 	Src   int16   // flows: the source (see [Shape]; fewer than 2¹⁵); others: 0
-	Ti    uint16  // flows and fees: index of the fraction of the interest period left until its credit among the schedule's distinct values
+	Ti    uint16  // flows and fees: index of the fraction of the interest period left until its credit among the schedule's distinct values; 0 is a whole period
 	Step  uint8   // the rate step in force for the interest period the event is in (at most 256 steps)
 	Count uint8   // interest: how many interest dates in a row, one period apart (at least 1; a run never passes a month end, so at most 31)
 	Year  uint8   // flows: whole years of growth in Unit (at most 255)
@@ -320,6 +320,9 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	room := int64(sh.Months-m0)*perMonth + nFlows + nRuns
 	if old == nil {
 		c.ev = make([]Event, 0, room)
+		// Ti 0 is a whole period (Tau 1), so that the walk tells one by
+		// its index, without looking its fraction up
+		c.left, s.taus = []int64{s.period}, []float64{1}
 	} else {
 		c.ev = make([]Event, len(old.events), int64(len(old.events))+room)
 		copy(c.ev, old.events)

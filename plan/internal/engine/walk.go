@@ -685,7 +685,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -694,7 +694,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -743,11 +743,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -876,7 +876,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -887,7 +887,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2

@@ -285,7 +285,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -294,7 +294,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -343,11 +343,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -476,7 +476,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -487,7 +487,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -759,7 +759,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -768,7 +768,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -817,11 +817,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -950,7 +950,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -961,7 +961,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -1233,7 +1233,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -1242,7 +1242,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -1291,11 +1291,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -1424,7 +1424,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -1435,7 +1435,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -1707,7 +1707,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -1716,7 +1716,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -1765,11 +1765,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -1898,7 +1898,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -1909,7 +1909,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -2181,7 +2181,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -2190,7 +2190,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -2239,11 +2239,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -2372,7 +2372,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -2383,7 +2383,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -2655,7 +2655,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -2664,7 +2664,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -2713,11 +2713,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -2846,7 +2846,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -2857,7 +2857,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -3129,7 +3129,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -3138,7 +3138,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3187,11 +3187,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -3320,7 +3320,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -3331,7 +3331,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -3603,7 +3603,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -3612,7 +3612,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3661,11 +3661,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -3794,7 +3794,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -3805,7 +3805,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -4077,7 +4077,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -4086,7 +4086,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -4135,11 +4135,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -4268,7 +4268,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -4279,7 +4279,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -4551,7 +4551,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
@@ -4560,7 +4560,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -4609,11 +4609,11 @@ events:
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if s.taus[e.Ti] != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -4742,7 +4742,7 @@ events:
 				if none {
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if s.taus[e.Ti] != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -4753,7 +4753,7 @@ events:
 			if none {
 				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; s.taus[e.Ti] == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -4941,7 +4941,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					}
 				}
 				bal[l] -= f
-				if s.taus[e.Ti] == 1 {
+				if e.Ti == 0 {
 					base[l] -= f
 				} else if !paths {
 					acc[l] -= f * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -5022,7 +5022,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					continue
 				}
 				bal[l] += emp
-				if in := x + emp; s.taus[e.Ti] == 1 {
+				if in := x + emp; e.Ti == 0 {
 					base[l] += in
 				} else if !paths {
 					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
