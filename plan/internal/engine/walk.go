@@ -479,6 +479,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -705,7 +708,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)

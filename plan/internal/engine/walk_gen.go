@@ -79,6 +79,9 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -305,7 +308,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -553,6 +557,9 @@ func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -779,7 +786,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1027,6 +1035,9 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -1253,7 +1264,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1501,6 +1513,9 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -1727,7 +1742,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1975,6 +1991,9 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -2201,7 +2220,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2449,6 +2469,9 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -2675,7 +2698,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2923,6 +2947,9 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -3149,7 +3176,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3397,6 +3425,9 @@ func walkReachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -3623,7 +3654,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3871,6 +3903,9 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -4097,7 +4132,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4345,6 +4381,9 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// dates is the interest dates walked: the index of the period the
 	// next run of them ends (read with Options.Paths)
 	var dates int32
+	// months is the month ends walked: the month of the next (a month end
+	// is one event a month, from month 0)
+	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -4571,7 +4610,8 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month()
+			m := months
+			months++
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4824,6 +4864,8 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = low
 	var dates [Lanes]int32
 	_ = dates
+	var months [Lanes]int32
+	_ = months
 	var res [Lanes]Result
 	var scale float64 = 1
 	_ = scale
@@ -4950,25 +4992,20 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				}
 			}
 		case Mark:
-			m := e.Month()
-			_ = m
 			for l := range Lanes {
+				m := months[l]
+				_ = m
+				months[l]++
 				pool[l] = 0
-			}
-			if o.MonthEnds != nil {
-				for l := range Lanes {
+				if o.MonthEnds != nil {
 					o.MonthEnds[m] = bal[l] / scale
 				}
-			}
-			if o.Rows != nil {
-				for l := range Lanes {
+				if o.Rows != nil {
 					if row := o.Rows[m]; row != nil {
 						row[at[l]] = bal[l]
 					}
 				}
-			}
-			if o.HasDeadline && m == o.Deadline {
-				for l := range Lanes {
+				if o.HasDeadline && m == o.Deadline {
 					res[l].AtDeadline = bal[l]
 				}
 			}
