@@ -476,12 +476,6 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -534,10 +528,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -595,9 +593,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -708,8 +703,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -718,21 +712,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -939,9 +935,13 @@ func lowest(low, bal, tau float64) float64 {
 // have a weight: one a whole period before its credit joins the interest
 // base instead, and the walk reads no weight for it.
 func (s *Schedule) Weights(p *Paths, in *Inputs) {
+	k, end := int64(0), s.period // the period of the events found so far, and its end
 	for _, i := range s.partial {
 		e := &s.events[i]
-		k := s.Period(e)
+		if e.Tick >= end { // in tick order: the period is found without a division
+			k = e.Tick / s.period
+			end = (k + 1) * s.period
+		}
 		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], s.taus[e.Ti], e.Kind == Fee || in.Out[e.Src])
 	}
 }

@@ -76,12 +76,6 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -134,10 +128,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -195,9 +193,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -308,8 +303,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -318,21 +312,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -554,12 +550,6 @@ func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -612,10 +602,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -673,9 +667,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -786,8 +777,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -796,21 +786,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -1032,12 +1024,6 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -1090,10 +1076,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1151,9 +1141,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -1264,8 +1251,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1274,21 +1260,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -1510,12 +1498,6 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -1568,10 +1550,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1629,9 +1615,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -1742,8 +1725,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1752,21 +1734,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -1988,12 +1972,6 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -2046,10 +2024,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2107,9 +2089,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -2220,8 +2199,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2230,21 +2208,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -2466,12 +2446,6 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -2524,10 +2498,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2585,9 +2563,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -2698,8 +2673,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2708,21 +2682,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -2944,12 +2920,6 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -3002,10 +2972,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3063,9 +3037,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -3176,8 +3147,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3186,21 +3156,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -3422,12 +3394,6 @@ func walkReachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -3480,10 +3446,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3541,9 +3511,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -3654,8 +3621,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3664,21 +3630,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -3900,12 +3868,6 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -3958,10 +3920,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -4019,9 +3985,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -4132,8 +4095,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4142,21 +4104,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -4378,12 +4342,6 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	// fee at the period's first tick sets it, any later one can only
 	// lower it. It is kept only under rule None.
 	var low float64
-	// dates is the interest dates walked: the index of the period the
-	// next run of them ends (read with Options.Paths)
-	var dates int32
-	// months is the month ends walked: the month of the next (a month end
-	// is one event a month, from month 0)
-	var months int32
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
 	if exact {
@@ -4436,10 +4394,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[dates+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -4497,9 +4459,6 @@ events:
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
-			}
-			if paths {
-				dates += int32(e.Count)
 			}
 		case Credit:
 			if alone {
@@ -4610,8 +4569,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := months
-			months++
+			// its month, e.Month(), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4620,21 +4578,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[e.Month()] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[e.Month()] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[e.Month()]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -4862,10 +4822,6 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = capYear
 	var low float64
 	_ = low
-	var dates [Lanes]int32
-	_ = dates
-	var months [Lanes]int32
-	_ = months
 	var res [Lanes]Result
 	var scale float64 = 1
 	_ = scale
@@ -4902,11 +4858,16 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32
+			_ = p0
+			{
+				p0 = s.Period(e)
+			}
 			for l := range Lanes {
 				for c := range int32(e.Count) {
 					var j float64
 					{
-						j = ps[l].J[dates[l]+c]
+						j = ps[l].J[p0+c]
 					}
 
 					b, plus := base[l], acc[l]
@@ -4924,9 +4885,6 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 
 					base[l], acc[l] = bal[l], 0
 
-				}
-				{
-					dates[l] += int32(e.Count)
 				}
 			}
 		case Credit:
@@ -4993,19 +4951,26 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			}
 		case Mark:
 			for l := range Lanes {
-				m := months[l]
-				_ = m
-				months[l]++
 				pool[l] = 0
-				if o.MonthEnds != nil {
-					o.MonthEnds[m] = bal[l] / scale
+			}
+			if o.MonthEnds != nil {
+				for l := range Lanes {
+					o.MonthEnds[e.Month()] = bal[l] / scale
 				}
-				if o.Rows != nil {
-					if row := o.Rows[m]; row != nil {
-						row[at[l]] = bal[l]
-					}
+			}
+			var row []float64
+			_ = row
+			if o.Rows != nil {
+				row = o.Rows[e.Month()]
+			}
+			for l := range Lanes {
+				row := row
+				if row != nil {
+					row[at[l]] = bal[l]
 				}
-				if o.HasDeadline && m == o.Deadline {
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
+				for l := range Lanes {
 					res[l].AtDeadline = bal[l]
 				}
 			}
