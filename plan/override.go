@@ -154,7 +154,7 @@ func (p *Plan) apply(g *Goal, stream string, o Override) error {
 	if !d.value(k, &yaml.Node{Kind: yaml.ScalarNode, Tag: "!!str", Value: o.Value}, "", t, &v) {
 		return o.refuse(d.errs[0].Msg)
 	}
-	k.put(t, &v)
+	k.put(t, v)
 	return nil
 }
 

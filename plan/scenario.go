@@ -201,9 +201,8 @@ func (d *decoder) scenarios(p *Plan, v *yaml.Node) {
 // value as text, as --set takes it.
 func (d *decoder) change(n *yaml.Node, path string) (Change, bool) {
 	ch := Change{pos: d.pos(n), path: path}
-	ks := keysIn(InChange)
 	ok, errs := true, len(d.errs)
-	mapping := d.fields(n, path, keyNames(ks), func(name string, v *yaml.Node) {
+	mapping := d.fields(n, path, keyNamesIn(InChange), func(name string, v *yaml.Node) {
 		kp := join(path, name)
 		switch name {
 		case "goal", "stream":

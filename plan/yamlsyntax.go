@@ -61,6 +61,9 @@ var docMarker = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile
 // follows content and is itself followed by content. A marker before the
 // first content, and markers with only comments after them, are allowed.
 func secondDocument(data []byte) (int, bool) {
+	if !hasMarkerLine(data) {
+		return 0, false
+	}
 	content, marker := false, 0
 	for i, ln := range strings.Split(string(data), "\n") {
 		ln = strings.TrimRight(ln, "\r")
@@ -80,6 +83,17 @@ func secondDocument(data []byte) (int, bool) {
 		}
 	}
 	return 0, false
+}
+
+// hasMarkerLine reports whether a line of data starts with --- or ...,
+// as every document marker does.
+func hasMarkerLine(data []byte) bool {
+	for _, m := range []string{"---", "..."} {
+		if bytes.HasPrefix(data, []byte(m)) || bytes.Contains(data, []byte("\n"+m)) {
+			return true
+		}
+	}
+	return false
 }
 
 func significant(ln string) bool {
@@ -482,6 +496,9 @@ func stripComment(t string) string {
 // mistake (a '#' inside a multi-line value) is still refused when the value
 // is decoded, by checkNodes.
 func hiddenChar(data []byte) (line, col int, r rune, ok bool) {
+	if !anyHidden(data) {
+		return 0, 0, 0, false // the pass below finds only what hiddenRune refuses
+	}
 	var quote rune // the open quote, or 0
 	for i, ln := range strings.Split(string(data), "\n") {
 		prev := ' ' // the character before, as if a space began the line
@@ -514,4 +531,25 @@ func hiddenChar(data []byte) (line, col int, r rune, ok bool) {
 		}
 	}
 	return 0, 0, 0, false
+}
+
+// anyHidden reports whether data holds any character that hiddenRune
+// refuses; plain printable ASCII, tab and line breaks are read a byte at a
+// time.
+func anyHidden(data []byte) bool {
+	for i := 0; i < len(data); {
+		if c := data[i]; c < utf8.RuneSelf {
+			if c < ' ' && c != '\t' && c != '\n' && c != '\r' || c == 0x7f {
+				return true
+			}
+			i++
+			continue
+		}
+		r, size := utf8.DecodeRune(data[i:])
+		if hiddenRune(r) {
+			return true
+		}
+		i += size
+	}
+	return false
 }
