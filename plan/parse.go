@@ -91,7 +91,7 @@ type decoder struct {
 }
 
 func newDecoder(file string) *decoder {
-	return &decoder{file: file, nodes: map[string]*yaml.Node{}, bad: map[string]bool{}, goals: map[*Goal]string{}}
+	return &decoder{file: file, nodes: make(map[string]*yaml.Node, 128), bad: map[string]bool{}, goals: map[*Goal]string{}}
 }
 
 // report adds a cross-field problem, positioned at the key it names, unless
@@ -853,6 +853,9 @@ func yamlError(file string, err error) *Error {
 }
 
 func findTab(data []byte) (line, col int, ok bool) {
+	if bytes.IndexByte(data, '\t') < 0 {
+		return 0, 0, false
+	}
 	line = 1
 	start := true
 	col = 0

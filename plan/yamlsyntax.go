@@ -88,10 +88,15 @@ func secondDocument(data []byte) (int, bool) {
 // hasMarkerLine reports whether a line of data starts with --- or ...,
 // as every document marker does.
 func hasMarkerLine(data []byte) bool {
-	for _, m := range []string{"---", "..."} {
-		if bytes.HasPrefix(data, []byte(m)) || bytes.Contains(data, []byte("\n"+m)) {
+	for len(data) > 0 {
+		if bytes.HasPrefix(data, []byte("---")) || bytes.HasPrefix(data, []byte("...")) {
 			return true
 		}
+		i := bytes.IndexByte(data, '\n')
+		if i < 0 {
+			break
+		}
+		data = data[i+1:]
 	}
 	return false
 }
@@ -534,18 +539,13 @@ func hiddenChar(data []byte) (line, col int, r rune, ok bool) {
 }
 
 // anyHidden reports whether data holds any character that hiddenRune
-// refuses; plain printable ASCII, tab and line breaks are read a byte at a
-// time.
+// refuses.
 func anyHidden(data []byte) bool {
 	for i := 0; i < len(data); {
-		if c := data[i]; c < utf8.RuneSelf {
-			if c < ' ' && c != '\t' && c != '\n' && c != '\r' || c == 0x7f {
-				return true
-			}
-			i++
-			continue
+		r, size := rune(data[i]), 1
+		if r >= utf8.RuneSelf {
+			r, size = utf8.DecodeRune(data[i:])
 		}
-		r, size := utf8.DecodeRune(data[i:])
 		if hiddenRune(r) {
 			return true
 		}
