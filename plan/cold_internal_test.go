@@ -2,8 +2,6 @@ package plan
 
 import (
 	"cairn/money"
-	"os"
-	"path/filepath"
 	"slices"
 	"strings"
 	"testing"
@@ -25,23 +23,7 @@ func TestPeakBoundHolds(t *testing.T) {
 		}
 	}
 	eachRandomPlan(t, 14, func(t *testing.T, src string, p *Plan, g *Goal) { check(t, src, p, g) })
-	files, _ := filepath.Glob("../examples/*.yaml")
-	if len(files) == 0 {
-		t.Fatal("no example files")
-	}
-	for _, f := range files {
-		data, err := os.ReadFile(f)
-		if err != nil {
-			t.Fatal(err)
-		}
-		p, err := Parse(f, data, MonthOf(2026, 12))
-		if err != nil {
-			t.Fatal(err)
-		}
-		for _, g := range p.Goals {
-			check(t, f, p, g)
-		}
-	}
+	eachExampleGoal(t, check)
 }
 
 // A balance that passes the limit is still refused where the bound alone
@@ -96,20 +78,7 @@ func TestMonthEndsShortWay(t *testing.T) {
 		}
 	}
 	eachRandomPlan(t, 15, func(t *testing.T, src string, p *Plan, g *Goal) { check(t, src, p, g) })
-	files, _ := filepath.Glob("../examples/*.yaml")
-	for _, f := range files {
-		data, err := os.ReadFile(f)
-		if err != nil {
-			t.Fatal(err)
-		}
-		p, err := Parse(f, data, MonthOf(2026, 12))
-		if err != nil {
-			t.Fatal(err)
-		}
-		for _, g := range p.Goals {
-			check(t, f, p, g)
-		}
-	}
+	eachExampleGoal(t, check)
 	if short == 0 {
 		t.Errorf("no plan took the short way")
 	}
@@ -188,20 +157,7 @@ func TestRowsSumTheEntries(t *testing.T) {
 			check(t, src, p, g)
 		}
 	})
-	files, _ := filepath.Glob("../examples/*.yaml")
-	for _, f := range files {
-		data, err := os.ReadFile(f)
-		if err != nil {
-			t.Fatal(err)
-		}
-		p, err := Parse(f, data, MonthOf(2026, 12))
-		if err != nil {
-			t.Fatal(err)
-		}
-		for _, g := range p.Goals {
-			check(t, f, p, g)
-		}
-	}
+	eachExampleGoal(t, check)
 }
 
 // A sum of minor units past an int64's reach is carried exactly: four

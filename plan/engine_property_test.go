@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 
@@ -106,6 +108,28 @@ func eachRandomPlan(t *testing.T, seed uint64, check func(t *testing.T, src stri
 		check(t, src, p, p.Goals[0])
 		if t.Failed() {
 			return
+		}
+	}
+}
+
+// eachExampleGoal calls check with every goal of every file in examples/,
+// parsed as of 2026-12.
+func eachExampleGoal(t *testing.T, check func(t *testing.T, file string, p *Plan, g *Goal)) {
+	files, _ := filepath.Glob("../examples/*.yaml")
+	if len(files) == 0 {
+		t.Fatal("no example files")
+	}
+	for _, f := range files {
+		data, err := os.ReadFile(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p, err := Parse(f, data, MonthOf(2026, 12))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, g := range p.Goals {
+			check(t, f, p, g)
 		}
 	}
 }

@@ -237,10 +237,10 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "people", Scope: InPlan, Form: FormList, Items: InPerson, MaxItems: MaxPeople,
 		Default: "none",
 		Help: "the household's people, each a name and a birth month:\n" +
-			"  - name: Alex\n" +
+			"  - name: earner\n" +
 			"    born: 1962-05\n" +
-			"Any month may then be written as an age: \"Alex at 67\"\n" +
-			"is Alex's 67th birthday month; output shows ages"},
+			"Any month may then be written as an age: \"earner at 67\"\n" +
+			"is the earner's 67th birthday month; output shows ages"},
 	{Name: "scenarios", Scope: InPlan, Form: FormList, Items: InScenario, MaxItems: MaxScenarios,
 		Default: "none",
 		Help: "named alternatives, each a list of what-if changes\n" +
@@ -552,7 +552,7 @@ var Keys = withChangeKeys([]*Key{
 		Default: "required", Help: "unique within the file; --scenario NAME picks it",
 		put: func(t *target, v *value) { t.sc.Name = v.text }},
 	{Name: "name", Scope: InPerson, Form: FormName, Required: true,
-		Default: "required", Help: "a role or first name, used in ages such as \"Alex at 67\"",
+		Default: "required", Help: "a role such as earner or partner, used in ages such as \"earner at 67\"",
 		put: func(t *target, v *value) { t.who.Name = v.text }},
 	{Name: "born", Scope: InPerson, Form: FormMonth, Required: true,
 		Default: "required", Help: "the birth month, YYYY-MM",

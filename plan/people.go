@@ -12,18 +12,18 @@ import (
 
 // A Person is one of the household's people, named by a role or a first
 // name the file chooses, with the month they were born: any month in the
-// file may then be written as that person's age ("Alex at 67" is Alex's
+// file may then be written as that person's age ("earner at 67" is earner's
 // 67th birthday month), and output shows ages beside months.
 type Person struct {
 	Name string
 	Born Month
 }
 
-// ageForm is a month written as a person's age: "Alex at 67".
+// ageForm is a month written as a person's age: "earner at 67".
 var ageForm = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`(?i)^\s*(\S.*?)\s+at\s+(\d{1,3})\s*$`) })
 
 // MonthOf parses a month as the goals file writes it: YYYY-MM, or a
-// person's age such as "Alex at 67", the month of that birthday.
+// person's age such as "earner at 67", the month of that birthday.
 func (p *Plan) MonthOf(s string) (Month, error) {
 	m, err := ParseMonth(s)
 	if err == nil {
@@ -62,7 +62,7 @@ func (p *Plan) Person(name string) *Person {
 }
 
 // AgeList gives the household's people's ages in month m, in file order,
-// "Alex/Sam" and "66/63": a name and an age for each person born by then;
+// "earner/partner" and "66/63": a name and an age for each person born by then;
 // both "" when the file names no one.
 func (p *Plan) AgeList(m Month) (names, ages string) {
 	var ns, as []string
@@ -76,7 +76,7 @@ func (p *Plan) AgeList(m Month) (names, ages string) {
 }
 
 // AgesAt says how old each of the household's people is in month m:
-// "when Alex is 88 and Sam is 85", or "" when the file names no one.
+// "when earner is 88 and partner is 85", or "" when the file names no one.
 func (p *Plan) AgesAt(m Month) string {
 	var parts []string
 	for _, q := range p.People {

@@ -488,8 +488,8 @@ func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 }
 
 // simLanes is how many paths a worker draws before it walks them: a group
-// whose walks share the schedule while it is in cache.
-const simLanes = 4
+// walked together (engine.WalkLanes).
+const simLanes = engine.Lanes
 
 // A simWorker holds one goroutine's generators and buffers for simLanes
 // paths; nothing in it grows with the number of paths. Lane l holds one
@@ -531,30 +531,33 @@ func simKey(seed uint64, path int, kind byte) [32]byte {
 // draw fills lane of w with path's realised rates and inflation factors.
 func (pg *simProgram) draw(w *simWorker, seed uint64, path, lane int) {
 	w.srcR.Seed(simKey(seed, path, 0))
-	for m := range w.n {
-		w.n[m] = pg.sr*w.rngR.NormFloat64() + pg.cr
+	n, sr, cr := w.n, pg.sr, pg.cr // locals, which the loops keep in registers
+	for m := range n {
+		n[m] = sr*w.rngR.NormFloat64() + cr
 	}
+	segStart, segMonth, segFrac := pg.segStart[:pg.periods+1], pg.segMonth, pg.segFrac
+	jdet, ldet := pg.jdet[:pg.periods], pg.ldet[:pg.periods]
+	js, ls := w.j[lane][:pg.periods], w.l[lane][:pg.periods]
 	lastM, lastF, lastG := int32(-1), 0.0, 0.0
-	for k := 0; k < pg.periods; k++ {
-		s0, s1 := pg.segStart[k], pg.segStart[k+1]
+	for k, j := range jdet {
+		s0, s1 := segStart[k], segStart[k+1]
 		var noise, gr float64
 		switch {
 		case s1-s0 == 1:
-			m, f := pg.segMonth[s0], pg.segFrac[s0]
-			noise = f * w.n[m]
+			m, f := segMonth[s0], segFrac[s0]
+			noise = f * n[m]
 			if m != lastM || f != lastF { // periods within one month share their factor
 				lastM, lastF, lastG = m, f, expm1(noise)
 			}
 			gr = lastG
 		default:
 			for i := s0; i < s1; i++ {
-				noise += pg.segFrac[i] * w.n[pg.segMonth[i]]
+				noise += segFrac[i] * n[segMonth[i]]
 			}
 			gr = expm1(noise)
 		}
-		j := pg.jdet[k]
-		w.j[lane][k] = j + (1+j)*gr
-		w.l[lane][k] = pg.ldet[k] + noise
+		js[k] = j + (1+j)*gr
+		ls[k] = ldet[k] + noise
 	}
 	pg.s.eng.Weights(&w.paths[lane], &pg.in)
 	if pg.noInfl {
@@ -608,10 +611,11 @@ func (pg *simProgram) walk(w *simWorker, amounts []float64, rows [][]float64, pa
 	in := pg.in
 	in.Amounts = amounts
 	o := engine.Options{Mode: engine.Exact, Rows: rows, HasDeadline: pg.hasDeadline, Deadline: pg.deadline}
-	for l := range simLanes {
-		o.Paths, o.Path = &w.paths[l], paths[l]
-		res[l] = engine.Walk(pg.s.eng, &in, &o)
+	var ps [simLanes]*engine.Paths
+	for l := range ps {
+		ps[l] = &w.paths[l]
 	}
+	*res = engine.WalkLanes(pg.s.eng, &in, &o, &ps, paths)
 }
 
 // values returns, per lane of w, the value at the deadline of one unit of

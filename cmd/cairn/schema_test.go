@@ -99,7 +99,7 @@ func goalsFileWith(k *plan.Key, v string) (string, int) {
 		b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    actuals:\n      - " +
 			unless("month", "month: 2027-02\n        ") + unless("balance", "balance: 10\n        ") + kv + "\n")
 	case plan.InPerson:
-		b.WriteString("cairn: 1\nstart: 2027-01\npeople:\n  - " + unless("name", "name: Alex\n    ") + unless("born", "born: 1960-01\n    ") + kv +
+		b.WriteString("cairn: 1\nstart: 2027-01\npeople:\n  - " + unless("name", "name: earner\n    ") + unless("born", "born: 1960-01\n    ") + kv +
 			"\ngoals:\n  - name: g\n")
 	case plan.InChange:
 		b.WriteString("cairn: 1\nstart: 2027-01\nbudget: {amount: 10, every: month}\ngoals:\n  - name: g\n    balance: 1000\n    by: 2040-01\n    salary: 50000\n    priority: 1\n    target: 100000\n" +

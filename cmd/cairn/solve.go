@@ -123,7 +123,7 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 }
 
 // monthAges is month m with the household's ages then, where the file
-// names its people: "2071-02 (when Alex is 88)".
+// names its people: "2071-02 (when earner is 88)".
 func monthAges(p *plan.Plan, m plan.Month) string {
 	if w := p.AgesAt(m); w != "" {
 		return m.String() + " (" + w + ")"

@@ -1,7 +1,10 @@
 package engine
 
+//go:generate go test -run ^TestGeneratedWalks$ -update .
+
 import (
 	"math"
+	"slices"
 	"sync/atomic"
 
 	"cairn/money"
@@ -190,7 +193,7 @@ type Options struct {
 // A Result is what a walk reports, in the walk's units (see [Mode]).
 type Result struct {
 	Closing    float64
-	Peak       float64 // the largest balance at a month end (at least 0)
+	Peak       float64 // the largest balance at a month end (at least 0; 0 with Options.Paths)
 	Short      bool    // a withdrawal was short (exact mode)
 	ShortTick  int64   // the first short withdrawal's tick and month
 	ShortMonth int32
@@ -235,10 +238,12 @@ type Log struct {
 
 // weights returns, for every rate step k and distinct tau i, what one unit
 // arriving (at 2(k·nt + i)) or leaving (the next) earns by the credit:
-// accrual's values, computed once per walk instead of once per event.
-func (s *Schedule) weights(js []float64, b Between) []float64 {
+// accrual's values, computed once per walk instead of once per event, in
+// w's storage when it has room (a walk's own, which a short walk does not
+// allocate).
+func (s *Schedule) weights(w, js []float64, b Between) []float64 {
 	nt := len(s.taus)
-	w := make([]float64, 2*len(js)*nt)
+	w = slices.Grow(w[:0], 2*len(js)*nt)[:2*len(js)*nt]
 	for k, j := range js {
 		l := math.Log1p(j)
 		for i, tau := range s.taus {
@@ -334,11 +339,112 @@ func roundMinor(x float64, r money.Rounding) float64 {
 // Walk advances schedule s through its events: the one walk of cairn's
 // model. The ledger, every search, the equation of value and each path of
 // the simulation are this walk with different options.
-//
-// Loop-invariant settings are read through in and o where they are used,
-// which leaves the registers to the balances.
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
+	f := flagsOf(s, in, o)
+	if r, ok := walkFixed(s, in, o, f); ok {
+		return r
+	}
+	return walk(s, in, o, f)
+}
+
+// Lanes is how many walks [WalkLanes] makes at once.
+const Lanes = 8
+
+// WalkLanes makes the walks [Walk] makes with options o, each with its
+// own paths[l] and path index at[l] in place of o.Paths and o.Path, and
+// returns their results in order. When the options are ones it has a lane
+// copy of the walk for (see walk), it walks them together, each event for
+// every lane in turn: the same walk, whose lanes' chains of arithmetic the
+// processor overlaps.
+func WalkLanes(s *Schedule, in *Inputs, o *Options, paths *[Lanes]*Paths, at *[Lanes]int) [Lanes]Result {
+	lo := *o
+	lo.Paths = paths[0]
+	f := flagsOf(s, in, &lo)
+	together := !f.reach
+	for l := range paths {
+		together = together && (paths[l].Infl != nil) == f.infl
+	}
+	if together {
+		if r, ok := walkFixedLanes(s, in, o, paths, at, f); ok {
+			walks.Add(Lanes)
+			return r
+		}
+	}
+	var r [Lanes]Result
+	for l := range paths {
+		lo.Paths, lo.Path = paths[l], at[l]
+		r[l] = Walk(s, in, &lo)
+	}
+	return r
+}
+
+// flags are a walk's decisions that hold for the whole walk: what it
+// computes and which options are set (see [Options], [Inputs]).
+type flags struct {
+	exact    bool // Mode is Exact
+	paths    bool // Options.Paths is set
+	infl     bool // and has random inflation (Paths.Infl)
+	logged   bool // Options.Log is set
+	slope    bool // Options.DRates is set
+	alone    bool // Options.Each is set
+	one      bool // Options.One: one source alone
+	none     bool // Inputs.Between is None
+	set      bool // Inputs.Set is set
+	ruled    bool // Inputs.Rules is set
+	capping  bool // a yearly cap applies (Inputs.Capped, not One)
+	matching bool // an employer's match applies (Inputs.Match, not One)
+	accrue   bool // interest accrues, credited at month ends (Schedule.accrue)
+	taxed    bool // a year's interest is taxed (Inputs.Tax)
+	reach    bool // Options.Reach is set
+}
+
+func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
+	return flags{
+		exact:    o.Mode == Exact,
+		paths:    o.Paths != nil,
+		infl:     o.Paths != nil && o.Paths.Infl != nil,
+		logged:   o.Log != nil,
+		slope:    o.DRates != nil,
+		alone:    o.Each != nil,
+		one:      o.One,
+		none:     in.Between == None,
+		set:      in.Set != nil,
+		ruled:    in.Rules != nil,
+		capping:  in.Capped != nil && !o.One,
+		matching: in.Match > 0 && !o.One,
+		accrue:   s.accrue,
+		taxed:    in.Tax != 0,
+		reach:    o.Reach != nil,
+	}
+}
+
+// walk is [Walk] under flags f. It is written once, here; walk_gen.go
+// holds copies of it for the commonest flags (see fixedWalks in
+// walkgen_test.go), generated from this source with those flags made
+// constants, so that the compiler drops what such a walk never does and
+// its loop keeps its balances in registers, and the lane copies
+// [WalkLanes] runs (laneWalks there). Every per-walk decision is read from
+// a flag declared at the top of the body, one a line, which is what the
+// generator replaces; the lane copies also need the walk's state declared
+// before its loop of events, with its type, and the loop to be one switch
+// on the event's kind (the generator says so when they are not).
+func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
+	exact := f.exact
+	paths := f.paths
+	infl := f.infl
+	logged := f.logged
+	slope := f.slope
+	alone := f.alone
+	one := f.one
+	none := f.none
+	set := f.set
+	ruled := f.ruled
+	capping := f.capping
+	matching := f.matching
+	accrue := f.accrue
+	taxed := f.taxed
+	reach := f.reach
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)
@@ -351,31 +457,31 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	// low is the lowest balance (with interest accrued) held since the
 	// interest period began, what rule None pays interest on: a flow or
 	// fee at the period's first tick sets it, any later one can only
-	// lower it.
+	// lower it. It is kept only under rule None.
 	var low float64
-	none := in.Between == None
 	res := Result{ShortTick: -1}
 	var scale float64 = 1 // minor units per currency unit (exact)
-	if o.Mode == Exact {
+	if exact {
 		scale = math.Pow(10, float64(in.Places))
 	}
-	var w []float64 // what a unit earns by the credit: see weight
-	if o.Paths == nil {
-		w = s.weights(in.Rates, in.Between)
+	var wbuf [64]float64 // room for w: 16 distinct fractions of a period at two rates
+	var w []float64      // what a unit earns by the credit: see weight
+	if !paths {
+		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
 	var dv *deriv // the derivatives (Options.DRates)
-	if o.DRates != nil {
+	if slope {
 		dv = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
 	}
 	var ea *each // every source alone (Options.Each)
-	if o.Each != nil {
+	if alone {
 		ea = newEach(len(o.Each))
 		ea.bal[0] = in.Amounts[0]
 		ea.base[0], ea.low[0] = ea.bal[0], ea.bal[0]
 	}
-	if !o.One || o.Source == 0 {
+	if !one || o.Source == 0 {
 		bal = in.Amounts[0] * scale
-		if o.Mode == Exact {
+		if exact {
 			if q, sure := money.RoundFast(bal); sure {
 				bal = q
 			} else {
@@ -384,43 +490,46 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 		}
 		base = bal
 	}
-	low = base
-	var j float64 // the rate of the interest period
+	if none {
+		low = base
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
-	var ruled []float64
+	var ruledAmt []float64
 	var ruleYear []int32
-	if in.Rules != nil {
-		ruled, ruleYear = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
+	if ruled {
+		ruledAmt, ruleYear = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
 		for k := range ruleYear {
 			ruleYear[k] = -1
 		}
 	}
+events:
 	for i := range s.events {
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
 			for c := range e.Count { // each interest date of the run
-				if p := o.Paths; p != nil {
-					j = p.J[e.Period+c]
+				var j float64 // the period's rate
+				if paths {
+					j = o.Paths.J[e.Period+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
 				b, plus := base, acc // the interest is b × j + plus
 				if none {
 					b, plus = low, 0
-					if o.Mode == Exact && low < 0 { // the carried fraction of a cent below an empty account
+					if exact && low < 0 { // the carried fraction of a cent below an empty account
 						b = 0
 					}
 				}
 				x := b*j + plus
-				if dv != nil {
+				if slope {
 					db, dplus := dv.base, dv.acc
 					if none {
 						db, dplus = dv.low, 0
 					}
 					dx := db*j + b*o.DRates[e.Step] + dplus
-					if s.accrue {
+					if accrue {
 						dv.accrued += dx
 						dv.base = dv.bal + dv.accrued
 					} else {
@@ -430,16 +539,18 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 					dv.acc, dv.low = 0, dv.base
 				}
-				if ea != nil {
-					ea.interest(j, none, s.accrue)
+				if alone {
+					ea.interest(j, none, accrue)
 				}
-				if s.accrue {
+				if accrue {
 					accrued += x
 					base, acc = bal+accrued, 0
-					low = base
+					if none {
+						low = base
+					}
 					continue
 				}
-				if o.Mode == Exact {
+				if exact {
 					if q, sure := money.RoundFast(x); sure {
 						x = q
 					} else {
@@ -447,35 +558,41 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					}
 				}
 				bal += x
-				taxable += x
+				if taxed {
+					taxable += x
+				}
 				base, acc = bal, 0
-				low = base
-				if o.Log != nil && x != 0 {
+				if none {
+					low = base
+				}
+				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
 					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
 				}
 			}
 		case Credit:
-			if ea != nil {
+			if alone {
 				ea.credit()
 			}
 			x := accrued
-			if dv != nil {
+			if slope {
 				dv.bal += dv.accrued
 				dv.taxable += dv.accrued
 				dv.accrued = 0
 			}
-			if o.Mode == Exact {
+			if exact {
 				x = roundMinor(x, in.Rounding)
 			}
 			bal += x
 			accrued -= x
-			taxable += x
-			if o.Log != nil && x != 0 {
+			if taxed {
+				taxable += x
+			}
+			if logged && x != 0 {
 				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
 			}
 		case Tax:
-			if ea != nil {
+			if alone {
 				ea.tax(in.Tax)
 			}
 			// The tax on the year's interest, paid from the account at an
@@ -486,18 +603,18 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			x := t * in.Tax
 			taxable = 0
 			var dx float64 // its derivative (Options.DRates)
-			if dv != nil {
+			if slope {
 				dx, dv.taxable = dv.taxable*in.Tax, 0
 			}
 			if x <= 0 {
 				continue
 			}
-			if dv != nil {
+			if slope {
 				dv.bal -= dx
 				dv.base -= dx
 				dv.low = dv.bal + dv.accrued
 			}
-			if o.Mode == Exact {
+			if exact {
 				if q, sure := money.RoundFast(x); sure {
 					x = q
 				} else {
@@ -510,16 +627,18 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 			bal -= x
 			base -= x
-			low = bal + accrued
-			if o.Log != nil {
+			if none {
+				low = bal + accrued
+			}
+			if logged {
 				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
 			}
 		case Fee:
-			if ea != nil {
+			if alone {
 				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
 			}
 			f := bal * in.Fee
-			if o.Mode == Exact {
+			if exact {
 				if bal <= 0 {
 					continue
 				}
@@ -533,7 +652,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 			}
 			bal -= f
-			if dv != nil {
+			if slope {
 				wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
 				df := dv.bal * in.Fee
 				dv.bal -= df
@@ -551,22 +670,24 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 			if e.Tau == 1 { // a whole period's interest: part of the next base
 				base -= f
-			} else if p := o.Paths; p == nil {
+			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
 			} else {
-				acc -= f * p.W[i]
+				acc -= f * o.Paths.W[i]
 			}
-			if o.Log != nil {
+			if logged {
 				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
 			}
 		case Mark:
+			m := e.Month
 			pool = 0 // income its month's withdrawals did not need is not deposited
-			if ea != nil {
+			if alone {
 				clear(ea.pool)
 			}
-			peak = max(peak, bal)
-			m := e.Month
-			if o.Log != nil {
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
+			if logged {
 				o.Log.MonthEnd[m] = int64(bal)
 			}
 			if o.MonthEnds != nil {
@@ -580,20 +701,19 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			if o.HasDeadline && m == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if o.Reach != nil && o.Reach(m, bal/scale) {
+			if reach && o.Reach(m, bal/scale) {
 				res.Reached, res.ReachMonth = true, m
-				res.Closing, res.Peak = bal, peak
-				return res
+				break events
 			}
 		case FlowEnd, FlowBegin, Income:
-			if ea != nil && e.Kind != Income && in.Out[e.Src] {
+			if alone && e.Kind != Income && in.Out[e.Src] {
 				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
 			}
-			if pool != 0 && o.Mode == Smooth && e.Kind != Income && in.Out[e.Src] {
+			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
 				// withdrawal: linear in every amount, so that income is
 				// valued alone like any other source
-				if dv != nil {
+				if slope {
 					if none {
 						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
 					}
@@ -603,7 +723,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				if e.Tau == 1 {
 					base += pool
-				} else if o.Paths == nil {
+				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 				} else {
 					acc += pool * o.Paths.W[i]
@@ -614,43 +734,42 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 					low = lowest(low, bal+accrued, e.Tau)
 				}
 			}
-			if o.One && e.Src != o.Source {
+			if one && e.Src != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if in.Set != nil && e.Src == in.SetSrc {
+			if set && e.Src == in.SetSrc {
 				a = in.Set[i] * scale
 			}
-			p := o.Paths
-			if ruled != nil && in.Rules[e.Src].Kind != RuleFixed {
+			if ruled && in.Rules[e.Src].Kind != RuleFixed {
 				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
 					u := e.Unit
-					if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
-						u = u * p.Infl[e.IA] / p.Infl[e.IB]
+					if infl && (e.IA != 0 || e.IB != 0) {
+						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
-						ruled[e.Src] = in.Amounts[e.Src]
+						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
-					ruled[e.Src] = in.Rules[e.Src].decide(first, ruled[e.Src], bal/scale, u)
+					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
 					ruleYear[e.Src] = e.Year
 				}
-				a = ruled[e.Src] * scale
+				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if p != nil && p.Infl != nil && (e.IA != 0 || e.IB != 0) {
-				x = x * p.Infl[e.IA] / p.Infl[e.IB]
-				if o.Mode == Exact {
+			if infl && (e.IA != 0 || e.IB != 0) {
+				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
-			} else if o.Mode == Exact {
+			} else if exact {
 				if q, sure := money.RoundFast(x); sure {
 					x = q
 				} else {
 					x = roundAmount(a, s.unitOf(e), in.Rounding)
 				}
 			}
-			if ea != nil {
+			if alone {
 				y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
 				if in.Out[e.Src] {
 					y, wi = -math.Abs(x), wi+1
@@ -663,13 +782,13 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
-				if o.Log != nil {
+				if logged {
 					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
-			if in.Capped != nil && !o.One && in.Capped[e.Src] && x > 0 {
+			if capping && in.Capped[e.Src] && x > 0 {
 				if y := e.Month / 12; y != capYear {
 					capYear, capped = y, 0
 				}
@@ -677,7 +796,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				x -= over
 				capped += x
 			}
-			if in.Match > 0 && !o.One && in.Matched[e.Src] && x > 0 {
+			if matching && in.Matched[e.Src] && x > 0 {
 				if y := e.Month / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
@@ -687,7 +806,7 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				}
 				matched += m
 				emp = m * in.Match
-				if o.Mode == Exact {
+				if exact {
 					if q, sure := money.RoundFast(emp); sure {
 						emp = q
 					} else {
@@ -697,12 +816,12 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 			if in.Out[e.Src] {
 				x = -math.Abs(x)
-				if pool > 0 && o.Mode == Exact { // the month's income pays first
+				if pool > 0 && exact { // the month's income pays first
 					covered = min(pool, -x)
 					pool -= covered
 					x += covered
 				}
-				if o.Mode == Exact && -x > bal {
+				if exact && -x > bal {
 					if !res.Short {
 						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
 					}
@@ -715,14 +834,17 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 				// Emptied: what the money earned in this period before it
 				// left is forfeit, so the balance stays at zero until money
 				// comes in.
-				base, acc, accrued, low = 0, 0, 0, 0
-				if o.Log != nil {
+				base, acc, accrued = 0, 0, 0
+				if none {
+					low = 0
+				}
+				if logged {
 					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
-			if dv != nil {
+			if slope {
 				if none {
 					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
 				}
@@ -739,16 +861,16 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
 				base += in
-			} else if p == nil {
+			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 				if in < 0 {
 					i++
 				}
 				acc += in * w[i]
 			} else {
-				acc += in * p.W[i]
+				acc += in * o.Paths.W[i]
 			}
-			if o.Log != nil {
+			if logged {
 				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
 				if emp != 0 {
 					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
@@ -759,11 +881,11 @@ func Walk(s *Schedule, in *Inputs, o *Options) Result {
 			}
 		}
 	}
-	if ea != nil {
+	if alone {
 		copy(o.Each, ea.bal)
 	}
 	res.Closing, res.Peak = bal, peak
-	if dv != nil {
+	if slope {
 		res.DClosing = dv.bal
 	}
 	return res
