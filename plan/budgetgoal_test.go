@@ -165,3 +165,50 @@ func TestBudgetGoalCompare(t *testing.T) {
 		}
 	}
 }
+
+// TestBudgetGoalScenarios: compare --scenarios re-allocates under each
+// scenario: a scenario that changes the budget gives the answer status
+// gives under it (common practice, no source).
+func TestBudgetGoalScenarios(t *testing.T) {
+	src := string(budgetSource(t)) + "\nscenarios:\n  - name: less\n    changes:\n      - budget: 500\n  - name: more\n    changes:\n      - budget: 800\n"
+	p := mustParse(t, "budget.yaml", src)
+	cases := []plan.Case{{Name: "base", Plan: p}}
+	for _, n := range []string{"less", "more"} {
+		q, err := p.WithScenario(n)
+		if err != nil {
+			t.Fatal(err)
+		}
+		cases = append(cases, plan.Case{Name: n, Plan: q})
+	}
+	gr, err := plan.CompareCases(cases, "Car", plan.Question{For: plan.ForTime})
+	if err != nil {
+		t.Fatal(err)
+	}
+	months := map[plan.Month]bool{}
+	for i, c := range append([]plan.Cell{gr.Base}, gr.Cells...) {
+		var want plan.GoalStatus
+		for _, gs := range plan.StatusOf(cases[i].Plan).Goals {
+			if gs.Goal.Name == "Car" {
+				want = gs
+			}
+		}
+		if c.Err != nil || want.Reach != nil || c.Answer.Month != want.Reached {
+			t.Errorf("%s: compare %v, %v; status reached %s, %v", cases[i].Name, c.Answer, c.Err, want.Reached, want.Reach)
+			continue
+		}
+		months[c.Answer.Month] = true
+	}
+	if len(months) != 3 {
+		t.Errorf("the scenarios give months %v, want three different months", months)
+	}
+}
+
+// budgetSource is examples/budget.yaml.
+func budgetSource(t *testing.T) []byte {
+	t.Helper()
+	src, err := os.ReadFile("../examples/budget.yaml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	return src
+}
