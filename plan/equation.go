@@ -81,10 +81,11 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	eq := &Equation{At: at, Balance: l.Closing, TaxOnGrowth: g.RateOnGrowth()}
 	counts := make([]int, len(s.sources))
 	units := make([]float64, len(s.sources)) // each source's first unit
+	years := make([]int32, len(s.sources))   // and the yearly rises before it
 	for i := range s.events {
 		if e := &s.events[i]; flowOf(e, e.Src) {
 			if counts[e.Src] == 0 {
-				units[e.Src] = e.Unit
+				units[e.Src], years[e.Src] = e.Unit, e.Year
 			}
 			counts[e.Src]++
 		}
@@ -131,9 +132,21 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		}
 		v := alone[i]
 		sumV += v
+		// A level stream's terms value its first amount as the ledger
+		// posts every one, rounded to the cent. A rising one's amounts are
+		// each rounded from the unrounded first, so its first amount's
+		// unit is shown as factors of the amount as written where it is
+		// their product (an index to today's money, the rises before a
+		// later part of a stream).
+		var lead []money.Factor
 		if src.stream != nil && units[i] != 1 {
-			a *= units[i]
-			amt = amt.MulFloat(units[i]).Round(s.places, s.rounding)
+			if src.stream.growth(s.plan.Inflation) != 0 {
+				lead = s.firstUnit(i, units[i], years[i])
+			}
+			if lead == nil {
+				a *= units[i]
+				amt = amt.MulFloat(units[i]).Round(s.places, s.rounding)
+			}
 		}
 		t := Term{Label: src.name, Kind: src.kind, Amount: amt, Count: counts[i], Value: money.FromFloat(v).Round(s.places, s.rounding)}
 		if t.Label == "" {
@@ -167,6 +180,9 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		for k := range parts {
 			pt := &parts[k]
 			pt.Kind, pt.Amount = src.kind, amt
+			if lead != nil {
+				pt.Factors = append(slices.Clip(lead), pt.Factors...)
+			}
 			if pt.Label == "" {
 				pt.Label = t.Label
 			} else {
@@ -224,6 +240,30 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		}
 	}
 	return eq
+}
+
+// firstUnit returns factors whose product is u, the unit of source i's
+// first amount, which comes after year yearly rises: its index to today's
+// money over the months from the plan's start to the stream's first,
+// (F/P, inflation, years), and the rises, (F/P, g, years); nil when they
+// are none or their product is not u.
+func (s *schedule) firstUnit(i int, u float64, year int32) []money.Factor {
+	st, p := s.sources[i].stream, s.plan
+	var fs []money.Factor
+	if st.Today && st.From > p.Start {
+		fs = append(fs, money.Factor{Kind: money.FP, I: p.Inflation.Effective(), N: float64(st.From-p.Start) / 12})
+	}
+	if year > 0 {
+		fs = append(fs, money.Factor{Kind: money.FP, I: st.growth(p.Inflation), N: float64(year)})
+	}
+	prod := 1.0
+	for _, f := range fs {
+		prod *= f.Value()
+	}
+	if len(fs) == 0 || math.Abs(prod-u) > 1e-12*math.Abs(u) {
+		return nil
+	}
+	return fs
 }
 
 // Product returns the amount times its factors, the check of a term by

@@ -5,6 +5,7 @@ import (
 	"strings"
 	"testing"
 
+	"cairn/money"
 	"cairn/plan"
 )
 
@@ -313,5 +314,37 @@ func TestEquationOf_IndexedStream(t *testing.T) {
 	// 114 monthly credits, each within half a cent (derived bound)
 	if d := math.Abs(eq.Sum.Float() - eq.Balance.Float()); !found || d > 114*0.005*1.7 {
 		t.Errorf("EquationOf: Sum %s, Balance %s (deposit term found %v)", eq.Sum, eq.Balance, found)
+	}
+}
+
+// TestEquationOf_IndexedRisingStream: a stream in today's money that also
+// rises each year is shown from its amount as written, indexed by
+// (F/P, inflation, years to its first month), since the ledger rounds each
+// year's amount from the unrounded first one: 1.00 today from 2027-06 at
+// 3.5% inflation is 1.0144 in its first year (derived), which a rounded
+// 1.01 rising 6% a year would miss by 0.4% of every amount.
+func TestEquationOf_IndexedRisingStream(t *testing.T) {
+	src := "cairn: 1\nstart: 2027-01\ninflation: 3.5%\ngoals:\n  - name: g\n    rate: 0.5% compounded quarterly\n" +
+		"    deposits:\n      - {amount: 1.00 today, every: month, from: 2027-06, grow: 6%}\n"
+	p := mustParse(t, "t.yaml", src)
+	eq := plan.EquationOf(p, p.Goals[0], plan.MonthOf(2037, 11))
+	var found bool
+	for _, term := range eq.Terms {
+		if term.Kind != plan.Deposit {
+			continue
+		}
+		found = true
+		f := term.Factors
+		if cents(term.Amount) != 100 || len(f) == 0 || f[0].Kind != money.FP || math.Abs(f[0].I-0.035) > 1e-12 || math.Abs(f[0].N-5.0/12) > 1e-12 {
+			t.Errorf("EquationOf: term %s × %v; want 1.00 × (F/P, 3.5%%, 5/12) × …", term.Amount, term.Factors)
+		}
+		if math.Abs(term.Product()-term.Value.Float()) > 0.01 {
+			t.Errorf("EquationOf: term %s × %v = %.4f, want its value %s within a cent", term.Amount, term.Factors, term.Product(), term.Value)
+		}
+	}
+	// 126 deposits and 43 quarterly credits, each within half a cent,
+	// carried at most 1.06 (derived bound)
+	if d := math.Abs(eq.Sum.Float() - eq.Balance.Float()); !found || d > 169*0.005*1.06 {
+		t.Errorf("EquationOf: Sum %s, Balance %s, off by %.2f (deposit term found %v)", eq.Sum, eq.Balance, d, found)
 	}
 }
