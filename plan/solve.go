@@ -149,14 +149,24 @@ func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
 	return m, m != 0
 }
 
-// Solve answers q for goal g. It never reads the clock. When the question has
+// Solve answers q for goal g. It never reads the clock. A goal that draws
+// on the plan's budget is answered under the budget's allocation (see
+// [Allocate]): for time, the month its shares reach the target; for
+// deposit, the level share it needs a budget date (ByPriority); other
+// quantities have no answer for it. When the question has
 // no answer it returns a [*SolveError] saying why.
 func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q, true) }
 
 // solve answers q; with full unset it leaves out the answer's Ledger and
 // Equation, which what-if grids and the household status do not show.
 func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
-	a, err := solveFor(p, g, q, full)
+	var a *Answer
+	var err error
+	if i, ok := budgetIndex(p, g); ok { // its share of the budget as allocated
+		a, err = solveShare(p, g, i, q, full)
+	} else {
+		a, err = solveFor(p, g, q, full)
+	}
 	if err == nil {
 		a.FromPay, a.Net, a.BalanceAfterTax = p.FromPay(g, a.Amount), p.AfterTax(g, a.Amount), p.AfterTax(g, a.Balance)
 	}
