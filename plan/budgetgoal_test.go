@@ -49,6 +49,10 @@ func budgetHouseholds(t *testing.T) map[string]*plan.Plan {
 	edit("changes", "rule: priority", "rule: priority\n  changes:\n    - from: 2028-07\n      amount: 500\n    - from: 2029-03\n      amount: 900")
 	edit("own deposits", "    rate: 3.5%\n", "    rate: 3.5%\n    deposits:\n      - name: birthday money\n        amount: 40\n        every: month\n")
 	edit("small budget", "amount: 650 ", "amount: 20 ")
+	// the car fund also pays for repairs, from before the car is bought:
+	// its money runs out while its share is still coming in
+	edit("withdrawals", "    rate: 3.5%\n", "    rate: 3.5%\n    withdrawals:\n      - name: repairs\n        amount: 400\n        every: month\n        from: 2028-01\n        until: 2028-12\n")
+	edit("withdrawals paid", "    rate: 3.5%\n", "    rate: 3.5%\n    withdrawals:\n      - name: repairs\n        amount: 50\n        every: quarter\n        from: 2029-01\n        until: 2029-12\n")
 	return out
 }
 
@@ -120,6 +124,11 @@ func TestBudgetGoalAgrees(t *testing.T) {
 			case !gs.Share.HasNeed && (err == nil || !plan.IsNoSolution(err)):
 				t.Errorf("%s, %s: status gives no need, solve --for deposit: %v, %v", name, g.Name, d, err)
 			}
+			// when the money runs out: the first withdrawal the ledger
+			// under the allocation cannot pay in full
+			if len(g.Withdrawals) > 0 {
+				checkShareLasts(t, name, p, g)
+			}
 			// the quantities the budget's rule decides have no answer, and say so
 			for _, q := range []plan.Quantity{plan.ForRate, plan.ForStart} {
 				if _, err := plan.Solve(p, g, plan.Question{For: q}); err == nil || !plan.IsNoSolution(err) || !strings.Contains(err.Error(), "cairn budget") {
@@ -127,6 +136,40 @@ func TestBudgetGoalAgrees(t *testing.T) {
 				}
 			}
 		}
+	}
+}
+
+// checkShareLasts checks solve --for lasts on budget goal g against its
+// ledger under the allocation (project through the last withdrawal): the
+// month of the first shortfall, or every withdrawal paid and the balance
+// left then.
+func checkShareLasts(t *testing.T, name string, p *plan.Plan, g *plan.Goal) {
+	t.Helper()
+	a, err := plan.Solve(p, g, plan.Question{For: plan.ForLasts})
+	if err != nil {
+		t.Errorf("%s, %s: solve --for lasts: %v", name, g.Name, err)
+		return
+	}
+	var end plan.Month
+	for _, w := range g.Withdrawals {
+		end = max(end, w.Until)
+	}
+	l, err := plan.Project(p, g, end)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var short *plan.Entry
+	for _, e := range l.Entries() {
+		if !e.Short.IsZero() {
+			short = &e
+			break
+		}
+	}
+	switch {
+	case short != nil && (a.Paid || a.Month != short.Month):
+		t.Errorf("%s, %s: solve --for lasts: paid %v in %s, the ledger first falls short in %s", name, g.Name, a.Paid, a.Month, short.Month)
+	case short == nil && (!a.Paid || a.Month != end || a.Left.Cmp(l.BalanceAt(end)) != 0):
+		t.Errorf("%s, %s: solve --for lasts: paid %v in %s leaving %s; the ledger pays every withdrawal through %s, leaving %s", name, g.Name, a.Paid, a.Month, a.Left, end, l.BalanceAt(end))
 	}
 }
 

@@ -451,10 +451,14 @@ func allocateThrough(p *Plan, end Month) (*Allocation, error) {
 
 // solveShare answers q for goal g, share i of the plan's budget, from the
 // allocation, as status states it: the month the shares reach the target
-// (ForTime), and under ByPriority the level share a budget date the goal
-// needs to meet its deadline (ForDeposit). Every other question would
-// change what the budget's rule gives the goals, and has no answer here.
+// (ForTime), under ByPriority the level share a budget date the goal
+// needs to meet its deadline (ForDeposit), and when its money runs out
+// (ForLasts). Every other question would change what the budget's rule
+// gives the goals, and has no answer here.
 func solveShare(p *Plan, g *Goal, i int, q Question, full bool) (*Answer, error) {
+	if q.For == ForLasts {
+		return shareLasts(p, g, i, full)
+	}
 	if q.For != ForTime && q.For != ForDeposit {
 		return nil, noSolution(g, "the goal draws on the budget, whose rule sets its share: solving it for %s would change what every goal gets; "+
 			"solve it for time or deposit, or see cairn budget for the budget that makes every deadline", q.For)
@@ -496,6 +500,38 @@ func solveShare(p *Plan, g *Goal, i int, q Question, full bool) (*Answer, error)
 		a.Equation = s.equation(pr, a.Ledger)
 	} else {
 		a.Ledger = nil
+	}
+	return a, nil
+}
+
+// shareLasts is solveLasts for goal g, share i of the plan's budget: the
+// month of the first withdrawal its ledger under the allocation cannot pay
+// in full, or, when every one is paid, what is left after the last.
+func shareLasts(p *Plan, g *Goal, i int, full bool) (*Answer, error) {
+	if len(g.Withdrawals) == 0 {
+		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
+	}
+	end, _ := lastWithdrawal(p, g)
+	al, err := allocateThrough(p, end)
+	if err != nil {
+		return nil, err
+	}
+	s, pr := al.schedule(i, end)
+	l := s.ledger(pr)
+	a := &Answer{Goal: g, For: ForLasts, Periods: math.NaN()}
+	if full {
+		a.Ledger = l
+	}
+	for _, e := range l.Entries() {
+		if !e.Short.IsZero() {
+			a.Month, a.Months, a.Deadline = e.Month, int(e.Month-p.Start)+1, e.Month
+			a.Balance = l.BalanceAt(e.Month)
+			return a, nil
+		}
+	}
+	paidAll(p, g, a, l.BalanceAt(end), end)
+	if full {
+		a.Equation = s.equation(pr, l)
 	}
 	return a, nil
 }

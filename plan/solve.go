@@ -697,20 +697,25 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 		return a, nil
 	}
-	a.Month, a.Months, a.Deadline, a.Paid = end, int(end-p.Start)+1, end, true
-	a.Balance, a.Left, a.Target = bal, bal, p.LeaveAt(g, end)
-	// Lasting means every withdrawal paid in full and leave left after
-	// the last one.
-	a.Lasts = bal.Cmp(a.Target) >= 0
-	if !a.Lasts {
-		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left after the last one, short of the %s to leave by %s",
-			bal.Format(p.Currency, false), a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
-	}
+	paidAll(p, g, a, bal, end)
 	s.prove(a, pr, full)
 	if a.Lasts && end == horizonEnd(p) {
 		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
 	}
 	return a, nil
+}
+
+// paidAll fills in lasts answer a when every withdrawal through the end of
+// month end is paid in full, with bal left after the last. Lasting means
+// that, and leave left.
+func paidAll(p *Plan, g *Goal, a *Answer, bal money.Amount, end Month) {
+	a.Month, a.Months, a.Deadline, a.Paid = end, int(end-p.Start)+1, end, true
+	a.Balance, a.Left, a.Target = bal, bal, p.LeaveAt(g, end)
+	a.Lasts = bal.Cmp(a.Target) >= 0
+	if !a.Lasts {
+		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left after the last one, short of the %s to leave by %s",
+			bal.Format(p.Currency, false), a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
+	}
 }
 
 // Rate search bounds, effective a year.
