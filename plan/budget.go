@@ -71,7 +71,7 @@ func (d *decoder) budget(p *Plan, n *yaml.Node) *Budget {
 }
 
 // budgetChanges decodes the budget's changes: each after the budget's from
-// and the change before it.
+// and the change before it, and through its until.
 func (d *decoder) budgetChanges(p *Plan, b *Budget, v *yaml.Node, path string) {
 	items, _ := d.list(v, path, "budget changes")
 	if len(items) > MaxBudgetChanges {
@@ -92,6 +92,9 @@ func (d *decoder) budgetChanges(p *Plan, b *Budget, v *yaml.Node, path string) {
 			continue
 		case c.From <= last:
 			d.errorf(given["from"], ip+".from", "month %s is not after the change before it, %s (want the changes in month order)", c.From, last)
+			continue
+		case b.Stream.HasUntil && c.From > b.Stream.Until:
+			d.errorf(given["from"], ip+".from", "month %s is after the budget's until %s, so the change would never apply (want a month through %s)", c.From, b.Stream.Until, b.Stream.Until)
 			continue
 		}
 		last = c.From

@@ -130,6 +130,8 @@ func TestRowsSumTheEntries(t *testing.T) {
 						r.Employer = r.Employer.Add(e.Amount)
 					case e.Kind == OverCap:
 						continue
+					case e.Amount.Sign() >= 0 && e.Source == shareName && g.Priority > 0: // its budget share, apart
+						r.Budget = r.Budget.Add(e.Amount)
 					case e.Amount.Sign() >= 0:
 						r.Deposits = r.Deposits.Add(e.Amount)
 					default:
@@ -141,7 +143,7 @@ func TestRowsSumTheEntries(t *testing.T) {
 			for i, r := range rows {
 				w := want[i]
 				for _, f := range [][2]money.Amount{{r.Deposits, w.Deposits}, {r.Withdrawals, w.Withdrawals}, {r.Interest, w.Interest}, {r.Fees, w.Fees},
-					{r.Income, w.Income}, {r.Tax, w.Tax}, {r.Employer, w.Employer}, {r.Short, w.Short}} {
+					{r.Income, w.Income}, {r.Tax, w.Tax}, {r.Employer, w.Employer}, {r.Short, w.Short}, {r.Budget, w.Budget}} {
 					if f[0].Cmp(f[1]) != 0 {
 						t.Fatalf("%s, goal %s, row %s: %+v, want the entries' sums %+v", name, g.Name, r.Label, r, w)
 					}

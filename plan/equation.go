@@ -154,7 +154,12 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 		}
 		t.Why = s.noFactor(i, constRate)
 		if t.Why == "" && pr.set != nil && pr.setSrc == int32(i) {
-			t.Why = "its amounts are set one by one"
+			var total float64
+			for _, x := range pr.set {
+				total += x
+			}
+			t.Why = fmt.Sprintf("its amounts are set date by date (%s in all), each grown at the plan's rates from its date",
+				money.FromFloat(total).Round(s.places, s.rounding).Format(s.plan.Currency, false))
 		}
 		var parts []Term
 		if t.Why == "" {

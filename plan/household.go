@@ -3,6 +3,7 @@ package plan
 import (
 	"errors"
 	"math"
+	"strings"
 	"time"
 
 	"cairn/money"
@@ -92,10 +93,13 @@ type fillKey struct {
 // without a budget.
 var ErrNoBudget = errors.New("the plan has no budget (add budget: at the top of the file, and a priority to the goals that draw on it)")
 
+// shareName is the name of a goal's budget share as a deposit stream.
+const shareName = "budget share"
+
 // shareStream is the budget share added to a goal: the budget's dates,
 // with amounts set date by date.
 func shareStream(b *Budget) *Stream {
-	return &Stream{Name: "budget share", Every: b.Every, Timing: b.Timing, From: b.From, Until: b.Until, HasUntil: b.HasUntil}
+	return &Stream{share: true, Name: shareName, Every: b.Every, Timing: b.Timing, From: b.From, Until: b.Until, HasUntil: b.HasUntil}
 }
 
 // newHousehold compiles plan p's budget goals through the end of month end.
@@ -315,13 +319,7 @@ func allocationEnd(p *Plan) Month {
 // which deadlines slip and by how much. It returns [ErrNoBudget] for a plan
 // without a budget.
 func Allocate(p *Plan) (*Allocation, error) {
-	h, err := newHousehold(p, allocationEnd(p))
-	if err != nil {
-		return nil, err
-	}
-	c := int64(math.Round(p.Budget.Amount.Float() * h.scale))
-	a, _ := h.allocate(c, 0, true)
-	return a, nil
+	return allocateThrough(p, allocationEnd(p))
 }
 
 // A BudgetAnswer is the smallest budget that makes the deadlines of the
@@ -400,6 +398,14 @@ func SmallestBudget(p *Plan, top int) (*BudgetAnswer, error) {
 // the end of month end (at most the allocation's end), its budget share a
 // deposit stream: the proof of when it is reached.
 func (a *Allocation) Ledger(i int, end Month) *Ledger {
+	s, pr := a.schedule(i, end)
+	return s.ledger(pr)
+}
+
+// schedule returns share i's goal compiled through the end of month end (at
+// most the allocation's end) with its budget share as a source set date by
+// date, and the walk's inputs that set it.
+func (a *Allocation) schedule(i int, end Month) (*schedule, *params) {
 	h, m := a.h, a.h.goals[i]
 	sh := a.Shares[i] // a deposit of its own that stops at the target stops when the shares reach it
 	s := compileStop(h.p, m.share, max(min(end, a.End), h.p.Start), sh.Month, sh.Reached)
@@ -416,7 +422,118 @@ func (a *Allocation) Ledger(i int, end Month) *Ledger {
 			}
 		}
 	}
-	return s.ledger(pr)
+	return s, pr
+}
+
+// budgetIndex returns the index of goal g among plan p's budget goals (and
+// an allocation's shares), and whether g draws on the budget.
+func budgetIndex(p *Plan, g *Goal) (int, bool) {
+	if p.Budget == nil || g.Priority == 0 {
+		return -1, false
+	}
+	for i, b := range p.BudgetGoals() {
+		if b == g {
+			return i, true
+		}
+	}
+	return -1, false
+}
+
+// allocateThrough is [Allocate] through the end of month end at least.
+func allocateThrough(p *Plan, end Month) (*Allocation, error) {
+	h, err := newHousehold(p, max(allocationEnd(p), min(end, horizonEnd(p))))
+	if err != nil {
+		return nil, err
+	}
+	a, _ := h.allocate(int64(math.Round(p.Budget.Amount.Float()*h.scale)), 0, true)
+	return a, nil
+}
+
+// solveShare answers q for goal g, share i of the plan's budget, from the
+// allocation, as status states it: the month the shares reach the target
+// (ForTime), under ByPriority the level share a budget date the goal
+// needs to meet its deadline (ForDeposit), and when its money runs out
+// (ForLasts). Every other question would change what the budget's rule
+// gives the goals, and has no answer here.
+func solveShare(p *Plan, g *Goal, i int, q Question, full bool) (*Answer, error) {
+	if q.For == ForLasts {
+		return shareLasts(p, g, i, full)
+	}
+	if q.For != ForTime && q.For != ForDeposit {
+		return nil, noSolution(g, "the goal draws on the budget, whose rule sets its share: solving it for %s would change what every goal gets; "+
+			"solve it for time or deposit, or see cairn budget for the budget that makes every deadline", q.For)
+	}
+	if q.For == ForDeposit && q.Stream != "" && !strings.EqualFold(strings.TrimSpace(q.Stream), shareName) {
+		if g.Stream(q.Stream, false) == nil {
+			return nil, noSolution(g, "the goal has no deposit stream named %s", money.Quote(q.Stream))
+		}
+		return nil, noSolution(g, "the goal draws on the budget: its deposit to solve for is its budget share (--stream %s), not %s, which the share is allocated around", money.Quote(shareName), money.Quote(q.Stream))
+	}
+	if q.For == ForDeposit && !g.HasBy {
+		return nil, needTarget(g, true)
+	}
+	al, err := Allocate(p)
+	if err != nil {
+		return nil, err
+	}
+	sh := al.Shares[i]
+	at := g.By
+	switch {
+	case q.For == ForTime && !sh.Reached:
+		return nil, noSolution(g, "the target is not reached by %s with the budget's share", al.End)
+	case q.For == ForTime:
+		at = sh.Month
+	case p.Budget.Rule == OneAtATime:
+		return nil, noSolution(g, "under the one-at-a-time rule the goal takes everything the budget has left until it is reached, not a deposit of its own; see cairn budget for when it is")
+	case !sh.HasNeed:
+		return nil, noSolution(g, "everything the budget leaves after the goals before it does not make the deadline; see cairn budget for the budget that does")
+	}
+	s, pr := al.schedule(i, at)
+	a := &Answer{Goal: g, For: q.For, Month: at, Months: int(at-p.Start) + 1, Periods: math.NaN(), Deadline: at, Target: targetAtMonth(p, g, at)}
+	if q.For == ForDeposit {
+		a.Amount, a.FirstAmount, a.Stream = sh.Need, sh.Need, s.sources[1].stream
+		a.Note = "a share of the budget, the same on every budget date through the deadline; what a date cannot pay in full is paid on the next ones"
+	}
+	a.Ledger = s.ledger(pr)
+	a.Balance = a.Ledger.BalanceAt(at)
+	if full {
+		a.Equation = s.equation(pr, a.Ledger)
+	} else {
+		a.Ledger = nil
+	}
+	return a, nil
+}
+
+// shareLasts is solveLasts for goal g, share i of the plan's budget: the
+// month of the first withdrawal its ledger under the allocation cannot pay
+// in full, or, when every one is paid, what is left after the last.
+func shareLasts(p *Plan, g *Goal, i int, full bool) (*Answer, error) {
+	if len(g.Withdrawals) == 0 {
+		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
+	}
+	end, _ := lastWithdrawal(p, g)
+	al, err := allocateThrough(p, end)
+	if err != nil {
+		return nil, err
+	}
+	s, pr := al.schedule(i, end)
+	l := s.ledger(pr)
+	a := &Answer{Goal: g, For: ForLasts, Periods: math.NaN()}
+	if full {
+		a.Ledger = l
+	}
+	for _, e := range l.Entries() {
+		if !e.Short.IsZero() {
+			a.Month, a.Months, a.Deadline = e.Month, int(e.Month-p.Start)+1, e.Month
+			a.Balance = l.BalanceAt(e.Month)
+			return a, nil
+		}
+	}
+	paidAll(p, g, a, l.BalanceAt(end), end)
+	if full {
+		a.Equation = s.equation(pr, l)
+	}
+	return a, nil
 }
 
 // A BudgetRow is the allocation over one period of a table: the budget,

@@ -145,7 +145,7 @@ type Key struct {
 	// which needs no goal named.
 	Set, SetOut, SetBudget string
 
-	put func(t *target, v *value) // stores a parsed value in the model
+	put func(t *target, v value) // stores a parsed value in the model
 }
 
 // Waived reports whether k, when required, is not required in a mapping of
@@ -203,27 +203,27 @@ var Keys = withChangeKeys([]*Key{
 		Default: "the month after --as-of (today)",
 		Help: "first month of the plan; t = 0 is its start, balances\n" +
 			"are as of then, and \"today's money\" means money then",
-		put: func(t *target, v *value) { t.p.Start = v.month }},
+		put: func(t *target, v value) { t.p.Start = v.month }},
 	{Name: "currency", Scope: InPlan, Form: FormCurrency,
 		Default: "USD",
 		Help: "ISO 4217 code (USD, EUR, GBP, JPY, ...), for display\n" +
 			"and for the places postings round to (JPY: 0)",
-		put: func(t *target, v *value) { t.p.Currency, _ = money.LookupCurrency(v.text) }},
+		put: func(t *target, v value) { t.p.Currency, _ = money.LookupCurrency(v.text) }},
 	{Name: "inflation", Scope: InPlan, Form: FormRate, Min: -MaxInflationPct, Max: MaxInflationPct,
 		Default: "0%", Help: "a year; grows \"today\" amounts, gives today's-money figures",
 		Set: "inflation",
-		put: func(t *target, v *value) { t.p.Inflation = v.rate }},
+		put: func(t *target, v value) { t.p.Inflation = v.rate }},
 	{Name: "inflation_volatility", Scope: InPlan, Form: FormVolatility,
 		Default: "0%",
 		Help: "for cairn simulate: the volatility of inflation a year,\n" +
 			"such as 1% (see SIMULATION)",
-		put: func(t *target, v *value) { t.p.InflationVolatility, t.p.HasInflationVolatility = v.x, true }},
+		put: func(t *target, v value) { t.p.InflationVolatility, t.p.HasInflationVolatility = v.x, true }},
 	{Name: "rounding", Scope: InPlan, Form: FormRounding,
 		Default: "half-even",
 		Help: "how each interest, fee and growing amount rounds to the\n" +
 			"cent: half-even or half-up (also written half_even,\n" +
 			"halfeven, half_up, halfup)",
-		put: func(t *target, v *value) { t.p.Rounding, _ = money.ParseRounding(v.text) }},
+		put: func(t *target, v value) { t.p.Rounding, _ = money.ParseRounding(v.text) }},
 	{Name: "goals", Scope: InPlan, Form: FormList, Items: InGoal, Required: true, MaxItems: MaxGoals,
 		Missing: "want a list of goals",
 		Default: "required", Help: "a list of goals"},
@@ -233,7 +233,7 @@ var Keys = withChangeKeys([]*Key{
 			"balance (such as 2028-06,Emergency fund,7412.30; a first\n" +
 			"line month,goal,balance is a header), relative to the\n" +
 			"goals file; added to each goal's actuals",
-		put: func(t *target, v *value) { t.p.ActualsFile = v.text }},
+		put: func(t *target, v value) { t.p.ActualsFile = v.text }},
 	{Name: "people", Scope: InPlan, Form: FormList, Items: InPerson, MaxItems: MaxPeople,
 		Default: "none",
 		Help: "the household's people, each a name and a birth month:\n" +
@@ -255,11 +255,11 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "name", Scope: InGoal, Form: FormName, Required: true,
 		Missing: "every goal needs a name",
 		Default: "required", Help: "unique within the file",
-		put: func(t *target, v *value) { t.g.Name = v.text }},
+		put: func(t *target, v value) { t.g.Name = v.text }},
 	{Name: "balance", Scope: InGoal, Form: FormAmount,
 		Default: "0", Help: "already saved at the start",
 		Set: "balance",
-		put: func(t *target, v *value) { t.g.Balance = v.amount }},
+		put: func(t *target, v value) { t.g.Balance = v.amount }},
 	{Name: "rate", Scope: InGoal, Form: FormRates, Min: MinRatePercent, Max: MaxRatePercent, MaxItems: MaxRateSteps,
 		Default: "0%",
 		Help: "a rate, or a schedule of rates:\n" +
@@ -277,7 +277,7 @@ var Keys = withChangeKeys([]*Key{
 			"1/m year for \"compounded m\", each period for \"per\",\n" +
 			"monthly for effective and continuous rates.",
 		Set: "rate",
-		put: func(t *target, v *value) { t.g.Rates = v.rates }},
+		put: func(t *target, v value) { t.g.Rates = v.rates }},
 	{Name: "between", Scope: InGoal, Form: FormChoice,
 		Choices: []Choice{{"compound", int(Compound)}, {"simple", int(Simple)}, {"none", int(None)}},
 		Noun:    "rule", Want: "compound, simple or none",
@@ -291,11 +291,11 @@ var Keys = withChangeKeys([]*Key{
 			"            through the period: deposits earn nothing\n" +
 			"            until it ends, withdrawals nothing for it",
 		Set: "between",
-		put: func(t *target, v *value) { t.g.Between = Between(v.n) }},
+		put: func(t *target, v value) { t.g.Between = Between(v.n) }},
 	{Name: "fee", Scope: InGoal, Form: FormRate, Min: 0, Max: MaxFeePercent,
 		Default: "0%", Help: "a year, taken monthly (a twelfth) from the balance",
 		Set: "fee",
-		put: func(t *target, v *value) {
+		put: func(t *target, v value) {
 			t.g.Fee = v.rate.Stated()
 			if v.rate.Form() != money.Effective {
 				t.g.Fee = v.rate.Effective()
@@ -306,17 +306,17 @@ var Keys = withChangeKeys([]*Key{
 		Help: "for cairn simulate: the volatility of returns a year,\n" +
 			"such as 12%, from 0% to 100% (see SIMULATION); none\n" +
 			"means returns are fixed",
-		put: func(t *target, v *value) { t.g.Volatility, t.g.HasVolatility = v.x, true }},
+		put: func(t *target, v value) { t.g.Volatility, t.g.HasVolatility = v.x, true }},
 	{Name: "target", Scope: InGoal, Form: FormAmountToday,
 		Default: "none",
 		Help: "an amount, or \"400k today\" in today's money (grown by\n" +
 			"inflation to the deadline; needs by)",
 		Set: "target",
-		put: func(t *target, v *value) { t.g.Target, t.g.TargetToday, t.g.HasTarget = v.amount, v.today, true }},
+		put: func(t *target, v value) { t.g.Target, t.g.TargetToday, t.g.HasTarget = v.amount, v.today, true }},
 	{Name: "by", Scope: InGoal, Form: FormMonth,
 		Default: "none", Help: "the deadline: the end of that month",
 		Set: "by",
-		put: func(t *target, v *value) { t.g.By, t.g.HasBy = v.month, true }},
+		put: func(t *target, v value) { t.g.By, t.g.HasBy = v.month, true }},
 	{Name: "deposits", Scope: InGoal, Form: FormList, Items: InStream, MaxItems: MaxStreams,
 		Default: "none", Help: "a list of streams (below)"},
 	{Name: "withdrawals", Scope: InGoal, Form: FormList, Items: InWithdrawal, MaxItems: MaxStreams,
@@ -351,51 +351,51 @@ var Keys = withChangeKeys([]*Key{
 			"                  and withdrawals are not taxed again\n" +
 			"  none            tax is not modelled",
 		Set: "tax",
-		put: func(t *target, v *value) { t.g.Tax = Treatment(v.n) }},
+		put: func(t *target, v value) { t.g.Tax = Treatment(v.n) }},
 	{Name: "tax_rate", Scope: InGoal, Form: FormTaxRate,
 		Default: "0%",
 		Help: "the tax rate now: on each year's interest (as-it-grows),\n" +
 			"or on the pay a deposit comes from (on-the-way-out)",
 		Set: "tax_rate",
-		put: func(t *target, v *value) { t.g.TaxRate = v.x }},
+		put: func(t *target, v value) { t.g.TaxRate = v.x }},
 	{Name: "tax_later", Scope: InGoal, Form: FormTaxRate,
 		Default: "tax_rate",
 		Help: "on-the-way-out: the tax rate on withdrawals (read only\n" +
 			"when tax is on-the-way-out, so a scenario may switch)",
 		Set: "tax_later",
-		put: func(t *target, v *value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
+		put: func(t *target, v value) { t.g.TaxLater, t.g.HasTaxLater = v.x, true }},
 	{Name: "match", Scope: InGoal, Form: FormShare,
 		Default: "none",
 		Help: "an employer adds this share of each of the household's\n" +
 			"own deposits, shown apart from the household's money",
 		Set: "match",
-		put: func(t *target, v *value) { t.g.Match = v.x }},
+		put: func(t *target, v value) { t.g.Match = v.x }},
 	{Name: "match_up_to", Scope: InGoal, Form: FormShare,
 		Default: "no limit",
 		Help: "the employer matches the household's deposits of each\n" +
 			"year from the start up to this share of the salary",
 		Set: "match_up_to",
-		put: func(t *target, v *value) { t.g.MatchUpTo, t.g.HasMatchUpTo = v.x, true }},
+		put: func(t *target, v value) { t.g.MatchUpTo, t.g.HasMatchUpTo = v.x, true }},
 	{Name: "salary", Scope: InGoal, Form: FormAmount,
 		Default: "none", Help: "the salary a year in the plan's first year, for match_up_to",
 		Set: "salary",
-		put: func(t *target, v *value) { t.g.Salary = v.amount }},
+		put: func(t *target, v value) { t.g.Salary = v.amount }},
 	{Name: "salary_grow", Scope: InGoal, Form: FormGrowth, Min: -MaxGrowthPercent, Max: MaxGrowthPercent,
 		Default: "0%", Help: "the salary's yearly rise, or \"inflation\"",
-		put: func(t *target, v *value) { t.g.SalaryInflation, t.g.SalaryGrow = v.inflation, v.x }},
+		put: func(t *target, v value) { t.g.SalaryInflation, t.g.SalaryGrow = v.inflation, v.x }},
 	{Name: "cap", Scope: InGoal, Form: FormAmount,
 		Default: "none",
 		Help: "the most the account may receive in a year from the\n" +
 			"start (deposits and one-time amounts in), as stated for\n" +
 			"the account; a plan that passes it by a cent is refused",
 		Set: "cap",
-		put: func(t *target, v *value) { t.g.Cap, t.g.HasCap = v.amount, true }},
+		put: func(t *target, v value) { t.g.Cap, t.g.HasCap = v.amount, true }},
 	{Name: "cap_excess", Scope: InGoal, Form: FormName,
 		Default: "none",
 		Help: "the goal, by name, that receives what would pass cap, at\n" +
 			"the end of the month it would have gone in; without it\n" +
 			"a plan over the cap is refused",
-		put: func(t *target, v *value) { t.g.CapExcess = v.text }},
+		put: func(t *target, v value) { t.g.CapExcess = v.text }},
 	{Name: "actuals", Scope: InGoal, Form: FormList, Items: InActual, MaxItems: MaxActuals,
 		Default: "none",
 		Help: "balances statements showed, at the end of a month, from\n" +
@@ -410,23 +410,23 @@ var Keys = withChangeKeys([]*Key{
 			"to the last withdrawal. The money lasts only when\n" +
 			"every withdrawal is paid in full and this is left",
 		Set: "leave",
-		put: func(t *target, v *value) { t.g.Leave, t.g.LeaveToday = v.amount, v.today }},
+		put: func(t *target, v value) { t.g.Leave, t.g.LeaveToday = v.amount, v.today }},
 	{Name: "priority", Scope: InGoal, Form: FormCount, Min: 1, Max: MaxGoals,
 		Default: "none",
 		Help: "the goal draws on the budget, 1 first; each goal its\n" +
 			"own; its deposits are its own, not the budget",
-		put: func(t *target, v *value) { t.g.Priority = v.n }},
+		put: func(t *target, v value) { t.g.Priority = v.n }},
 
 	// each stream
 	{Name: "name", Scope: InStream, Form: FormName,
 		Default: "none", Help: "a label, used by --stream",
-		put: func(t *target, v *value) { t.s.Name = v.text }},
+		put: func(t *target, v value) { t.s.Name = v.text }},
 	{Name: "amount", Scope: InStream, Form: FormAmountToday, Required: true, Unless: "rule", UnlessIn: InWithdrawal,
 		Default: "required (a withdrawal with a share-of-balance rule: none)",
 		Help: "per period, 0 or more; \"250 today\" is in today's money\n" +
 			"and rises with inflation unless grow says otherwise",
 		Set: "deposit", SetOut: "withdrawal", SetBudget: "budget",
-		put: func(t *target, v *value) { t.s.Amount, t.s.Today = v.amount, v.today }},
+		put: func(t *target, v value) { t.s.Amount, t.s.Today = v.amount, v.today }},
 	{Name: "every", Scope: InStream, Form: FormFrequency, Required: true,
 		Missing: "want a frequency such as month",
 		Default: "required",
@@ -437,22 +437,22 @@ var Keys = withChangeKeys([]*Key{
 			"\"biweekly\" and \"bimonthly\" are refused: each means two\n" +
 			"different things.",
 		Set: "every",
-		put: func(t *target, v *value) { t.s.Every = v.freq }},
+		put: func(t *target, v value) { t.s.Every = v.freq }},
 	{Name: "timing", Scope: InStream, Form: FormChoice,
 		Choices: []Choice{{"end", int(End)}, {"start", int(Begin)}, {"begin", int(Begin)}, {"beginning", int(Begin)}},
 		Noun:    "timing", Want: "end or start; begin and beginning mean start",
 		Default: "end", Help: "end or start of each period; begin and beginning\n" +
 			"mean start",
-		put: func(t *target, v *value) { t.s.Timing = Timing(v.n) }},
+		put: func(t *target, v value) { t.s.Timing = Timing(v.n) }},
 	{Name: "from", Scope: InStream, Form: FormMonth,
 		Default: "start", Help: "first month with a period",
-		put: func(t *target, v *value) { t.s.From = v.month }},
+		put: func(t *target, v value) { t.s.From = v.month }},
 	{Name: "until", Scope: InStream, Form: FormUntil,
 		Default: "none",
 		Help: "last month with an amount (none: open-ended); reached\n" +
 			"(deposits only): through the month the target is first\n" +
 			"reached",
-		put: func(t *target, v *value) {
+		put: func(t *target, v value) {
 			t.s.Until, t.s.HasUntil, t.s.UntilReached = v.month, !v.reached, v.reached
 		}},
 	{Name: "net", Scope: InWithdrawal, Form: FormChoice,
@@ -463,10 +463,10 @@ var Keys = withChangeKeys([]*Key{
 			"receives after the tax on withdrawals (the account pays\n" +
 			"amount ÷ (1 − tax_later)); no when it is what the\n" +
 			"account pays",
-		put: func(t *target, v *value) { t.s.Net = v.n == 1 }},
+		put: func(t *target, v value) { t.s.Net = v.n == 1 }},
 	{Name: "for", Scope: InWithdrawal, Form: FormLength,
 		Default: "none", Help: "withdrawals only, instead of until: \"30 years\", \"18 months\"",
-		put: func(t *target, v *value) { t.s.forMonths = v.n }},
+		put: func(t *target, v value) { t.s.forMonths = v.n }},
 	{Name: "rule", Scope: InWithdrawal, Form: FormRule,
 		Default: "the amount as written",
 		Help: "withdrawals only: how the amount is decided at each\n" +
@@ -482,42 +482,42 @@ var Keys = withChangeKeys([]*Key{
 			"      by 10%\n" +
 			"The amount, floor and ceiling grow as the amount\n" +
 			"grows (grow:, or today's money for \"… today\")",
-		put: func(t *target, v *value) {
+		put: func(t *target, v value) {
 			t.s.Rule.Kind, t.s.Rule.Share, t.s.Rule.Lower, t.s.Rule.Upper, t.s.Rule.Cut, t.s.Rule.Raise = v.rule.Kind, v.rule.Share, v.rule.Lower, v.rule.Upper, v.rule.Cut, v.rule.Raise
 		}},
 	{Name: "floor", Scope: InWithdrawal, Form: FormAmount,
 		Default: "0", Help: "with rule: the least amount a period",
-		put: func(t *target, v *value) { t.s.Rule.Floor = v.amount }},
+		put: func(t *target, v value) { t.s.Rule.Floor = v.amount }},
 	{Name: "ceiling", Scope: InWithdrawal, Form: FormAmount,
 		Default: "none", Help: "with rule: the most amount a period",
-		put: func(t *target, v *value) { t.s.Rule.Ceiling, t.s.Rule.HasCeiling = v.amount, true }},
+		put: func(t *target, v value) { t.s.Rule.Ceiling, t.s.Rule.HasCeiling = v.amount, true }},
 	{Name: "grow", Scope: InStream, Form: FormGrowth, Min: -MaxGrowthPercent, Max: MaxGrowthPercent,
 		Default: "0%", Help: "a yearly rise of the amount, or \"inflation\"",
 		Set: "grow",
-		put: func(t *target, v *value) { t.s.GrowInflation, t.s.Grow, t.s.growSet = v.inflation, v.x, true }},
+		put: func(t *target, v value) { t.s.GrowInflation, t.s.Grow, t.s.growSet = v.inflation, v.x, true }},
 
 	// each one-time amount (documented under the goal's once)
 	{Name: "name", Scope: InOnce, Form: FormName,
-		put: func(t *target, v *value) { t.o.Name = v.text }},
+		put: func(t *target, v value) { t.o.Name = v.text }},
 	{Name: "amount", Scope: InOnce, Form: FormSignedAmount, Required: true,
-		put: func(t *target, v *value) { t.o.Amount = v.amount }},
+		put: func(t *target, v value) { t.o.Amount = v.amount }},
 	{Name: "on", Scope: InOnce, Form: FormMonth, Required: true,
 		Missing: "want the month, such as on: 2027-04",
-		put:     func(t *target, v *value) { t.o.On = v.month }},
+		put:     func(t *target, v value) { t.o.On = v.month }},
 
 	// each step of a rate schedule (documented under the goal's rate)
 	{Name: "from", Scope: InRateStep, Form: FormMonth,
-		put: func(t *target, v *value) { t.st.From = v.month }},
+		put: func(t *target, v value) { t.st.From = v.month }},
 	{Name: "rate", Scope: InRateStep, Form: FormRate, Min: MinRatePercent, Max: MaxRatePercent, Required: true,
-		put: func(t *target, v *value) { t.st.Rate = v.rate }},
+		put: func(t *target, v value) { t.st.Rate = v.rate }},
 
 	// each actual balance (documented under the goal's actuals)
 	{Name: "month", Scope: InActual, Form: FormMonth, Required: true,
 		Missing: "want the month of the statement, such as month: 2028-06",
-		put:     func(t *target, v *value) { t.a.Month = v.month }},
+		put:     func(t *target, v value) { t.a.Month = v.month }},
 	{Name: "balance", Scope: InActual, Form: FormAmount, Required: true,
 		Missing: "want the balance at the end of that month, such as balance: 7,412.30",
-		put:     func(t *target, v *value) { t.a.Balance = v.amount }},
+		put:     func(t *target, v value) { t.a.Balance = v.amount }},
 	// the budget, besides a stream's keys
 	{Name: "rule", Scope: InBudget, Form: FormChoice,
 		Choices: []Choice{{"priority", int(ByPriority)}, {"one-at-a-time", int(OneAtATime)}},
@@ -529,7 +529,7 @@ var Keys = withChangeKeys([]*Key{
 			"                 deadline; what is left flows on\n" +
 			"  one-at-a-time  everything to the first goal until it\n" +
 			"                 is reached, then the next",
-		put: func(t *target, v *value) { t.b.Rule = Rule(v.n) }},
+		put: func(t *target, v value) { t.b.Rule = Rule(v.n) }},
 	{Name: "changes", Scope: InBudget, Form: FormList, Items: InBudgetChange, MaxItems: MaxBudgetChanges,
 		Default: "none",
 		Help: "the amount from a month on, at the budget's dates from\n" +
@@ -540,23 +540,23 @@ var Keys = withChangeKeys([]*Key{
 	{Name: "from", Scope: InBudgetChange, Form: FormMonth, Required: true,
 		Missing: "want the month the amount changes, such as from: 2029-01",
 		Default: "required", Help: "the month the new amount starts",
-		put: func(t *target, v *value) { t.c.From = v.month }},
+		put: func(t *target, v value) { t.c.From = v.month }},
 	{Name: "amount", Scope: InBudgetChange, Form: FormAmountToday, Required: true,
 		Missing: "want the new amount, such as amount: 1,100",
 		Default: "required", Help: "per period from then; \"1,100 today\" is in today's money",
-		put: func(t *target, v *value) { t.c.Amount, t.c.Today = v.amount, v.today }},
+		put: func(t *target, v value) { t.c.Amount, t.c.Today = v.amount, v.today }},
 
 	// each scenario
 	{Name: "name", Scope: InScenario, Form: FormName, Required: true,
 		Missing: "every scenario needs a name",
 		Default: "required", Help: "unique within the file; --scenario NAME picks it",
-		put: func(t *target, v *value) { t.sc.Name = v.text }},
+		put: func(t *target, v value) { t.sc.Name = v.text }},
 	{Name: "name", Scope: InPerson, Form: FormName, Required: true,
 		Default: "required", Help: "a role such as earner or partner, used in ages such as \"earner at 67\"",
-		put: func(t *target, v *value) { t.who.Name = v.text }},
+		put: func(t *target, v value) { t.who.Name = v.text }},
 	{Name: "born", Scope: InPerson, Form: FormMonth, Required: true,
 		Default: "required", Help: "the birth month, YYYY-MM",
-		put: func(t *target, v *value) { t.who.Born = v.month }},
+		put: func(t *target, v value) { t.who.Born = v.month }},
 
 	{Name: "changes", Scope: InScenario, Form: FormList, Items: InChange, Required: true, MaxItems: MaxChanges,
 		Missing: "want a list of changes, such as - goal: Retirement",
@@ -611,27 +611,43 @@ func withChangeKeys(keys []*Key) []*Key {
 }
 
 // keysIn returns the keys of a scope in table order; a withdrawal has the
-// stream's keys and its own.
-func keysIn(s Scope) []*Key {
-	var out []*Key
-	for _, k := range Keys {
-		if k.Scope == s || (s == InWithdrawal || s == InBudget) && k.Scope == InStream {
-			out = append(out, k)
-		}
-	}
-	return out
+// stream's keys and its own. The slice is shared: callers do not change it.
+func keysIn(s Scope) []*Key { return scopes()[s].keys }
+
+// keyNamesIn returns the names of keysIn(s), in the same order.
+func keyNamesIn(s Scope) []string { return scopes()[s].names }
+
+// A scopeKeys is the keys of one scope and their names.
+type scopeKeys struct {
+	keys  []*Key
+	names []string
 }
 
-func keyNames(ks []*Key) []string {
-	out := make([]string, len(ks))
-	for i, k := range ks {
-		out[i] = k.Name
+// scopes is each scope's keys, taken from [Keys] once: every mapping the
+// decoder reads asks for them.
+var scopes = sync.OnceValue(func() map[Scope]scopeKeys {
+	m := map[Scope]scopeKeys{}
+	add := func(s Scope, k *Key) {
+		sk := m[s]
+		sk.keys, sk.names = append(sk.keys, k), append(sk.names, k.Name)
+		m[s] = sk
 	}
-	return out
-}
+	for _, k := range Keys {
+		add(k.Scope, k)
+		if k.Scope == InStream {
+			add(InWithdrawal, k)
+			add(InBudget, k)
+		}
+	}
+	for s, sk := range m {
+		m[s] = scopeKeys{slices.Clip(sk.keys), slices.Clip(sk.names)}
+	}
+	return m
+})
 
 // KeysIn returns the keys that may appear in a mapping of scope s, in table
 // order: a withdrawal and the budget have the stream's keys and their own.
+// The slice is shared: callers read it and do not change it.
 func KeysIn(s Scope) []*Key { return keysIn(s) }
 
 // Pattern returns how a value of k is written, as text, in a regular

@@ -121,13 +121,22 @@ func (l *Ledger) BalanceAt(m Month) money.Amount {
 // in full, and whether there was one.
 func (l *Ledger) FirstShort() (Month, bool) { return l.short, l.short != 0 }
 
-// Project returns the ledger of goal g through the end of month end.
+// Project returns the ledger of goal g through the end of month end. A
+// goal that draws on the plan's budget has its shares of it as allocated
+// (see [Allocate]) as a deposit stream, "budget share".
 func Project(p *Plan, g *Goal, end Month) (*Ledger, error) {
 	if end < p.Start {
 		return nil, fmt.Errorf("project %s: end %s is before the start %s", g.Name, end, p.Start)
 	}
 	if end > p.Start.Add(HorizonYears*12-1) {
 		end = p.Start.Add(HorizonYears*12 - 1)
+	}
+	if i, ok := budgetIndex(p, g); ok { // with its share of the budget as allocated
+		a, err := allocateThrough(p, end)
+		if err != nil {
+			return nil, err
+		}
+		return a.Ledger(i, end), nil
 	}
 	s := compile(p, g, end)
 	return s.ledger(s.defaultParams()), nil
@@ -174,9 +183,12 @@ type Row struct {
 	Fees        money.Amount // as a positive sum
 	// Income is the goal's income that paid withdrawals (not in Deposits,
 	// and not in Withdrawals, which are what the account paid).
-	Income       money.Amount
-	Tax          money.Amount // tax on interest paid from the account, as a positive sum
-	Employer     money.Amount // an employer's contributions, not in Deposits
+	Income   money.Amount
+	Tax      money.Amount // tax on interest paid from the account, as a positive sum
+	Employer money.Amount // an employer's contributions, not in Deposits
+	// Budget is the goal's shares of the household budget, not in Deposits
+	// (see [Allocation]).
+	Budget       money.Amount
 	Closing      money.Amount
 	ClosingToday money.Amount // the closing balance in today's money
 	Short        money.Amount // withdrawals that could not be paid
@@ -206,8 +218,8 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		rows[len(rows)-1].Closing = l.BalanceAt(m)
 	}
 	// each row's sums, in minor units: deposits, withdrawals, interest,
-	// fees, income, tax, employer, short
-	const nSums = 8
+	// fees, income, tax, employer, short, budget
+	const nSums = 9
 	sums := make([]minorSum, nSums*len(rows))
 	for i := range sums {
 		sums[i].places = l.places
@@ -231,6 +243,8 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 			continue // gone to another goal: no movement here
 		case r.Kind != engine.PostFlow && r.Kind != engine.PostIncome:
 			row[2].add(r.Amount)
+		case r.Amount >= 0 && l.sources[r.Src].stream != nil && l.sources[r.Src].stream.share:
+			row[8].add(r.Amount)
 		case r.Amount >= 0:
 			row[0].add(r.Amount)
 		default:
@@ -252,6 +266,7 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		row := sums[nSums*i:][:nSums]
 		r.Deposits, r.Withdrawals, r.Interest, r.Fees = row[0].amount(), row[1].amount(), row[2].amount(), row[3].amount()
 		r.Income, r.Tax, r.Employer, r.Short = row[4].amount(), row[5].amount(), row[6].amount(), row[7].amount()
+		r.Budget = row[8].amount()
 		r.ClosingToday = l.Plan.Today(r.Closing, r.To)
 		tot.Deposits = tot.Deposits.Add(r.Deposits)
 		tot.Withdrawals = tot.Withdrawals.Add(r.Withdrawals)
@@ -260,6 +275,7 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		tot.Income = tot.Income.Add(r.Income)
 		tot.Tax = tot.Tax.Add(r.Tax)
 		tot.Employer = tot.Employer.Add(r.Employer)
+		tot.Budget = tot.Budget.Add(r.Budget)
 		tot.Short = tot.Short.Add(r.Short)
 	}
 	if totals && len(rows) > 0 {

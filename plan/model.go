@@ -320,6 +320,7 @@ type Stream struct {
 	growSet   bool  // grow was given; otherwise an amount in today's money grows with inflation
 	resume    Month // its amounts before this month are left out (see replan); 0: none
 	forMonths int   // a withdrawal's length as given by for:, which sets Until
+	share     bool  // a goal's share of the household budget (see shareStream)
 }
 
 // growth returns the stream's yearly growth rate under inflation pi.

@@ -10,6 +10,7 @@ import (
 	"fmt"
 	"strings"
 	"unicode"
+	"unicode/utf8"
 )
 
 // sameName reports whether a and b name the same goal or stream: equal
@@ -20,6 +21,14 @@ func sameName(a, b string) bool { return strings.EqualFold(nameKey(a), nameKey(b
 // nameKey is s with each white-space run one space, the ends trimmed and
 // invisible characters dropped.
 func nameKey(s string) string {
+	if plainName(s) {
+		return s
+	}
+	return foldName(s)
+}
+
+// foldName is nameKey for any s.
+func foldName(s string) string {
 	var b strings.Builder
 	space := false
 	for _, r := range s {
@@ -39,6 +48,22 @@ func nameKey(s string) string {
 	return b.String()
 }
 
+// plainName reports whether s is its own nameKey: printable ASCII with
+// single spaces between words.
+func plainName(s string) bool {
+	for i := 0; i < len(s); i++ {
+		switch c := s[i]; {
+		case c == ' ':
+			if i == 0 || i == len(s)-1 || s[i-1] == ' ' {
+				return false
+			}
+		case c < '!' || c > '~':
+			return false
+		}
+	}
+	return true
+}
+
 // cleanName is a name as written in the file, read as the user sees it:
 // each run of white space (a tab, a no-break space, several spaces) becomes
 // one space, and the ends are trimmed. Joiners are kept: they change how the
@@ -53,6 +78,9 @@ func cleanName(s string) string { return strings.Join(strings.FieldsFunc(s, unic
 // or U+200B, a zero-width space), except the zero-width joiner and
 // non-joiner that several scripts and emoji need.
 func hiddenRune(r rune) bool {
+	if r < utf8.RuneSelf { // ASCII has no formatting characters
+		return r < ' ' && r != '\t' && r != '\n' && r != '\r' || r == 0x7f
+	}
 	switch r {
 	case '\t', '\n', '\r', '\u200c', '\u200d':
 		return false

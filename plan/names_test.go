@@ -3,6 +3,7 @@ package plan
 import (
 	"fmt"
 	"testing"
+	"unicode"
 )
 
 // The rules here are cairn's own (common practice, no source); the
@@ -26,6 +27,52 @@ func TestSameName(t *testing.T) {
 	for _, tt := range tests {
 		if got := sameName(tt.a, tt.b); got != tt.want {
 			t.Errorf("sameName(%q, %q) = %v, want %v", tt.a, tt.b, got, tt.want)
+		}
+	}
+}
+
+// TestHiddenRune_ASCII holds the ASCII shortcut of hiddenRune to its rule
+// (Unicode's control and formatting categories, as Go's unicode package
+// has them, less tab and line breaks).
+func TestHiddenRune_ASCII(t *testing.T) {
+	for r := rune(0); r < 0x80; r++ {
+		want := (unicode.IsControl(r) || unicode.Is(unicode.Cf, r)) && r != '\t' && r != '\n' && r != '\r'
+		if got := hiddenRune(r); got != want {
+			t.Errorf("hiddenRune(%U) = %v, want %v", r, got, want)
+		}
+	}
+}
+
+// TestPlainName holds the shortcut of nameKey to the rule: a name that
+// plainName passes is unchanged by foldName.
+func TestPlainName(t *testing.T) {
+	tests := []struct {
+		in   string
+		want bool
+	}{
+		{"Emergency fund", true},
+		{"Car 2 (used)", true},
+		{"", true},
+		{"Emergency  fund", false},
+		{" Emergency", false},
+		{"Emergency ", false},
+		{"Emergency\tfund", false},
+		{"a\x7fb", false},
+		{"Épargne", false},
+		{"a\u200db", false},
+	}
+	for _, tt := range tests {
+		if got := plainName(tt.in); got != tt.want {
+			t.Errorf("plainName(%q) = %v, want %v", tt.in, got, tt.want)
+		}
+		if plainName(tt.in) && foldName(tt.in) != tt.in {
+			t.Errorf("foldName(%q) = %q, but plainName passes it", tt.in, foldName(tt.in))
+		}
+	}
+	for c := 0; c < 0x80; c++ {
+		s := "a" + string(rune(c)) + "b"
+		if plainName(s) && foldName(s) != s {
+			t.Errorf("foldName(%q) = %q, but plainName passes it", s, foldName(s))
 		}
 	}
 }

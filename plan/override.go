@@ -88,17 +88,28 @@ func (o Override) NeedsGoal() bool {
 // after the KEY it is about.
 func (p *Plan) With(goal, stream string, ovs []Override) (*Plan, *Goal, error) {
 	q := p.Clone()
-	g := q.Goal(goal)
+	g, err := q.with(goal, stream, ovs)
+	if err != nil {
+		return nil, nil, err
+	}
+	return q, g, nil
+}
+
+// with is [Plan.With] on p itself, a copy the caller owns: it changes p
+// and returns the goal changed. After an error p is half changed, and the
+// caller drops it.
+func (p *Plan) with(goal, stream string, ovs []Override) (*Goal, error) {
+	g := p.Goal(goal)
 	if g == nil {
-		return nil, nil, fmt.Errorf("no goal named %s", money.Quote(goal))
+		return nil, fmt.Errorf("no goal named %s", money.Quote(goal))
 	}
 	for _, o := range ovs {
-		if err := q.apply(g, stream, o); err != nil {
-			return nil, nil, err
+		if err := p.apply(g, stream, o); err != nil {
+			return nil, err
 		}
 	}
-	q.settle()
-	for _, pr := range q.problems() {
+	p.settle()
+	for _, pr := range p.problems() {
 		if pr.goal != g {
 			continue
 		}
@@ -109,17 +120,17 @@ func (p *Plan) With(goal, stream string, ovs []Override) (*Plan, *Goal, error) {
 			}
 		}
 		if by.Key == "" {
-			return nil, nil, fmt.Errorf("goal %s: %s", money.Quote(g.Name), pr.msg)
+			return nil, fmt.Errorf("goal %s: %s", money.Quote(g.Name), pr.msg)
 		}
-		return nil, nil, by.refuse(pr.msg)
+		return nil, by.refuse(pr.msg)
 	}
-	if _, err := q.checkFileWork(); err != nil {
-		return nil, nil, err
+	if _, err := p.checkFileWork(); err != nil {
+		return nil, err
 	}
-	if err := q.checkBounds(g); err != nil {
-		return nil, nil, err
+	if err := p.checkBounds(g); err != nil {
+		return nil, err
 	}
-	return q, g, nil
+	return g, nil
 }
 
 // apply parses one override's value as its key of the goals file and
@@ -154,7 +165,7 @@ func (p *Plan) apply(g *Goal, stream string, o Override) error {
 	if !d.value(k, &yaml.Node{Kind: yaml.ScalarNode, Tag: "!!str", Value: o.Value}, "", t, &v) {
 		return o.refuse(d.errs[0].Msg)
 	}
-	k.put(t, &v)
+	k.put(t, v)
 	return nil
 }
 

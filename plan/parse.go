@@ -91,7 +91,7 @@ type decoder struct {
 }
 
 func newDecoder(file string) *decoder {
-	return &decoder{file: file, nodes: map[string]*yaml.Node{}, bad: map[string]bool{}, goals: map[*Goal]string{}}
+	return &decoder{file: file, nodes: make(map[string]*yaml.Node, 128), bad: map[string]bool{}, goals: map[*Goal]string{}}
 }
 
 // report adds a cross-field problem, positioned at the key it names, unless
@@ -136,7 +136,7 @@ func (d *decoder) fields(n *yaml.Node, path string, known []string, fn func(key 
 		d.errorf(n, path, "want a mapping of keys (%s), not %s", strings.Join(known, ", "), describe(n))
 		return false
 	}
-	seen := map[string]bool{}
+	seen := make([]bool, len(known)) // by place in known
 	for i := 0; i+1 < len(n.Content); i += 2 {
 		k, v := n.Content[i], resolve(n.Content[i+1])
 		key := k.Value
@@ -144,7 +144,8 @@ func (d *decoder) fields(n *yaml.Node, path string, known []string, fn func(key 
 			d.errorf(k, path, "want a key name, not %s", describe(k))
 			continue
 		}
-		if !contains(known, key) {
+		at := slices.Index(known, key)
+		if at < 0 {
 			kp := join(path, key)
 			if where := scopesOf(key); where != "" {
 				d.errorf(k, kp, "unknown key %s here: it belongs in %s", money.Quote(key), where)
@@ -155,11 +156,11 @@ func (d *decoder) fields(n *yaml.Node, path string, known []string, fn func(key 
 			}
 			continue
 		}
-		if seen[key] {
+		if seen[at] {
 			d.errorf(k, join(path, key), "key %s given twice", money.Quote(key))
 			continue
 		}
-		seen[key] = true
+		seen[at] = true
 		fn(key, v)
 	}
 	return true
@@ -281,7 +282,7 @@ func (d *decoder) month(p *Plan, n *yaml.Node, path string) (Month, bool) {
 func (d *decoder) keys(n *yaml.Node, path string, s Scope, t *target) map[string]*yaml.Node {
 	ks := keysIn(s)
 	given := map[string]*yaml.Node{}
-	ok := d.fields(n, path, keyNames(ks), func(name string, v *yaml.Node) {
+	ok := d.fields(n, path, keyNamesIn(s), func(name string, v *yaml.Node) {
 		given[name] = v
 		k := ks[slices.IndexFunc(ks, func(k *Key) bool { return k.Name == name })]
 		if k.Form == FormList || k.Form == FormMapping {
@@ -295,7 +296,7 @@ func (d *decoder) keys(n *yaml.Node, path string, s Scope, t *target) map[string
 			return
 		}
 		if k.put != nil {
-			k.put(t, &val)
+			k.put(t, val)
 		}
 	})
 	if !ok {
@@ -852,6 +853,9 @@ func yamlError(file string, err error) *Error {
 }
 
 func findTab(data []byte) (line, col int, ok bool) {
+	if bytes.IndexByte(data, '\t') < 0 {
+		return 0, 0, false
+	}
 	line = 1
 	start := true
 	col = 0

@@ -59,13 +59,12 @@ func (p *Plan) WithScenario(name string) (*Plan, error) {
 	if sc == nil {
 		return nil, fmt.Errorf("no scenario named %s", money.Quote(name))
 	}
-	q := p
+	q := p.Clone() // one copy, changed in place by each change in turn
 	for _, ch := range sc.Changes {
 		if ch.path != "" && ch.Goal != "" && q.Goal(ch.Goal) == nil {
 			return nil, &Error{Pos: ch.goalPos, Msg: fmt.Sprintf("%s.goal: no goal named %s (the goals are %s)", ch.path, money.Quote(ch.Goal), q.goalList())}
 		}
-		var err error
-		if q, err = q.Change(ch.Goal, ch.Stream, ch.Sets); err != nil {
+		if err := q.change(ch.Goal, ch.Stream, ch.Sets); err != nil {
 			if ch.path == "" {
 				return nil, err
 			}
@@ -85,27 +84,35 @@ func (p *Plan) WithScenario(name string) (*Plan, error) {
 // names the stream a stream's key changes. A change to one stream needs the
 // goal named when the plan has several goals. The original is not changed.
 func (p *Plan) Change(goal, stream string, ovs []Override) (*Plan, error) {
+	q := p.Clone()
+	if err := q.change(goal, stream, ovs); err != nil {
+		return nil, err
+	}
+	return q, nil
+}
+
+// change is [Plan.Change] on p itself, a copy the caller owns: each goal
+// changed in turn is checked as [Plan.With] checks it.
+func (p *Plan) change(goal, stream string, ovs []Override) error {
 	if goal == "" && len(p.Goals) > 1 {
 		for _, o := range ovs {
 			if o.NeedsGoal() {
-				return nil, o.refuse(fmt.Sprintf("a change to one stream needs the goal named when the file has %d goals (want goal: NAME; the goals are %s)", len(p.Goals), p.goalList()))
+				return o.refuse(fmt.Sprintf("a change to one stream needs the goal named when the file has %d goals (want goal: NAME; the goals are %s)", len(p.Goals), p.goalList()))
 			}
 		}
 	}
 	if goal != "" && p.Goal(goal) == nil {
-		return nil, fmt.Errorf("no goal named %s (the goals are %s)", money.Quote(goal), p.goalList())
+		return fmt.Errorf("no goal named %s (the goals are %s)", money.Quote(goal), p.goalList())
 	}
-	q := p
 	for _, g := range p.Goals {
 		if goal != "" && !sameName(g.Name, goal) {
 			continue
 		}
-		var err error
-		if q, _, err = q.With(g.Name, stream, ovs); err != nil {
-			return nil, err
+		if _, err := p.with(g.Name, stream, ovs); err != nil {
+			return err
 		}
 	}
-	return q, nil
+	return nil
 }
 
 func (p *Plan) goalList() string {
@@ -201,9 +208,8 @@ func (d *decoder) scenarios(p *Plan, v *yaml.Node) {
 // value as text, as --set takes it.
 func (d *decoder) change(n *yaml.Node, path string) (Change, bool) {
 	ch := Change{pos: d.pos(n), path: path}
-	ks := keysIn(InChange)
 	ok, errs := true, len(d.errs)
-	mapping := d.fields(n, path, keyNames(ks), func(name string, v *yaml.Node) {
+	mapping := d.fields(n, path, keyNamesIn(InChange), func(name string, v *yaml.Node) {
 		kp := join(path, name)
 		switch name {
 		case "goal", "stream":

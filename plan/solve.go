@@ -149,14 +149,24 @@ func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
 	return m, m != 0
 }
 
-// Solve answers q for goal g. It never reads the clock. When the question has
+// Solve answers q for goal g. It never reads the clock. A goal that draws
+// on the plan's budget is answered under the budget's allocation (see
+// [Allocate]): for time, the month its shares reach the target; for
+// deposit, the level share it needs a budget date (ByPriority); other
+// quantities have no answer for it. When the question has
 // no answer it returns a [*SolveError] saying why.
 func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q, true) }
 
 // solve answers q; with full unset it leaves out the answer's Ledger and
 // Equation, which what-if grids and the household status do not show.
 func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
-	a, err := solveFor(p, g, q, full)
+	var a *Answer
+	var err error
+	if i, ok := budgetIndex(p, g); ok { // its share of the budget as allocated
+		a, err = solveShare(p, g, i, q, full)
+	} else {
+		a, err = solveFor(p, g, q, full)
+	}
 	if err == nil {
 		a.FromPay, a.Net, a.BalanceAfterTax = p.FromPay(g, a.Amount), p.AfterTax(g, a.Amount), p.AfterTax(g, a.Balance)
 	}
@@ -687,20 +697,25 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 		}
 		return a, nil
 	}
-	a.Month, a.Months, a.Deadline, a.Paid = end, int(end-p.Start)+1, end, true
-	a.Balance, a.Left, a.Target = bal, bal, p.LeaveAt(g, end)
-	// Lasting means every withdrawal paid in full and leave left after
-	// the last one.
-	a.Lasts = bal.Cmp(a.Target) >= 0
-	if !a.Lasts {
-		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left after the last one, short of the %s to leave by %s",
-			bal.Format(p.Currency, false), a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
-	}
+	paidAll(p, g, a, bal, end)
 	s.prove(a, pr, full)
 	if a.Lasts && end == horizonEnd(p) {
 		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
 	}
 	return a, nil
+}
+
+// paidAll fills in lasts answer a when every withdrawal through the end of
+// month end is paid in full, with bal left after the last. Lasting means
+// that, and leave left.
+func paidAll(p *Plan, g *Goal, a *Answer, bal money.Amount, end Month) {
+	a.Month, a.Months, a.Deadline, a.Paid = end, int(end-p.Start)+1, end, true
+	a.Balance, a.Left, a.Target = bal, bal, p.LeaveAt(g, end)
+	a.Lasts = bal.Cmp(a.Target) >= 0
+	if !a.Lasts {
+		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left after the last one, short of the %s to leave by %s",
+			bal.Format(p.Currency, false), a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
+	}
 }
 
 // Rate search bounds, effective a year.

@@ -61,6 +61,9 @@ var docMarker = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile
 // follows content and is itself followed by content. A marker before the
 // first content, and markers with only comments after them, are allowed.
 func secondDocument(data []byte) (int, bool) {
+	if !hasMarkerLine(data) {
+		return 0, false
+	}
 	content, marker := false, 0
 	for i, ln := range strings.Split(string(data), "\n") {
 		ln = strings.TrimRight(ln, "\r")
@@ -80,6 +83,22 @@ func secondDocument(data []byte) (int, bool) {
 		}
 	}
 	return 0, false
+}
+
+// hasMarkerLine reports whether a line of data starts with --- or ...,
+// as every document marker does.
+func hasMarkerLine(data []byte) bool {
+	for len(data) > 0 {
+		if bytes.HasPrefix(data, []byte("---")) || bytes.HasPrefix(data, []byte("...")) {
+			return true
+		}
+		i := bytes.IndexByte(data, '\n')
+		if i < 0 {
+			break
+		}
+		data = data[i+1:]
+	}
+	return false
 }
 
 func significant(ln string) bool {
@@ -482,6 +501,9 @@ func stripComment(t string) string {
 // mistake (a '#' inside a multi-line value) is still refused when the value
 // is decoded, by checkNodes.
 func hiddenChar(data []byte) (line, col int, r rune, ok bool) {
+	if !anyHidden(data) {
+		return 0, 0, 0, false // the pass below finds only what hiddenRune refuses
+	}
 	var quote rune // the open quote, or 0
 	for i, ln := range strings.Split(string(data), "\n") {
 		prev := ' ' // the character before, as if a space began the line
@@ -514,4 +536,20 @@ func hiddenChar(data []byte) (line, col int, r rune, ok bool) {
 		}
 	}
 	return 0, 0, 0, false
+}
+
+// anyHidden reports whether data holds any character that hiddenRune
+// refuses.
+func anyHidden(data []byte) bool {
+	for i := 0; i < len(data); {
+		r, size := rune(data[i]), 1
+		if r >= utf8.RuneSelf {
+			r, size = utf8.DecodeRune(data[i:])
+		}
+		if hiddenRune(r) {
+			return true
+		}
+		i += size
+	}
+	return false
 }

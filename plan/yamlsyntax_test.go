@@ -88,3 +88,49 @@ func TestParse_OneDocumentMarkers(t *testing.T) {
 		}
 	}
 }
+
+// TestPrechecks holds the quick whole-file checks to the passes they let
+// skip: anyHidden is true exactly when some character is one hiddenRune
+// refuses, and hasMarkerLine whenever secondDocument could find a marker.
+// Common practice, no source: each input names the character or line at
+// stake.
+func TestPrechecks(t *testing.T) {
+	tests := []struct {
+		name, text     string
+		hidden, marker bool
+	}{
+		{"plain text", "cairn: 1\ngoals:\n  - name: a # note\n", false, false},
+		{"tab, carriage return and line feed", "a:\tb\r\nc: d\n", false, false},
+		{"letters beyond ASCII", "name: Épargne — 家\n", false, false},
+		{"joiners", "name: a\u200db\u200cc\n", false, false},
+		{"escape character", "name: a\x1bb\n", true, false},
+		{"delete character", "name: a\x7fb\n", true, false},
+		{"right-to-left override", "name: a\u202eb\n", true, false},
+		{"line separator", "name: a\u2028b\n", true, false},
+		{"no-break space", "name: a\u00a0b\n", false, false},
+		{"soft hyphen", "name: a\u00adb\n", true, false},
+		{"C1 control", "name: a\u0085b\n", true, false},
+		{"marker on the first line", "---\ncairn: 1\n", false, true},
+		{"end marker after content", "cairn: 1\n...\n", false, true},
+		{"dashes inside a line", "name: a---b\n", false, false},
+		{"dashes after indentation", "a:\n  --- b\n", false, false},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			data := []byte(tt.text)
+			slow := false
+			for _, r := range tt.text {
+				slow = slow || hiddenRune(r)
+			}
+			if got := anyHidden(data); got != tt.hidden || got != slow {
+				t.Errorf("anyHidden(%q) = %v, want %v (hiddenRune on each character: %v)", tt.text, got, tt.hidden, slow)
+			}
+			if got := hasMarkerLine(data); got != tt.marker {
+				t.Errorf("hasMarkerLine(%q) = %v, want %v", tt.text, got, tt.marker)
+			}
+			if _, ok := secondDocument(data); ok && !tt.marker {
+				t.Errorf("secondDocument(%q) found a marker that hasMarkerLine missed", tt.text)
+			}
+		})
+	}
+}

@@ -105,7 +105,8 @@ var jsonOutputs = map[string][]jsonField{
 	"project": {
 		{"goal", "string", true, "the goal's name"},
 		{"by", "string", true, "year or month: one row each"},
-		{"rows", "array", true, "ages at the period's end (when the file names people), opening, deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
+		{"priority", "integer", false, "for a goal that draws on the household budget: its priority; budget_share in each row is its share of the budget as allocated"},
+		{"rows", "array", true, "ages at the period's end (when the file names people), opening, budget_share (a goal that draws on the budget), deposits, interest, fees, income paying withdrawals (with income), withdrawals and closing balance each period"},
 		{"totals", "object", false, "the sums of the rows"},
 		{"runs_out", "string", false, "the month the money runs out, if it does"},
 		{"tax", "object", false, "the goal's tax treatment and rates, as the file states them"},

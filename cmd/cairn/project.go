@@ -84,12 +84,13 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		period = "month"
 	}
 	d.Lead = []string{fmt.Sprintf("%s: projection by %s, %s to %s, in %s; \"today\" is the closing balance in money of %s.", g.Name, period, l.Start, l.End, p.Currency.Code, p.Start)}
-	var hasFees, hasTax, hasOut, short, hasIncome, hasEmployer bool
+	var hasFees, hasTax, hasOut, short, hasIncome, hasEmployer, hasBudget bool
 	for _, r := range rows {
 		hasIncome = hasIncome || !r.Income.IsZero()
 		hasFees = hasFees || !r.Fees.IsZero()
 		hasTax = hasTax || !r.Tax.IsZero()
 		hasEmployer = hasEmployer || !r.Employer.IsZero()
+		hasBudget = hasBudget || !r.Budget.IsZero()
 		hasOut = hasOut || !r.Withdrawals.IsZero()
 		short = short || !r.Short.IsZero()
 	}
@@ -105,6 +106,10 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	}
 	if hasEmployer { // the employer's money, apart from the household's deposits
 		t.Cols = slices.Insert(t.Cols, 3, render.Column{Head: "employer", Key: "employer", Numeric: true})
+	}
+	budget := g.Priority > 0 && p.Budget != nil
+	if budget || hasBudget { // the household budget's share, apart from the goal's own deposits
+		t.Cols = slices.Insert(t.Cols, 2, render.Column{Head: "budget", Long: "share of the household budget", Key: "budget_share", Numeric: true})
 	}
 	// the household's ages at the end of each row, where the file names people
 	names, _ := p.AgeList(l.End)
@@ -124,6 +129,9 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		}
 		if hasEmployer {
 			cells = slices.Insert(cells, 3, cash(p, r.Employer))
+		}
+		if budget || hasBudget {
+			cells = slices.Insert(cells, 2, cash(p, r.Budget))
 		}
 		if names != "" {
 			_, ages := p.AgeList(r.To)
@@ -154,6 +162,11 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	}
 	d.Blocks = []render.Block{t}
 	d.Data["goal"], d.Data["by"], d.Data["rows"] = g.Name, period, jrows
+	if budget {
+		d.After = append(d.After, fmt.Sprintf("%s draws on the household budget (priority %d; the budget is split by %s): the budget column is its share as allocated, the deposits column its own deposits. cairn budget shows the whole split.",
+			g.Name, g.Priority, ruleWords(p.Budget.Rule)))
+		d.Data["priority"] = g.Priority
+	}
 	if g.HasCap && g.CapExcess != "" {
 		d.After = append(d.After, fmt.Sprintf("Deposits pass the yearly cap of %s by %s in all over these years; that goes to %s, at the end of each month it would have gone in here.",
 			amt(p, g.Cap), amt(p, l.Moved()), g.CapExcess))

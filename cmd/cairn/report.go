@@ -119,9 +119,9 @@ type simBand struct {
 
 // goalSim returns the simulation of goal g from [plan.Simulate], or nil
 // when neither the goal's returns nor the plan's inflation have a
-// volatility.
+// volatility, or the goal draws on the budget (see simBudgetWords).
 func goalSim(p *plan.Plan, g *plan.Goal) (*plan.Simulation, error) {
-	if !(g.HasVolatility && g.Volatility > 0) && !(p.HasInflationVolatility && p.InflationVolatility > 0) {
+	if !volatile(p, g) || g.Priority > 0 && p.Budget != nil {
 		return nil, nil
 	}
 	sim, err := plan.Simulate(p, g, plan.SimOptions{Paths: reportPaths, Seed: reportSeed})
@@ -130,6 +130,15 @@ func goalSim(p *plan.Plan, g *plan.Goal) (*plan.Simulation, error) {
 	}
 	return sim, nil
 }
+
+// volatile reports whether goal g's returns or the plan's inflation have a
+// volatility.
+func volatile(p *plan.Plan, g *plan.Goal) bool {
+	return g.HasVolatility && g.Volatility > 0 || p.HasInflationVolatility && p.InflationVolatility > 0
+}
+
+// simBudgetWords says why a goal drawing on the budget is not simulated.
+const simBudgetWords = "not simulated: the goal draws on the household budget, which the simulation does not allocate along each path"
 
 // bandOf is the 5–95 % band of simulation sim.
 func bandOf(g *plan.Goal, sim *plan.Simulation) (*simBand, error) {
@@ -211,9 +220,6 @@ func buildReport(p *plan.Plan, cases []plan.Case) ([]byte, []render.Notice, erro
 		gf, err := figuresOf(p, gs)
 		if err != nil {
 			return nil, nil, err
-		}
-		if gs.Share != nil {
-			gf.Ledger = st.Budget.Ledger(slices.Index(st.Budget.Shares, gs.Share), plan.Horizon(p, gs.Goal))
 		}
 		s, err := goalReport(p, gf, i, len(st.Goals))
 		if err != nil {
@@ -318,9 +324,6 @@ type goalFigures struct {
 	Sim       *plan.Simulation // nil when the goal's returns are fixed
 	Income    *plan.Answer     // the largest sustainable withdrawal, for a goal with withdrawals
 	IncomeErr error
-	// Ledger, for a goal drawing on the budget, is its projection with its
-	// budget shares; nil for the others, projected as written.
-	Ledger *plan.Ledger
 }
 
 func figuresOf(p *plan.Plan, gs plan.GoalStatus) (goalFigures, error) {
@@ -422,12 +425,9 @@ func goalReport(p *plan.Plan, gf goalFigures, i, n int) (render.Section, error) 
 		Kicker: fmt.Sprintf("Goal %d of %d: %s", i+1, n, g.Name),
 		Name:   g.Name,
 	}
-	l := gf.Ledger
-	var err error
-	if l == nil {
-		if l, err = plan.Project(p, g, plan.Horizon(p, g)); err != nil {
-			return s, err
-		}
+	l, err := plan.Project(p, g, plan.Horizon(p, g)) // a goal drawing on the budget with its share
+	if err != nil {
+		return s, err
 	}
 	var band *simBand
 	if gf.Sim != nil {
@@ -500,6 +500,8 @@ func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
 	}
 	if sim := gf.Sim; sim != nil && sim.HasTarget {
 		add("Simulated paths reaching the target", fmt.Sprintf("%s of %s at the deadline%s", share(sim.Success), render.Grouped(sim.Paths), simWords(sim)))
+	} else if gf.Share != nil && volatile(p, g) {
+		add("Simulated paths reaching the target", simBudgetWords)
 	}
 	if !hasDrawdown(g) {
 		return fs

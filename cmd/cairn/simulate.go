@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"strconv"
 	"strings"
@@ -55,6 +56,17 @@ func simulateCommand(e *env) *cli.Command {
 			}
 			if _, err := parseFormat(c); err != nil {
 				return err
+			}
+			if g.Priority > 0 && p.Budget != nil { // its share is allocated on the plan's rates, not on each path's
+				reason := "the goal draws on the household budget, and the simulation does not allocate the budget along each path; " +
+					"cairn project and cairn status show it with its share at the plan's rates, and cairn budget the whole split"
+				d := simDoc(p, g)
+				d.Lead = []string{fmt.Sprintf("%s: no simulation: %s.", g.Name, reason)}
+				d.Data["goal"], d.Data["answer"], d.Data["reason"] = g.Name, nil, reason
+				if werr := out(c, e, d); werr != nil {
+					return werr
+				}
+				return &noAnswer{errors.New(reason)}
 			}
 			if !solve {
 				sim, err := plan.Simulate(p, g, opts)

@@ -365,6 +365,8 @@ func equationTable(p *plan.Plan, eq *plan.Equation) (*render.Table, []map[string
 		a, n := cash(p, term.Amount), render.Int(term.Count)
 		if term.Count == 0 {
 			a, n = render.Text(""), render.Text("")
+		} else if term.Amount.IsZero() && len(term.Factors) == 0 { // amounts set date by date (a budget share): no one amount
+			a = render.Text("")
 		}
 		t.Add(render.Text(term.Label), a, n, render.Label(factors, strings.Join(fj, " × ")), cash(p, term.Value))
 		row := map[string]any{"term": term.Label, "kind": term.Kind.String(), "amount": jamt(p, term.Amount), "count": term.Count, "value": jamt(p, term.Value)}

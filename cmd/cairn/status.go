@@ -56,6 +56,17 @@ func statusCommand(e *env) *cli.Command {
 // written, one scenario, or several side by side.
 func statusAnswer(c *cli.Context, cases []plan.Case) (*render.Doc, error) {
 	p := cases[0].Plan
+	if c.IsSet("stream") {
+		// --stream only says which stream a --set changes
+		sets, err := overrides(c)
+		if err != nil {
+			return nil, err
+		}
+		if !slices.ContainsFunc(sets, plan.Override.NeedsGoal) {
+			return nil, usagef("--stream names the stream that a --set of a stream's key (such as deposit, grow or every) changes",
+				"--stream %q changes nothing: no --set given changes a stream", c.String("stream"))
+		}
+	}
 	if c.IsSet("goal") {
 		if _, err := goalOf(c, p); err != nil {
 			return nil, err
