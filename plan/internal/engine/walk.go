@@ -703,7 +703,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -712,23 +712,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -918,6 +918,10 @@ events:
 	}
 	return res
 }
+
+// markMonth returns the month of month end e: [Event.Month] of a Mark,
+// whose tick is never 0, without a branch.
+func markMonth(e *Event) int32 { return int32(e.Tick/TicksPerMonth) - 1 }
 
 // lowest returns the lowest balance of an interest period, low before and
 // bal after a flow or fee with a fraction tau of the period left: at the

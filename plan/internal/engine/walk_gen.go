@@ -303,7 +303,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -312,23 +312,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -777,7 +777,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -786,23 +786,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -1251,7 +1251,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1260,23 +1260,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -1725,7 +1725,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1734,23 +1734,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -2199,7 +2199,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2208,23 +2208,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -2673,7 +2673,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2682,23 +2682,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -3147,7 +3147,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3156,23 +3156,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -3621,7 +3621,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3630,23 +3630,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -4095,7 +4095,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4104,23 +4104,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -4569,7 +4569,7 @@ events:
 				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			// its month, e.Month(), is found only where it is read
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4578,23 +4578,23 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
@@ -4955,13 +4955,13 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			}
 			if o.MonthEnds != nil {
 				for l := range Lanes {
-					o.MonthEnds[e.Month()] = bal[l] / scale
+					o.MonthEnds[markMonth(e)] = bal[l] / scale
 				}
 			}
 			var row []float64
 			_ = row
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[markMonth(e)]
 			}
 			for l := range Lanes {
 				row := row
@@ -4969,7 +4969,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					row[at[l]] = bal[l]
 				}
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				for l := range Lanes {
 					res[l].AtDeadline = bal[l]
 				}
