@@ -39,9 +39,9 @@ func Describe(p *Plan, g *Goal) GoalView {
 		for _, e := range s.events {
 			if flowOf(&e, idx) {
 				if sv.Count == 0 {
-					sv.First = p.Start + Month(e.Month)
+					sv.First = p.Start + Month(e.Month())
 				}
-				sv.Last = p.Start + Month(e.Month)
+				sv.Last = p.Start + Month(e.Month())
 				sv.Count++
 			}
 		}

@@ -209,19 +209,21 @@ func TestOneSourceValuesSumToSmoothBalance(t *testing.T) {
 // withdrawal's negative balance is raised by its fee, the rest lowered.)
 func linearUnderNone(s *schedule) bool {
 	in, out := map[int32]bool{}, map[int32]bool{}
-	for _, e := range s.events {
-		if e.Kind == engine.Interest || e.Kind == engine.Credit || e.Kind == engine.Mark || e.Tau == 1 {
+	for i := range s.events {
+		e := &s.events[i]
+		if e.Kind == engine.Interest || e.Kind == engine.Credit || e.Kind == engine.Mark || e.Kind == engine.Tax || s.eng.Tau(e) == 1 {
 			continue
 		}
 		if e.Kind == engine.Fee {
 			return false
 		}
+		k := s.eng.Period(e)
 		if s.out[e.Src] {
-			out[e.Period] = true
+			out[k] = true
 		} else {
-			in[e.Period] = true
+			in[k] = true
 		}
-		if in[e.Period] && out[e.Period] {
+		if in[k] && out[k] {
 			return false
 		}
 	}

@@ -115,7 +115,7 @@ func newHousehold(p *Plan, end Month) (*household, error) {
 	for i := range bs.events {
 		if e := &bs.events[i]; flowOf(e, 1) {
 			h.ticks = append(h.ticks, e.Tick)
-			h.month = append(h.month, p.Start+Month(e.Month))
+			h.month = append(h.month, p.Start+Month(e.Month()))
 			h.unit = append(h.unit, e.Unit)
 			h.fixed = append(h.fixed, -1)
 		}

@@ -71,9 +71,13 @@ func (l *Ledger) Entries() []Entry {
 		if !l.Opening.IsZero() {
 			l.entries = append(l.entries, Entry{Month: l.Start, Kind: Opening, Source: "opening balance", Amount: l.Opening, Balance: l.Opening})
 		}
-		for _, r := range l.log.Posts {
+		bal, parts := l.log.Opening, l.log.Parts // the balance after each post, and the withdrawals' parts
+		for i, r := range l.log.Posts {
+			if r.Kind.Moves() {
+				bal += r.Amount
+			}
 			e := Entry{Tick: r.Tick, Month: l.Start + Month(r.Month), Kind: Interest,
-				Amount: money.Minor(r.Amount, l.places), Balance: money.Minor(r.Balance, l.places)}
+				Amount: money.Minor(r.Amount, l.places), Balance: money.Minor(bal, l.places)}
 			switch r.Kind {
 			case engine.PostFee:
 				e.Kind = Fee
@@ -86,11 +90,14 @@ func (l *Ledger) Entries() []Entry {
 			case engine.PostFlow, engine.PostIncome:
 				e.Kind, e.Source = l.sources[r.Src].kind, l.sources[r.Src].name
 			}
-			if r.Short != 0 {
-				e.Short = money.Minor(r.Short, l.places)
-			}
-			if r.Covered != 0 {
-				e.FromIncome = money.Minor(r.Covered, l.places)
+			if len(parts) > 0 && parts[0].Post == int32(i) {
+				if parts[0].Short != 0 {
+					e.Short = money.Minor(parts[0].Short, l.places)
+				}
+				if parts[0].Covered != 0 {
+					e.FromIncome = money.Minor(parts[0].Covered, l.places)
+				}
+				parts = parts[1:]
 			}
 			l.entries = append(l.entries, e)
 		}
@@ -223,7 +230,6 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 			continue
 		}
 		row := sums[nSums*int(rowOf[r.Month]):][:nSums]
-		row[4].add(r.Covered)
 		switch {
 		case (r.Kind == engine.PostFlow || r.Kind == engine.PostIncome) && l.sources[r.Src].kind == Income:
 			// received outside the account: counted where it pays
@@ -244,7 +250,15 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 		default:
 			row[1].add(-r.Amount)
 		}
-		row[7].add(r.Short)
+	}
+	for _, pt := range l.log.Parts { // what income paid and what was short
+		r := &l.log.Posts[pt.Post]
+		if r.Month < 0 || int(r.Month) >= len(rowOf) {
+			continue
+		}
+		row := sums[nSums*int(rowOf[r.Month]):][:nSums]
+		row[4].add(pt.Covered)
+		row[7].add(pt.Short)
 	}
 	var tot Row
 	for i := range rows {

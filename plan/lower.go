@@ -401,7 +401,8 @@ func monthEnds(p *Plan, g *Goal, end Month) []float64 {
 	return ends
 }
 
-// flowOf reports whether e is an amount of source src (income included).
-func flowOf(e *engine.Event, src int32) bool {
-	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin || e.Kind == engine.Income) && e.Src == src
+// flowOf reports whether e is an amount of source src (income included),
+// src of any integer type its callers count sources in.
+func flowOf[S int | int16 | int32](e *engine.Event, src S) bool {
+	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin || e.Kind == engine.Income) && int32(e.Src) == int32(src)
 }

@@ -479,9 +479,9 @@ func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 	for i := range s.events {
 		if e := &s.events[i]; flowOf(e, e.Src) && s.out[e.Src] {
 			if pg.firstOut < 0 {
-				pg.firstOut = e.Month
+				pg.firstOut = e.Month()
 			}
-			pg.lastOut = max(pg.lastOut, e.Month)
+			pg.lastOut = max(pg.lastOut, e.Month())
 		}
 	}
 	return pg

@@ -20,7 +20,7 @@ const (
 	// MaxEvents is the most events one goal's schedule may have through
 	// the plan's last month: a daily stream over the whole 150 years is
 	// about 110,000 (its amounts and the interest dates between them), a
-	// monthly one about 3,600. 500,000 events are 32 MB and a few
+	// monthly one about 3,600. 500,000 events are 12 MB and a few
 	// milliseconds a walk.
 	MaxEvents = 500_000
 	// MaxFileEvents is the most events all of a file's goals may have

@@ -19,7 +19,7 @@ type Cache struct {
 	events int // events held by the schedules in m
 }
 
-// MaxCachedEvents bounds a cache by the events it holds (an event is 64
+// MaxCachedEvents bounds a cache by the events it holds (an event is 24
 // bytes): past it, the cache starts afresh.
 const MaxCachedEvents = 1 << 20
 

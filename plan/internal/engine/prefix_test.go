@@ -97,5 +97,18 @@ func TestExtendIsTheLongerCompile(t *testing.T) {
 		if !reflect.DeepEqual(got.events, want.events) || !reflect.DeepEqual(got.taus, want.taus) || !reflect.DeepEqual(got.partial, want.partial) || !reflect.DeepEqual(got.left, want.left) {
 			t.Fatalf("%+v from %d months: the extended schedule (%d events) differs from the compiled one (%d)", sh, short.Months, len(got.events), len(want.events))
 		}
+		// the counts laid down with the events are the events' own, however
+		// the schedule was made (from a prefix, too, which counts its own)
+		posts, amounts := countPosts(want.events, want.accrue)
+		fromPrefix := compileFrom(&sh, want.Prefix(short.Months))
+		for _, s := range []*Schedule{want, got, fromPrefix, want.Prefix(short.Months)} {
+			p, a := countPosts(s.events, s.accrue)
+			if s.MaxPosts() != p || s.MaxMatchPosts() != a {
+				t.Fatalf("%+v: MaxPosts, MaxMatchPosts = %d, %d; its events give %d, %d", sh, s.MaxPosts(), s.MaxMatchPosts(), p, a)
+			}
+		}
+		if got.posts != posts || got.amounts != amounts || fromPrefix.posts != posts || fromPrefix.amounts != amounts {
+			t.Fatalf("%+v: extended schedule counts %d, %d posts, from a prefix %d, %d; compiled %d, %d", sh, got.posts, got.amounts, fromPrefix.posts, fromPrefix.amounts, posts, amounts)
+		}
 	}
 }

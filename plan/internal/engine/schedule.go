@@ -24,7 +24,7 @@ const TicksPerMonth = TicksPerYear / 12
 
 // A Kind is the kind of an event. The kinds are a closed set; at one tick
 // they happen in this order, and amounts of one kind at one tick come in
-// before they go out (Event.Out), so that money arriving at an instant can
+// before they go out (their source's Out), so that money arriving at an instant can
 // pay what leaves at it.
 type Kind uint8
 
@@ -39,26 +39,84 @@ const (
 	FlowBegin             // an amount at the start of its period
 )
 
-// An Event is one thing that happens to the balance, on the tick grid. A
-// schedule keeps the amounts (flows) and fees as events; interest dates,
-// credits and month ends are regular and the walk makes them.
+// An Event is one thing that happens to the balance, on the tick grid:
+// an amount (a flow), a fee, a run of interest dates, a credit, a tax or a
+// month end.
+//
+// It holds only what cannot be had cheaply from its tick or a table of its
+// schedule, so that an event takes 24 bytes (a schedule is most of what a
+// cold projection writes): its month is [Event.Month], its interest period
+// [Schedule.Period], its fraction of the period left [Schedule.Tau] (from
+// Ti), and a flow's inflation indexes [Schedule.IndexOf] (from its
+// source's stream and Year); whether a flow is money out is its source's
+// (Inputs.Out). Compile panics on a shape past the sizes below, which
+// plan's limits keep far within.
 type Event struct {
-	Tick   int64
-	Tau    float64 // flows and fees: fraction of the interest period left until its credit
-	Unit   float64 // flows: amount per unit of the source's amount (growth, indexing)
-	Src    int32   // flows: the source (see [Shape]); others: 0
-	Step   int32   // the rate step in force for the interest period the event is in
-	Period int32   // that period's index (interest: the period ending)
-	Ti     int32   // flows and fees: index of Tau among the schedule's distinct values
-	Count  int32   // interest: how many interest dates in a row, one period apart (at least 1)
-	Month  int32   // the month the event is shown in, counted from the start (0)
-	Year   int32   // flows: whole years of growth in Unit
-	// Flows in money indexed to inflation: the amount is multiplied by the
-	// inflation index at the start of month IA over that at month IB, both
-	// 1 at fixed inflation. A random-inflation walk reads them.
-	IA, IB int32
-	Kind   Kind
-	Out    bool // flows: money out (after the same kind's money in at the tick)
+	Tick  int64
+	Unit  float64 // flows: amount per unit of the source's amount (growth, indexing)
+	Src   int16   // flows: the source (see [Shape]; fewer than 2¹⁵); others: 0
+	Ti    uint16  // flows and fees: index of the fraction of the interest period left until its credit among the schedule's distinct values; 0 is a whole period
+	Step  uint8   // the rate step in force for the interest period the event is in (at most 256 steps)
+	Count uint8   // interest: how many interest dates in a row, one period apart (at least 1; a run never passes a month end, so at most 31)
+	Year  uint8   // flows: whole years of growth in Unit (at most 255)
+	Kind  Kind
+}
+
+// Month returns the month the event is shown in, counted from the start
+// (0): an amount at the start of a period (and income) in the month it
+// starts, everything else in the month it ends.
+func (e *Event) Month() int32 {
+	if e.Kind >= Income {
+		return labelBegin(e.Tick)
+	}
+	return labelEnd(e.Tick)
+}
+
+// Tau returns the fraction of the interest period left until its credit
+// at flow or fee e.
+func (s *Schedule) Tau(e *Event) float64 { return s.taus[e.Ti] }
+
+// Period returns the index of the interest period event e is in; of an
+// interest run, that of the first period ending.
+func (s *Schedule) Period(e *Event) int32 {
+	p := int32(e.Tick / s.period)
+	if e.Kind == Interest {
+		p--
+	}
+	return p
+}
+
+// indexed reports whether flow e is in money indexed to inflation with
+// indexes other than the start's (see [Schedule.IndexOf]).
+func (s *Schedule) indexed(e *Event) bool {
+	ia, ib := s.IndexOf(e)
+	return ia != 0 || ib != 0
+}
+
+// IndexOf returns the months of the inflation indexes of flow e: its
+// amount is multiplied by the inflation index at the start of month ia
+// over that at month ib, both 1 at fixed inflation. A random-inflation
+// walk reads them.
+func (s *Schedule) IndexOf(e *Event) (ia, ib int32) {
+	x := s.index[e.Src]
+	anniv := x.from + 12*int32(e.Year)
+	switch {
+	case x.grow && x.today:
+		ia = anniv
+	case x.grow:
+		ia, ib = anniv, x.from
+	case x.today:
+		ia = x.from
+	}
+	return ia, ib
+}
+
+// An indexing is how one source's amounts follow inflation (see
+// [StreamShape]): from its first month, in today's money, growing with
+// inflation.
+type indexing struct {
+	from        int32
+	today, grow bool
 }
 
 // A Shape is what a schedule's events depend on, and nothing else: package
@@ -114,10 +172,17 @@ type Schedule struct {
 	// amount in today's money, first indexed over part of a year); the
 	// opening balance and one-time amounts: 0, a unit of 1.
 	grow []float64
+	// index is, per source, how its amounts follow inflation.
+	index []indexing
 	// partial lists the flows and fees part way through an interest
 	// period (Tau < 1): the events a path's weights are computed for.
 	partial []int32
 	left    []int64 // the ticks left of the period for each of taus
+	// posts is the most movements a walk can post (see MaxPosts), and
+	// amounts how many of its events are amounts in or out (not income):
+	// counted as the events are laid down; -1 in a prefix, which counts
+	// its own when asked.
+	posts, amounts int
 }
 
 // Events returns the schedule's events in order; the caller must not
@@ -181,7 +246,11 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	s.period = TicksPerYear / int64(sh.PerYear)
 	s.accrue = sh.PerYear > 12
 	s.sources = 1 + len(sh.Streams) + len(sh.Once)
+	if s.sources > math.MaxInt16 || len(sh.StepFrom) > math.MaxUint8+1 {
+		panic("engine: a shape with more sources or rate steps than an event can index")
+	}
 	s.grow = make([]float64, s.sources)
+	s.index = make([]indexing, s.sources)
 	// Each stream's amounts come from a generator of their own, in tick
 	// order; the generators and the one-time amounts are merged as the
 	// events are laid down, so that no amount is stored but in the
@@ -193,11 +262,12 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		st := &sh.Streams[k]
 		src := int32(1 + k)
 		s.grow[src] = st.Grow
+		s.index[src] = indexing{from: st.From, today: st.Today, grow: st.GrowInflation}
 		if st.First != 1 {
 			s.grow[src] = math.NaN()
 		}
 		g := &f.gens[k]
-		*g = flowGen{st: st, src: src, P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
+		*g = flowGen{st: st, src: int16(src), P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
 		if t0 > g.from { // the first period whose amount falls after old's end
 			if st.Begin {
 				g.k = (t0 - g.from + g.P - 1) / g.P
@@ -220,10 +290,10 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		if on > f.end || on < m0 {
 			continue
 		}
-		src := int32(1 + len(sh.Streams) + k)
-		f.once = append(f.once, Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: src, Out: sh.OnceOut[k], Unit: 1, Month: on})
+		e := Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: int16(1 + len(sh.Streams) + k), Unit: 1}
+		f.once = append(f.once, onceFlow{e, orderKey(&e, sh.OnceOut[k])})
 	}
-	slices.SortFunc(f.once, eventOrder) // one-time amounts may be written in any order
+	slices.SortFunc(f.once, func(a, b onceFlow) int { return cmp.Compare(a.key, b.key) }) // one-time amounts may be written in any order
 	nFlows += int64(len(f.once))
 	f.init()
 	// the regular events, interest dates and month ends, in order, with the
@@ -250,25 +320,32 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	room := int64(sh.Months-m0)*perMonth + nFlows + nRuns
 	if old == nil {
 		c.ev = make([]Event, 0, room)
+		// Ti 0 is a whole period (Tau 1), so that the walk tells one by
+		// its index, without looking its fraction up
+		c.left, s.taus = []int64{s.period}, []float64{1}
 	} else {
 		c.ev = make([]Event, len(old.events), int64(len(old.events))+room)
 		copy(c.ev, old.events)
 		s.taus, c.left, s.partial = slices.Clone(old.taus), slices.Clone(old.left), slices.Clone(old.partial)
+		s.posts, s.amounts = old.posts, old.amounts
+		if old.posts < 0 {
+			s.posts, s.amounts = countPosts(old.events, old.accrue)
+		}
 		c.done = t0 / s.period
 	}
 	c.nextTick = (c.done + 1) * s.period
 	for m := m0; m < sh.Months; m++ {
 		t := int64(m+1) * TicksPerMonth
 		if s.accrue {
-			c.add(Event{Tick: t, Kind: Credit, Month: m})
+			c.add(Event{Tick: t, Kind: Credit})
 		}
 		if sh.Tax && (m+1)%12 == 0 {
-			c.add(Event{Tick: t, Kind: Tax, Month: m})
+			c.add(Event{Tick: t, Kind: Tax})
 		}
 		if sh.Fee {
-			c.add(Event{Tick: t, Kind: Fee, Month: m})
+			c.add(Event{Tick: t, Kind: Fee})
 		}
-		c.add(Event{Tick: t, Kind: Mark, Month: m})
+		c.add(Event{Tick: t, Kind: Mark})
 	}
 	for _, ok := f.next(); ok; _, ok = f.next() {
 		e := f.pop()
@@ -299,7 +376,7 @@ type compiler struct {
 
 // add lays down e after every amount that comes before it.
 func (c *compiler) add(e Event) {
-	for k := orderKey(&e); ; {
+	for k := orderKey(&e, false); ; {
 		if f, ok := c.f.next(); !ok || f > k {
 			break
 		}
@@ -331,39 +408,50 @@ func (c *compiler) interestTo(t int64) {
 			}
 		}
 		ti := first * s.period
-		c.ev = append(c.ev, Event{Tick: ti, Kind: Interest, Step: step, Period: int32(first - 1), Month: labelEnd(ti), Count: int32(end - first + 1)})
+		c.ev = append(c.ev, Event{Tick: ti, Kind: Interest, Step: uint8(step), Count: uint8(end - first + 1)})
+		if !s.accrue { // else posted at the credits
+			s.posts += int(end - first + 1)
+		}
 		c.done = end
 	}
 	c.nextTick = (c.done + 1) * s.period
 }
 
 // put appends e; an amount or a fee is given the fraction of the interest
-// period left until its credit, and the period and step it is in (the
-// distinct fractions are few, found by the ticks left).
+// period left until its credit and the step it is in (the distinct
+// fractions are few, found by the ticks left).
 func (c *compiler) put(e Event) {
+	s := c.s
 	switch e.Kind {
-	case Interest, Credit, Mark, Tax:
+	case Mark, Interest: // interest runs are laid down and counted by interestTo
+	case Credit, Tax:
 		// a tax falls at a year's end, an interest date of every
 		// compounding: it starts the next period
+		s.posts++
 	default:
-		s := c.s
+		s.posts++
+		if e.Kind != Income && e.Kind != Fee {
+			s.amounts++
+		}
 		q := c.done                // the period e is in: interestTo(e.Tick) came before
 		next := (q + 1) * s.period // a flow at a credit tick comes after the credit
 		r := next - e.Tick
 		if len(c.left) == 0 || c.left[c.k] != r {
 			c.k = int32(slices.Index(c.left, r))
 			if c.k < 0 {
+				if len(c.left) > math.MaxUint16 {
+					panic("engine: more distinct fractions of an interest period than an event can index")
+				}
 				c.k = int32(len(c.left))
 				c.left = append(c.left, r)
 				s.taus = append(s.taus, float64(r)/float64(s.period))
 			}
 		}
-		e.Tau, e.Ti = s.taus[c.k], c.k
-		if e.Tau < 1 {
+		e.Ti = uint16(c.k)
+		if s.taus[c.k] < 1 {
 			s.partial = append(s.partial, int32(len(c.ev)))
 		}
-		e.Period = int32(q)
-		e.Step = s.StepAt(next - s.period)
+		e.Step = uint8(s.StepAt(next - s.period))
 	}
 	c.ev = append(c.ev, e)
 }
@@ -371,7 +459,7 @@ func (c *compiler) put(e Event) {
 // A flowGen gives one stream's amounts in tick order, one at a time.
 type flowGen struct {
 	st          *StreamShape
-	src         int32
+	src         int16
 	P, from     int64   // ticks a period; the first period's start
 	lg, u       float64 // log(1 + grow); the unit of the year lastYear
 	k, lastYear int64   // the next period; the year of u
@@ -400,20 +488,14 @@ func (g *flowGen) advance(end int32, endTick int64) bool {
 		if label < st.Resume {
 			continue
 		}
-		e := Event{Tick: t, Kind: kd, Src: g.src, Out: st.Out, Unit: g.u, Year: int32(year), Month: label}
+		if year > math.MaxUint8 {
+			panic("engine: a stream of more years than an event can count")
+		}
+		e := Event{Tick: t, Kind: kd, Src: g.src, Unit: g.u, Year: uint8(year)}
 		if st.Income { // income is pooled for its month's withdrawals from the month's start
 			e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
 		}
-		anniv := st.From + 12*int32(year)
-		switch {
-		case st.GrowInflation && st.Today:
-			e.IA = anniv
-		case st.GrowInflation:
-			e.IA, e.IB = anniv, st.From
-		case st.Today:
-			e.IA = st.From
-		}
-		g.next, g.key = e, orderKey(&e)
+		g.next, g.key = e, orderKey(&e, st.Out)
 		return true
 	}
 }
@@ -426,7 +508,7 @@ func (g *flowGen) advance(end int32, endTick int64) bool {
 type flows struct {
 	gens    []flowGen
 	h       []int32 // indexes of gens with an amount left
-	once    []Event
+	once    []onceFlow
 	oi      int // the next of once
 	end     int32
 	endTick int64
@@ -464,7 +546,7 @@ func (f *flows) next() (uint64, bool) {
 		k, ok = f.gens[f.h[0]].key, true
 	}
 	if f.oi < len(f.once) {
-		if o := orderKey(&f.once[f.oi]); !ok || o < k {
+		if o := f.once[f.oi].key; !ok || o < k {
 			k, ok = o, true
 		}
 	}
@@ -473,9 +555,9 @@ func (f *flows) next() (uint64, bool) {
 
 // pop returns the next amount (there must be one) and moves past it.
 func (f *flows) pop() Event {
-	if f.oi < len(f.once) && (len(f.h) == 0 || orderKey(&f.once[f.oi]) < f.gens[f.h[0]].key) {
+	if f.oi < len(f.once) && (len(f.h) == 0 || f.once[f.oi].key < f.gens[f.h[0]].key) {
 		f.oi++
-		return f.once[f.oi-1]
+		return f.once[f.oi-1].e
 	}
 	g := &f.gens[f.h[0]]
 	e := g.next
@@ -507,37 +589,26 @@ func (s *Schedule) Prefix(months int32) *Schedule {
 		return 1
 	})
 	p.events = s.events[:n:n]
+	p.posts, p.amounts = -1, -1
 	k, _ := slices.BinarySearch(s.partial, int32(n))
 	p.partial = s.partial[:k:k]
 	return &p
 }
 
-// eventOrder orders events by tick, then kind, then money in before money
-// out, then source; tick, kind and source together are unique to an event,
-// so the order is total.
-func eventOrder(a, b Event) int {
-	if c := cmp.Compare(a.Tick, b.Tick); c != 0 {
-		return c
-	}
-	if c := cmp.Compare(a.Kind, b.Kind); c != 0 {
-		return c
-	}
-	if a.Out != b.Out {
-		if b.Out {
-			return -1
-		}
-		return 1
-	}
-	return cmp.Compare(a.Src, b.Src)
+// A onceFlow is a one-time amount and its order key.
+type onceFlow struct {
+	e   Event
+	key uint64
 }
 
-// orderKey returns e's place in event order (see eventOrder) as one
-// number: its tick, kind, money in before money out, and source, packed
-// (ticks are fewer than 2⁴⁰ over the longest plan, sources fewer than
-// 2¹⁹).
-func orderKey(e *Event) uint64 {
+// orderKey returns e's place in event order as one number: events come by
+// tick, then kind, then money in before money out (out), then source;
+// tick, kind and source together are unique to an event, so the order is
+// total. They are packed (ticks are fewer than 2⁴⁰ over the longest plan,
+// sources fewer than 2¹⁵).
+func orderKey(e *Event, out bool) uint64 {
 	k := uint64(e.Tick)<<24 | uint64(e.Kind)<<20 | uint64(e.Src)
-	if e.Out {
+	if out {
 		k |= 1 << 19
 	}
 	return k

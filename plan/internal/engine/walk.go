@@ -218,15 +218,30 @@ const (
 
 // A Post is one movement, in minor units.
 //
-// Its fields are laid out so that a Post takes 48 bytes: a ledger holds one
+// Its fields are laid out so that a Post takes 24 bytes: a ledger holds one
 // for every movement, and writing them is most of a projection's time.
+// What is rare is kept beside the posts (Log.Parts), and the balance after
+// each post is the running sum of the amounts that move it (see
+// [PostKind.Moves]) from Log.Opening.
 type Post struct {
-	Tick                   int64
-	Month                  int32
-	Src                    int16 // sources are fewer than [math.MaxInt16]
-	Kind                   PostKind
-	Amount, Balance, Short int64
-	Covered                int64 // a withdrawal: the part its month's income paid
+	Tick   int64
+	Amount int64
+	Month  int32
+	Src    int16 // sources are fewer than [math.MaxInt16]
+	Kind   PostKind
+}
+
+// Moves reports whether a posting of kind k moves the account's balance
+// by its amount: every kind but income, received outside the account,
+// and the part of an amount over a cap, gone elsewhere.
+func (k PostKind) Moves() bool { return k != PostIncome && k != PostOver }
+
+// A Part is what a withdrawal did not take from the account: Short, what
+// could not be paid, and Covered, what its month's income paid; Post is
+// the withdrawal's index in Log.Posts.
+type Part struct {
+	Post           int32
+	Short, Covered int64
 }
 
 // A Log records an exact walk: every movement, and the balance at each
@@ -234,6 +249,8 @@ type Post struct {
 type Log struct {
 	Posts    []Post
 	MonthEnd []int64
+	Opening  int64  // the balance before the first post
+	Parts    []Part // the withdrawals paid in part or by income, in order
 }
 
 // weights returns, for every rate step k and distinct tau i, what one unit
@@ -300,7 +317,7 @@ func roundAmount(x float64, m money.Multiplier, r money.Rounding) float64 {
 // rateOf returns the exact form of periodic rate j of rate step k: the
 // input's, when j is that step's rate (a simulated path's rate may be
 // another), else the float alone.
-func rateOf(in *Inputs, k int32, j float64) money.Multiplier {
+func rateOf(in *Inputs, k uint8, j float64) money.Multiplier {
 	if int(k) < len(in.RateM) && in.RateM[k].Float() == j {
 		return in.RateM[k]
 	}
@@ -493,6 +510,9 @@ func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -508,10 +528,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -567,7 +591,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -589,7 +613,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -631,11 +655,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -657,18 +681,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -676,10 +700,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -688,26 +712,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -715,13 +741,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -731,34 +757,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -777,19 +805,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -797,12 +825,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -823,7 +851,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -839,16 +867,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -857,9 +885,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -871,12 +899,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -890,6 +918,10 @@ events:
 	}
 	return res
 }
+
+// markMonth returns the month of month end e: [Event.Month] of a Mark,
+// whose tick is never 0, without a branch.
+func markMonth(e *Event) int32 { return int32(e.Tick/TicksPerMonth) - 1 }
 
 // lowest returns the lowest balance of an interest period, low before and
 // bal after a flow or fee with a fraction tau of the period left: at the
@@ -907,23 +939,25 @@ func lowest(low, bal, tau float64) float64 {
 // have a weight: one a whole period before its credit joins the interest
 // base instead, and the walk reads no weight for it.
 func (s *Schedule) Weights(p *Paths, in *Inputs) {
+	k, end := int64(0), s.period // the period of the events found so far, and its end
 	for _, i := range s.partial {
 		e := &s.events[i]
-		k := e.Period
-		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], e.Tau, e.Kind == Fee || in.Out[e.Src])
+		if e.Tick >= end { // in tick order: the period is found without a division
+			k = e.Tick / s.period
+			end = (k + 1) * s.period
+		}
+		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], s.taus[e.Ti], e.Kind == Fee || in.Out[e.Src])
 	}
 }
 
 // MaxMatchPosts returns the most employer contributions a walk of s can
 // post: one for each amount.
 func (s *Schedule) MaxMatchPosts() int {
-	n := 0
-	for i := range s.events {
-		if k := s.events[i].Kind; k == FlowEnd || k == FlowBegin {
-			n++
-		}
+	if s.posts < 0 { // a prefix
+		_, n := countPosts(s.events, s.accrue)
+		return n
 	}
-	return n
+	return s.amounts
 }
 
 // MaxOverPosts returns the most amounts over a yearly cap a walk of s can
@@ -932,28 +966,44 @@ func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
 
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
-// grow it.
-func (g *Log) post(tick int64, month int32, kind PostKind, src int32, x, bal, short, covered float64) {
+// grow it (but for a withdrawal's rare parts).
+func (g *Log) post(tick int64, month int32, kind PostKind, src int16, x, short, covered float64) {
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
-	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: int16(src), Amount: int64(x), Balance: int64(bal), Short: int64(short), Covered: int64(covered)}
+	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x)}
+	if short != 0 || covered != 0 {
+		g.Parts = append(g.Parts, Part{Post: int32(n), Short: int64(short), Covered: int64(covered)})
+	}
 }
 
 // MaxPosts returns the most movements a walk of s can post: a [Log] with
 // room for them grows no more during the walk. A walk with Inputs.Match
-// posts one more for each amount (see MaxMatchPosts).
+// posts one more for each amount (see MaxMatchPosts). The compiler counts
+// them as it lays the events down; a prefix counts its own.
 func (s *Schedule) MaxPosts() int {
-	n := 0
-	for i := range s.events {
-		switch e := &s.events[i]; e.Kind {
+	if s.posts < 0 {
+		n, _ := countPosts(s.events, s.accrue)
+		return n
+	}
+	return s.posts
+}
+
+// countPosts returns the most movements a walk of events can post, and
+// how many of them are amounts into or out of the account (not income).
+func countPosts(events []Event, accrue bool) (posts, amounts int) {
+	for i := range events {
+		switch e := &events[i]; e.Kind {
 		case Mark: // a month end posts nothing
 		case Interest: // a run of interest dates posts once a date at most, or at the credits
-			if !s.accrue {
-				n += int(e.Count)
+			if !accrue {
+				posts += int(e.Count)
 			}
+		case FlowEnd, FlowBegin:
+			posts++
+			amounts++
 		default:
-			n++
+			posts++
 		}
 	}
-	return n
+	return posts, amounts
 }

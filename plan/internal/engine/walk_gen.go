@@ -110,6 +110,9 @@ func walkExact(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -125,10 +128,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -184,7 +191,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -206,7 +213,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -248,11 +255,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -274,18 +281,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -293,10 +300,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -305,26 +312,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -332,13 +341,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -348,34 +357,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -394,19 +405,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -414,12 +425,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -440,7 +451,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -456,16 +467,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -474,9 +485,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -488,12 +499,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -573,6 +584,9 @@ func walkReach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -588,10 +602,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -647,7 +665,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -669,7 +687,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -711,11 +729,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -737,18 +755,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -756,10 +774,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -768,26 +786,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -795,13 +815,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -811,34 +831,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -857,19 +879,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -877,12 +899,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -903,7 +925,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -919,16 +941,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -937,9 +959,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -951,12 +973,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -1036,6 +1058,9 @@ func walkLedger(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1051,10 +1076,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1110,7 +1139,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -1132,7 +1161,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -1174,11 +1203,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -1200,18 +1229,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -1219,10 +1248,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1231,26 +1260,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -1258,13 +1289,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -1274,34 +1305,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -1320,19 +1353,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -1340,12 +1373,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -1366,7 +1399,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -1382,16 +1415,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -1400,9 +1433,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -1414,12 +1447,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -1499,6 +1532,9 @@ func walkPaths(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1514,10 +1550,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -1573,7 +1613,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -1595,7 +1635,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -1637,11 +1677,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -1663,18 +1703,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -1682,10 +1722,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -1694,26 +1734,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -1721,13 +1763,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -1737,34 +1779,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -1783,19 +1827,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -1803,12 +1847,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -1829,7 +1873,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -1845,16 +1889,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -1863,9 +1907,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -1877,12 +1921,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -1962,6 +2006,9 @@ func walkSlope(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -1977,10 +2024,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2036,7 +2087,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -2058,7 +2109,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -2100,11 +2151,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -2126,18 +2177,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -2145,10 +2196,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2157,26 +2208,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -2184,13 +2237,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -2200,34 +2253,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -2246,19 +2301,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -2266,12 +2321,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -2292,7 +2347,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -2308,16 +2363,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -2326,9 +2381,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -2340,12 +2395,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -2425,6 +2480,9 @@ func walkEach(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -2440,10 +2498,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2499,7 +2561,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -2521,7 +2583,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -2563,11 +2625,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -2589,18 +2651,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -2608,10 +2670,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -2620,26 +2682,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -2647,13 +2711,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -2663,34 +2727,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -2709,19 +2775,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -2729,12 +2795,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -2755,7 +2821,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -2771,16 +2837,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -2789,9 +2855,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -2803,12 +2869,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -2888,6 +2954,9 @@ func walkExactAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -2903,10 +2972,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -2962,7 +3035,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -2984,7 +3057,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3026,11 +3099,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -3052,18 +3125,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3071,10 +3144,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3083,26 +3156,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -3110,13 +3185,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -3126,34 +3201,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -3172,19 +3249,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -3192,12 +3269,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -3218,7 +3295,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -3234,16 +3311,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -3252,9 +3329,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -3266,12 +3343,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -3351,6 +3428,9 @@ func walkReachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -3366,10 +3446,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3425,7 +3509,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -3447,7 +3531,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3489,11 +3573,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -3515,18 +3599,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3534,10 +3618,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -3546,26 +3630,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -3573,13 +3659,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -3589,34 +3675,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -3635,19 +3723,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -3655,12 +3743,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -3681,7 +3769,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -3697,16 +3785,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -3715,9 +3803,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -3729,12 +3817,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -3814,6 +3902,9 @@ func walkLedgerAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -3829,10 +3920,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -3888,7 +3983,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -3910,7 +4005,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -3952,11 +4047,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -3978,18 +4073,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -3997,10 +4092,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4009,26 +4104,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -4036,13 +4133,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -4052,34 +4149,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -4098,19 +4197,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -4118,12 +4217,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -4144,7 +4243,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -4160,16 +4259,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -4178,9 +4277,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -4192,12 +4291,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -4277,6 +4376,9 @@ func walkEachAccrue(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if none {
 		low = base
 	}
+	if logged {
+		o.Log.Opening = int64(bal)
+	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
 	// before its Unit) and the year it was decided for.
 	var ruledAmt []float64
@@ -4292,10 +4394,14 @@ events:
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
-			for c := range e.Count { // each interest date of the run
+			var p0 int32 // the period the run's first date ends (Options.Paths)
+			if paths {
+				p0 = s.Period(e)
+			}
+			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
 				if paths {
-					j = o.Paths.J[e.Period+c]
+					j = o.Paths.J[p0+c]
 				} else {
 					j = in.Rates[e.Step]
 				}
@@ -4351,7 +4457,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, bal, 0, 0)
+					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -4373,7 +4479,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month, PostInterest, 0, x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -4415,11 +4521,11 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostTax, 0, -x, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], e.Tau, none)
+				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -4441,18 +4547,18 @@ events:
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					dv.base -= df
 				} else {
 					dv.acc -= df*w[wi] + f*dv.dw[wi]
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if e.Tau == 1 { // a whole period's interest: part of the next base
+			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -4460,10 +4566,10 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFee, 0, -f, bal, 0, 0)
+				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
-			m := e.Month
+			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
 				clear(ea.pool)
@@ -4472,26 +4578,28 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[m] = int64(bal)
+				o.Log.MonthEnd[markMonth(e)] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[m] = bal / scale
+				o.MonthEnds[markMonth(e)] = bal / scale
 			}
+			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				if row := o.Rows[m]; row != nil {
-					row[o.Path] = bal
-				}
+				row = o.Rows[markMonth(e)]
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
-			if reach && o.Reach(m, bal/scale) {
-				res.Reached, res.ReachMonth = true, m
+			if reach && o.Reach(markMonth(e), bal/scale) {
+				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], e.Tau, none)
+				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -4499,13 +4607,13 @@ events:
 				// valued alone like any other source
 				if slope {
 					if none {
-						dv.low = dlowest(low, bal+pool+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
-					if e.Tau != 1 {
+					if e.Ti != 0 {
 						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
 					}
 				}
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
@@ -4515,34 +4623,36 @@ events:
 				bal += pool
 				pool = 0
 				if none {
-					low = lowest(low, bal+accrued, e.Tau)
+					low = lowest(low, bal+accrued, s.taus[e.Ti])
 				}
 			}
-			if one && e.Src != o.Source {
+			if one && int32(e.Src) != o.Source {
 				continue
 			}
 			a := in.Amounts[e.Src] * scale
-			if set && e.Src == in.SetSrc {
+			if set && int32(e.Src) == in.SetSrc {
 				a = in.Set[i] * scale
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != e.Year { // an anniversary: decide the year's amount
+				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
 					u := e.Unit
-					if infl && (e.IA != 0 || e.IB != 0) {
-						u = u * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+					if infl && s.indexed(e) {
+						ia, ib := s.IndexOf(e)
+						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					}
 					first := ruleYear[e.Src] < 0
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
 					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
-					ruleYear[e.Src] = e.Year
+					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale
 			}
 			x := a * e.Unit
-			if infl && (e.IA != 0 || e.IB != 0) {
-				x = x * o.Paths.Infl[e.IA] / o.Paths.Infl[e.IB]
+			if infl && s.indexed(e) {
+				ia, ib := s.IndexOf(e)
+				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 				if exact {
 					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
 				}
@@ -4561,19 +4671,19 @@ events:
 				if e.Kind == Income {
 					ea.pool[e.Src] += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], e.Tau, none)
+					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostIncome, e.Src, x, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month / 12; y != capYear {
+				if y := e.Month() / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -4581,12 +4691,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month / 12; y != matchYear {
+				if y := e.Month() / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -4607,7 +4717,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -4623,16 +4733,16 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal, short, covered)
+					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
 				if none {
-					dv.low = dlowest(low, bal+accrued, e.Tau, dv.low, dv.bal+dv.accrued)
+					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
-				if e.Tau != 1 {
+				if e.Ti != 0 {
 					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
@@ -4641,9 +4751,9 @@ events:
 				}
 			}
 			if none {
-				low = lowest(low, bal+accrued, e.Tau)
+				low = lowest(low, bal+accrued, s.taus[e.Ti])
 			}
-			if in := x + emp; e.Tau == 1 { // a whole period's interest: part of the next base
+			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
 				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
@@ -4655,12 +4765,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month, PostFlow, e.Src, x, bal-emp, short, covered)
+				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month, PostMatch, e.Src, emp, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month, PostOver, e.Src, over, bal, 0, 0)
+					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -4748,11 +4858,16 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 		e := &s.events[i]
 		switch e.Kind {
 		case Interest:
+			var p0 int32
+			_ = p0
+			{
+				p0 = s.Period(e)
+			}
 			for l := range Lanes {
-				for c := range e.Count {
+				for c := range int32(e.Count) {
 					var j float64
 					{
-						j = ps[l].J[e.Period+c]
+						j = ps[l].J[p0+c]
 					}
 
 					b, plus := base[l], acc[l]
@@ -4826,7 +4941,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					}
 				}
 				bal[l] -= f
-				if e.Tau == 1 {
+				if e.Ti == 0 {
 					base[l] -= f
 				} else if !paths {
 					acc[l] -= f * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
@@ -4835,24 +4950,26 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				}
 			}
 		case Mark:
-			m := e.Month
-			_ = m
 			for l := range Lanes {
 				pool[l] = 0
 			}
 			if o.MonthEnds != nil {
 				for l := range Lanes {
-					o.MonthEnds[m] = bal[l] / scale
+					o.MonthEnds[markMonth(e)] = bal[l] / scale
 				}
 			}
+			var row []float64
+			_ = row
 			if o.Rows != nil {
-				for l := range Lanes {
-					if row := o.Rows[m]; row != nil {
-						row[at[l]] = bal[l]
-					}
+				row = o.Rows[markMonth(e)]
+			}
+			for l := range Lanes {
+				row := row
+				if row != nil {
+					row[at[l]] = bal[l]
 				}
 			}
-			if o.HasDeadline && m == o.Deadline {
+			if o.HasDeadline && markMonth(e) == o.Deadline {
 				for l := range Lanes {
 					res[l].AtDeadline = bal[l]
 				}
@@ -4893,7 +5010,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					}
 					if exact && -x > bal[l] {
 						if !res[l].Short {
-							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month
+							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month()
 						}
 						paid := max(bal[l], 0)
 						short, x = -x-paid, -paid
@@ -4907,7 +5024,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					continue
 				}
 				bal[l] += emp
-				if in := x + emp; e.Tau == 1 {
+				if in := x + emp; e.Ti == 0 {
 					base[l] += in
 				} else if !paths {
 					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
