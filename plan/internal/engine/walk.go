@@ -359,9 +359,6 @@ func roundMinor(x float64, r money.Rounding) float64 {
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
 	f := flagsOf(s, in, o)
-	if r, ok := walkFixed(s, in, o, f); ok {
-		return r
-	}
 	return walk(s, in, o, f)
 }
 
@@ -436,16 +433,14 @@ func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 	}
 }
 
-// walk is [Walk] under flags f. It is written once, here; walk_gen.go
-// holds copies of it for the commonest flags (see fixedWalks in
-// walkgen_test.go), generated from this source with those flags made
-// constants, so that the compiler drops what such a walk never does and
-// its loop keeps its balances in registers, and the lane copies
-// [WalkLanes] runs (laneWalks there). Every per-walk decision is read from
-// a flag declared at the top of the body, one a line, which is what the
-// generator replaces; the lane copies also need the walk's state declared
-// before its loop of events, with its type, and the loop to be one switch
-// on the event's kind (the generator says so when they are not).
+// walk is [Walk] under flags f: the one walk, written once, here.
+// walk_gen.go holds its lane form, which [WalkLanes] runs (laneWalks in
+// walkgen_test.go), generated from this source with the simulation's flags
+// made constants. Every per-walk decision is read from a flag declared at
+// the top of the body, one a line, which is what the generator replaces;
+// the lane form also needs the walk's state declared before its loop of
+// events, with its type, and the loop to be one switch on the event's kind
+// (the generator says so when they are not).
 func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	exact := f.exact
 	paths := f.paths
