@@ -33,18 +33,21 @@ func Describe(p *Plan, g *Goal) GoalView {
 		v.PerCredit = append(v.PerCredit, st.Rate.PerPeriod(v.Compounding))
 	}
 	s := compile(p, g, v.Horizon)
-	for _, st := range streams(g) {
-		sv := StreamView{Stream: st, PerYear: st.Every.PerYear(), RatePerPeriod: g.Rates[0].Rate.PerPeriod(st.Every)}
-		idx := s.sourceIndex(st)
-		for _, e := range s.events {
-			if flowOf(&e, idx) {
-				if sv.Count == 0 {
-					sv.First = p.Start + Month(e.Month())
-				}
-				sv.Last = p.Start + Month(e.Month())
-				sv.Count++
+	// one pass over the events for every stream's count, first and last
+	views := make([]StreamView, len(s.sources))
+	for _, e := range s.events {
+		if i := int(e.Src); flowOf(&e, e.Src) && i < len(views) {
+			sv := &views[i]
+			if sv.Count == 0 {
+				sv.First = p.Start + Month(e.Month())
 			}
+			sv.Last = p.Start + Month(e.Month())
+			sv.Count++
 		}
+	}
+	for _, st := range streams(g) {
+		sv := views[s.sourceIndex(st)]
+		sv.Stream, sv.PerYear, sv.RatePerPeriod = st, st.Every.PerYear(), g.Rates[0].Rate.PerPeriod(st.Every)
 		v.Streams = append(v.Streams, sv)
 	}
 	return v

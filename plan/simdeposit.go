@@ -69,7 +69,7 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 		return nil, noSolution(g, "the goal has no deposits to solve for (add deposits:)")
 	}
 	s := compile(p, g, g.By)
-	if err := checkSimulation(s, st.paths, simDepositPasses); err != nil {
+	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {
 		return nil, err
 	}
 	idx := s.sourceIndex(dep)

@@ -58,7 +58,7 @@ func SolveStartSim(p *Plan, g *Goal, level float64, opts SimOptions) (*SimStart,
 		end = g.By
 	}
 	s := compile(p, g, end)
-	if err := checkSimulation(s, st.paths, simDepositPasses); err != nil {
+	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {
 		return nil, err
 	}
 	pg := newSimProgram(s, st, false)

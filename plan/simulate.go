@@ -44,6 +44,9 @@ type SimOptions struct {
 	// InflationVolatility, when set, replaces the plan's inflation
 	// volatility.
 	InflationVolatility *float64
+	// Work, when set, is the budget this simulation shares with the
+	// others one command makes (see [Work]); nil: its own.
+	Work *Work
 }
 
 // A VolatilitySource says where a simulation's volatility came from.
@@ -263,7 +266,7 @@ func simulate(p *Plan, g *Goal, opts SimOptions, pr *params, rawOut **simRaw) (*
 	}
 	end := Horizon(p, g)
 	s := compile(p, g, end)
-	if err := checkSimulation(s, st.paths, 1); err != nil {
+	if err := checkSimulation(s, st.paths, 1, opts.Work); err != nil {
 		return nil, err
 	}
 	if pr == nil {

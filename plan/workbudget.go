@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"errors"
 	"fmt"
 
 	"cairn/money"
@@ -12,25 +13,31 @@ import (
 // file, not how its streams multiply: 50 daily streams over 150 years are
 // 2.7 million amounts. So before a goal is compiled, the events of its
 // schedule through the plan's last month (the longest any command compiles)
-// are counted from its shape, and a goal over MaxEvents is refused with its
-// position, in every command alike; a simulation is refused when its paths
-// times its events pass MaxSimulationSteps. Both are counted, not timed, so
-// the answer does not depend on the machine.
+// are counted from its shape, and a goal over MaxEvents, or a file over
+// MaxFileEvents, is refused with its position, in every command alike; a
+// simulation is refused when its paths times its events pass
+// MaxSimulationSteps. Both are counted, not timed, so the answer does not
+// depend on the machine.
 const (
 	// MaxEvents is the most events one goal's schedule may have through
-	// the plan's last month: a daily stream over the whole 150 years is
-	// about 110,000 (its amounts and the interest dates between them), a
-	// monthly one about 3,600. 500,000 events are 12 MB and a few
-	// milliseconds a walk.
-	MaxEvents = 500_000
+	// the plan's last month, counted from above: a daily stream over the
+	// whole 150 years is about 110,000 (its amounts and the interest dates
+	// between them), a monthly one about 3,600, the 50 daily streams a goal
+	// may have about 5,480,000 (some 2.8 million compiled: 67 MB of events,
+	// a few tens of milliseconds a walk).
+	MaxEvents = 6_000_000
 	// MaxFileEvents is the most events all of a file's goals may have
 	// together: a household status walks each goal's schedule about ten
 	// times.
-	MaxFileEvents = 2_000_000
+	MaxFileEvents = 6_000_000
 	// MaxSimulationSteps is the most paths × events a simulation may walk
 	// (a deposit search counted as simDepositPasses passes): at about 6 ns
 	// a step, some 3 seconds of one core.
 	MaxSimulationSteps = 500_000_000
+	// MaxReportSimulationSteps is the most steps a report's bands may take
+	// together (see [Work]): a goal past it is shown without its band, so
+	// that a report of many volatile goals still prints in a few seconds.
+	MaxReportSimulationSteps = 150_000_000
 	// simDepositPasses is what [SolveDeposit] is counted as: its first
 	// guess takes two passes over every path, and its search of whole
 	// minor units from the guess usually three more (the example file's
@@ -87,14 +94,42 @@ func (p *Plan) checkFileWork() (*Goal, error) {
 	return nil, nil
 }
 
-// checkSimulation reports an error if simulating paths paths over schedule
-// s, passes times, would pass [MaxSimulationSteps] in all.
-func checkSimulation(s *schedule, paths, passes int) error {
+// ErrWork is the error of a simulation refused because its steps would
+// pass what one command may take (see [MaxSimulationSteps], [Work]).
+var ErrWork = errors.New("over the work budget")
+
+// workError is a simulation's refusal: errors.Is(err, ErrWork).
+type workError string
+
+func (e workError) Error() string        { return string(e) }
+func (e workError) Is(target error) bool { return target == ErrWork }
+
+// A Work is a simulation budget shared by the simulations one command
+// makes (a report's bands, see [SimOptions.Work]): each takes its steps
+// from what the ones before it left, and one that would pass that is
+// refused.
+type Work struct{ limit, used int64 }
+
+// NewWork returns a budget of steps simulation steps, at most
+// [MaxSimulationSteps].
+func NewWork(steps int64) *Work { return &Work{limit: min(steps, MaxSimulationSteps)} }
+
+// checkSimulation reports an error wrapping [ErrWork] if simulating paths
+// paths over schedule s, passes times, would pass [MaxSimulationSteps] in
+// all, or what w has left of it; otherwise it takes the steps from w (nil:
+// a command's only simulation).
+func checkSimulation(s *schedule, paths, passes int, w *Work) error {
 	steps := int64(paths) * int64(len(s.events)) * int64(passes)
-	if steps > MaxSimulationSteps {
-		return fmt.Errorf("simulating %s paths over %s events%s is %s steps, more than the %s one command may take; ask for fewer paths or a shorter plan",
-			group(int64(paths)), group(int64(len(s.events))), map[bool]string{true: fmt.Sprintf(" %d times over", passes), false: ""}[passes > 1],
-			group(steps), group(MaxSimulationSteps))
+	what := fmt.Sprintf("simulating %s paths over %s events%s is %s steps", group(int64(paths)), group(int64(len(s.events))),
+		map[bool]string{true: fmt.Sprintf(" %d times over", passes), false: ""}[passes > 1], group(steps))
+	switch {
+	case w == nil && steps > MaxSimulationSteps:
+		return workError(fmt.Sprintf("%s, more than the %s one command may take; ask for fewer paths or a shorter plan", what, group(MaxSimulationSteps)))
+	case w != nil && steps > w.limit-w.used:
+		return workError(fmt.Sprintf("%s, more than the %s left of the %s the command's simulations share", what, group(w.limit-w.used), group(w.limit)))
+	}
+	if w != nil {
+		w.used += steps
 	}
 	return nil
 }

@@ -60,8 +60,8 @@ func TestWorkBudgetRefused(t *testing.T) {
 	tests := []struct {
 		name, src, want string
 	}{
-		{"one goal, 50 daily streams", budgetFile(1, 50), `budget.yaml:4:5: goal "g0": its amounts and interest dates come to about 5,482,301 events`},
-		{"20 goals, one daily stream each", budgetFile(20, 1), `goal "g17": with the goals before it`},
+		{"60 goals, one daily stream each", budgetFile(60, 1), `budget.yaml:361:5: goal "g51": with the goals before it, the plan's amounts and interest dates come to about 6,068,556 events`},
+		{"two goals of 50 daily streams", budgetFile(2, 50), `goal "g1": with the goals before it`},
 	}
 	for _, tt := range tests {
 		_, err := Parse("budget.yaml", []byte(tt.src), 0)
@@ -69,26 +69,27 @@ func TestWorkBudgetRefused(t *testing.T) {
 			t.Errorf("%s: Parse error %v, want one containing %q", tt.name, err, tt.want)
 		}
 	}
-	// 20 weekly streams are within the budget; every day they are not
-	weekly := strings.ReplaceAll(budgetFile(1, 20), "every: day", "every: week")
+	// two goals of 50 weekly streams are within the budget; every day
+	// they are not
+	weekly := strings.ReplaceAll(budgetFile(2, 50), "every: day", "every: week")
 	p, err := Parse("budget.yaml", []byte(weekly), 0)
 	if err != nil {
-		t.Fatalf("20 weekly streams: %v", err)
+		t.Fatalf("50 weekly streams: %v", err)
 	}
 	if _, _, err := p.With("g0", "s0", []Override{{Key: "every", Value: "day"}}); err != nil {
 		t.Errorf("one of them daily: %v, want it within the budget", err)
 	}
 	q := p
-	for k := range 20 {
-		if q, _, err = q.With("g0", fmt.Sprintf("s%d", k), []Override{{Key: "every", Value: "day"}}); err != nil {
-			if !strings.Contains(err.Error(), "more than the 500,000 one goal may have") {
+	for k := range 100 {
+		if q, _, err = q.With(fmt.Sprintf("g%d", k/50), fmt.Sprintf("s%d", k%50), []Override{{Key: "every", Value: "day"}}); err != nil {
+			if !strings.Contains(err.Error(), "more than the 6,000,000 one file may have") {
 				t.Errorf("stream %d made daily: %v, want the budget's refusal", k, err)
 			}
 			break
 		}
 	}
 	if err == nil {
-		t.Errorf("20 daily streams were accepted through --set")
+		t.Errorf("100 daily streams were accepted through --set")
 	}
 	// simulating 100,000 paths over a goal of four daily streams
 	p, err = Parse("budget.yaml", []byte(budgetFile(1, 4)), 0)
@@ -108,30 +109,38 @@ func TestWorkBudgetRefused(t *testing.T) {
 // cache no larger than its bound.
 func TestWorkBudgetWorstWithinLimits(t *testing.T) {
 	if testing.Short() {
-		t.Skip("a status over 2 million events")
+		t.Skip("a status over 5 million events")
 	}
-	src := budgetFile(16, 1) // 16 × about 123,000 events: just within 2,000,000
-	var before, after runtime.MemStats
-	runtime.GC()
-	runtime.ReadMemStats(&before)
-	walks := engine.Walks()
-	p, err := Parse("worst.yaml", []byte(src), 0)
-	if err != nil {
-		t.Fatal(err)
-	}
-	st := StatusOf(p)
-	runtime.ReadMemStats(&after)
-	walks = engine.Walks() - walks
-	if alloc := after.TotalAlloc - before.TotalAlloc; alloc > 200<<20 {
-		t.Errorf("parse and status allocated %d MB, want at most 200 MB", alloc>>20)
-	}
-	if max := int64(16 * 20); walks > max {
-		t.Errorf("parse and status walked %d times, want at most %d (20 a goal)", walks, max)
-	}
-	if n := p.cache.Events(); n > engine.MaxCachedEvents {
-		t.Errorf("the cache holds %d events, over its bound %d", n, engine.MaxCachedEvents)
-	}
-	if len(st.Goals) != 16 || st.Goals[0].OnTrack {
-		t.Errorf("status of %d goals, first on track %v; want 16, not on track", len(st.Goals), st.Goals[0].OnTrack)
+	for _, tt := range []struct {
+		name         string
+		goals, count int
+	}{
+		{"51 goals of a daily stream", 51, 1},   // 51 × about 119,000 events: just within 6,000,000
+		{"one goal of 50 daily streams", 1, 50}, // the most streams a goal may have, about 5,482,000
+	} {
+		src := budgetFile(tt.goals, tt.count)
+		var before, after runtime.MemStats
+		runtime.GC()
+		runtime.ReadMemStats(&before)
+		walks := engine.Walks()
+		p, err := Parse("worst.yaml", []byte(src), 0)
+		if err != nil {
+			t.Fatalf("%s: %v", tt.name, err)
+		}
+		st := StatusOf(p)
+		runtime.ReadMemStats(&after)
+		walks = engine.Walks() - walks
+		if alloc := after.TotalAlloc - before.TotalAlloc; alloc > 200<<20 {
+			t.Errorf("%s: parse and status allocated %d MB, want at most 200 MB", tt.name, alloc>>20)
+		}
+		if max := int64(tt.goals * 20); walks > max {
+			t.Errorf("%s: parse and status walked %d times, want at most %d (20 a goal)", tt.name, walks, max)
+		}
+		if n := p.cache.Events(); n > engine.MaxCachedEvents {
+			t.Errorf("%s: the cache holds %d events, over its bound %d", tt.name, n, engine.MaxCachedEvents)
+		}
+		if len(st.Goals) != tt.goals || st.Goals[0].OnTrack {
+			t.Errorf("%s: status of %d goals, first on track %v; want %d, not on track", tt.name, len(st.Goals), st.Goals[0].OnTrack, tt.goals)
+		}
 	}
 }

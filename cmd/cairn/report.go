@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"html/template"
 	"path/filepath"
@@ -117,14 +118,18 @@ type simBand struct {
 	Points              []bandPoint
 }
 
-// goalSim returns the simulation of goal g from [plan.Simulate], or nil
-// when neither the goal's returns nor the plan's inflation have a
-// volatility, or the goal draws on the budget (see simBudgetWords).
-func goalSim(p *plan.Plan, g *plan.Goal) (*plan.Simulation, error) {
+// goalSim returns the simulation of goal g from [plan.Simulate], within
+// what work has left of the report's simulation budget, or nil when
+// neither the goal's returns nor the plan's inflation have a volatility, or
+// the goal draws on the budget (see simBudgetWords).
+func goalSim(p *plan.Plan, g *plan.Goal, work *plan.Work) (*plan.Simulation, error) {
 	if !volatile(p, g) || g.Priority > 0 && p.Budget != nil {
 		return nil, nil
 	}
-	sim, err := plan.Simulate(p, g, plan.SimOptions{Paths: reportPaths, Seed: reportSeed})
+	sim, err := plan.Simulate(p, g, plan.SimOptions{Paths: reportPaths, Seed: reportSeed, Work: work})
+	if errors.Is(err, plan.ErrWork) {
+		return nil, err
+	}
 	if err != nil {
 		return nil, &inputError{err: fmt.Errorf("%s: simulation: %v", g.Name, err)}
 	}
@@ -135,6 +140,12 @@ func goalSim(p *plan.Plan, g *plan.Goal) (*plan.Simulation, error) {
 // volatility.
 func volatile(p *plan.Plan, g *plan.Goal) bool {
 	return g.HasVolatility && g.Volatility > 0 || p.HasInflationVolatility && p.InflationVolatility > 0
+}
+
+// simWorkWords says why a goal with a volatility is not simulated: its
+// paths would pass what the report may take (err, from plan).
+func simWorkWords(err error) string {
+	return "not simulated in this report, and no band is drawn: " + err.Error() + " (cairn simulate --goal with --paths simulates it alone)"
 }
 
 // simBudgetWords says why a goal drawing on the budget is not simulated.
@@ -216,8 +227,9 @@ func buildReport(p *plan.Plan, cases []plan.Case) ([]byte, []render.Notice, erro
 		pg.Parts = append(pg.Parts, scenariosPart(cases, p == cases[0].Plan))
 	}
 	drawdown := false
+	work := plan.NewWork(plan.MaxReportSimulationSteps) // the bands share one budget
 	for i, gs := range st.Goals {
-		gf, err := figuresOf(p, gs)
+		gf, err := figuresOf(p, gs, work)
 		if err != nil {
 			return nil, nil, err
 		}
@@ -322,14 +334,17 @@ func budgetFacts(p *plan.Plan, st *plan.Status) *render.Facts {
 type goalFigures struct {
 	plan.GoalStatus
 	Sim       *plan.Simulation // nil when the goal's returns are fixed
+	SimErr    error            // why a goal with a volatility is not simulated: the report's work budget
 	Income    *plan.Answer     // the largest sustainable withdrawal, for a goal with withdrawals
 	IncomeErr error
 }
 
-func figuresOf(p *plan.Plan, gs plan.GoalStatus) (goalFigures, error) {
+func figuresOf(p *plan.Plan, gs plan.GoalStatus, work *plan.Work) (goalFigures, error) {
 	gf := goalFigures{GoalStatus: gs}
 	var err error
-	if gf.Sim, err = goalSim(p, gs.Goal); err != nil {
+	if gf.Sim, err = goalSim(p, gs.Goal, work); errors.Is(err, plan.ErrWork) {
+		gf.SimErr = err
+	} else if err != nil {
 		return gf, err
 	}
 	if hasDrawdown(gs.Goal) {
@@ -502,6 +517,8 @@ func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
 		add("Simulated paths reaching the target", fmt.Sprintf("%s of %s at the deadline%s", share(sim.Success), render.Grouped(sim.Paths), simWords(sim)))
 	} else if gf.Share != nil && volatile(p, g) {
 		add("Simulated paths reaching the target", simBudgetWords)
+	} else if gf.SimErr != nil && g.HasTarget {
+		add("Simulated paths reaching the target", simWorkWords(gf.SimErr))
 	}
 	if !hasDrawdown(g) {
 		return fs
@@ -526,6 +543,8 @@ func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
 	}
 	if sim := gf.Sim; sim != nil && sim.HasWithdrawals {
 		add("Simulated paths that last", fmt.Sprintf("%s of %s pay every planned withdrawal through %s%s", share(sim.Lasts), render.Grouped(sim.Paths), sim.LastWithdrawal, simWords(sim)))
+	} else if gf.SimErr != nil {
+		add("Simulated paths that last", simWorkWords(gf.SimErr))
 	} else {
 		add("Simulated paths that last", "not simulated: the file gives fixed returns (no volatility), so the lines above are the only path")
 	}

@@ -20,8 +20,10 @@ type Cache struct {
 }
 
 // MaxCachedEvents bounds a cache by the events it holds (an event is 24
-// bytes): past it, the cache starts afresh.
-const MaxCachedEvents = 1 << 20
+// bytes, so about 100 MB): past it, the cache starts afresh. It holds the
+// largest schedule a goal may have (plan's work budget, 6,000,000 events
+// counted from above: about 2.8 million compiled).
+const MaxCachedEvents = 1 << 22
 
 // Key returns the cache key of shape sh: every field of it, encoded in
 // order by reflection (see appendKey), so a field added to [Shape] is in
