@@ -94,7 +94,10 @@ func AnnuityRate(n, opening, level, final float64, atStart bool) (float64, error
 			dxOld, dx = dx, v/d
 			i -= dx
 		}
-		if math.Abs(dx) <= 1e-15*math.Max(1, math.Abs(i)) {
+		// a Newton step this small leaves an error of about its square
+		// (quadratic convergence); a halving, at most itself: well inside
+		// what a rate shown to 1e-8 or a balance to the cent needs
+		if math.Abs(dx) <= 1e-10*math.Max(1, math.Abs(i)) {
 			return i, nil
 		}
 		if v, d = f(i); v == 0 {
