@@ -334,24 +334,32 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		c.done = t0 / s.period
 	}
 	c.nextTick = (c.done + 1) * s.period
+	c.sorted = slices.IsSorted(sh.StepFrom)
 	for m := m0; m < sh.Months; m++ {
+		// at a month end come, in order: the amounts before it, its
+		// interest, the credit, the tax, the fee, the amounts at the end
+		// of their periods, and the mark (see [Kind]); an amount has no
+		// kind of those between
 		t := int64(m+1) * TicksPerMonth
+		c.flowsBefore(orderKey(&Event{Tick: t, Kind: Credit}, false))
+		c.interestTo(t)
 		if s.accrue {
-			c.add(Event{Tick: t, Kind: Credit})
+			c.lay(t, Credit)
+			s.posts++
 		}
 		if sh.Tax && (m+1)%12 == 0 {
-			c.add(Event{Tick: t, Kind: Tax})
+			// a tax falls at a year's end, an interest date of every
+			// compounding: it starts the next period
+			c.lay(t, Tax)
+			s.posts++
 		}
 		if sh.Fee {
-			c.add(Event{Tick: t, Kind: Fee})
+			c.put(t, Fee, 0, 0, 0)
 		}
-		c.add(Event{Tick: t, Kind: Mark})
+		c.flowsBefore(orderKey(&Event{Tick: t, Kind: Mark}, false))
+		c.lay(t, Mark)
 	}
-	for _, ok := f.next(); ok; _, ok = f.next() {
-		e := f.pop()
-		c.interestTo(e.Tick)
-		c.put(e)
-	}
+	c.flowsBefore(math.MaxUint64)
 	c.interestTo(s.endTick)
 	s.events, s.left = c.ev, c.left
 	return s
@@ -372,20 +380,64 @@ type compiler struct {
 	// index of the last one found
 	left []int64
 	k    int32
+	// sorted says the rate steps begin in order, so that the step in
+	// force is found by moving on from the last one: runSteps and
+	// putSteps count the steps begun by the last interest run's start and
+	// by the last amount's period's start
+	sorted             bool
+	runSteps, putSteps int
 }
 
-// add lays down e after every amount that comes before it.
-func (c *compiler) add(e Event) {
-	for k := orderKey(&e, false); ; {
-		if f, ok := c.f.next(); !ok || f > k {
-			break
+// flowsBefore lays down the amounts whose order key is below k.
+func (c *compiler) flowsBefore(k uint64) {
+	f := c.f
+	for f.key < k {
+		if f.oi < len(f.once) && f.once[f.oi].key == f.key { // order keys are unique
+			e := &f.once[f.oi].e
+			c.interestTo(e.Tick)
+			c.put(e.Tick, e.Kind, e.Src, e.Unit, e.Year)
+			f.oi++
+		} else {
+			g := &f.gens[f.h[0]]
+			c.interestTo(g.t)
+			c.put(g.t, g.kind, g.src, g.u, g.year)
+			if !g.advance(f.end, f.endTick) {
+				f.h[0] = f.h[len(f.h)-1]
+				f.h = f.h[:len(f.h)-1]
+			}
+			if len(f.h) > 1 {
+				f.down(0)
+			}
 		}
-		f := c.f.pop()
-		c.interestTo(f.Tick)
-		c.put(f)
+		f.setKey()
 	}
-	c.interestTo(e.Tick)
-	c.put(e)
+}
+
+// lay appends an event of kind kd at tick t, its other fields zero. Every
+// event is written field by field where it is kept, never built aside and
+// copied: a copy of a struct just written a field at a time stalls the
+// processor, which made laying down an event cost several times writing it.
+func (c *compiler) lay(t int64, kd Kind) *Event {
+	c.ev = append(c.ev, Event{})
+	e := &c.ev[len(c.ev)-1]
+	e.Tick, e.Kind = t, kd
+	return e
+}
+
+// stepAt returns the rate step in force at tick start, moving *begun on
+// (see compiler.sorted), and the index of the next step to begin after
+// it (len(stepFrom) when none).
+func (c *compiler) stepAt(start int64, begun *int) (step, next int) {
+	from := c.s.stepFrom
+	if !c.sorted {
+		step = int(c.s.StepAt(start))
+		return step, -1
+	}
+	m := int32(start / TicksPerMonth)
+	for *begun < len(from) && from[*begun] <= m {
+		*begun++
+	}
+	return max(*begun-1, 0), *begun
 }
 
 // interestTo lays down the interest dates up to tick t (which come before
@@ -401,14 +453,21 @@ func (c *compiler) interestTo(t int64) {
 	for last := min(t/s.period, c.n); c.done < last; {
 		first := c.done + 1
 		start := (first - 1) * s.period // the first period's start
-		step, end := s.StepAt(start), last
-		for i, from := range s.stepFrom { // the step holds until a step's month begins
-			if int64(from)*TicksPerMonth > start {
-				end = min(end, c.stepEnd[i])
+		step, nx := c.stepAt(start, &c.runSteps)
+		end := last
+		if nx >= 0 { // the step holds until the next one's month begins
+			if nx < len(c.stepEnd) {
+				end = min(end, c.stepEnd[nx])
+			}
+		} else {
+			for i, from := range s.stepFrom {
+				if int64(from)*TicksPerMonth > start {
+					end = min(end, c.stepEnd[i])
+				}
 			}
 		}
-		ti := first * s.period
-		c.ev = append(c.ev, Event{Tick: ti, Kind: Interest, Step: uint8(step), Count: uint8(end - first + 1)})
+		e := c.lay(first*s.period, Interest)
+		e.Step, e.Count = uint8(step), uint8(end-first+1)
 		if !s.accrue { // else posted at the credits
 			s.posts += int(end - first + 1)
 		}
@@ -417,43 +476,35 @@ func (c *compiler) interestTo(t int64) {
 	c.nextTick = (c.done + 1) * s.period
 }
 
-// put appends e; an amount or a fee is given the fraction of the interest
+// put appends e, an amount or a fee, with the fraction of the interest
 // period left until its credit and the step it is in (the distinct
 // fractions are few, found by the ticks left).
-func (c *compiler) put(e Event) {
+func (c *compiler) put(t int64, kd Kind, src int16, unit float64, year uint8) {
 	s := c.s
-	switch e.Kind {
-	case Mark, Interest: // interest runs are laid down and counted by interestTo
-	case Credit, Tax:
-		// a tax falls at a year's end, an interest date of every
-		// compounding: it starts the next period
-		s.posts++
-	default:
-		s.posts++
-		if e.Kind != Income && e.Kind != Fee {
-			s.amounts++
-		}
-		q := c.done                // the period e is in: interestTo(e.Tick) came before
-		next := (q + 1) * s.period // a flow at a credit tick comes after the credit
-		r := next - e.Tick
-		if len(c.left) == 0 || c.left[c.k] != r {
-			c.k = int32(slices.Index(c.left, r))
-			if c.k < 0 {
-				if len(c.left) > math.MaxUint16 {
-					panic("engine: more distinct fractions of an interest period than an event can index")
-				}
-				c.k = int32(len(c.left))
-				c.left = append(c.left, r)
-				s.taus = append(s.taus, float64(r)/float64(s.period))
-			}
-		}
-		e.Ti = uint16(c.k)
-		if s.taus[c.k] < 1 {
-			s.partial = append(s.partial, int32(len(c.ev)))
-		}
-		e.Step = uint8(s.StepAt(next - s.period))
+	s.posts++
+	if kd != Income && kd != Fee {
+		s.amounts++
 	}
-	c.ev = append(c.ev, e)
+	q := c.done                // the period e is in: interestTo(e.Tick) came before
+	next := (q + 1) * s.period // a flow at a credit tick comes after the credit
+	r := next - t
+	if len(c.left) == 0 || c.left[c.k] != r {
+		c.k = int32(slices.Index(c.left, r))
+		if c.k < 0 {
+			if len(c.left) > math.MaxUint16 {
+				panic("engine: more distinct fractions of an interest period than an event can index")
+			}
+			c.k = int32(len(c.left))
+			c.left = append(c.left, r)
+			s.taus = append(s.taus, float64(r)/float64(s.period))
+		}
+	}
+	if s.taus[c.k] < 1 {
+		s.partial = append(s.partial, int32(len(c.ev)))
+	}
+	step, _ := c.stepAt(next-s.period, &c.putSteps)
+	e := c.lay(t, kd)
+	e.Unit, e.Src, e.Ti, e.Step, e.Year = unit, src, uint16(c.k), uint8(step), year
 }
 
 // A flowGen gives one stream's amounts in tick order, one at a time.
@@ -463,11 +514,15 @@ type flowGen struct {
 	P, from     int64   // ticks a period; the first period's start
 	lg, u       float64 // log(1 + grow); the unit of the year lastYear
 	k, lastYear int64   // the next period; the year of u
-	next        Event   // the amount advance found
-	key         uint64  // its order key
+	// the amount advance found, kept field by field (see compiler.lay):
+	// its tick, kind, years of growth and order key
+	t    int64
+	kind Kind
+	year uint8
+	key  uint64
 }
 
-// advance sets g.next to the stream's next amount through month end (the
+// advance finds the stream's next amount through month end (the
 // last month, ending at endTick), and reports whether there is one.
 func (g *flowGen) advance(end int32, endTick int64) bool {
 	st := g.st
@@ -491,11 +546,11 @@ func (g *flowGen) advance(end int32, endTick int64) bool {
 		if year > math.MaxUint8 {
 			panic("engine: a stream of more years than an event can count")
 		}
-		e := Event{Tick: t, Kind: kd, Src: g.src, Unit: g.u, Year: uint8(year)}
 		if st.Income { // income is pooled for its month's withdrawals from the month's start
-			e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
+			t, kd = int64(label)*TicksPerMonth, Income
 		}
-		g.next, g.key = e, orderKey(&e, st.Out)
+		g.t, g.kind, g.year = t, kd, uint8(year)
+		g.key = orderKey(&Event{Tick: t, Kind: kd, Src: g.src}, st.Out)
 		return true
 	}
 }
@@ -509,7 +564,8 @@ type flows struct {
 	gens    []flowGen
 	h       []int32 // indexes of gens with an amount left
 	once    []onceFlow
-	oi      int // the next of once
+	oi      int    // the next of once
+	key     uint64 // the next amount's order key; MaxUint64 when there is none
 	end     int32
 	endTick int64
 }
@@ -517,6 +573,18 @@ type flows struct {
 func (f *flows) init() {
 	for i := len(f.h)/2 - 1; i >= 0; i-- {
 		f.down(i)
+	}
+	f.setKey()
+}
+
+// setKey sets f.key to the next amount's order key.
+func (f *flows) setKey() {
+	f.key = math.MaxUint64
+	if len(f.h) > 0 {
+		f.key = f.gens[f.h[0]].key
+	}
+	if f.oi < len(f.once) {
+		f.key = min(f.key, f.once[f.oi].key)
 	}
 }
 
@@ -536,37 +604,6 @@ func (f *flows) down(i int) {
 		h[i], h[m] = h[m], h[i]
 		i = m
 	}
-}
-
-// next returns the order key of the next amount, and false when there is
-// none.
-func (f *flows) next() (uint64, bool) {
-	k, ok := uint64(0), false
-	if len(f.h) > 0 {
-		k, ok = f.gens[f.h[0]].key, true
-	}
-	if f.oi < len(f.once) {
-		if o := f.once[f.oi].key; !ok || o < k {
-			k, ok = o, true
-		}
-	}
-	return k, ok
-}
-
-// pop returns the next amount (there must be one) and moves past it.
-func (f *flows) pop() Event {
-	if f.oi < len(f.once) && (len(f.h) == 0 || f.once[f.oi].key < f.gens[f.h[0]].key) {
-		f.oi++
-		return f.once[f.oi-1].e
-	}
-	g := &f.gens[f.h[0]]
-	e := g.next
-	if !g.advance(f.end, f.endTick) {
-		f.h[0] = f.h[len(f.h)-1]
-		f.h = f.h[:len(f.h)-1]
-	}
-	f.down(0)
-	return e
 }
 
 // Prefix returns the schedule through the end of month months−1 (counted
