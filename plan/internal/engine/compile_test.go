@@ -17,6 +17,9 @@ func randomShape(r *rand.Rand) Shape {
 	for k := r.IntN(4); k > 0; k-- {
 		sh.StepFrom = append(sh.StepFrom, sh.StepFrom[len(sh.StepFrom)-1]+int32(r.IntN(60)))
 	}
+	if r.IntN(8) == 0 { // steps out of order, which the compiler does not assume away
+		r.Shuffle(len(sh.StepFrom), func(i, j int) { sh.StepFrom[i], sh.StepFrom[j] = sh.StepFrom[j], sh.StepFrom[i] })
+	}
 	for k := r.IntN(5); k > 0; k-- {
 		st := StreamShape{PerYear: per[r.IntN(len(per))], Begin: r.IntN(2) == 0, From: int32(r.IntN(50)), Out: r.IntN(3) == 0,
 			First: 1, Grow: []float64{0, 0.03, -0.01}[r.IntN(3)], GrowInflation: r.IntN(4) == 0, Income: r.IntN(5) == 0}

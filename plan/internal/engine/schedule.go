@@ -335,6 +335,7 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	}
 	c.nextTick = (c.done + 1) * s.period
 	c.sorted = slices.IsSorted(sh.StepFrom)
+	c.runs.at, c.puts.at = -1, -1
 	for m := m0; m < sh.Months; m++ {
 		// at a month end come, in order: the amounts before it, its
 		// interest, the credit, the tax, the fee, the amounts at the end
@@ -381,11 +382,51 @@ type compiler struct {
 	left []int64
 	k    int32
 	// sorted says the rate steps begin in order, so that the step in
-	// force is found by moving on from the last one: runSteps and
-	// putSteps count the steps begun by the last interest run's start and
-	// by the last amount's period's start
-	sorted             bool
-	runSteps, putSteps int
+	// force is found by moving on from the last one; runs and puts are
+	// the steps at the last interest run's start and at the last amount's
+	// period's start
+	sorted     bool
+	runs, puts stepCursor
+}
+
+// A stepCursor is the rate step in force at a tick, kept as the ticks
+// laid down move on.
+type stepCursor struct {
+	step  int
+	begun int   // the steps begun by the tick (sorted steps)
+	at    int64 // the cursor must move from this tick on: the next step's start; -1 for every tick (steps out of order)
+	bound int64 // the last interest period of the step: the last starting before the next step's month
+}
+
+// stepAt returns the rate step in force at tick start, not before the
+// cursor's last tick, moving cursor sc to it.
+func (c *compiler) stepAt(sc *stepCursor, start int64) int {
+	if start >= sc.at {
+		c.move(sc, start)
+	}
+	return sc.step
+}
+
+func (c *compiler) move(sc *stepCursor, start int64) {
+	from := c.s.stepFrom
+	sc.at, sc.bound = math.MaxInt64, math.MaxInt64
+	if !c.sorted {
+		sc.step, sc.at = int(c.s.StepAt(start)), -1
+		for i, f := range from { // the step holds until a step's month begins
+			if int64(f)*TicksPerMonth > start {
+				sc.bound = min(sc.bound, c.stepEnd[i])
+			}
+		}
+		return
+	}
+	m := int32(start / TicksPerMonth)
+	for sc.begun < len(from) && from[sc.begun] <= m {
+		sc.begun++
+	}
+	sc.step = max(sc.begun-1, 0)
+	if sc.begun < len(from) {
+		sc.at, sc.bound = int64(from[sc.begun])*TicksPerMonth, c.stepEnd[sc.begun]
+	}
 }
 
 // flowsBefore lays down the amounts whose order key is below k.
@@ -424,48 +465,27 @@ func (c *compiler) lay(t int64, kd Kind) *Event {
 	return e
 }
 
-// stepAt returns the rate step in force at tick start, moving *begun on
-// (see compiler.sorted), and the index of the next step to begin after
-// it (len(stepFrom) when none).
-func (c *compiler) stepAt(start int64, begun *int) (step, next int) {
-	from := c.s.stepFrom
-	if !c.sorted {
-		step = int(c.s.StepAt(start))
-		return step, -1
-	}
-	m := int32(start / TicksPerMonth)
-	for *begun < len(from) && from[*begun] <= m {
-		*begun++
-	}
-	return max(*begun-1, 0), *begun
-}
-
 // interestTo lays down the interest dates up to tick t (which come before
 // any other event at t). Interest dates in a row, with nothing between them
 // and one rate step, are one event: the walk runs through them in a tight
 // loop. Events come in tick order, so most calls find no date due, which
 // is told without a division.
 func (c *compiler) interestTo(t int64) {
-	s := c.s
-	if t < c.nextTick {
-		return
+	if t >= c.nextTick {
+		c.runsTo(t)
 	}
-	for last := min(t/s.period, c.n); c.done < last; {
+}
+
+func (c *compiler) runsTo(t int64) {
+	s := c.s
+	last := c.done + 1 // the dates through t: t is at most a period past the next one's, mostly
+	if t >= c.nextTick+s.period {
+		last = t / s.period
+	}
+	for last = min(last, c.n); c.done < last; {
 		first := c.done + 1
-		start := (first - 1) * s.period // the first period's start
-		step, nx := c.stepAt(start, &c.runSteps)
-		end := last
-		if nx >= 0 { // the step holds until the next one's month begins
-			if nx < len(c.stepEnd) {
-				end = min(end, c.stepEnd[nx])
-			}
-		} else {
-			for i, from := range s.stepFrom {
-				if int64(from)*TicksPerMonth > start {
-					end = min(end, c.stepEnd[i])
-				}
-			}
-		}
+		step := c.stepAt(&c.runs, (first-1)*s.period) // at the first period's start
+		end := min(last, c.runs.bound)
 		e := c.lay(first*s.period, Interest)
 		e.Step, e.Count = uint8(step), uint8(end-first+1)
 		if !s.accrue { // else posted at the credits
@@ -502,7 +522,7 @@ func (c *compiler) put(t int64, kd Kind, src int16, unit float64, year uint8) {
 	if s.taus[c.k] < 1 {
 		s.partial = append(s.partial, int32(len(c.ev)))
 	}
-	step, _ := c.stepAt(next-s.period, &c.putSteps)
+	step := c.stepAt(&c.puts, next-s.period)
 	e := c.lay(t, kd)
 	e.Unit, e.Src, e.Ti, e.Step, e.Year = unit, src, uint16(c.k), uint8(step), year
 }
