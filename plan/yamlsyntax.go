@@ -371,8 +371,11 @@ func (s *scan) rest(n int, text string, off int) {
 func (s *scan) value(n int, text string, off int) {
 	for off < len(text) && (text[off] == '&' || text[off] == '!') { // anchor or tag
 		sp := strings.IndexByte(text[off:], ' ')
-		if sp < 0 {
-			s.open, s.openAt = true, s.top()
+		if sp < 0 { // its value on the lines below, in the block the line is in
+			s.open, s.openAt = true, level{line: n}
+			if len(s.stack) > 0 {
+				s.openAt = s.top()
+			}
 			return
 		}
 		off += sp + 1
