@@ -12,6 +12,7 @@ import (
 	"cmp"
 	"math"
 	"slices"
+	"sort"
 )
 
 // TicksPerYear is the number of ticks in a year of the time grid: the least
@@ -280,7 +281,8 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 			last = min(last, int64(st.Until+1)*TicksPerMonth+g.P)
 		}
 		nFlows += max(last-max(g.from, t0), 0)/g.P + 2
-		if g.advance(f.end, f.endTick) {
+		g.start(f.end, f.endTick)
+		if g.advance() {
 			f.h = append(f.h, int32(k))
 		}
 	}
@@ -442,7 +444,7 @@ func (c *compiler) flowsBefore(k uint64) {
 			g := &f.gens[f.h[0]]
 			c.interestTo(g.t)
 			c.put(g.t, g.kind, g.src, g.u, g.year)
-			if !g.advance(f.end, f.endTick) {
+			if !g.advance() {
 				f.h[0] = f.h[len(f.h)-1]
 				f.h = f.h[:len(f.h)-1]
 			}
@@ -529,11 +531,13 @@ func (c *compiler) put(t int64, kd Kind, src int16, unit float64, year uint8) {
 
 // A flowGen gives one stream's amounts in tick order, one at a time.
 type flowGen struct {
-	st          *StreamShape
-	src         int16
-	P, from     int64   // ticks a period; the first period's start
-	lg, u       float64 // log(1 + grow); the unit of the year lastYear
-	k, lastYear int64   // the next period; the year of u
+	st      *StreamShape
+	src     int16
+	P, from int64   // ticks a period; the first period's start
+	lg, u   float64 // log(1 + grow); the unit of the year
+	k, stop int64   // the next period; the first with no amount, at or past the end or the until
+	years   int64   // whole years of growth of the period before k
+	yearEnd int64   // the start of the year after them
 	// the amount advance found, kept field by field (see compiler.lay):
 	// its tick, kind, years of growth and order key
 	t    int64
@@ -542,37 +546,62 @@ type flowGen struct {
 	key  uint64
 }
 
+// start readies g, its first period k set, to give the amounts through
+// month end (the last month, ending at endTick): where they stop (the
+// tests below are each later in the periods, so the first period past
+// them is found by bisection) and the year of the first.
+func (g *flowGen) start(end int32, endTick int64) {
+	st := g.st
+	n := max((endTick-g.from)/g.P-g.k+3, 0) // a period at least this far on ends past endTick
+	g.stop = g.k + int64(sort.Search(int(n), func(i int) bool {
+		ps := g.from + (g.k+int64(i))*g.P
+		t, label := ps, labelBegin(ps)
+		if !st.Begin {
+			t, label = ps+g.P, labelEnd(ps+g.P)
+		}
+		return label > end || (st.HasUntil && label > st.Until) || t > endTick || (st.Begin && t >= endTick)
+	}))
+	g.yearEnd = g.from + TicksPerYear // year 0, of unit First
+}
+
 // advance finds the stream's next amount through month end (the
 // last month, ending at endTick), and reports whether there is one.
-func (g *flowGen) advance(end int32, endTick int64) bool {
+func (g *flowGen) advance() bool {
 	st := g.st
-	for {
+	for ; g.k < g.stop; g.k++ {
 		ps := g.from + g.k*g.P
-		g.k++
-		t, kd, label := ps, FlowBegin, labelBegin(ps)
+		if ps >= g.yearEnd {
+			year := (ps - g.from) / TicksPerYear
+			g.years, g.yearEnd = year, g.from+(year+1)*TicksPerYear
+			if st.Grow != 0 {
+				g.u = st.First * math.Exp(float64(year)*g.lg)
+			}
+		}
+		t, kd, label := ps, FlowBegin, int32(0)
 		if !st.Begin {
-			t, kd, label = ps+g.P, FlowEnd, labelEnd(ps+g.P)
+			t, kd = ps+g.P, FlowEnd
 		}
-		if label > end || (st.HasUntil && label > st.Until) || t > endTick || (kd == FlowBegin && t >= endTick) {
-			return false
+		if st.Resume != 0 || st.Income { // else the label is not needed
+			label = labelBegin(ps)
+			if !st.Begin {
+				label = labelEnd(t)
+			}
+			if label < st.Resume {
+				continue
+			}
 		}
-		year := (ps - g.from) / TicksPerYear
-		if year != g.lastYear && st.Grow != 0 {
-			g.lastYear, g.u = year, st.First*math.Exp(float64(year)*g.lg)
-		}
-		if label < st.Resume {
-			continue
-		}
-		if year > math.MaxUint8 {
+		if g.years > math.MaxUint8 {
 			panic("engine: a stream of more years than an event can count")
 		}
 		if st.Income { // income is pooled for its month's withdrawals from the month's start
 			t, kd = int64(label)*TicksPerMonth, Income
 		}
-		g.t, g.kind, g.year = t, kd, uint8(year)
+		g.k++
+		g.t, g.kind, g.year = t, kd, uint8(g.years)
 		g.key = orderKey(&Event{Tick: t, Kind: kd, Src: g.src}, st.Out)
 		return true
 	}
+	return false
 }
 
 // flows merges the amounts of a schedule in event order: the streams'
