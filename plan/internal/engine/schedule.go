@@ -401,7 +401,8 @@ type stepCursor struct {
 }
 
 // stepAt returns the rate step in force at tick start, not before the
-// cursor's last tick, moving cursor sc to it.
+// cursor's last tick, moving cursor sc to it: its bound is then the last
+// interest period of that step.
 func (c *compiler) stepAt(sc *stepCursor, start int64) int {
 	if start >= sc.at {
 		c.move(sc, start)
@@ -498,16 +499,17 @@ func (c *compiler) runsTo(t int64) {
 	c.nextTick = (c.done + 1) * s.period
 }
 
-// put appends e, an amount or a fee, with the fraction of the interest
-// period left until its credit and the step it is in (the distinct
-// fractions are few, found by the ticks left).
+// put appends an amount or a fee of kind kd at tick t (of source src, unit
+// and years of growth), with the fraction of the interest period left until
+// its credit and the step it is in (the distinct fractions are few, found
+// by the ticks left).
 func (c *compiler) put(t int64, kd Kind, src int16, unit float64, year uint8) {
 	s := c.s
 	s.posts++
 	if kd != Income && kd != Fee {
 		s.amounts++
 	}
-	q := c.done                // the period e is in: interestTo(e.Tick) came before
+	q := c.done                // the period it is in: interestTo(t) came before
 	next := (q + 1) * s.period // a flow at a credit tick comes after the credit
 	r := next - t
 	if len(c.left) == 0 || c.left[c.k] != r {
@@ -564,8 +566,8 @@ func (g *flowGen) start(end int32, endTick int64) {
 	g.yearEnd = g.from + TicksPerYear // year 0, of unit First
 }
 
-// advance finds the stream's next amount through month end (the
-// last month, ending at endTick), and reports whether there is one.
+// advance finds the stream's next amount (see flowGen.start), and reports
+// whether there is one.
 func (g *flowGen) advance() bool {
 	st := g.st
 	for ; g.k < g.stop; g.k++ {
