@@ -12,6 +12,7 @@ import (
 	"cmp"
 	"math"
 	"slices"
+	"sort"
 )
 
 // TicksPerYear is the number of ticks in a year of the time grid: the least
@@ -280,7 +281,8 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 			last = min(last, int64(st.Until+1)*TicksPerMonth+g.P)
 		}
 		nFlows += max(last-max(g.from, t0), 0)/g.P + 2
-		if g.advance(f.end, f.endTick) {
+		g.start(f.end, f.endTick)
+		if g.advance() {
 			f.h = append(f.h, int32(k))
 		}
 	}
@@ -334,24 +336,33 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 		c.done = t0 / s.period
 	}
 	c.nextTick = (c.done + 1) * s.period
+	c.sorted = slices.IsSorted(sh.StepFrom)
+	c.runs.at, c.puts.at = -1, -1
 	for m := m0; m < sh.Months; m++ {
+		// at a month end come, in order: the amounts before it, its
+		// interest, the credit, the tax, the fee, the amounts at the end
+		// of their periods, and the mark (see [Kind]); an amount has no
+		// kind of those between
 		t := int64(m+1) * TicksPerMonth
+		c.flowsBefore(orderKey(&Event{Tick: t, Kind: Credit}, false))
+		c.interestTo(t)
 		if s.accrue {
-			c.add(Event{Tick: t, Kind: Credit})
+			c.lay(t, Credit)
+			s.posts++
 		}
 		if sh.Tax && (m+1)%12 == 0 {
-			c.add(Event{Tick: t, Kind: Tax})
+			// a tax falls at a year's end, an interest date of every
+			// compounding: it starts the next period
+			c.lay(t, Tax)
+			s.posts++
 		}
 		if sh.Fee {
-			c.add(Event{Tick: t, Kind: Fee})
+			c.put(t, Fee, 0, 0, 0)
 		}
-		c.add(Event{Tick: t, Kind: Mark})
+		c.flowsBefore(orderKey(&Event{Tick: t, Kind: Mark}, false))
+		c.lay(t, Mark)
 	}
-	for _, ok := f.next(); ok; _, ok = f.next() {
-		e := f.pop()
-		c.interestTo(e.Tick)
-		c.put(e)
-	}
+	c.flowsBefore(math.MaxUint64)
 	c.interestTo(s.endTick)
 	s.events, s.left = c.ev, c.left
 	return s
@@ -372,20 +383,89 @@ type compiler struct {
 	// index of the last one found
 	left []int64
 	k    int32
+	// sorted says the rate steps begin in order, so that the step in
+	// force is found by moving on from the last one; runs and puts are
+	// the steps at the last interest run's start and at the last amount's
+	// period's start
+	sorted     bool
+	runs, puts stepCursor
 }
 
-// add lays down e after every amount that comes before it.
-func (c *compiler) add(e Event) {
-	for k := orderKey(&e, false); ; {
-		if f, ok := c.f.next(); !ok || f > k {
-			break
-		}
-		f := c.f.pop()
-		c.interestTo(f.Tick)
-		c.put(f)
+// A stepCursor is the rate step in force at a tick, kept as the ticks
+// laid down move on.
+type stepCursor struct {
+	step  int
+	begun int   // the steps begun by the tick (sorted steps)
+	at    int64 // the cursor must move from this tick on: the next step's start; -1 for every tick (steps out of order)
+	bound int64 // the last interest period of the step: the last starting before the next step's month
+}
+
+// stepAt returns the rate step in force at tick start, not before the
+// cursor's last tick, moving cursor sc to it: its bound is then the last
+// interest period of that step.
+func (c *compiler) stepAt(sc *stepCursor, start int64) int {
+	if start >= sc.at {
+		c.move(sc, start)
 	}
-	c.interestTo(e.Tick)
-	c.put(e)
+	return sc.step
+}
+
+func (c *compiler) move(sc *stepCursor, start int64) {
+	from := c.s.stepFrom
+	sc.at, sc.bound = math.MaxInt64, math.MaxInt64
+	if !c.sorted {
+		sc.step, sc.at = int(c.s.StepAt(start)), -1
+		for i, f := range from { // the step holds until a step's month begins
+			if int64(f)*TicksPerMonth > start {
+				sc.bound = min(sc.bound, c.stepEnd[i])
+			}
+		}
+		return
+	}
+	m := int32(start / TicksPerMonth)
+	for sc.begun < len(from) && from[sc.begun] <= m {
+		sc.begun++
+	}
+	sc.step = max(sc.begun-1, 0)
+	if sc.begun < len(from) {
+		sc.at, sc.bound = int64(from[sc.begun])*TicksPerMonth, c.stepEnd[sc.begun]
+	}
+}
+
+// flowsBefore lays down the amounts whose order key is below k.
+func (c *compiler) flowsBefore(k uint64) {
+	f := c.f
+	for f.key < k {
+		if f.oi < len(f.once) && f.once[f.oi].key == f.key { // order keys are unique
+			e := &f.once[f.oi].e
+			c.interestTo(e.Tick)
+			c.put(e.Tick, e.Kind, e.Src, e.Unit, e.Year)
+			f.oi++
+		} else {
+			g := &f.gens[f.h[0]]
+			c.interestTo(g.t)
+			c.put(g.t, g.kind, g.src, g.u, g.year)
+			if !g.advance() {
+				f.h[0] = f.h[len(f.h)-1]
+				f.h = f.h[:len(f.h)-1]
+			}
+			if len(f.h) > 1 {
+				f.down(0)
+			}
+		}
+		f.setKey()
+	}
+}
+
+// lay appends an event of kind kd at tick t, its other fields zero. Every
+// event is written field by field where it is kept, never built aside and
+// copied: a copy of a struct just written a field at a time stalls the
+// processor, which made laying down an event cost several times writing it.
+func (c *compiler) lay(t int64, kd Kind) *Event {
+	c.ev = append(c.ev, Event{})
+	e := &c.ev[len(c.ev)-1]
+	e.Tick, e.Kind = t, kd
+	return e
 }
 
 // interestTo lays down the interest dates up to tick t (which come before
@@ -394,21 +474,23 @@ func (c *compiler) add(e Event) {
 // loop. Events come in tick order, so most calls find no date due, which
 // is told without a division.
 func (c *compiler) interestTo(t int64) {
-	s := c.s
-	if t < c.nextTick {
-		return
+	if t >= c.nextTick {
+		c.runsTo(t)
 	}
-	for last := min(t/s.period, c.n); c.done < last; {
+}
+
+func (c *compiler) runsTo(t int64) {
+	s := c.s
+	last := c.done + 1 // the dates through t: t is at most a period past the next one's, mostly
+	if t >= c.nextTick+s.period {
+		last = t / s.period
+	}
+	for last = min(last, c.n); c.done < last; {
 		first := c.done + 1
-		start := (first - 1) * s.period // the first period's start
-		step, end := s.StepAt(start), last
-		for i, from := range s.stepFrom { // the step holds until a step's month begins
-			if int64(from)*TicksPerMonth > start {
-				end = min(end, c.stepEnd[i])
-			}
-		}
-		ti := first * s.period
-		c.ev = append(c.ev, Event{Tick: ti, Kind: Interest, Step: uint8(step), Count: uint8(end - first + 1)})
+		step := c.stepAt(&c.runs, (first-1)*s.period) // at the first period's start
+		end := min(last, c.runs.bound)
+		e := c.lay(first*s.period, Interest)
+		e.Step, e.Count = uint8(step), uint8(end-first+1)
 		if !s.accrue { // else posted at the credits
 			s.posts += int(end - first + 1)
 		}
@@ -417,87 +499,111 @@ func (c *compiler) interestTo(t int64) {
 	c.nextTick = (c.done + 1) * s.period
 }
 
-// put appends e; an amount or a fee is given the fraction of the interest
-// period left until its credit and the step it is in (the distinct
-// fractions are few, found by the ticks left).
-func (c *compiler) put(e Event) {
+// put appends an amount or a fee of kind kd at tick t (of source src, unit
+// and years of growth), with the fraction of the interest period left until
+// its credit and the step it is in (the distinct fractions are few, found
+// by the ticks left).
+func (c *compiler) put(t int64, kd Kind, src int16, unit float64, year uint8) {
 	s := c.s
-	switch e.Kind {
-	case Mark, Interest: // interest runs are laid down and counted by interestTo
-	case Credit, Tax:
-		// a tax falls at a year's end, an interest date of every
-		// compounding: it starts the next period
-		s.posts++
-	default:
-		s.posts++
-		if e.Kind != Income && e.Kind != Fee {
-			s.amounts++
-		}
-		q := c.done                // the period e is in: interestTo(e.Tick) came before
-		next := (q + 1) * s.period // a flow at a credit tick comes after the credit
-		r := next - e.Tick
-		if len(c.left) == 0 || c.left[c.k] != r {
-			c.k = int32(slices.Index(c.left, r))
-			if c.k < 0 {
-				if len(c.left) > math.MaxUint16 {
-					panic("engine: more distinct fractions of an interest period than an event can index")
-				}
-				c.k = int32(len(c.left))
-				c.left = append(c.left, r)
-				s.taus = append(s.taus, float64(r)/float64(s.period))
-			}
-		}
-		e.Ti = uint16(c.k)
-		if s.taus[c.k] < 1 {
-			s.partial = append(s.partial, int32(len(c.ev)))
-		}
-		e.Step = uint8(s.StepAt(next - s.period))
+	s.posts++
+	if kd != Income && kd != Fee {
+		s.amounts++
 	}
-	c.ev = append(c.ev, e)
+	q := c.done                // the period it is in: interestTo(t) came before
+	next := (q + 1) * s.period // a flow at a credit tick comes after the credit
+	r := next - t
+	if len(c.left) == 0 || c.left[c.k] != r {
+		c.k = int32(slices.Index(c.left, r))
+		if c.k < 0 {
+			if len(c.left) > math.MaxUint16 {
+				panic("engine: more distinct fractions of an interest period than an event can index")
+			}
+			c.k = int32(len(c.left))
+			c.left = append(c.left, r)
+			s.taus = append(s.taus, float64(r)/float64(s.period))
+		}
+	}
+	if s.taus[c.k] < 1 {
+		s.partial = append(s.partial, int32(len(c.ev)))
+	}
+	step := c.stepAt(&c.puts, next-s.period)
+	e := c.lay(t, kd)
+	e.Unit, e.Src, e.Ti, e.Step, e.Year = unit, src, uint16(c.k), uint8(step), year
 }
 
 // A flowGen gives one stream's amounts in tick order, one at a time.
 type flowGen struct {
-	st          *StreamShape
-	src         int16
-	P, from     int64   // ticks a period; the first period's start
-	lg, u       float64 // log(1 + grow); the unit of the year lastYear
-	k, lastYear int64   // the next period; the year of u
-	next        Event   // the amount advance found
-	key         uint64  // its order key
+	st      *StreamShape
+	src     int16
+	P, from int64   // ticks a period; the first period's start
+	lg, u   float64 // log(1 + grow); the unit of the year
+	k, stop int64   // the next period; the first with no amount, at or past the end or the until
+	years   int64   // whole years of growth of the period before k
+	yearEnd int64   // the start of the year after them
+	// the amount advance found, kept field by field (see compiler.lay):
+	// its tick, kind, years of growth and order key
+	t    int64
+	kind Kind
+	year uint8
+	key  uint64
 }
 
-// advance sets g.next to the stream's next amount through month end (the
-// last month, ending at endTick), and reports whether there is one.
-func (g *flowGen) advance(end int32, endTick int64) bool {
+// start readies g, its first period k set, to give the amounts through
+// month end (the last month, ending at endTick): where they stop (the
+// tests below are each later in the periods, so the first period past
+// them is found by bisection) and the year of the first.
+func (g *flowGen) start(end int32, endTick int64) {
 	st := g.st
-	for {
-		ps := g.from + g.k*g.P
-		g.k++
-		t, kd, label := ps, FlowBegin, labelBegin(ps)
+	n := max((endTick-g.from)/g.P-g.k+3, 0) // a period at least this far on ends past endTick
+	g.stop = g.k + int64(sort.Search(int(n), func(i int) bool {
+		ps := g.from + (g.k+int64(i))*g.P
+		t, label := ps, labelBegin(ps)
 		if !st.Begin {
-			t, kd, label = ps+g.P, FlowEnd, labelEnd(ps+g.P)
+			t, label = ps+g.P, labelEnd(ps+g.P)
 		}
-		if label > end || (st.HasUntil && label > st.Until) || t > endTick || (kd == FlowBegin && t >= endTick) {
-			return false
+		return label > end || (st.HasUntil && label > st.Until) || t > endTick || (st.Begin && t >= endTick)
+	}))
+	g.yearEnd = g.from + TicksPerYear // year 0, of unit First
+}
+
+// advance finds the stream's next amount (see flowGen.start), and reports
+// whether there is one.
+func (g *flowGen) advance() bool {
+	st := g.st
+	for ; g.k < g.stop; g.k++ {
+		ps := g.from + g.k*g.P
+		if ps >= g.yearEnd {
+			year := (ps - g.from) / TicksPerYear
+			g.years, g.yearEnd = year, g.from+(year+1)*TicksPerYear
+			if st.Grow != 0 {
+				g.u = st.First * math.Exp(float64(year)*g.lg)
+			}
 		}
-		year := (ps - g.from) / TicksPerYear
-		if year != g.lastYear && st.Grow != 0 {
-			g.lastYear, g.u = year, st.First*math.Exp(float64(year)*g.lg)
+		t, kd, label := ps, FlowBegin, int32(0)
+		if !st.Begin {
+			t, kd = ps+g.P, FlowEnd
 		}
-		if label < st.Resume {
-			continue
+		if st.Resume != 0 || st.Income { // else the label is not needed
+			label = labelBegin(ps)
+			if !st.Begin {
+				label = labelEnd(t)
+			}
+			if label < st.Resume {
+				continue
+			}
 		}
-		if year > math.MaxUint8 {
+		if g.years > math.MaxUint8 {
 			panic("engine: a stream of more years than an event can count")
 		}
-		e := Event{Tick: t, Kind: kd, Src: g.src, Unit: g.u, Year: uint8(year)}
 		if st.Income { // income is pooled for its month's withdrawals from the month's start
-			e.Tick, e.Kind = int64(label)*TicksPerMonth, Income
+			t, kd = int64(label)*TicksPerMonth, Income
 		}
-		g.next, g.key = e, orderKey(&e, st.Out)
+		g.k++
+		g.t, g.kind, g.year = t, kd, uint8(g.years)
+		g.key = orderKey(&Event{Tick: t, Kind: kd, Src: g.src}, st.Out)
 		return true
 	}
+	return false
 }
 
 // flows merges the amounts of a schedule in event order: the streams'
@@ -509,7 +615,8 @@ type flows struct {
 	gens    []flowGen
 	h       []int32 // indexes of gens with an amount left
 	once    []onceFlow
-	oi      int // the next of once
+	oi      int    // the next of once
+	key     uint64 // the next amount's order key; MaxUint64 when there is none
 	end     int32
 	endTick int64
 }
@@ -517,6 +624,18 @@ type flows struct {
 func (f *flows) init() {
 	for i := len(f.h)/2 - 1; i >= 0; i-- {
 		f.down(i)
+	}
+	f.setKey()
+}
+
+// setKey sets f.key to the next amount's order key.
+func (f *flows) setKey() {
+	f.key = math.MaxUint64
+	if len(f.h) > 0 {
+		f.key = f.gens[f.h[0]].key
+	}
+	if f.oi < len(f.once) {
+		f.key = min(f.key, f.once[f.oi].key)
 	}
 }
 
@@ -536,37 +655,6 @@ func (f *flows) down(i int) {
 		h[i], h[m] = h[m], h[i]
 		i = m
 	}
-}
-
-// next returns the order key of the next amount, and false when there is
-// none.
-func (f *flows) next() (uint64, bool) {
-	k, ok := uint64(0), false
-	if len(f.h) > 0 {
-		k, ok = f.gens[f.h[0]].key, true
-	}
-	if f.oi < len(f.once) {
-		if o := f.once[f.oi].key; !ok || o < k {
-			k, ok = o, true
-		}
-	}
-	return k, ok
-}
-
-// pop returns the next amount (there must be one) and moves past it.
-func (f *flows) pop() Event {
-	if f.oi < len(f.once) && (len(f.h) == 0 || f.once[f.oi].key < f.gens[f.h[0]].key) {
-		f.oi++
-		return f.once[f.oi-1].e
-	}
-	g := &f.gens[f.h[0]]
-	e := g.next
-	if !g.advance(f.end, f.endTick) {
-		f.h[0] = f.h[len(f.h)-1]
-		f.h = f.h[:len(f.h)-1]
-	}
-	f.down(0)
-	return e
 }
 
 // Prefix returns the schedule through the end of month months−1 (counted
