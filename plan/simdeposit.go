@@ -61,12 +61,9 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 	if err := needTarget(g, true); err != nil {
 		return nil, err
 	}
-	dep := g.Stream(stream, false)
-	if dep == nil {
-		if stream != "" {
-			return nil, noSolution(g, "the goal has no deposit stream named %q", stream)
-		}
-		return nil, noSolution(g, "the goal has no deposits to solve for (add deposits:)")
+	dep, err := solvedStream(g, stream, false)
+	if err != nil {
+		return nil, err
 	}
 	s := compile(p, g, g.By)
 	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {

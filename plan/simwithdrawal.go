@@ -42,12 +42,9 @@ func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts Sim
 	if err != nil {
 		return nil, err
 	}
-	wd := g.Stream(stream, true)
-	if wd == nil {
-		if stream != "" {
-			return nil, noSolution(g, "the goal has no withdrawal stream named %q", stream)
-		}
-		return nil, noSolution(g, "the goal has no withdrawals to solve for (add withdrawals:)")
+	wd, err := solvedStream(g, stream, true)
+	if err != nil {
+		return nil, err
 	}
 	if err := ruledStream(g, wd); err != nil {
 		return nil, err
@@ -57,6 +54,9 @@ func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts Sim
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}
 	s := compile(p, g, end)
+	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {
+		return nil, err
+	}
 	idx := s.sourceIndex(wd)
 	pg := newSimProgram(s, st, false)
 	pr := s.defaultParams()

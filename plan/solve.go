@@ -509,12 +509,9 @@ func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error
 	var st *Stream
 	idx := int32(0)
 	if !start {
-		st = g.Stream(q.Stream, false)
-		if st == nil {
-			if q.Stream != "" {
-				return nil, noSolution(g, "the goal has no deposit stream named %s", money.Quote(q.Stream))
-			}
-			return nil, noSolution(g, "the goal has no deposits to solve for (add deposits:)")
+		var err error
+		if st, err = solvedStream(g, q.Stream, false); err != nil {
+			return nil, err
 		}
 		idx = s.sourceIndex(st)
 	}
@@ -625,13 +622,27 @@ func (s *schedule) prove(a *Answer, pr *params, full bool) {
 	}
 }
 
+// solvedStream returns goal g's deposit stream (out: withdrawal stream)
+// named name ("" for the first) that a solver varies, or the answer that
+// there is none.
+func solvedStream(g *Goal, name string, out bool) (*Stream, error) {
+	if st := g.Stream(name, out); st != nil {
+		return st, nil
+	}
+	kind, kinds := "deposit", "deposits"
+	if out {
+		kind, kinds = "withdrawal", "withdrawals"
+	}
+	if name != "" {
+		return nil, noSolution(g, "the goal has no %s stream named %s", kind, money.Quote(name))
+	}
+	return nil, noSolution(g, "the goal has no %s to solve for (add %s:)", kinds, kinds)
+}
+
 func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
-	st := g.Stream(q.Stream, true)
-	if st == nil {
-		if q.Stream != "" {
-			return nil, noSolution(g, "the goal has no withdrawal stream named %s", money.Quote(q.Stream))
-		}
-		return nil, noSolution(g, "the goal has no withdrawals to solve for (add withdrawals:)")
+	st, err := solvedStream(g, q.Stream, true)
+	if err != nil {
+		return nil, err
 	}
 	if err := ruledStream(g, st); err != nil {
 		return nil, err

@@ -41,7 +41,8 @@ const (
 	// simDepositPasses is what [SolveDeposit] is counted as: its first
 	// guess takes two passes over every path, and its search of whole
 	// minor units from the guess usually three more (the example file's
-	// goals: five each).
+	// goals: five each). The opening-balance and withdrawal searches,
+	// alike, are counted the same.
 	simDepositPasses = 8
 )
 
