@@ -93,11 +93,7 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	leave := p.LeaveAt(g, end)
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
-	ok := func(c int64) bool { // every withdrawal paid, and leave left
-		set(c)
-		bal, r := s.closing(pr)
-		return !r.Short && bal.Cmp(leave) >= 0
-	}
+	ok := s.paysAll(pr, set, leave)
 	// linear guess from the smooth walk: what one unit of capital grows to,
 	// and what the rest comes to without it
 	pr1 := s.defaultParams()

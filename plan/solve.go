@@ -622,6 +622,17 @@ func (s *schedule) prove(a *Answer, pr *params, full bool) {
 	}
 }
 
+// paysAll returns the test the withdrawal and capital searches share: with
+// c minor units set on the source they vary (set), every withdrawal is paid
+// in full and leave is left.
+func (s *schedule) paysAll(pr *params, set func(int64), leave money.Amount) func(int64) bool {
+	return func(c int64) bool {
+		set(c)
+		bal, r := s.closing(pr)
+		return !r.Short && bal.Cmp(leave) >= 0
+	}
+}
+
 // solvedStream returns goal g's deposit stream (out: withdrawal stream)
 // named name ("" for the first) that a solver varies, or the answer that
 // there is none.
@@ -656,11 +667,7 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
 	leave := p.LeaveAt(g, end)
-	ok := func(c int64) bool { // every withdrawal paid, and leave left
-		set(c)
-		bal, r := s.closing(pr)
-		return !r.Short && bal.Cmp(leave) >= 0
-	}
+	ok := s.paysAll(pr, set, leave)
 	// linear guess
 	pr1 := s.defaultParams()
 	pr1.amountsF[idx] = 1

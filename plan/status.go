@@ -128,17 +128,7 @@ func goalStatus(p *Plan, g *Goal) GoalStatus {
 	gs.MonthlyNow = monthlyDeposits(p, g, nil, money.Zero)
 	gs.MonthlyNeeded = gs.MonthlyNow
 	if g.HasTarget && g.HasBy {
-		gs.TargetAt = p.TargetAt(g)
-		l, _ := Project(p, g, g.By)
-		gs.Projected = l.BalanceAt(g.By)
-		gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
-		if !gs.OnTrack {
-			gs.Short = gs.TargetAt.Sub(gs.Projected)
-		}
-		gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
-		if gs.NeededErr == nil {
-			gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
-		}
+		gs.against(p, g, g.By, p.TargetAt(g))
 	} else if g.HasTarget {
 		gs.TargetAt = g.Target
 	} else if first, ok := firstWithdrawal(g); ok && first > p.Start {
@@ -146,18 +136,7 @@ func goalStatus(p *Plan, g *Goal) GoalStatus {
 		// (a drawdown under way from the start has its answer in Lasts)
 		gs.Capital, gs.CapitalErr = solve(p, g, Question{For: ForCapital}, true)
 		if gs.CapitalErr == nil {
-			at := gs.Capital.Month
-			gs.TargetAt = gs.Capital.Amount
-			l, _ := Project(p, g, at)
-			gs.Projected = l.BalanceAt(at)
-			gs.OnTrack = gs.Projected.Cmp(gs.TargetAt) >= 0
-			if !gs.OnTrack {
-				gs.Short = gs.TargetAt.Sub(gs.Projected)
-			}
-			gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
-			if gs.NeededErr == nil {
-				gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
-			}
+			gs.against(p, g, gs.Capital.Month, gs.Capital.Amount)
 		}
 	}
 	if g.HasTarget {
@@ -259,4 +238,21 @@ func (gs GoalStatus) Deadline() Month {
 		return gs.Capital.Month
 	}
 	return gs.Goal.By
+}
+
+// against fills in goal g's balance projected at the end of month at
+// against target there, how far short it falls, and the deposit that makes
+// it.
+func (gs *GoalStatus) against(p *Plan, g *Goal, at Month, target money.Amount) {
+	gs.TargetAt = target
+	l, _ := Project(p, g, at)
+	gs.Projected = l.BalanceAt(at)
+	gs.OnTrack = gs.Projected.Cmp(target) >= 0
+	if !gs.OnTrack {
+		gs.Short = target.Sub(gs.Projected)
+	}
+	gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
+	if gs.NeededErr == nil {
+		gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
+	}
 }
