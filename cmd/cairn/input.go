@@ -88,7 +88,7 @@ func readPlan(c *cli.Context, e *env) (*plan.Plan, error) {
 	case 1:
 		return scenarioCase(c, p, names[0])
 	}
-	return nil, usagef("cairn status and cairn compare show several scenarios side by side",
+	return nil, usagef("cairn status, cairn compare and cairn report show several scenarios side by side",
 		"%s takes one --scenario, not %d", c.Command.Name, len(names))
 }
 
