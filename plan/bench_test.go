@@ -8,28 +8,9 @@ import (
 	"cairn/plan"
 )
 
-// benchPlan is a 40-year plan with deposits every two weeks rising 3% a
-// year, a rate schedule and a fee, the speed issue's case for the rate
-// solver.
-const benchPlan = `cairn: 1
-start: 2027-01
-inflation: 2.5%
-goals:
-  - name: Retirement
-    balance: 25,000
-    rate:
-      - 6.5%
-      - from: 2047-01
-        rate: 5%
-    fee: 0.2%
-    target: 1.5M
-    by: 2066-12
-    deposits:
-      - amount: 400
-        every: 2 weeks
-        grow: 3%
-        until: 2066-12
-`
+// benchPlan is the rate solver's benchmark plan (walkBenchPlan, the one
+// the walk budget and BenchmarkWalk use too).
+const benchPlan = plan.BenchPlan
 
 // monthlyPlan is a 40-year monthly plan, the what-if grid's case.
 const monthlyPlan = `cairn: 1

@@ -6,9 +6,9 @@ import (
 	"cairn/plan/internal/engine"
 )
 
-// walkBenchPlan is plan_test's benchPlan, the rate solver's benchmark: 40
+// walkBenchPlan is the rate solver's benchmark (plan_test's benchPlan): 40
 // years of deposits every two weeks rising 3% a year, a rate schedule and a
-// fee.
+// fee, the speed issue's case.
 const walkBenchPlan = `cairn: 1
 start: 2027-01
 inflation: 2.5%
