@@ -58,14 +58,7 @@ func TestExamples_SolveEveryGoal(t *testing.T) {
 // goal add up: each row's opening plus its movements is its closing, each
 // row opens with the last one's closing, and the totals row sums them.
 func TestLedger_Rows(t *testing.T) {
-	data, err := os.ReadFile("../examples/household.yaml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := plan.Parse("household.yaml", data, 0)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := mustExample(t, "household.yaml")
 	for _, g := range p.Goals {
 		l := mustProject(t, p, g, plan.Horizon(p, g))
 		for _, by := range []plan.Period{plan.ByYear, plan.ByMonth} {

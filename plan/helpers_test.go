@@ -2,6 +2,7 @@ package plan_test
 
 import (
 	"math"
+	"os"
 	"strings"
 	"testing"
 
@@ -17,6 +18,16 @@ func mustParse(t testing.TB, name, src string) *plan.Plan {
 		t.Fatalf("Parse(%q) error:\n%v", name, err)
 	}
 	return p
+}
+
+// mustExample reads and parses examples/name, as of the plan's start.
+func mustExample(t testing.TB, name string) *plan.Plan {
+	t.Helper()
+	data, err := os.ReadFile("../examples/" + name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return mustParse(t, name, string(data))
 }
 
 // mustOverrides parses each KEY=VALUE with [plan.ParseOverride].

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"os"
 	"strings"
 	"testing"
 
@@ -227,14 +226,7 @@ func TestAllocate_Properties(t *testing.T) {
 // The example household's budget answers: the smallest budget meets every
 // deadline and one cent less misses one, and the top-1 budget is no more.
 func TestSmallestBudget_Example(t *testing.T) {
-	data, err := os.ReadFile("../examples/budget.yaml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := plan.Parse("budget.yaml", data, 0)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := mustExample(t, "budget.yaml")
 	all, err := plan.SmallestBudget(p, 0)
 	if err != nil {
 		t.Fatal(err)

@@ -3,7 +3,6 @@ package plan_test
 import (
 	"errors"
 	"math"
-	"os"
 	"strings"
 	"testing"
 
@@ -19,14 +18,7 @@ import (
 // practice, no source: re-basing at the plan's own balance changes
 // nothing).
 func TestReplan_ActualEqualToPlanChangesNothing(t *testing.T) {
-	data, err := os.ReadFile("../examples/household.yaml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := plan.Parse("household.yaml", data, 0)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := mustExample(t, "household.yaml")
 	sameAnswers(t, p)
 	// a deposit that stops once the target is reached, split by Replan
 	sameAnswers(t, mustParse(t, "reached.yaml", goalFile("rate: 5%", "target: 9000", "by: 2030-12",

@@ -2,7 +2,6 @@ package plan_test
 
 import (
 	"errors"
-	"os"
 	"reflect"
 	"strings"
 	"testing"
@@ -15,14 +14,7 @@ import (
 // same changes given one by one through Plan.Change, as --set gives them.
 // Both sides are computed by cairn; the test is that they agree.
 func TestScenarioSameAsSet(t *testing.T) {
-	data, err := os.ReadFile("../examples/household.yaml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := plan.Parse("household.yaml", data, 0)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := mustExample(t, "household.yaml")
 	for _, tt := range []struct {
 		name    string
 		changes []struct{ goal, stream, set string }

@@ -2,7 +2,6 @@ package plan_test
 
 import (
 	"fmt"
-	"os"
 	"strings"
 	"testing"
 
@@ -363,14 +362,7 @@ func TestCompare_Errors(t *testing.T) {
 }
 
 func TestStatusOf_Example(t *testing.T) {
-	data, err := os.ReadFile("../examples/household.yaml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := plan.Parse("household.yaml", data, 0)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := mustExample(t, "household.yaml")
 	st := plan.StatusOf(p)
 	if len(st.Goals) != len(p.Goals) || st.Plan != p {
 		t.Fatalf("StatusOf(household.yaml) has %d goals, want %d", len(st.Goals), len(p.Goals))
