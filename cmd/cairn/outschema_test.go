@@ -26,18 +26,7 @@ func TestOutputSchemasCommitted(t *testing.T) {
 		if !json.Valid(got) {
 			t.Fatalf("%s: the schema is not valid JSON", cmd)
 		}
-		if *update {
-			if err := os.WriteFile(path, got, 0o644); err != nil {
-				t.Fatal(err)
-			}
-		}
-		want, err := os.ReadFile(path)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if !bytes.Equal(got, want) {
-			t.Errorf("%s differs from the generated schema; run go test ./cmd/cairn -run TestOutputSchemasCommitted -update", path)
-		}
+		matchGenerated(t, path, got, "TestOutputSchemasCommitted")
 	}
 	files, _ := filepath.Glob(filepath.Join(dir, "*.schema.json"))
 	if len(files) != len(jsonCommands()) {
