@@ -335,7 +335,14 @@ func (s *scan) place(n int, text string, ind int) {
 	}
 }
 
-func (s *scan) top() level { return s.stack[len(s.stack)-1] }
+// top returns the innermost open block: the document itself, at column 0,
+// when none is (every line so far slipped out of the blocks above it).
+func (s *scan) top() level {
+	if len(s.stack) == 0 {
+		return level{}
+	}
+	return s.stack[len(s.stack)-1]
+}
 
 // rest reads what follows the indentation: list dashes, a key, a value.
 func (s *scan) rest(n int, text string, off int) {
@@ -372,10 +379,7 @@ func (s *scan) value(n int, text string, off int) {
 	for off < len(text) && (text[off] == '&' || text[off] == '!') { // anchor or tag
 		sp := strings.IndexByte(text[off:], ' ')
 		if sp < 0 { // its value on the lines below, in the block the line is in
-			s.open, s.openAt = true, level{line: n}
-			if len(s.stack) > 0 {
-				s.openAt = s.top()
-			}
+			s.open, s.openAt = true, s.top()
 			return
 		}
 		off += sp + 1
