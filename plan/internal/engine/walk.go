@@ -359,7 +359,7 @@ func roundMinor(x float64, r money.Rounding) float64 {
 func Walk(s *Schedule, in *Inputs, o *Options) Result {
 	walks.Add(1)
 	f := flagsOf(s, in, o)
-	return walk(s, in, o, f)
+	return compiled(s, in, o, f)
 }
 
 // Lanes is how many walks [WalkLanes] makes at once.
@@ -433,7 +433,9 @@ func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 	}
 }
 
-// walk is [Walk] under flags f: the one walk, written once, here.
+// walk is [Walk] under flags f: the one walk, written once, here. The
+// compiler compiles it for each set of flags of flagSet F, those flags
+// constants (see compiled), and once reading them from f as it goes.
 // walk_gen.go holds its lane form, which [WalkLanes] runs (laneWalks in
 // walkgen_test.go), generated from this source with the simulation's flags
 // made constants. Every per-walk decision is read from a flag declared at
@@ -441,22 +443,22 @@ func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 // the lane form also needs the walk's state declared before its loop of
 // events, with its type, and the loop to be one switch on the event's kind
 // (the generator says so when they are not).
-func walk(s *Schedule, in *Inputs, o *Options, f flags) Result {
-	exact := f.exact
-	paths := f.paths
-	infl := f.infl
-	logged := f.logged
-	slope := f.slope
-	alone := f.alone
-	one := f.one
-	none := f.none
-	set := f.set
-	ruled := f.ruled
-	capping := f.capping
-	matching := f.matching
-	accrue := f.accrue
-	taxed := f.taxed
-	reach := f.reach
+func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
+	exact := fixed[F](f.exact, flExact)
+	paths := fixed[F](f.paths, flPaths)
+	infl := fixed[F](f.infl, flInfl)
+	logged := fixed[F](f.logged, flLogged)
+	slope := fixed[F](f.slope, flSlope)
+	alone := fixed[F](f.alone, flAlone)
+	one := fixed[F](f.one, flOne)
+	none := fixed[F](f.none, flNone)
+	set := fixed[F](f.set, flSet)
+	ruled := fixed[F](f.ruled, flRuled)
+	capping := fixed[F](f.capping, flCapping)
+	matching := fixed[F](f.matching, flMatching)
+	accrue := fixed[F](f.accrue, flAccrue)
+	taxed := fixed[F](f.taxed, flTaxed)
+	reach := fixed[F](f.reach, flReach)
 	var bal, base, acc, accrued, peak float64
 	var pool float64    // the month's income not yet paid out
 	var taxable float64 // interest credited since the last tax (Shape.Tax)

@@ -20,10 +20,9 @@ import (
 var update = flag.Bool("update", false, "rewrite walk_gen.go from walk.go")
 
 // laneWalks are the flags the generated lane copies of walk are made for
-// (see WalkLanes): the simulation's paths. walk is the only scalar walk:
-// there is no copy of it with its flags fixed (each was a second loop of
-// the schedule that a scan for repeated code finds, for a bare walk about
-// twice as fast).
+// (see WalkLanes): the simulation's paths. walk is the only scalar walk
+// in the source: its forms with flags fixed are the compiler's, from the
+// one source (see compiled), not copies a generator writes.
 var laneWalks = []struct {
 	name string
 	f    flags
@@ -33,7 +32,7 @@ var laneWalks = []struct {
 
 // flagLine is a line of walk's body that reads a flag: the generator makes
 // it a constant.
-var flagLine = regexp.MustCompile(`(?m)^\t(\w+) := f\.(\w+)$`)
+var flagLine = regexp.MustCompile(`(?m)^\t(\w+) := fixed\[F\]\(f\.(\w+), fl(\w+)\)$`)
 
 // generateWalks returns walk_gen.go as walk.go's walk gives it: for each
 // of laneWalks, walk with its flags constants walking Lanes walks at once,
@@ -86,8 +85,8 @@ func fixFlags(t *testing.T, fn string, f flags) string {
 	seen := map[string]bool{}
 	body := flagLine.ReplaceAllStringFunc(fn, func(line string) string {
 		m := flagLine.FindStringSubmatch(line)
-		if m[1] != m[2] {
-			t.Fatalf("walk.go: %q: a flag's local must have its name", line)
+		if m[1] != m[2] || !strings.EqualFold(m[2], m[3]) {
+			t.Fatalf("walk.go: %q: a flag's local and bit must have its name", line)
 		}
 		fv := v.FieldByName(m[2])
 		if !fv.IsValid() {
@@ -98,7 +97,7 @@ func fixFlags(t *testing.T, fn string, f flags) string {
 	})
 	for i := range v.NumField() {
 		if n := v.Type().Field(i).Name; !seen[n] {
-			t.Fatalf("walk.go: walk reads no line %q := f.%s", n, n)
+			t.Fatalf("walk.go: walk reads no line %q := fixed[F](f.%s, fl…)", n, n)
 		}
 	}
 	return body
