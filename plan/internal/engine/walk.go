@@ -520,9 +520,11 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 			ruleYear[k] = -1
 		}
 	}
+	evs := s.events
+	nt := len(s.taus)
 events:
-	for i := range s.events {
-		e := &s.events[i]
+	for i := range evs {
+		e := &evs[i]
 		switch e.Kind {
 		case Interest:
 			var p0 int32 // the period the run's first date ends (Options.Paths)
@@ -656,7 +658,7 @@ events:
 			}
 		case Fee:
 			if alone {
-				ea.fee(in.Fee, w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1], s.taus[e.Ti], none)
+				ea.fee(in.Fee, w[(int(e.Step)*nt+int(e.Ti))*2+1], s.taus[e.Ti], none)
 			}
 			f := bal * in.Fee
 			if exact {
@@ -674,7 +676,7 @@ events:
 			}
 			bal -= f
 			if slope {
-				wi := (int(e.Step)*len(s.taus)+int(e.Ti))*2 + 1
+				wi := (int(e.Step)*nt+int(e.Ti))*2 + 1
 				df := dv.bal * in.Fee
 				dv.bal -= df
 				if none {
@@ -692,7 +694,7 @@ events:
 			if e.Ti == 0 { // a whole period's interest: part of the next base
 				base -= f
 			} else if !paths {
-				acc -= f * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
+				acc -= f * w[(int(e.Step)*nt+int(e.Ti))*2+1]
 			} else {
 				acc -= f * o.Paths.W[i]
 			}
@@ -730,7 +732,7 @@ events:
 			}
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind != Income && in.Out[e.Src] {
-				ea.payIncome(w[(int(e.Step)*len(s.taus)+int(e.Ti))*2], s.taus[e.Ti], none)
+				ea.payIncome(w[(int(e.Step)*nt+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
 			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
@@ -741,13 +743,13 @@ events:
 						dv.low = dlowest(low, bal+pool+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 					}
 					if e.Ti != 0 {
-						dv.acc += pool * dv.dw[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+						dv.acc += pool * dv.dw[(int(e.Step)*nt+int(e.Ti))*2]
 					}
 				}
 				if e.Ti == 0 {
 					base += pool
 				} else if !paths {
-					acc += pool * w[(int(e.Step)*len(s.taus)+int(e.Ti))*2]
+					acc += pool * w[(int(e.Step)*nt+int(e.Ti))*2]
 				} else {
 					acc += pool * o.Paths.W[i]
 				}
@@ -795,7 +797,7 @@ events:
 				}
 			}
 			if alone {
-				y, wi := x, (int(e.Step)*len(s.taus)+int(e.Ti))*2
+				y, wi := x, (int(e.Step)*nt+int(e.Ti))*2
 				if in.Out[e.Src] {
 					y, wi = -math.Abs(x), wi+1
 				}
@@ -874,7 +876,7 @@ events:
 					dv.low = dlowest(low, bal+accrued, s.taus[e.Ti], dv.low, dv.bal+dv.accrued)
 				}
 				if e.Ti != 0 {
-					wi := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+					wi := (int(e.Step)*nt + int(e.Ti)) * 2
 					if x+emp < 0 {
 						wi++
 					}
@@ -887,7 +889,7 @@ events:
 			if in := x + emp; e.Ti == 0 { // a whole period's interest: part of the next base
 				base += in
 			} else if !paths {
-				i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+				i := (int(e.Step)*nt + int(e.Ti)) * 2
 				if in < 0 {
 					i++
 				}
@@ -967,7 +969,11 @@ func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
 func (g *Log) post(tick int64, month int32, kind PostKind, src int16, x, short, covered float64) {
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
-	g.Posts[n] = Post{Tick: tick, Month: month, Kind: kind, Src: src, Amount: int64(x)}
+	// field by field: a Post written whole is zeroed first, and a ledger
+	// writes one for every movement (its padding is the zero the slice was
+	// made with)
+	p := &g.Posts[n]
+	p.Tick, p.Amount, p.Month, p.Src, p.Kind = tick, int64(x), month, src, kind
 	if short != 0 || covered != 0 {
 		g.Parts = append(g.Parts, Part{Post: int32(n), Short: int64(short), Covered: int64(covered)})
 	}

@@ -73,6 +73,10 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = ruledAmt
 	var ruleYear [Lanes][]int32
 	_ = ruleYear
+	evs := s.events
+	_ = evs
+	nt := len(s.taus)
+	_ = nt
 	for l := range Lanes {
 		res[l] = Result{ShortTick: -1}
 		{
@@ -87,8 +91,8 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			base[l] = bal[l]
 		}
 	}
-	for i := range s.events {
-		e := &s.events[i]
+	for i := range evs {
+		e := &evs[i]
 		switch e.Kind {
 		case Interest:
 			var p0 int32
@@ -177,7 +181,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				if e.Ti == 0 {
 					base[l] -= f
 				} else if !paths {
-					acc[l] -= f * w[l][(int(e.Step)*len(s.taus)+int(e.Ti))*2+1]
+					acc[l] -= f * w[l][(int(e.Step)*nt+int(e.Ti))*2+1]
 				} else {
 					acc[l] -= f * ps[l].W[i]
 				}
@@ -260,7 +264,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				if in := x + emp; e.Ti == 0 {
 					base[l] += in
 				} else if !paths {
-					i := (int(e.Step)*len(s.taus) + int(e.Ti)) * 2
+					i := (int(e.Step)*nt + int(e.Ti)) * 2
 					if in < 0 {
 						i++
 					}
