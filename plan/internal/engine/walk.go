@@ -487,11 +487,10 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if slope {
 		dv = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
 	}
-	var ea *each // every source alone (Options.Each)
+	var ea each // every source alone (Options.Each)
 	if alone {
 		ea = newEach(len(o.Each))
-		ea.bal[0] = in.Amounts[0]
-		ea.base[0], ea.low[0] = ea.bal[0], ea.bal[0]
+		ea[0].bal, ea[0].base, ea[0].low = in.Amounts[0], in.Amounts[0], in.Amounts[0]
 	}
 	if !one || o.Source == 0 {
 		bal = in.Amounts[0] * scale
@@ -705,7 +704,7 @@ events:
 			// its month, markMonth(e), is found only where it is read
 			pool = 0 // income its month's withdrawals did not need is not deposited
 			if alone {
-				clear(ea.pool)
+				ea.endMonth()
 			}
 			if !paths { // a simulated path reports no peak (Result.Peak)
 				peak = max(peak, bal)
@@ -802,9 +801,9 @@ events:
 					y, wi = -math.Abs(x), wi+1
 				}
 				if e.Kind == Income {
-					ea.pool[e.Src] += y
+					ea[e.Src].pool += y
 				} else {
-					ea.flow(int(e.Src), y, w[wi], s.taus[e.Ti], none)
+					ea[e.Src].flow(y, w[wi], s.taus[e.Ti], none)
 				}
 			}
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
@@ -909,7 +908,7 @@ events:
 		}
 	}
 	if alone {
-		copy(o.Each, ea.bal)
+		ea.balances(o.Each)
 	}
 	res.Closing, res.Peak = bal, peak
 	if slope {

@@ -67,7 +67,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = w
 	var dv [Lanes]*deriv
 	_ = dv
-	var ea [Lanes]*each
+	var ea each
 	_ = ea
 	var ruledAmt [Lanes][]float64
 	_ = ruledAmt
