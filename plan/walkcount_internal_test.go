@@ -1,6 +1,7 @@
 package plan
 
 import (
+	"os"
 	"testing"
 
 	"cairn/plan/internal/engine"
@@ -75,5 +76,40 @@ func TestWalkBudget(t *testing.T) {
 				t.Errorf("solve for %v (ledger and equation %v): %d walks, want at most %d", tt.q, full, got, want)
 			}
 		}
+	}
+}
+
+// The walks the commands make most are of a set of flags the walk is
+// compiled for (engine's fixed.go), none on the walk that reads its flags
+// as it goes: every solve of the speed issue's plan, with its ledger and
+// equation, and the example household's status, whose goals compound
+// monthly and daily. Counted, not timed: a flag added or a set changed that
+// would leave them on the slower walk fails here.
+func TestCommonWalksAreCompiled(t *testing.T) {
+	p, err := Parse("bench.yaml", []byte(walkBenchPlan), 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	data, err := os.ReadFile("../examples/household.yaml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	household, err := Parse("household.yaml", data, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	n, all := engine.SlowWalks(), engine.Walks()
+	g := p.Goals[0]
+	for _, q := range []Quantity{ForRate, ForDeposit, ForTime} {
+		if _, err := solve(p, g, Question{For: q}, true); err != nil {
+			t.Fatalf("%v: %v", q, err)
+		}
+	}
+	if _, err := Project(p, g, g.By); err != nil {
+		t.Fatal(err)
+	}
+	StatusOf(household)
+	if slow, walked := engine.SlowWalks()-n, engine.Walks()-all; slow != 0 || walked == 0 {
+		t.Errorf("%d of %d walks read their flags as they went, want none", slow, walked)
 	}
 }

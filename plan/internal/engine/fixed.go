@@ -1,5 +1,7 @@
 package engine
 
+import "sync/atomic"
+
 // The flags' bits, in the order of the fields of flags: a set of flags as
 // a number, which names the walk compiled for it (see compiled).
 const (
@@ -98,5 +100,16 @@ func compiled(s *Schedule, in *Inputs, o *Options, f flags) Result {
 	case setAccrueAlone:
 		return walk[[1 + setAccrueAlone]byte](s, in, o, f)
 	}
+	slowWalks.Add(1)
 	return walk[[0]byte](s, in, o, f)
 }
+
+// slowWalks counts the walks made by the walk that reads its flags as it
+// goes (see [SlowWalks]).
+var slowWalks atomic.Int64
+
+// SlowWalks returns how many walks since the process started were not of
+// a set of flags compiled for: a count the tests hold at zero for the walks
+// the commands make most, so that a flag added or a set changed does not
+// quietly leave them on the slower walk.
+func SlowWalks() int64 { return slowWalks.Load() }
