@@ -28,6 +28,14 @@ func AnnuityRate(n, opening, level, final float64, atStart bool) (float64, error
 	if atStart {
 		w = 1
 	}
+	// When every amount paid in is paid in (P, A ≤ 0) and F is received,
+	// what the payments grow to, G = −P·(F/P) − A·(1 + i·w)·(F/A), rises
+	// with i and is positive, and the equation is solved as ln F − ln G = 0
+	// instead, the same root: nearly straight in i where G itself bends
+	// sharply over a long term, so that Newton's steps take about half as
+	// many evaluations.
+	logForm := pv <= 0 && pmt <= 0 && (pv != 0 || pmt != 0) && fv > 0
+	lfv := math.Log(fv)
 	f := func(i float64) (float64, float64) { // value and derivative
 		em1 := math.Expm1(n * math.Log1p(i)) // (1+i)^n − 1
 		F := 1 + em1
@@ -37,6 +45,16 @@ func AnnuityRate(n, opening, level, final float64, atStart bool) (float64, error
 		}
 		v := fv + pv*F + pmt*(1+i*w)*fa
 		d := pv*n*F/(1+i) + pmt*(w*fa+(1+i*w)*dfa)
+		if logForm {
+			// G from its own terms, not as F − v, which loses it where it
+			// is small; where it is too small to divide by (an underflow
+			// near i = −1), the equation's own value, of the same sign,
+			// serves the bracketed search as well
+			g := -(pv*F + pmt*(1+i*w)*fa)
+			if h, dh := lfv-math.Log(g), d/g; g > 0 && !math.IsInf(h, 0) && !math.IsNaN(dh) && !math.IsInf(dh, 0) {
+				return h, dh
+			}
+		}
 		return v, d
 	}
 	lo, hi := -0.99, 1.0

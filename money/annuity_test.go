@@ -90,3 +90,50 @@ func TestAnnuityRate_Oracle(t *testing.T) {
 	}
 	t.Logf("%d rate cases, %d where the library returned NaN and cairn found the root", n, nan)
 }
+
+// Where all that is paid in is paid in and the final amount is received,
+// the rate is found on the logarithm of what the payments grow to; these
+// are its edges, each against a root derived in closed form or the
+// equation itself (derived, no published source): a lump sum over a term so
+// long that what it grows to underflows near −99%, where the search falls
+// back on the equation's own value; level payments whose every rate leaves
+// more than the final amount, or less, so that no rate balances them.
+func TestAnnuityRate_LogFormEdges(t *testing.T) {
+	// 100 paid now grows to 10,000 over 600 periods: i = 100^(1/600) − 1
+	if got, err := money.AnnuityRate(600, -100, 0, 10_000, false); err != nil || math.Abs(got-(math.Pow(100, 1.0/600)-1)) > 1e-12 {
+		t.Errorf("lump sum over 600 periods: %v, %v, want %v", got, err, math.Pow(100, 1.0/600)-1)
+	}
+	// 12 payments of 100 at the end: even at −99% they leave 100·(1 + 0.01
+	// + …) ≈ 101.01 > 1, so no rate leaves only 1
+	if got, err := money.AnnuityRate(12, 0, -100, 1, false); !errors.Is(err, money.ErrNoRate) {
+		t.Errorf("12 × 100 to 1: %v, %v, want ErrNoRate", got, err)
+	}
+	// 12 payments of 100 cannot grow to 1e30 at any rate in range
+	if got, err := money.AnnuityRate(12, 0, -100, 1e30, false); !errors.Is(err, money.ErrNoRate) {
+		t.Errorf("12 × 100 to 1e30: %v, %v, want ErrNoRate", got, err)
+	}
+	// level payments at the start and an opening amount, each root checked
+	// in the equation it solves, over short and long terms
+	for _, n := range []float64{1, 2, 12, 120, 600} {
+		for _, begin := range []bool{false, true} {
+			w := 0.0
+			if begin {
+				w = 1
+			}
+			const pv, pmt, fv = -2_500, -75, 40_000
+			// over 1 or 2 periods even 100% a period leaves at most
+			// 2,500·4 + 75·(2 + 4) = 10,450, short of 40,000: no root
+			i, err := money.AnnuityRate(n, pv, pmt, fv, begin)
+			if none := n <= 2; none || err != nil {
+				if none != errors.Is(err, money.ErrNoRate) {
+					t.Errorf("n %v, begin %v: %v, %v; want no rate %v", n, begin, i, err, none)
+				}
+				continue
+			}
+			F := math.Pow(1+i, n)
+			if v := fv + pv*F + pmt*(1+i*w)*(F-1)/i; math.Abs(v) > 1e-6*fv {
+				t.Errorf("n %v, begin %v: rate %v leaves %v in the equation, want 0", n, begin, i, v)
+			}
+		}
+	}
+}
