@@ -25,7 +25,7 @@ func Parse(name string, data []byte, asOf Month) (*Plan, error) {
 // a caller reading several files (or the same one again) passes to each so
 // that a shape is compiled once; nil gives the plan a cache of its own.
 func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) {
-	d := newDecoder(name)
+	d := newDecoder(name, len(data))
 	if len(data) > MaxFileSize {
 		d.errs = append(d.errs, &Error{Pos: Position{File: name}, Msg: fmt.Sprintf("file is %d bytes, over the %d-byte limit for a goals file", len(data), MaxFileSize)})
 		return nil, d.errs
@@ -90,8 +90,11 @@ type decoder struct {
 	asOf  Month                 // today's month, if the caller gives it
 }
 
-func newDecoder(file string) *decoder {
-	return &decoder{file: file, nodes: make(map[string]*yaml.Node, 128), bad: map[string]bool{}, goals: map[*Goal]string{}}
+// newDecoder returns a decoder for file, of size bytes, whose map of value
+// nodes starts with room for its keys: about one a line of some 8 bytes,
+// and at most a goals file's usual count, past which it grows as it must.
+func newDecoder(file string, size int) *decoder {
+	return &decoder{file: file, nodes: make(map[string]*yaml.Node, min(size/8, 128)), bad: map[string]bool{}, goals: map[*Goal]string{}}
 }
 
 // report adds a cross-field problem, positioned at the key it names, unless
