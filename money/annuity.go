@@ -37,8 +37,12 @@ func AnnuityRate(n, opening, level, final float64, atStart bool) (float64, error
 	logForm := pv <= 0 && pmt <= 0 && (pv != 0 || pmt != 0) && fv > 0
 	lfv := math.Log(fv)
 	f := func(i float64) (float64, float64) { // value and derivative
-		em1 := math.Expm1(n * math.Log1p(i)) // (1+i)^n − 1
-		F := 1 + em1
+		x := n * math.Log1p(i)
+		em1 := math.Expm1(x) // (1+i)^n − 1
+		F := 1 + em1         // (1+i)^n
+		if em1 < -0.5 {      // 1 + em1 keeps only em1's last bits of a small F
+			F = math.Exp(x)
+		}
 		fa, dfa := n, n*(n-1)/2 // (F/A) and its derivative, at i = 0
 		if math.Abs(i) >= 1e-7 {
 			fa, dfa = em1/i, (n*F/(1+i)*i-em1)/(i*i)
@@ -105,7 +109,10 @@ func AnnuityRate(n, opening, level, final float64, atStart bool) (float64, error
 	dxOld, dx := math.Abs(hi-lo), math.Abs(hi-lo)
 	v, d := f(i)
 	for it := 0; it < 300; it++ {
-		if ((i-hi)*d-v)*((i-lo)*d-v) > 0 || math.Abs(2*v) > math.Abs(dxOld*d) {
+		// Newton's step where it stays in the bracket and at least halves
+		// the last; a halving otherwise, and wherever the value or slope is
+		// not a number (terms past float64's range), which no test passes
+		if newton := ((i-hi)*d-v)*((i-lo)*d-v) <= 0 && math.Abs(2*v) <= math.Abs(dxOld*d); !newton {
 			dxOld, dx = dx, (hi-lo)/2
 			i = lo + dx
 		} else {
@@ -125,6 +132,9 @@ func AnnuityRate(n, opening, level, final float64, atStart bool) (float64, error
 		} else {
 			hi = i
 		}
+	}
+	if math.IsNaN(i) { // the equation's terms were past float64's range throughout
+		return math.NaN(), ErrNoRate
 	}
 	return i, nil
 }

@@ -92,12 +92,12 @@ func TestAnnuityRate_Oracle(t *testing.T) {
 }
 
 // Where all that is paid in is paid in and the final amount is received,
-// the rate is found on the logarithm of what the payments grow to; these
-// are its edges, each against a root derived in closed form or the
-// equation itself (derived, no published source): a lump sum over a term so
-// long that what it grows to underflows near −99%, where the search falls
-// back on the equation's own value; level payments whose every rate leaves
-// more than the final amount, or less, so that no rate balances them.
+// the rate is found on the logarithm of what the payments grow to. These
+// check the roots it gives at the edges, each against a closed form or the
+// equation itself (derived, no published source): a lump sum over 600
+// periods, level payments whose every rate leaves more than the final
+// amount or less, so that no rate balances them, and an opening amount
+// with level payments over short and long terms.
 func TestAnnuityRate_LogFormEdges(t *testing.T) {
 	// 100 paid now grows to 10,000 over 600 periods: i = 100^(1/600) − 1
 	if got, err := money.AnnuityRate(600, -100, 0, 10_000, false); err != nil || math.Abs(got-(math.Pow(100, 1.0/600)-1)) > 1e-12 {
@@ -133,6 +133,54 @@ func TestAnnuityRate_LogFormEdges(t *testing.T) {
 			F := math.Pow(1+i, n)
 			if v := fv + pv*F + pmt*(1+i*w)*(F-1)/i; math.Abs(v) > 1e-6*fv {
 				t.Errorf("n %v, begin %v: rate %v leaves %v in the equation, want 0", n, begin, i, v)
+			}
+		}
+	}
+}
+
+// On a grid of extreme terms and amounts where all that is paid in is paid
+// in (what it grows to, G, then rises with the rate, so there is at most
+// one root), AnnuityRate returns either a rate where ln F − ln G changes
+// sign, or ErrNoRate where it has one sign over the whole range; never a
+// value that is not a number without an error. Derived from the equation
+// itself, no published source. (The code before it returned NaN with no
+// error for AnnuityRate(360, −1e300, −1, 100, at start), and a wrong root
+// where (1+i)^n fell below float64's resolution near 1.)
+func TestAnnuityRate_AllPaidInGrid(t *testing.T) {
+	h := func(n, pv, pmt, fv, w, i float64) float64 { // ln F − ln G, by the definitions
+		x := n * math.Log1p(i)
+		F, fa := math.Exp(x), n
+		if i != 0 {
+			fa = math.Expm1(x) / i
+		}
+		return math.Log(fv) - math.Log(-pv*F-pmt*(1+i*w)*fa)
+	}
+	for _, n := range []float64{0.5, 1, 12, 360, 600, 5000} {
+		for _, pv := range []float64{0, -1e-300, -1, -1e6, -1e300} {
+			for _, pmt := range []float64{0, -1, -1e6} {
+				if pv == 0 && pmt == 0 {
+					continue
+				}
+				for _, fv := range []float64{1e-300, 0.01, 100, 1e6, 1e300} {
+					for _, w := range []float64{0, 1} {
+						i, err := money.AnnuityRate(n, pv, pmt, fv, w == 1)
+						lo, hi := -0.99, math.Min(1, math.Expm1(700/n))
+						at := func(i float64) float64 { return h(n, pv, pmt, fv, w, i) }
+						switch {
+						case errors.Is(err, money.ErrNoRate):
+							if a, b := at(lo), at(hi); (a > 0) != (b > 0) && a != 0 && b != 0 && !math.IsNaN(a) && !math.IsNaN(b) {
+								t.Errorf("AnnuityRate(%v, %v, %v, %v, %v): no rate, but ln F − ln G is %v at %v and %v at %v", n, pv, pmt, fv, w == 1, a, lo, b, hi)
+							}
+						case err != nil || math.IsNaN(i):
+							t.Errorf("AnnuityRate(%v, %v, %v, %v, %v) = %v, %v", n, pv, pmt, fv, w == 1, i, err)
+						default:
+							d := 1e-6 * math.Max(1e-3, math.Abs(i))
+							if a, b := at(i-d), at(i+d); !(a >= 0 && b <= 0) && math.Abs(at(i)) > 1e-6 {
+								t.Errorf("AnnuityRate(%v, %v, %v, %v, %v) = %v: ln F − ln G is %v just below and %v just above, no sign change", n, pv, pmt, fv, w == 1, i, a, b)
+							}
+						}
+					}
+				}
 			}
 		}
 	}
