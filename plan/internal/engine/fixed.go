@@ -51,6 +51,10 @@ const (
 	setAccrueAlone  = flAccrue | flAlone
 )
 
+// compiledSets are the sets above, each of which compiled gives its own
+// walk (its tests walk each).
+var compiledSets = [...]uint16{setExact, setLedger, setReach, setAccrue, setAccrueLedger, setAccrueReach, setSlope, setAlone, setAccrueAlone}
+
 // A flagSet is a set of flags as a type, which walk is compiled for:
 // [1+b]byte is the set of bits b, whose flags are then constants to the
 // compiler, so that what they rule out is not in that walk's code; [0]byte

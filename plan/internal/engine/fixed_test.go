@@ -1,27 +1,46 @@
 package engine
 
 import (
-	"fmt"
 	"reflect"
 	"testing"
-	"unsafe"
 
 	"cairn/money"
 )
 
 // Each flag's bit is its field's place in flags, and its constant is named
 // for it: a set's type fixes the flags its name says.
-func TestFlagBits(t *testing.T) {
-	v := reflect.TypeOf(flags{})
-	for i := range v.NumField() {
-		var f flags
-		*(*bool)(unsafe.Add(unsafe.Pointer(&f), v.Field(i).Offset)) = true // unexported: reflect sets none
-		if got := f.bits(); got != 1<<i {
-			t.Errorf("flags.%s: bits %b, want %b", v.Field(i).Name, got, 1<<i)
-		}
+func TestFlags_Bits(t *testing.T) {
+	tests := []struct {
+		f    flags
+		want uint16
+	}{
+		{flags{exact: true}, flExact},
+		{flags{paths: true}, flPaths},
+		{flags{infl: true}, flInfl},
+		{flags{logged: true}, flLogged},
+		{flags{slope: true}, flSlope},
+		{flags{alone: true}, flAlone},
+		{flags{one: true}, flOne},
+		{flags{none: true}, flNone},
+		{flags{set: true}, flSet},
+		{flags{ruled: true}, flRuled},
+		{flags{capping: true}, flCapping},
+		{flags{matching: true}, flMatching},
+		{flags{accrue: true}, flAccrue},
+		{flags{taxed: true}, flTaxed},
+		{flags{reach: true}, flReach},
+		{flags{exact: true, logged: true, reach: true}, flExact | flLogged | flReach},
 	}
-	if got := (flags{exact: true, logged: true, reach: true}).bits(); got != flExact|flLogged|flReach {
-		t.Errorf("bits of three flags: %b", got)
+	if n := reflect.TypeOf(flags{}).NumField(); len(tests)-1 != n {
+		t.Fatalf("%d flags tested, flags has %d", len(tests)-1, n)
+	}
+	for i, tt := range tests {
+		if i < len(tests)-1 && tt.want != 1<<i {
+			t.Errorf("flags field %d: constant %b, want bit %d (the field's place)", i, tt.want, i)
+		}
+		if got := tt.f.bits(); got != tt.want {
+			t.Errorf("%+v.bits() = %b, want %b", tt.f, got, tt.want)
+		}
 	}
 }
 
@@ -31,7 +50,7 @@ func TestFlagBits(t *testing.T) {
 // a fee, a withdrawal that runs short, amounts at the start and end of
 // their periods, a rate schedule and compounding daily (interest accrued
 // between monthly credits).
-func TestCompiledWalksAreTheWalk(t *testing.T) {
+func TestCompiled_IsTheWalk(t *testing.T) {
 	shapes := []Shape{
 		{PerYear: 12, Fee: true, StepFrom: []int32{0, 60}, Streams: []StreamShape{
 			{PerYear: 26, First: 1, Grow: 0.03, Until: 119, HasUntil: true},
@@ -80,13 +99,37 @@ func TestCompiledWalksAreTheWalk(t *testing.T) {
 			}
 		}
 	}
-	var missed []string
-	for _, set := range []uint16{setExact, setLedger, setReach, setAccrue, setAccrueLedger, setAccrueReach, setSlope, setAlone, setAccrueAlone} {
+	for _, set := range compiledSets {
 		if !sets[set] {
-			missed = append(missed, fmt.Sprintf("%b", set))
+			t.Errorf("set %b is compiled but not walked here", set)
 		}
 	}
-	if len(missed) > 0 {
-		t.Errorf("sets compiled but not walked here: %v", missed)
+}
+
+// Every set of compiledSets is walked by a body of its own, not by the walk
+// that reads its flags as it goes (counted by SlowWalks).
+func TestCompiled_Dispatch(t *testing.T) {
+	sh := Shape{Months: 12, PerYear: 12, StepFrom: []int32{0}, Streams: []StreamShape{{PerYear: 12, First: 1}}}
+	s := Compile(&sh)
+	in := Inputs{Rates: []float64{0.004}, RateM: []money.Multiplier{money.FloatMultiplier(0.004)}, Places: 2, Amounts: []float64{100, 10}, Out: []bool{false, false}}
+	for _, set := range compiledSets {
+		var f flags
+		for i, p := range []*bool{&f.exact, &f.paths, &f.infl, &f.logged, &f.slope, &f.alone, &f.one, &f.none,
+			&f.set, &f.ruled, &f.capping, &f.matching, &f.accrue, &f.taxed, &f.reach} {
+			*p = set&(1<<i) != 0
+		}
+		o := Options{Mode: Smooth, Log: &Log{Posts: make([]Post, 0, s.MaxPosts()), MonthEnd: make([]int64, s.Months())},
+			Reach: func(int32, float64) bool { return false }, DRates: []float64{1}, Each: make([]float64, 2)}
+		if f.exact {
+			o.Mode = Exact
+		}
+		n := SlowWalks()
+		compiled(s, &in, &o, f)
+		if SlowWalks() != n {
+			t.Errorf("set %b: walked by the walk reading its flags, want its own", set)
+		}
+	}
+	if n := SlowWalks(); compiled(s, &in, &Options{Mode: Exact}, flags{exact: true, taxed: true}) == (Result{}) || SlowWalks() != n+1 {
+		t.Errorf("a set not compiled: SlowWalks did not count it")
 	}
 }

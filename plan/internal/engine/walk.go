@@ -969,8 +969,8 @@ func (g *Log) post(tick int64, month int32, kind PostKind, src int16, x, short, 
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
 	// field by field: a Post written whole is zeroed first, and a ledger
-	// writes one for every movement (its padding is the zero the slice was
-	// made with)
+	// writes one for every movement (its padding byte is left as it was,
+	// which no comparison of posts reads)
 	p := &g.Posts[n]
 	p.Tick, p.Amount, p.Month, p.Src, p.Kind = tick, int64(x), month, src, kind
 	if short != 0 || covered != 0 {
