@@ -6,7 +6,6 @@ import (
 	"reflect"
 	"slices"
 	"strconv"
-	"testing"
 )
 
 // randomShape returns a shape of random timing: compounding, fee, tax, rate
@@ -67,22 +66,4 @@ func sameSchedule(a, b *Schedule) string {
 		}
 	}
 	return ""
-}
-
-// A schedule extended from a shorter one of its shape is the one compiled
-// afresh, on thousands of random shapes (every frequency, fees, tax, rate
-// steps in and out of order, until, resume, income, today's money, growth,
-// one-time amounts). The compiler of 77811a8 was also checked against the
-// compiler before it on these shapes, event for event; that copy is not
-// kept in the tree.
-func TestCompileExtendsOnRandomShapes(t *testing.T) {
-	r := rand.New(rand.NewPCG(14, 2))
-	for range 2000 {
-		sh := randomShape(r)
-		short := sh
-		short.Months = 1 + r.Int32N(sh.Months)
-		if d := sameSchedule(compileFrom(&sh, Compile(&short)), Compile(&sh)); d != "" {
-			t.Fatalf("%+v from %d months: extended schedule differs from the fresh one in its %s", sh, short.Months, d)
-		}
-	}
 }
