@@ -231,12 +231,20 @@ func labelBegin(t int64) int32 { return int32(t / TicksPerMonth) }
 // Compile lays shape sh on the tick grid.
 func Compile(sh *Shape) *Schedule { return compileFrom(sh, nil) }
 
-// compileFrom lays shape sh on the tick grid after old, a schedule of the
+// compileFrom is [compileYears], copying the plan years that repeat.
+func compileFrom(sh *Shape, old *Schedule) *Schedule {
+	s, _ := compileYears(sh, old, true)
+	return s
+}
+
+// compileYears lays shape sh on the tick grid after old, a schedule of the
 // same shape through an earlier month (or nil): old's events are the first
 // of the schedule (a shape's events do not depend on how far it is
 // compiled, see [Schedule.Prefix]), and only the months after it are laid
-// down.
-func compileFrom(sh *Shape, old *Schedule) *Schedule {
+// down. With repeat, a plan year whose events are the year before's a year
+// later (see [compiler.repeats]) is copied from it, not laid down event by
+// event; it returns the years copied.
+func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	s := &Schedule{months: sh.Months, stepFrom: slices.Clone(sh.StepFrom)}
 	var m0 int32 // the first month laid down
 	var t0 int64 // and its start
@@ -338,7 +346,20 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	c.nextTick = (c.done + 1) * s.period
 	c.sorted = slices.IsSorted(sh.StepFrom)
 	c.runs.at, c.puts.at = -1, -1
+	copied := 0
+	last := yearStart{month: -1} // where the last plan year laid down here began
 	for m := m0; m < sh.Months; m++ {
+		if m%12 == 0 {
+			cur := c.yearStart(m)
+			if repeat && last.month == m-12 && c.repeats(sh, m, last) {
+				c.copyYear(last, cur)
+				last = cur
+				copied++
+				m += 11
+				continue
+			}
+			last = cur
+		}
 		// at a month end come, in order: the amounts before it, its
 		// interest, the credit, the tax, the fee, the amounts at the end
 		// of their periods, and the mark (see [Kind]); an amount has no
@@ -365,7 +386,131 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 	c.flowsBefore(math.MaxUint64)
 	c.interestTo(s.endTick)
 	s.events, s.left = c.ev, c.left
-	return s
+	return s, copied
+}
+
+// A yearStart is where a plan year's events begin in a schedule being laid
+// down: the index of its first event, the lengths and counts then, and its
+// first month.
+type yearStart struct {
+	ev, partial, posts, amounts, once int
+	month                             int32
+}
+
+func (c *compiler) yearStart(m int32) yearStart {
+	return yearStart{ev: len(c.ev), partial: len(c.s.partial), posts: c.s.posts, amounts: c.s.amounts, once: c.f.oi, month: m}
+}
+
+// repeats reports whether the plan year of months m to m+11, the last
+// year's events (from last) all laid down, is that year's events a year later: every
+// event's tick a year on and a flow's growth a year older, nothing else
+// changed. It is when the year is whole within the schedule, no rate step
+// begins from the last year's first interest period through the year's
+// end, no one-time amount falls in either year, and every stream either
+// has a period all through both years (from before the first to after the
+// last, none left out by Resume) or no amount in either. A year told
+// otherwise is laid down event by event, which is always right: the tests
+// hold both ways to the same schedule.
+func (c *compiler) repeats(sh *Shape, m int32, last yearStart) bool {
+	s, f := c.s, c.f
+	y0 := int64(m) * TicksPerMonth // the year's start; the last year began a year before
+	y1 := y0 + TicksPerYear
+	lo, hi := max(y0-TicksPerYear-s.period, 0), y1+s.period
+	if m+12 > sh.Months || y0/s.period != c.done {
+		return false
+	}
+	for _, from := range s.stepFrom {
+		if t := int64(from) * TicksPerMonth; t > lo && t <= hi {
+			return false
+		}
+	}
+	if f.oi != last.once || f.oi < len(f.once) && f.once[f.oi].e.Tick <= y1 {
+		return false
+	}
+	a := y0 - TicksPerYear
+	for k := range f.gens {
+		g := &f.gens[k]
+		st, margin := g.st, g.P+TicksPerMonth
+		switch {
+		case g.from >= y1+margin, g.from+g.stop*g.P+margin <= a: // none in either year
+		// A stream's amount in the year is of a period starting after
+		// y0−P: the period a year before is one of the stream's from its
+		// start at a, and not left out before a resume. An amount of the
+		// last year is of a period ending by y1: the end of the schedule
+		// (at or after y1) stops none, an until after y1 none either.
+		case g.from <= a && (st.Resume == 0 || int64(st.Resume)*TicksPerMonth+margin <= a) &&
+			(!st.HasUntil || int64(st.Until)*TicksPerMonth >= y1+TicksPerMonth) && g.k < g.stop && g.years < math.MaxUint8:
+		default:
+			return false
+		}
+	}
+	return true
+}
+
+// copyYear lays down the plan year beginning at cur as a copy of the one
+// beginning at last, a year later (see [compiler.repeats]), and moves the
+// streams' generators a year on.
+func (c *compiler) copyYear(last, cur yearStart) {
+	s, f := c.s, c.f
+	n := cur.ev - last.ev
+	c.ev = append(c.ev, c.ev[last.ev:cur.ev]...)
+	// a stream's amounts of the last year are of its generator's year and
+	// the one before; copied, of that year or the one after
+	next := make([]float64, len(f.gens))
+	for k := range f.gens {
+		next[k] = f.gens[k].unit(f.gens[k].years + 1)
+	}
+	for i := range c.ev[cur.ev:] {
+		e := &c.ev[cur.ev+i]
+		e.Tick += TicksPerYear
+		if e.Src != 0 { // a stream's amount: there is no one-time amount in the year
+			g := &f.gens[e.Src-1]
+			e.Year++
+			e.Unit = g.u
+			if e.Year != g.year {
+				e.Unit = next[e.Src-1]
+			}
+		}
+	}
+	for _, p := range s.partial[last.partial:cur.partial] {
+		s.partial = append(s.partial, p+int32(n))
+	}
+	s.posts += cur.posts - last.posts
+	s.amounts += cur.amounts - last.amounts
+	c.done += TicksPerYear / s.period
+	c.nextTick = (c.done + 1) * s.period
+	// a stream with a period all through the years has its next amount a
+	// year on; one with none in them is as it was
+	// (the amount it had found, the first of the year, becomes the first
+	// of the next year, if its period is one of the stream's: the end of
+	// the schedule may stop it)
+	y0 := int64(cur.month) * TicksPerMonth
+	h := f.h[:0]
+	for _, k := range f.h {
+		if g := &f.gens[k]; g.from <= y0 {
+			g.k += TicksPerYear / g.P
+			g.years++
+			g.yearEnd += TicksPerYear
+			g.u, g.year = next[k], uint8(g.years)
+			g.t += TicksPerYear
+			g.key += TicksPerYear << 24 // see orderKey
+			if g.k > g.stop {
+				continue
+			}
+		}
+		h = append(h, k)
+	}
+	f.h = h
+	f.init()
+}
+
+// unit returns the unit of the stream's amounts in their year y of growth
+// (as advance finds it).
+func (g *flowGen) unit(y int64) float64 {
+	if g.st.Grow == 0 {
+		return g.st.First
+	}
+	return g.st.First * math.Exp(float64(y)*g.lg)
 }
 
 // A compiler lays a schedule's events down in order (see [Compile]).
@@ -575,9 +720,7 @@ func (g *flowGen) advance() bool {
 		if ps >= g.yearEnd {
 			year := (ps - g.from) / TicksPerYear
 			g.years, g.yearEnd = year, g.from+(year+1)*TicksPerYear
-			if st.Grow != 0 {
-				g.u = st.First * math.Exp(float64(year)*g.lg)
-			}
+			g.u = g.unit(year)
 		}
 		t, kd, label := ps, FlowBegin, int32(0)
 		if !st.Begin {
