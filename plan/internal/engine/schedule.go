@@ -453,22 +453,25 @@ func (c *compiler) repeats(sh *Shape, m int32, last yearStart) bool {
 func (c *compiler) copyYear(last, cur yearStart) {
 	s, f := c.s, c.f
 	n := cur.ev - last.ev
-	c.ev = append(c.ev, c.ev[last.ev:cur.ev]...)
+	c.ev = slices.Grow(c.ev, n)
+	c.ev = c.ev[:cur.ev+n]
 	// a stream's amounts of the last year are of its generator's year and
 	// the one before; copied, of that year or the one after
-	next := make([]float64, len(f.gens))
-	for k := range f.gens {
-		next[k] = f.gens[k].unit(f.gens[k].years + 1)
+	gens := f.gens
+	next := make([]float64, len(gens))
+	for k := range gens {
+		next[k] = gens[k].unit(gens[k].years + 1)
 	}
-	for i := range c.ev[cur.ev:] {
-		e := &c.ev[cur.ev+i]
+	dst := c.ev[cur.ev:]
+	copy(dst, c.ev[last.ev:cur.ev])
+	for i := range dst {
+		e := &dst[i]
 		e.Tick += TicksPerYear
-		if e.Src != 0 { // a stream's amount: there is no one-time amount in the year
-			g := &f.gens[e.Src-1]
+		if k := e.Src - 1; k >= 0 { // a stream's amount: there is no one-time amount in the year
 			e.Year++
-			e.Unit = g.u
-			if e.Year != g.year {
-				e.Unit = next[e.Src-1]
+			e.Unit = gens[k].u
+			if e.Year != gens[k].year {
+				e.Unit = next[k]
 			}
 		}
 	}
