@@ -168,7 +168,7 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 					first = e.Tick
 				}
 				last, count = e.Tick, count+1
-				units = append(units, e.Unit)
+				units = append(units, s.eng.Unit(e))
 			}
 		}
 		if count == 0 {

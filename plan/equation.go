@@ -85,7 +85,7 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	for i := range s.events {
 		if e := &s.events[i]; flowOf(e, e.Src) {
 			if counts[e.Src] == 0 {
-				units[e.Src], years[e.Src] = e.Unit, int32(e.Year)
+				units[e.Src], years[e.Src] = s.eng.Unit(e), int32(e.Year)
 			}
 			counts[e.Src]++
 		}
@@ -367,7 +367,7 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) (terms []T
 		}
 	}
 	if i == 0 { // the opening balance, at the plan's start
-		flows = []*engine.Event{{Tick: 0, Unit: 1}} // a whole period before its credit (between is false for it)
+		flows = []*engine.Event{{Tick: 0}} // source 0, of unit 1: a whole period before its credit (between is false for it)
 	}
 	between := g.Between != Compound && !s.onCredits(int32(i)) && i != 0
 	j := rate.PerPeriod(s.comp)
@@ -383,7 +383,7 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) (terms []T
 		gr = st.growth(s.plan.Inflation)
 	}
 	for _, e := range flows {
-		p := point{tick: e.Tick, w: e.Unit / flows[0].Unit, year: int32(e.Year), n: 1}
+		p := point{tick: e.Tick, w: s.eng.Unit(e) / s.eng.Unit(flows[0]), year: int32(e.Year), n: 1}
 		if between && !(own && e.Tick%s.period == 0) {
 			p.tick = e.Tick + int64(math.Round(s.eng.Tau(e)*float64(s.period)))
 			if p.tick > to {

@@ -116,7 +116,7 @@ func newHousehold(p *Plan, end Month) (*household, error) {
 		if e := &bs.events[i]; flowOf(e, 1) {
 			h.ticks = append(h.ticks, e.Tick)
 			h.month = append(h.month, p.Start+Month(e.Month()))
-			h.unit = append(h.unit, e.Unit)
+			h.unit = append(h.unit, bs.eng.Unit(e))
 			h.fixed = append(h.fixed, -1)
 		}
 	}

@@ -135,7 +135,7 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 	ans.FirstAmount = ans.Amount
 	for _, e := range s.events {
 		if flowOf(&e, idx) {
-			ans.FirstAmount = ans.Amount.MulFloat(e.Unit).Round(s.places, s.rounding)
+			ans.FirstAmount = ans.Amount.MulFloat(s.eng.Unit(&e)).Round(s.places, s.rounding)
 			break
 		}
 	}

@@ -607,7 +607,7 @@ func (s *schedule) setter(pr *params, idx int32) func(c int64) {
 func (s *schedule) firstAmount(pr *params, idx int32) money.Amount {
 	for _, e := range s.events {
 		if flowOf(&e, idx) {
-			return pr.amounts[idx].MulFloat(e.Unit).Round(s.places, s.rounding).Abs()
+			return pr.amounts[idx].MulFloat(s.eng.Unit(&e)).Round(s.places, s.rounding).Abs()
 		}
 	}
 	return pr.amounts[idx].Abs()

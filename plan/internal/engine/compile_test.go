@@ -49,6 +49,8 @@ func sameSchedule(a, b *Schedule) string {
 			}
 		}
 		return "event count " + strconv.Itoa(len(a.events)) + " against " + strconv.Itoa(len(b.events))
+	case !reflect.DeepEqual(a.units, b.units):
+		return "units"
 	case !reflect.DeepEqual(a.taus, b.taus), !reflect.DeepEqual(a.left, b.left):
 		return "fractions of the period"
 	case !reflect.DeepEqual(a.partial, b.partial):

@@ -45,23 +45,27 @@ const (
 // month end.
 //
 // It holds only what cannot be had cheaply from its tick or a table of its
-// schedule, so that an event takes 24 bytes (a schedule is most of what a
+// schedule, so that an event takes 16 bytes (a schedule is most of what a
 // cold projection writes): its month is [Event.Month], its interest period
 // [Schedule.Period], its fraction of the period left [Schedule.Tau] (from
-// Ti), and a flow's inflation indexes [Schedule.IndexOf] (from its
-// source's stream and Year); whether a flow is money out is its source's
-// (Inputs.Out). Compile panics on a shape past the sizes below, which
-// plan's limits keep far within.
+// Ti), a flow's amount per unit of its source's [Schedule.Unit] and its
+// inflation indexes [Schedule.IndexOf] (from its source's stream and Year);
+// whether a flow is money out is its source's (Inputs.Out). Compile panics
+// on a shape past the sizes below, which plan's limits keep far within.
 type Event struct {
 	Tick  int64
-	Unit  float64 // flows: amount per unit of the source's amount (growth, indexing)
-	Src   int16   // flows: the source (see [Shape]; fewer than 2¹⁵); others: 0
-	Ti    uint16  // flows and fees: index of the fraction of the interest period left until its credit among the schedule's distinct values; 0 is a whole period
-	Step  uint8   // the rate step in force for the interest period the event is in (at most 256 steps)
-	Count uint8   // interest: how many interest dates in a row, one period apart (at least 1; a run never passes a month end, so at most 31)
-	Year  uint8   // flows: whole years of growth in Unit (at most 255)
+	Src   int16  // flows: the source (see [Shape]; fewer than 2¹⁵); others: 0
+	Ti    uint16 // flows and fees: index of the fraction of the interest period left until its credit among the schedule's distinct values; 0 is a whole period
+	Step  uint8  // the rate step in force for the interest period the event is in (at most 256 steps)
+	Count uint8  // interest: how many interest dates in a row, one period apart (at least 1; a run never passes a month end, so at most 31)
+	Year  uint8  // flows: whole years of growth of the source's amount (at most 255)
 	Kind  Kind
 }
+
+// Unit returns flow e's amount per unit of its source's amount: its years
+// of growth (and a first year's indexing to today's money); 1 for a
+// one-time amount and for the opening balance (source 0).
+func (s *Schedule) Unit(e *Event) float64 { return s.units[int(e.Src)*s.years+int(e.Year)] }
 
 // Month returns the month the event is shown in, counted from the start
 // (0): an amount at the start of a period (and income) in the month it
@@ -175,6 +179,11 @@ type Schedule struct {
 	grow []float64
 	// index is, per source, how its amounts follow inflation.
 	index []indexing
+	// units is, for each source in turn, the unit of its amounts (see
+	// [Schedule.Unit]) by their year of growth, in years entries each:
+	// one table, so that a walk finds a unit with one look-up.
+	units []float64
+	years int
 	// partial lists the flows and fees part way through an interest
 	// period (Tau < 1): the events a path's weights are computed for.
 	partial []int32
@@ -276,7 +285,7 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 			s.grow[src] = math.NaN()
 		}
 		g := &f.gens[k]
-		*g = flowGen{st: st, src: int16(src), P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow), u: st.First}
+		*g = flowGen{st: st, src: int16(src), P: TicksPerYear / int64(st.PerYear), from: int64(st.From) * TicksPerMonth, lg: math.Log1p(st.Grow)}
 		if t0 > g.from { // the first period whose amount falls after old's end
 			if st.Begin {
 				g.k = (t0 - g.from + g.P - 1) / g.P
@@ -300,7 +309,7 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 		if on > f.end || on < m0 {
 			continue
 		}
-		e := Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: int16(1 + len(sh.Streams) + k), Unit: 1}
+		e := Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: int16(1 + len(sh.Streams) + k)}
 		f.once = append(f.once, onceFlow{e, orderKey(&e, sh.OnceOut[k])})
 	}
 	slices.SortFunc(f.once, func(a, b onceFlow) int { return cmp.Compare(a.key, b.key) }) // one-time amounts may be written in any order
@@ -378,7 +387,7 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 			s.posts++
 		}
 		if sh.Fee {
-			c.put(t, Fee, 0, 0, 0)
+			c.put(t, Fee, 0, 0)
 		}
 		c.flowsBefore(orderKey(&Event{Tick: t, Kind: Mark}, false))
 		c.lay(t, Mark)
@@ -386,6 +395,19 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	c.flowsBefore(math.MaxUint64)
 	c.interestTo(s.endTick)
 	s.events, s.left = c.ev, c.left
+	// every year of growth an amount of the schedule can have (one made
+	// before the last year's end)
+	s.years = int(min((s.endTick+TicksPerYear-1)/TicksPerYear, math.MaxUint8) + 1)
+	s.units = make([]float64, s.sources*s.years)
+	for src := range s.sources {
+		row := s.units[src*s.years : (src+1)*s.years]
+		for y := range row {
+			row[y] = 1
+			if k := src - 1; k >= 0 && k < len(f.gens) {
+				row[y] = f.gens[k].unit(int64(y))
+			}
+		}
+	}
 	return s, copied
 }
 
@@ -455,24 +477,13 @@ func (c *compiler) copyYear(last, cur yearStart) {
 	n := cur.ev - last.ev
 	c.ev = slices.Grow(c.ev, n)
 	c.ev = c.ev[:cur.ev+n]
-	// a stream's amounts of the last year are of its generator's year and
-	// the one before; copied, of that year or the one after
-	gens := f.gens
-	next := make([]float64, len(gens))
-	for k := range gens {
-		next[k] = gens[k].unit(gens[k].years + 1)
-	}
 	dst := c.ev[cur.ev:]
 	copy(dst, c.ev[last.ev:cur.ev])
 	for i := range dst {
 		e := &dst[i]
 		e.Tick += TicksPerYear
-		if k := e.Src - 1; k >= 0 { // a stream's amount: there is no one-time amount in the year
+		if e.Src != 0 { // a stream's amount: there is no one-time amount in the year
 			e.Year++
-			e.Unit = gens[k].u
-			if e.Year != gens[k].year {
-				e.Unit = next[k]
-			}
 		}
 	}
 	for _, p := range s.partial[last.partial:cur.partial] {
@@ -494,7 +505,7 @@ func (c *compiler) copyYear(last, cur yearStart) {
 			g.k += TicksPerYear / g.P
 			g.years++
 			g.yearEnd += TicksPerYear
-			g.u, g.year = next[k], uint8(g.years)
+			g.year = uint8(g.years)
 			g.t += TicksPerYear
 			g.key += TicksPerYear << 24 // see orderKey
 			if g.k > g.stop {
@@ -587,12 +598,12 @@ func (c *compiler) flowsBefore(k uint64) {
 		if f.oi < len(f.once) && f.once[f.oi].key == f.key { // order keys are unique
 			e := &f.once[f.oi].e
 			c.interestTo(e.Tick)
-			c.put(e.Tick, e.Kind, e.Src, e.Unit, e.Year)
+			c.put(e.Tick, e.Kind, e.Src, e.Year)
 			f.oi++
 		} else {
 			g := &f.gens[f.h[0]]
 			c.interestTo(g.t)
-			c.put(g.t, g.kind, g.src, g.u, g.year)
+			c.put(g.t, g.kind, g.src, g.year)
 			if !g.advance() {
 				f.h[0] = f.h[len(f.h)-1]
 				f.h = f.h[:len(f.h)-1]
@@ -647,11 +658,11 @@ func (c *compiler) runsTo(t int64) {
 	c.nextTick = (c.done + 1) * s.period
 }
 
-// put appends an amount or a fee of kind kd at tick t (of source src, unit
-// and years of growth), with the fraction of the interest period left until
+// put appends an amount or a fee of kind kd at tick t (of source src and
+// years of growth), with the fraction of the interest period left until
 // its credit and the step it is in (the distinct fractions are few, found
 // by the ticks left).
-func (c *compiler) put(t int64, kd Kind, src int16, unit float64, year uint8) {
+func (c *compiler) put(t int64, kd Kind, src int16, year uint8) {
 	s := c.s
 	s.posts++
 	if kd != Income && kd != Fee {
@@ -676,7 +687,7 @@ func (c *compiler) put(t int64, kd Kind, src int16, unit float64, year uint8) {
 	}
 	step := c.stepAt(&c.puts, next-s.period)
 	e := c.lay(t, kd)
-	e.Unit, e.Src, e.Ti, e.Step, e.Year = unit, src, uint16(c.k), uint8(step), year
+	e.Src, e.Ti, e.Step, e.Year = src, uint16(c.k), uint8(step), year
 }
 
 // A flowGen gives one stream's amounts in tick order, one at a time.
@@ -684,7 +695,7 @@ type flowGen struct {
 	st      *StreamShape
 	src     int16
 	P, from int64   // ticks a period; the first period's start
-	lg, u   float64 // log(1 + grow); the unit of the year
+	lg      float64 // log(1 + grow)
 	k, stop int64   // the next period; the first with no amount, at or past the end or the until
 	years   int64   // whole years of growth of the period before k
 	yearEnd int64   // the start of the year after them
@@ -723,7 +734,6 @@ func (g *flowGen) advance() bool {
 		if ps >= g.yearEnd {
 			year := (ps - g.from) / TicksPerYear
 			g.years, g.yearEnd = year, g.from+(year+1)*TicksPerYear
-			g.u = g.unit(year)
 		}
 		t, kd, label := ps, FlowBegin, int32(0)
 		if !st.Begin {

@@ -328,9 +328,9 @@ func rateOf(in *Inputs, k uint8, j float64) money.Multiplier {
 // years' growth at the source's decimal rate, when it is one.
 func (s *Schedule) unitOf(e *Event) money.Multiplier {
 	if g := s.grow[e.Src]; !math.IsNaN(g) {
-		return money.GrowthMultiplier(e.Unit, g, int(e.Year))
+		return money.GrowthMultiplier(s.Unit(e), g, int(e.Year))
 	}
-	return money.FloatMultiplier(e.Unit)
+	return money.FloatMultiplier(s.Unit(e))
 }
 
 // roundMinor is [money.RoundMinor] in a form the compiler inlines, so that
@@ -767,7 +767,7 @@ events:
 			}
 			if ruled && in.Rules[e.Src].Kind != RuleFixed {
 				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
-					u := e.Unit
+					u := s.Unit(e)
 					if infl && s.indexed(e) {
 						ia, ib := s.IndexOf(e)
 						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
@@ -781,7 +781,7 @@ events:
 				}
 				a = ruledAmt[e.Src] * scale
 			}
-			x := a * e.Unit
+			x := a * s.Unit(e)
 			if infl && s.indexed(e) {
 				ia, ib := s.IndexOf(e)
 				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]

@@ -214,7 +214,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 		case FlowEnd, FlowBegin, Income:
 			a := in.Amounts[e.Src] * scale
 			_ = a
-			x := a * e.Unit
+			x := a * s.Unit(e)
 			_ = x
 			{
 				if q, sure := money.RoundFast(x); sure {
