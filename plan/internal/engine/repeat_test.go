@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"math"
 	"math/rand/v2"
 	"testing"
 )
@@ -47,5 +48,46 @@ func TestSteadyPlanCopiesItsYears(t *testing.T) {
 	sh := Shape{Months: 480, PerYear: 12, StepFrom: []int32{0}, Streams: []StreamShape{{PerYear: 12, First: 1}}}
 	if _, n := compileYears(&sh, nil, true); n != 39 {
 		t.Errorf("copied %d years, want 39", n)
+	}
+}
+
+// Shapes plan does not make but the engine takes (from a review of the
+// copied years and the units' table): a stream begun before the plan's
+// start, whose amounts are older than the schedule is long; a frequency
+// that does not divide the year, whose years are not alike; a fall of
+// 100% a year. Each flow's unit is its definition, First·(1+Grow)^Year
+// (First in year 0), and copying years changes nothing.
+func TestUnitsOfUnusualShapes(t *testing.T) {
+	for name, sh := range map[string]Shape{
+		"a stream from two years before the start": {Months: 60, PerYear: 12, StepFrom: []int32{0},
+			Streams: []StreamShape{{PerYear: 12, From: -24, First: 1, Grow: 0.03}}, Once: []int32{5}, OnceOut: []bool{false}},
+		"seven amounts and interest dates a year": {Months: 60, PerYear: 7, StepFrom: []int32{0},
+			Streams: []StreamShape{{PerYear: 7, First: 1, Grow: 0.03}}},
+		"a fall of all of it a year": {Months: 36, PerYear: 12, StepFrom: []int32{0},
+			Streams: []StreamShape{{PerYear: 12, First: 1, Grow: -1}}},
+	} {
+		want, _ := compileYears(&sh, nil, false)
+		got, _ := compileYears(&sh, nil, true)
+		if d := sameSchedule(got, want); d != "" {
+			t.Errorf("%s: the schedule with years copied differs in its %s", name, d)
+		}
+		for i := range got.events {
+			e := &got.events[i]
+			if e.Kind != FlowEnd && e.Kind != FlowBegin {
+				continue
+			}
+			u := 1.0
+			if k := int(e.Src) - 1; k < len(sh.Streams) {
+				st := sh.Streams[k]
+				u = st.First
+				if e.Year > 0 && st.Grow != 0 {
+					u *= math.Exp(float64(e.Year) * math.Log1p(st.Grow))
+				}
+			}
+			if got.Unit(e) != u {
+				t.Errorf("%s: event %d (source %d, year %d) has unit %v, want %v", name, i, e.Src, e.Year, got.Unit(e), u)
+				break
+			}
+		}
 	}
 }

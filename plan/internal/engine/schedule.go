@@ -65,7 +65,9 @@ type Event struct {
 // Unit returns flow e's amount per unit of its source's amount: its years
 // of growth (and a first year's indexing to today's money); 1 for a
 // one-time amount and for the opening balance (source 0).
-func (s *Schedule) Unit(e *Event) float64 { return s.units[int(e.Src)*s.years+int(e.Year)] }
+func (s *Schedule) Unit(e *Event) float64 {
+	return s.units[s.base+int(e.Src)-s.stride*int(e.Year)]
+}
 
 // Month returns the month the event is shown in, counted from the start
 // (0): an amount at the start of a period (and income) in the month it
@@ -179,11 +181,15 @@ type Schedule struct {
 	grow []float64
 	// index is, per source, how its amounts follow inflation.
 	index []indexing
-	// units is, for each source in turn, the unit of its amounts (see
-	// [Schedule.Unit]) by their year of growth, in years entries each:
-	// one table, so that a walk finds a unit with one look-up.
-	units []float64
-	years int
+	// units is the unit of each source's amounts (see [Schedule.Unit])
+	// by their year of growth, in one table, so that a walk finds a unit
+	// with one look-up: a row of stride entries (the opening balance and
+	// each stream) for each year from top down to 0, then the one-time
+	// amounts, each of one unit in year 0 — so that the entry of source
+	// src in year y is src + (top − y)·stride for every source, with no
+	// room kept for the one-time amounts' later years.
+	units        []float64
+	base, stride int // base is top·stride
 	// partial lists the flows and fees part way through an interest
 	// period (Tau < 1): the events a path's weights are computed for.
 	partial []int32
@@ -395,17 +401,22 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	c.flowsBefore(math.MaxUint64)
 	c.interestTo(s.endTick)
 	s.events, s.left = c.ev, c.left
-	// every year of growth an amount of the schedule can have (one made
-	// before the last year's end)
-	s.years = int(min((s.endTick+TicksPerYear-1)/TicksPerYear, math.MaxUint8) + 1)
-	s.units = make([]float64, s.sources*s.years)
-	for src := range s.sources {
-		row := s.units[src*s.years : (src+1)*s.years]
-		for y := range row {
-			row[y] = 1
-			if k := src - 1; k >= 0 && k < len(f.gens) {
-				row[y] = f.gens[k].unit(int64(y))
-			}
+	// every year of growth an amount of the schedule can have: one made
+	// before the last year's end, of a stream from its first month (which
+	// may be before the plan's start)
+	top := int64(0)
+	for k := range f.gens {
+		top = max(top, (s.endTick-f.gens[k].from+TicksPerYear-1)/TicksPerYear)
+	}
+	top = min(top, math.MaxUint8)
+	s.stride = 1 + len(f.gens)
+	s.base = int(top) * s.stride
+	s.units = make([]float64, s.base+s.stride+len(sh.Once))
+	for i := range s.units {
+		src, y := i%s.stride, int(top)-i/s.stride
+		s.units[i] = 1
+		if y >= 0 && src > 0 {
+			s.units[i] = f.gens[src-1].unit(int64(y))
 		}
 	}
 	return s, copied
@@ -427,18 +438,21 @@ func (c *compiler) yearStart(m int32) yearStart {
 // year's events (from last) all laid down, is that year's events a year later: every
 // event's tick a year on and a flow's growth a year older, nothing else
 // changed. It is when the year is whole within the schedule, no rate step
-// begins from the last year's first interest period through the year's
-// end, no one-time amount falls in either year, and every stream either
-// has a period all through both years (from before the first to after the
-// last, none left out by Resume) or no amount in either. A year told
-// otherwise is laid down event by event, which is always right: the tests
-// hold both ways to the same schedule.
+// begins from the last year's first interest period through a period
+// past the year's end, no one-time amount falls in either year, and every
+// stream either has a period all through both years (from before the
+// first to after the last, none left out by Resume) or no amount in
+// either; and every period, the interest's and each stream's, is a whole
+// number of ticks a whole number of times a year (as every frequency
+// cairn has is), so that a year holds the same periods wherever it falls.
+// A year told otherwise is laid down event by event, which is always
+// right: the tests hold both ways to the same schedule.
 func (c *compiler) repeats(sh *Shape, m int32, last yearStart) bool {
 	s, f := c.s, c.f
 	y0 := int64(m) * TicksPerMonth // the year's start; the last year began a year before
 	y1 := y0 + TicksPerYear
 	lo, hi := max(y0-TicksPerYear-s.period, 0), y1+s.period
-	if m+12 > sh.Months || y0/s.period != c.done {
+	if m+12 > sh.Months || y0/s.period != c.done || TicksPerYear%s.period != 0 {
 		return false
 	}
 	for _, from := range s.stepFrom {
@@ -454,6 +468,8 @@ func (c *compiler) repeats(sh *Shape, m int32, last yearStart) bool {
 		g := &f.gens[k]
 		st, margin := g.st, g.P+TicksPerMonth
 		switch {
+		case TicksPerYear%g.P != 0:
+			return false
 		case g.from >= y1+margin, g.from+g.stop*g.P+margin <= a: // none in either year
 		// A stream's amount in the year is of a period starting after
 		// y0−P: the period a year before is one of the stream's from its
@@ -521,7 +537,7 @@ func (c *compiler) copyYear(last, cur yearStart) {
 // unit returns the unit of the stream's amounts in their year y of growth
 // (as advance finds it).
 func (g *flowGen) unit(y int64) float64 {
-	if g.st.Grow == 0 {
+	if g.st.Grow == 0 || y == 0 {
 		return g.st.First
 	}
 	return g.st.First * math.Exp(float64(y)*g.lg)
