@@ -76,7 +76,7 @@ func (l *Ledger) Entries() []Entry {
 			if r.Kind.Moves() {
 				bal += r.Amount
 			}
-			e := Entry{Tick: r.Tick, Month: l.Start + Month(r.Month), Kind: Interest,
+			e := Entry{Tick: int64(r.Tick), Month: l.Start + Month(r.Month()), Kind: Interest,
 				Amount: money.Minor(r.Amount, l.places), Balance: money.Minor(bal, l.places)}
 			switch r.Kind {
 			case engine.PostFee:
@@ -226,10 +226,11 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 	}
 	for i := range l.log.Posts {
 		r := &l.log.Posts[i]
-		if r.Month < 0 || int(r.Month) >= len(rowOf) {
+		m := r.Month()
+		if m < 0 || int(m) >= len(rowOf) {
 			continue
 		}
-		row := sums[nSums*int(rowOf[r.Month]):][:nSums]
+		row := sums[nSums*int(rowOf[m]):][:nSums]
 		switch {
 		case (r.Kind == engine.PostFlow || r.Kind == engine.PostIncome) && l.sources[r.Src].kind == Income:
 			// received outside the account: counted where it pays
@@ -253,10 +254,11 @@ func (l *Ledger) Rows(by Period, totals bool) []Row {
 	}
 	for _, pt := range l.log.Parts { // what income paid and what was short
 		r := &l.log.Posts[pt.Post]
-		if r.Month < 0 || int(r.Month) >= len(rowOf) {
+		m := r.Month()
+		if m < 0 || int(m) >= len(rowOf) {
 			continue
 		}
-		row := sums[nSums*int(rowOf[r.Month]):][:nSums]
+		row := sums[nSums*int(rowOf[m]):][:nSums]
 		row[4].add(pt.Covered)
 		row[7].add(pt.Short)
 	}

@@ -9,7 +9,7 @@ import (
 // Memory per posting is bounded (issue 14 item 3: at most 64 bytes a
 // posting at the peak): reading and projecting a goal whose ledger is large
 // allocates at most 64 bytes in all for each of its postings — the parsed
-// file, the schedule's events (16 bytes each) and the postings (24 bytes
+// file, the schedule's events (16 bytes each) and the postings (16 bytes
 // each) together. Counted in bytes allocated (the peak's ceiling, since
 // nothing is collected that the ledger still needs), not timed.
 func TestMemoryPerPosting(t *testing.T) {

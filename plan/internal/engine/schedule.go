@@ -273,6 +273,9 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	if s.sources > math.MaxInt16 || len(sh.StepFrom) > math.MaxUint8+1 {
 		panic("engine: a shape with more sources or rate steps than an event can index")
 	}
+	if s.endTick > math.MaxInt32 {
+		panic("engine: a shape longer than a post's tick can hold")
+	}
 	s.grow = make([]float64, s.sources)
 	s.index = make([]indexing, s.sources)
 	// Each stream's amounts come from a generator of their own, in tick

@@ -218,17 +218,27 @@ const (
 
 // A Post is one movement, in minor units.
 //
-// Its fields are laid out so that a Post takes 24 bytes: a ledger holds one
+// Its fields are laid out so that a Post takes 16 bytes: a ledger holds one
 // for every movement, and writing them is most of a projection's time.
-// What is rare is kept beside the posts (Log.Parts), and the balance after
+// What is rare is kept beside the posts (Log.Parts), the balance after
 // each post is the running sum of the amounts that move it (see
-// [PostKind.Moves]) from Log.Opening.
+// [PostKind.Moves]) from Log.Opening, and its month comes from its tick
+// ([Post.Month]; a tick fits 32 bits, see [Compile]).
 type Post struct {
-	Tick   int64
 	Amount int64
-	Month  int32
+	Tick   int32
 	Src    int16 // sources are fewer than [math.MaxInt16]
 	Kind   PostKind
+	Begin  bool // shown in the month it starts (an amount at the start of its period, income), not the month it ends
+}
+
+// Month returns the month the post is shown in, counted from the start
+// (0): that of the event that made it (see [Event.Month]).
+func (p *Post) Month() int32 {
+	if p.Begin {
+		return labelBegin(int64(p.Tick))
+	}
+	return labelEnd(int64(p.Tick))
 }
 
 // Moves reports whether a posting of kind k moves the account's balance
@@ -589,7 +599,7 @@ events:
 				}
 				if logged && x != 0 {
 					t := e.Tick + int64(c)*s.period
-					o.Log.post(t, labelEnd(t), PostInterest, 0, x, 0, 0)
+					o.Log.post(t, false, PostInterest, 0, x, 0, 0)
 				}
 			}
 		case Credit:
@@ -611,7 +621,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.Month(), PostInterest, 0, x, 0, 0)
+				o.Log.post(e.Tick, e.Kind >= Income, PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			if alone {
@@ -653,7 +663,7 @@ events:
 				low = bal + accrued
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostTax, 0, -x, 0, 0)
+				o.Log.post(e.Tick, e.Kind >= Income, PostTax, 0, -x, 0, 0)
 			}
 		case Fee:
 			if alone {
@@ -698,7 +708,7 @@ events:
 				acc -= f * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFee, 0, -f, 0, 0)
+				o.Log.post(e.Tick, e.Kind >= Income, PostFee, 0, -f, 0, 0)
 			}
 		case Mark:
 			// its month, markMonth(e), is found only where it is read
@@ -809,7 +819,7 @@ events:
 			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostIncome, e.Src, x, 0, 0)
+					o.Log.post(e.Tick, e.Kind >= Income, PostIncome, e.Src, x, 0, 0)
 				}
 				continue
 			}
@@ -865,7 +875,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
+					o.Log.post(e.Tick, e.Kind >= Income, PostFlow, e.Src, x, short, covered)
 				}
 				continue
 			}
@@ -897,12 +907,12 @@ events:
 				acc += in * o.Paths.W[i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.Month(), PostFlow, e.Src, x, short, covered)
+				o.Log.post(e.Tick, e.Kind >= Income, PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.Month(), PostMatch, e.Src, emp, 0, 0)
+					o.Log.post(e.Tick, e.Kind >= Income, PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.Month(), PostOver, e.Src, over, 0, 0)
+					o.Log.post(e.Tick, e.Kind >= Income, PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -965,14 +975,13 @@ func (s *Schedule) MaxOverPosts() int { return s.MaxMatchPosts() }
 // post records one movement.
 // The log must have room for it (see MaxPosts): the walk makes no call to
 // grow it (but for a withdrawal's rare parts).
-func (g *Log) post(tick int64, month int32, kind PostKind, src int16, x, short, covered float64) {
+func (g *Log) post(tick int64, begin bool, kind PostKind, src int16, x, short, covered float64) {
 	n := len(g.Posts)
 	g.Posts = g.Posts[:n+1]
 	// field by field: a Post written whole is zeroed first, and a ledger
-	// writes one for every movement (its padding byte is left as it was,
-	// which no comparison of posts reads)
+	// writes one for every movement
 	p := &g.Posts[n]
-	p.Tick, p.Amount, p.Month, p.Src, p.Kind = tick, int64(x), month, src, kind
+	p.Amount, p.Tick, p.Src, p.Kind, p.Begin = int64(x), int32(tick), src, kind, begin
 	if short != 0 || covered != 0 {
 		g.Parts = append(g.Parts, Part{Post: int32(n), Short: int64(short), Covered: int64(covered)})
 	}
