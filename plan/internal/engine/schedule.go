@@ -152,7 +152,7 @@ type StreamShape struct {
 	First    float64 // multiplier of the amounts of the first year (money indexed to today)
 	Grow     float64 // yearly growth of the amount
 	// Today and GrowInflation say the amount follows inflation: a walk
-	// with random inflation indexes it (Event.IA, Event.IB).
+	// with random inflation indexes it (Schedule.IndexOf).
 	Today, GrowInflation bool
 	// Resume leaves out the amounts labelled before this month: the later
 	// part of a stream split there, whose periods and yearly growth still

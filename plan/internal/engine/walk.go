@@ -31,7 +31,7 @@ const (
 // may vary without compiling again.
 type Inputs struct {
 	Rates   []float64 // periodic rate of each rate step
-	Amounts []float64 // each source's amount, in currency units (before Event.Unit)
+	Amounts []float64 // each source's amount, in currency units (before its unit, Schedule.Unit)
 	Out     []bool    // each source: money out (made negative; clamped to the balance when exact)
 	Fee     float64   // fraction of the balance taken each month
 	Tax     float64   // fraction of a year's credited interest taxed at its end (Shape.Tax)
@@ -59,7 +59,7 @@ type Inputs struct {
 	Places   int            // decimal places of the minor unit
 	Rounding money.Rounding // rule for every rounding to the minor unit
 	// Set, when not nil, gives each amount of source SetSrc, in currency
-	// units before its Unit, by the index of its event: amounts decided
+	// units before its unit (Schedule.Unit), by the index of its event: amounts decided
 	// date by date (a household budget's share), in place of Amounts.
 	Set    []float64
 	SetSrc int32
@@ -78,7 +78,7 @@ const (
 
 // A Rule decides a source's amount at each anniversary of its first period
 // (the first event of each of its Years, year 0 included) from the balance
-// then, in the amount's own terms (before Event.Unit); every amount of that
+// then, in the amount's own terms (before its unit, Schedule.Unit); every amount of that
 // year pays it. OfBalance sets it to Share of the balance, a year, over
 // PerYear periods; Guarded starts from Amounts and, from year 1, cuts it by
 // Cut when its yearly payment over the balance is above Upper and raises it
@@ -90,7 +90,7 @@ type Rule struct {
 	PerYear                  float64
 	Share                    float64
 	Lower, Upper, Cut, Raise float64
-	Floor, Ceiling           float64 // currency units a period, before Unit
+	Floor, Ceiling           float64 // currency units a period, before the unit (Schedule.Unit)
 }
 
 // decide returns a source's amount under rule r for a year whose payments
@@ -520,7 +520,7 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 		o.Log.Opening = int64(bal)
 	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
-	// before its Unit) and the year it was decided for.
+	// before its unit) and the year it was decided for.
 	var ruledAmt []float64
 	var ruleYear []int32
 	if ruled {
