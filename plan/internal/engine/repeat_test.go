@@ -35,15 +35,18 @@ func TestRepeatedYearIsTheLaidYear(t *testing.T) {
 			shapes++
 		}
 	}
-	// derived: about a third of randomShape's shapes repeat (steps, short
-	// streams, one-time amounts and untils stop the rest); seen 1,2xx
+	// counted on these seeds, no outside source: 65,157 years in 2,730 of
+	// the 3,000 shapes; the bounds sit far below that, so that a change to
+	// randomShape does not trip them, and far above a compiler that copies
+	// next to nothing
 	if shapes < 500 || copied < 5000 {
-		t.Errorf("years were copied in %d shapes, %d years in all; want most of them copied", shapes, copied)
+		t.Errorf("years were copied in %d shapes, %d years in all; want at least 500 shapes and 5,000 years", shapes, copied)
 	}
 	t.Logf("%d years copied in %d of 3000 shapes", copied, shapes)
 }
 
-// The 40-year monthly plan's schedule copies every year but its first.
+// The 40-year monthly plan's schedule copies every year but its first,
+// which has no year before it (derived: 40 years less that one).
 func TestSteadyPlanCopiesItsYears(t *testing.T) {
 	sh := Shape{Months: 480, PerYear: 12, StepFrom: []int32{0}, Streams: []StreamShape{{PerYear: 12, First: 1}}}
 	if _, n := compileYears(&sh, nil, true); n != 39 {

@@ -70,14 +70,18 @@ func (s *Schedule) Unit(e *Event) float64 {
 }
 
 // Month returns the month the event is shown in, counted from the start
-// (0): an amount at the start of a period (and income) in the month it
-// starts, everything else in the month it ends.
+// (0): see [Event.begins].
 func (e *Event) Month() int32 {
-	if e.Kind >= Income {
+	if e.begins() {
 		return labelBegin(e.Tick)
 	}
 	return labelEnd(e.Tick)
 }
+
+// begins reports whether the event is shown in the month it starts (an
+// amount at the start of its period, income), not in the month it ends
+// (everything else).
+func (e *Event) begins() bool { return e.Kind >= Income }
 
 // Tau returns the fraction of the interest period left until its credit
 // at flow or fee e.
@@ -175,9 +179,9 @@ type Schedule struct {
 	taus     []float64
 	sources  int
 	// grow is, per source, the yearly growth of its amounts when each
-	// event's Unit is exactly (1 + grow)^Year, NaN when it is not (an
-	// amount in today's money, first indexed over part of a year); the
-	// opening balance and one-time amounts: 0, a unit of 1.
+	// flow's unit (Schedule.Unit) is exactly (1 + grow)^Year, NaN when it
+	// is not (an amount in today's money, first indexed over part of a
+	// year); the opening balance and one-time amounts: 0, a unit of 1.
 	grow []float64
 	// index is, per source, how its amounts follow inflation.
 	index []indexing
@@ -438,18 +442,18 @@ func (c *compiler) yearStart(m int32) yearStart {
 }
 
 // repeats reports whether the plan year of months m to m+11, the last
-// year's events (from last) all laid down, is that year's events a year later: every
-// event's tick a year on and a flow's growth a year older, nothing else
-// changed. It is when the year is whole within the schedule, no rate step
-// begins from the last year's first interest period through a period
-// past the year's end, no one-time amount falls in either year, and every
-// stream either has a period all through both years (from before the
-// first to after the last, none left out by Resume) or no amount in
-// either; and every period, the interest's and each stream's, is a whole
-// number of ticks a whole number of times a year (as every frequency
-// cairn has is), so that a year holds the same periods wherever it falls.
-// A year told otherwise is laid down event by event, which is always
-// right: the tests hold both ways to the same schedule.
+// year's events (from last) all laid down, is that year's events a year
+// later: every event's tick a year on and a flow's growth a year older,
+// nothing else changed. It is when the year is whole within the schedule,
+// no rate step begins from the last year's first interest period through a
+// period past the year's end, no one-time amount falls in either year, and
+// every stream either has a period all through both years (from before the
+// first to after the last, none left out by Resume) or no amount in either;
+// and every period, the interest's and each stream's, is a whole number of
+// ticks a whole number of times a year (as every frequency cairn has is),
+// so that a year holds the same periods wherever it falls. A year told
+// otherwise is laid down event by event, which is always right: the tests
+// hold both ways to the same schedule.
 func (c *compiler) repeats(sh *Shape, m int32, last yearStart) bool {
 	s, f := c.s, c.f
 	y0 := int64(m) * TicksPerMonth // the year's start; the last year began a year before
@@ -513,10 +517,9 @@ func (c *compiler) copyYear(last, cur yearStart) {
 	c.done += TicksPerYear / s.period
 	c.nextTick = (c.done + 1) * s.period
 	// a stream with a period all through the years has its next amount a
-	// year on; one with none in them is as it was
-	// (the amount it had found, the first of the year, becomes the first
-	// of the next year, if its period is one of the stream's: the end of
-	// the schedule may stop it)
+	// year on (the amount it had found, the first of the year, becomes the
+	// first of the next year, if its period is one of the stream's: the
+	// end of the schedule may stop it); one with none in them is as it was
 	y0 := int64(cur.month) * TicksPerMonth
 	h := f.h[:0]
 	for _, k := range f.h {
