@@ -10,7 +10,8 @@ import (
 // command does), and reports memory per posting of its ledger (issue 14
 // item 3 asks for at most 64 bytes at the peak): B/posting is what was
 // allocated, live-B/posting what the plan, its schedule and the ledger
-// still hold after a collection, the floor of the peak.
+// still hold after a collection, the floor of the peak (TestMemoryPerPosting
+// holds its ceiling).
 func BenchmarkParseProjectMemory(b *testing.B) {
 	daily := strings.ReplaceAll(strings.ReplaceAll(budgetFile(1, 4), "    volatility: 10%\n", ""), "target: 900000M", "target: 900M")
 	for _, c := range []struct{ name, src string }{
