@@ -98,8 +98,9 @@ func benchStatus(b *testing.B, c *plan.Cache) {
 }
 
 // BenchmarkProject40Years projects the 40-year monthly plan from a parsed
-// plan whose schedule is compiled (warm); BenchmarkProject40YearsCold parses
-// and projects, compiling afresh, as one command does.
+// plan whose schedule is compiled (warm); BenchmarkProject40YearsCold
+// empties the plan's schedule cache first, so that it compiles afresh, as
+// one command does.
 func BenchmarkProject40Years(b *testing.B) {
 	p := benchParse(b, monthlyPlan)
 	g := p.Goals[0]
