@@ -30,7 +30,7 @@ func capitalMonth(p *Plan, g *Goal) (Month, error) {
 		at = g.By
 	}
 	if at < p.Start {
-		return 0, noSolution(g, "withdrawals begin in %s, the plan's first month: there is no month before them to build the capital", first)
+		return 0, noSolution(g, "withdrawals begin in %s, the plan's first month: there is no month before them to build the capital (solve for start: the opening balance that pays them)", first)
 	}
 	if at >= first {
 		return 0, noSolution(g, "the deadline %s is not before the first withdrawal in %s", at, first)
@@ -92,25 +92,10 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	idx := capitalSource(h)
 	leave := p.LeaveAt(g, end)
 	pr := s.defaultParams()
-	set := s.setter(pr, idx)
-	ok := s.paysAll(pr, set, leave)
-	// linear guess from the smooth walk: what one unit of capital grows to,
-	// and what the rest comes to without it
-	pr1 := s.defaultParams()
-	pr1.amountsF[idx] = 1
-	grow := s.smooth(pr1, true, idx)
-	set(0)
-	rest := s.smooth(pr, false, 0)
-	if !(grow > 0) {
-		return nil, noSolution(g, "the capital does not keep its value to the last withdrawal at these rates")
+	grow, err := s.leastPaying(pr, idx, leave, "the capital")
+	if err != nil {
+		return nil, err
 	}
-	scale := s.scale()
-	guess := int64(math.Ceil((leave.Float() - rest) / grow * scale))
-	c, found := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), true)
-	if !found {
-		return nil, noSolution(g, "no capital up to the 1,000,000,000,000 limit pays every withdrawal")
-	}
-	set(c)
 	a := &Answer{Goal: g, For: ForCapital, Amount: pr.amounts[idx], Periods: math.NaN(), Month: at, Months: int(at-p.Start) + 1,
 		Deadline: end, Target: leave, Lasts: true, Paid: true}
 	a.Balance, _ = s.closing(pr)
@@ -119,6 +104,67 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 		a.Ledger = s.ledger(pr)
 		a.Equation = s.capitalEquation(pr, idx, at, leave, a.Amount, grow)
 	}
+	return a, nil
+}
+
+// leastPaying sets source idx of pr to the least amount, to the minor unit,
+// with which every withdrawal is paid in full and leave is left after the
+// last (what is sought is named by what, for the answer that there is
+// none), and returns what one unit of the source grows to by then on the
+// smooth walk.
+func (s *schedule) leastPaying(pr *params, idx int32, leave money.Amount, what string) (grow float64, err error) {
+	set := s.setter(pr, idx)
+	ok := s.paysAll(pr, set, leave)
+	// linear guess from the smooth walk: what one unit of the source grows
+	// to, and what the rest comes to without it
+	pr1 := s.defaultParams()
+	pr1.amountsF[idx] = 1
+	grow = s.smooth(pr1, true, idx)
+	set(0)
+	rest := s.smooth(pr, false, 0)
+	if !(grow > 0) {
+		return 0, noSolution(s.goal, "%s does not keep its value to the last withdrawal at these rates", what)
+	}
+	scale := s.scale()
+	guess := int64(math.Ceil((leave.Float() - rest) / grow * scale))
+	c, found := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), true)
+	if !found {
+		return 0, noSolution(s.goal, "no amount up to the %s limit for %s pays every withdrawal", amountLimit, what)
+	}
+	set(c)
+	return grow, nil
+}
+
+// paidFromStart reports whether goal g's opening balance is what pays its
+// withdrawals from the plan's first month: it has withdrawals and no target
+// or deadline, and the first withdrawal falls in the plan's first month, so
+// that no month comes before them to build a capital (see capitalMonth).
+func paidFromStart(p *Plan, g *Goal) bool {
+	first, ok := firstWithdrawal(g)
+	return ok && !g.HasTarget && !g.HasBy && first-1 < p.Start
+}
+
+// solveStartPaying answers ForStart for a goal whose withdrawals begin in
+// the plan's first month (paidFromStart): the least opening balance that
+// pays every withdrawal in full and leaves the goal's leave after the last
+// — the present value at the plan's start of what is paid out, less what
+// is paid in.
+func solveStartPaying(p *Plan, g *Goal, full bool) (*Answer, error) {
+	end, finite := lastWithdrawal(p, g)
+	if !finite {
+		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	}
+	s := compile(p, g, end)
+	leave := p.LeaveAt(g, end)
+	pr := s.defaultParams()
+	if _, err := s.leastPaying(pr, 0, leave, "the opening balance"); err != nil {
+		return nil, err
+	}
+	a := &Answer{Goal: g, For: ForStart, Amount: pr.amounts[0], Periods: math.NaN(), Month: end, Deadline: end, Target: leave,
+		Lasts: true, Paid: true}
+	a.Balance, _ = s.closing(pr)
+	a.Left = a.Balance
+	s.prove(a, pr, full)
 	return a, nil
 }
 

@@ -94,6 +94,64 @@ func TestCapitalLevelIncome(t *testing.T) {
 	}
 }
 
+// Withdrawals that begin in the plan's first month are paid by the opening
+// balance, which solving for start finds: 1,000 × (P/A, i, n) for an income
+// paid at the end of each month from the first, and an annuity due's
+// (P/A, i, n)(1 + i), against the printed tables (sources beside each row)
+// within the interest postings' rounding; and exact: that balance lasts,
+// one cent less does not. (A capital is refused there: there is no month
+// before the withdrawals to measure it at.)
+func TestStartPaysWithdrawalsFromTheFirstMonth(t *testing.T) {
+	for _, tc := range []struct {
+		name, rate string
+		i          float64 // per month
+		n          int
+		printedPA  float64 // 4 places
+		source     string
+	}{
+		{"1% a month, 12", "12% compounded monthly", 0.01, 12, 11.2551, "Wild, Managerial Accounting 8e, Table B.3 (check-values.md 2c)"},
+		{"0.25% a month, 20", "3% compounded monthly", 0.0025, 20, 19.4845, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
+		{"0.5% a month, 60", "6% compounded monthly", 0.005, 60, 51.725561, "derived from the NCEES factor definition (check-values.md 2e)"},
+	} {
+		for _, due := range []bool{false, true} {
+			t.Run(fmt.Sprintf("%s due %v", tc.name, due), func(t *testing.T) {
+				timing := "end"
+				if due {
+					timing = "start"
+				}
+				src := capitalFile(tc.rate, fmt.Sprintf("      - { amount: 1000, every: month, timing: %s, for: %d months }\n", timing, tc.n), "0")
+				p := mustParse(t, "start", src)
+				if _, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital}); err == nil {
+					t.Errorf("a capital before the plan's start was answered")
+				}
+				a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForStart})
+				if err != nil {
+					t.Fatal(err)
+				}
+				k := 1.0
+				if due {
+					k = 1 + tc.i
+				}
+				bound := 0.005*float64(tc.n) + 0.01
+				if got, want := a.Amount.Float(), 1000*tc.printedPA*k; math.Abs(got-want) > bound+1000*0.00005*k {
+					t.Errorf("opening balance %s, want 1,000 × (P/A) = %.4f from %s", a.Amount, want, tc.source)
+				}
+				for _, d := range []int64{0, -1} {
+					c := money.Minor(cents(a.Amount)+d, 2)
+					q := mustParse(t, "start", src+"    balance: "+c.Plain(2)+"\n")
+					l, err := plan.Solve(q, q.Goals[0], plan.Question{For: plan.ForLasts})
+					if err != nil {
+						t.Fatal(err)
+					}
+					if l.Lasts != (d == 0) {
+						t.Errorf("opening balance %s: lasts %v (left %s), want %v", c, l.Lasts, l.Left, d == 0)
+					}
+				}
+			})
+		}
+	}
+}
+
 // An income raised by g once a year needs its geometric-gradient present
 // worth: A₁(1 − ((1+g)/(1+i))^n)/(i − g) (the geometric series, common
 // practice, no source; money.PresentOfGeometric), checked also by summing

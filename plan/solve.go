@@ -91,7 +91,10 @@ type Answer struct {
 	// ForLasts and ForWithdrawal: whether the money lasts — every
 	// withdrawal paid in full and the goal's leave (Target) left after the
 	// last one — and what is left after the last withdrawal. Paid is set
-	// when every withdrawal is paid, lasting or not.
+	// when every withdrawal is paid, lasting or not. ForCapital, and
+	// ForStart where the opening balance pays withdrawals that begin in
+	// the plan's first month, answer with Lasts and Paid set, Deadline the
+	// last withdrawal's month and Target what is left after it.
 	Lasts bool
 	Paid  bool
 	Left  money.Amount
@@ -501,6 +504,9 @@ func settleCents(ok func(c int64) bool, guess, limit int64) (int64, bool) {
 // solveAmount solves for the deposit of a stream (start false) or the
 // opening balance (start true).
 func solveAmount(p *Plan, g *Goal, q Question, start, full bool) (*Answer, error) {
+	if start && paidFromStart(p, g) {
+		return solveStartPaying(p, g, full)
+	}
 	target, by, err := goalTarget(p, g)
 	if err != nil {
 		return nil, err

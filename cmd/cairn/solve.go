@@ -89,6 +89,13 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 		return s
 	case plan.ForStart:
 		s := fmt.Sprintf("%s needs %s saved at the start of %s to reach %s by %s.", g.Name, amt(p, a.Amount), p.Start, amt(p, a.Target), a.Deadline)
+		if a.Paid { // withdrawals from the first month, paid by the opening balance
+			s = fmt.Sprintf("%s needs %s saved at the start of %s to pay every withdrawal through %s", g.Name, amt(p, a.Amount), p.Start, monthAges(p, a.Deadline))
+			if !a.Target.IsZero() {
+				s += " and leave " + amt(p, a.Target)
+			}
+			s += "."
+		}
 		if a.Note != "" {
 			s += " (" + a.Note + ".)"
 		}
