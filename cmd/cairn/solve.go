@@ -328,7 +328,7 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		if a.For == plan.ForCapital {
 			what = "the capital the ledger needs"
 		}
-		d.After = append(d.After, fmt.Sprintf("The terms sum to %s; %s is %s (each interest and fee posting is rounded to the cent).",
+		d.After = append(d.After, fmt.Sprintf("The terms sum to %s; %s is %s (each interest credit, fee and grown amount is posted rounded to the cent).",
 			amt(p, a.Equation.Sum), what, amt(p, a.Equation.Balance)))
 		if eq := a.Equation; eq.TaxOnGrowth > 0 {
 			d.After = append(d.After, fmt.Sprintf("After the tax of %s on each year's interest, paid at each year's end, money held for whole years grows at %s a year effective (%s less the tax); the terms are valued with the tax.",
