@@ -98,6 +98,69 @@ func TestRuleMonthly(t *testing.T) {
 	}
 }
 
+// A share rule's amount is decided from the balance at each anniversary of
+// the stream's first month, the start of that month (the docs' rule, `cairn
+// help file`), whatever the timing: a stream paid at its periods' ends pays
+// its first amount of a year a period after the anniversary, from the
+// balance then, not from the balance grown by then. Each posting is checked
+// against the ledger's own balance at its anniversary (the opening balance,
+// or the closing balance of the month before), 4% of it a year over the
+// year's periods, rounded half-even to the cent (integer arithmetic here).
+// Worked by hand for the first case: 4% of the opening 100,000 is 4,000.00,
+// where 4% of the 104,999.99 held at the year's end would be 4,200.00.
+func TestRuleDecidedAtTheAnniversary(t *testing.T) {
+	for _, c := range []struct {
+		every   string
+		perYear int64
+		months  int // a period
+		timing  string
+		from    plan.Month
+	}{
+		{"year", 1, 12, "end", start},
+		{"year", 1, 12, "start", start},
+		{"month", 12, 1, "end", start.Add(3)},
+		{"month", 12, 1, "start", start.Add(3)},
+		{"quarter", 4, 3, "end", start.Add(5)},
+		{"quarter", 4, 3, "start", start},
+	} {
+		t.Run(c.every+" "+c.timing+" from "+c.from.String(), func(t *testing.T) {
+			p := mustParse(t, "anniversary", goalFile("balance: 100,000", "rate: 5%", "withdrawals:",
+				fmt.Sprintf("  - { every: %s, timing: %s, from: %s, rule: 4%% of balance }", c.every, c.timing, c.from)))
+			l := mustProject(t, p, p.Goals[0], start.Add(12*4-1))
+			n := 0
+			for _, e := range l.Entries() {
+				if e.Kind != plan.Withdrawal {
+					continue
+				}
+				n++
+				begins := e.Month // the month its period begins
+				if c.timing == "end" {
+					begins = e.Month.Add(1 - c.months)
+				}
+				anniv := c.from.Add(int(begins-c.from) / 12 * 12)
+				b := cents(l.BalanceAt(anniv.Add(-1))) // the opening balance before the start
+				num, den := b*4, 100*c.perYear
+				want := num / den
+				if r := num % den; 2*r > den || 2*r == den && want%2 == 1 {
+					want++
+				}
+				if got := cents(e.Amount.Abs()); got != want {
+					t.Errorf("%s: withdrew %s, want 4%% of %s (the balance at the anniversary %s) over %d periods = %s",
+						e.Month, e.Amount.Abs(), money.Minor(b, 2), anniv, c.perYear, money.Minor(want, 2))
+				}
+			}
+			if n == 0 {
+				t.Fatal("no withdrawals")
+			}
+			if c.timing == "end" && c.from == start {
+				if got := yearlyWithdrawals(t, p, start.Add(11)); got[0] != "4000.00" {
+					t.Errorf("the first year's withdrawal is %s, want 4000.00 (4%% of the opening 100,000)", got[0])
+				}
+			}
+		})
+	}
+}
+
 // At zero volatility every simulated path is the ledger: the rule is
 // applied along each path as the ledger applies it (issue 15: zero
 // volatility reproduces the ledger).

@@ -77,9 +77,11 @@ const (
 )
 
 // A Rule decides a source's amount at each anniversary of its first period
-// (the first event of each of its Years, year 0 included) from the balance
-// then, in the amount's own terms (before its unit, Schedule.Unit); every amount of that
-// year pays it. OfBalance sets it to Share of the balance, a year, over
+// (the start of each of its Years, year 0 included) from the balance then —
+// at a month's start, after all that the month before's last instant holds
+// and before any amount of the month; before the first in the walk, the
+// opening balance — in the amount's own terms
+// (before its unit, Schedule.Unit); every amount of that year pays it. OfBalance sets it to Share of the balance, a year, over
 // PerYear periods; Guarded starts from Amounts and, from year 1, cuts it by
 // Cut when its yearly payment over the balance is above Upper and raises it
 // by Raise when below Lower. Either is then held between Floor and Ceiling
@@ -520,13 +522,16 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 		o.Log.Opening = int64(bal)
 	}
 	// ruled and ruleYear are each ruled source's amount (currency units,
-	// before its unit) and the year it was decided for.
+	// before its unit) and the year it was decided for; annivBal is the
+	// balance at its last anniversary (the opening balance before the
+	// first in the walk), from which its amounts are decided (see [Rule]).
 	var ruledAmt []float64
 	var ruleYear []int32
+	var annivBal []float64
 	if ruled {
-		ruledAmt, ruleYear = make([]float64, len(in.Rules)), make([]int32, len(in.Rules))
+		ruledAmt, ruleYear, annivBal = make([]float64, len(in.Rules)), make([]int32, len(in.Rules)), make([]float64, len(in.Rules))
 		for k := range ruleYear {
-			ruleYear[k] = -1
+			ruleYear[k], annivBal[k] = -1, bal
 		}
 	}
 	evs := s.events
@@ -735,6 +740,13 @@ events:
 			if o.HasDeadline && markMonth(e) == o.Deadline {
 				res.AtDeadline = bal
 			}
+			if ruled { // the balance at each ruled source's anniversary, the month starting now
+				for k := range annivBal {
+					if m := markMonth(e) + 1 - s.index[k].from; m >= 0 && m%12 == 0 {
+						annivBal[k] = bal
+					}
+				}
+			}
 			if reach && o.Reach(markMonth(e), bal/scale) {
 				res.Reached, res.ReachMonth = true, markMonth(e)
 				break events
@@ -786,7 +798,9 @@ events:
 					if first {
 						ruledAmt[e.Src] = in.Amounts[e.Src]
 					}
-					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], bal/scale, u)
+					// from the balance at the anniversary, which an amount paid
+					// at a period's end comes a period after
+					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], annivBal[e.Src]/scale, u)
 					ruleYear[e.Src] = int32(e.Year)
 				}
 				a = ruledAmt[e.Src] * scale

@@ -73,6 +73,8 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = ruledAmt
 	var ruleYear [Lanes][]int32
 	_ = ruleYear
+	var annivBal [Lanes][]float64
+	_ = annivBal
 	evs := s.events
 	_ = evs
 	nt := len(s.taus)
