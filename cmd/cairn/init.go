@@ -36,7 +36,10 @@ func initCommand(e *env) *cli.Command {
 			if name == "-" {
 				return writeStdout(e, examples.Household)
 			}
-			if err := writeFileAtomic(name, examples.Household, c.Bool("force"), ""); err != nil {
+			if filepath.Base(name) == schemaFile {
+				return usagef("name the goals file otherwise, such as cairn.yaml", "%s is where init writes the schema beside the goals file", name)
+			}
+			if err := writeFileAtomic(name, examples.Household, c.Bool("force")); err != nil {
 				return err
 			}
 			text := fmt.Sprintf("wrote %s: an invented household to edit into your own\n", name)
@@ -51,7 +54,7 @@ func initCommand(e *env) *cli.Command {
 			case lerr == nil && !c.Bool("force"):
 				text += fmt.Sprintf("kept %s, which differs from this version's (--force replaces it)\n", schema)
 			default:
-				if err := writeFileAtomic(schema, goalsSchema(), c.Bool("force"), ""); err != nil {
+				if err := writeFileAtomic(schema, goalsSchema(), c.Bool("force")); err != nil {
 					return err
 				}
 				text += fmt.Sprintf("wrote %s: the schema your editor checks and completes %s by\n", schema, filepath.Base(name))

@@ -222,16 +222,18 @@ func readGoalsFile(e *env, name string, asOf plan.Month, cache *plan.Cache) (*pl
 // names (actuals_file:, relative to the goals file's directory; to the
 // working directory for standard input).
 func readActuals(p *plan.Plan, name string) error {
-	if p.ActualsFile == "" {
+	path := actualsPath(p, name)
+	if path == "" {
 		return nil
-	}
-	path := p.ActualsFile
-	if !filepath.IsAbs(path) && name != "<stdin>" {
-		path = filepath.Join(filepath.Dir(name), path)
 	}
 	refuse := func(format string, args ...any) error {
 		return &inputError{err: plan.ErrorList{{Pos: p.ActualsFilePos(), Msg: "actuals_file: " + fmt.Sprintf(format, args...)}},
 			hint: "an actuals file is a CSV of month,goal,balance lines, named relative to the goals file"}
+	}
+	// what is not a regular file is refused before it is opened: opening a
+	// named pipe waits for a writer
+	if st, err := os.Stat(path); err == nil && !st.Mode().IsRegular() {
+		return refuse("%q is not a regular file", p.ActualsFile)
 	}
 	f, err := os.Open(path)
 	if err != nil {
@@ -249,6 +251,24 @@ func readActuals(p *plan.Plan, name string) error {
 		return &inputError{err: err, hint: "each line of an actuals file is month,goal,balance, such as 2028-06,Emergency fund,7412.30"}
 	}
 	return nil
+}
+
+// actualsPath returns the path of the actuals file plan p, read from the
+// goals file name, names (relative to that file's directory; to the
+// working directory for standard input), or "" for none.
+func actualsPath(p *plan.Plan, name string) string {
+	path := p.ActualsFile
+	if path != "" && !filepath.IsAbs(path) && name != "<stdin>" {
+		path = filepath.Join(filepath.Dir(name), path)
+	}
+	return path
+}
+
+// inputsOf returns the files a command read for plan p from the goals
+// file name: the goals file and its actuals file, which no output may
+// replace.
+func inputsOf(p *plan.Plan, name string) []input {
+	return []input{{"goals file", name}, {"actuals file", actualsPath(p, name)}}
 }
 
 // withSets is plan p with the --set changes applied, to the goal named by

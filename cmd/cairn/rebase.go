@@ -23,10 +23,11 @@ func rebaseCommand(e *env) *cli.Command {
 			"actuals_file, one-time amounts and streams that ended, rate steps replaced by a later one.\n" +
 			"A stream that began earlier begins at the new start, at the amount then in force; amounts\n" +
 			"in today's money are restated in money of the new start. Comments and scenarios are kept.\n" +
-			"It never writes over the file it reads, nor over another file unless --force is given.\n\n" +
+			"It never writes over a file it reads (the goals file, the actuals file), nor over another\n" +
+			"file unless --force is given; --out - writes to standard output.\n\n" +
 			"Example:\n   cairn rebase examples/actuals.yaml --out plan-2026.yaml",
 		Flags: []cli.Flag{
-			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Usage: "write the new goals file to `FILE`"},
+			&cli.StringFlag{Name: "out", Aliases: []string{"o"}, Usage: "write the new goals file to `FILE` (- for standard output)"},
 			&cli.BoolFlag{Name: "force", Usage: "overwrite an existing file (never the goals file read)"},
 			&cli.StringFlag{Name: "as-of", Usage: "today's `MONTH` (YYYY-MM); no actual may be after it"},
 		},
@@ -51,7 +52,10 @@ func rebaseCommand(e *env) *cli.Command {
 			if err != nil {
 				return &inputError{err: fmt.Errorf("%s: %v", in, err)}
 			}
-			if err := writeFileAtomic(name, out, c.Bool("force"), in); err != nil {
+			if name == "-" {
+				return writeStdout(e, out)
+			}
+			if err := writeFileAtomic(name, out, c.Bool("force"), inputsOf(p, in)...); err != nil {
 				return err
 			}
 			d := newDoc(p, false)

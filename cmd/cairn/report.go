@@ -83,7 +83,7 @@ func reportCommand(e *env) *cli.Command {
 				}
 				return nil
 			}
-			if err := writeFileAtomic(name, data, c.Bool("force"), goalsFile(c)); err != nil {
+			if err := writeFileAtomic(name, data, c.Bool("force"), inputsOf(p, goalsFile(c))...); err != nil {
 				return err
 			}
 			d := &render.Doc{Blocks: []render.Block{render.Pre{Text: "wrote " + name + "\n"}}, Notices: notices}

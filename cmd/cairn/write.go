@@ -1,10 +1,11 @@
 package main
 
-// Writing files and standard output. cairn never writes over the goals file
-// it read, never replaces a file unless --force is given, leaves no partial
-// or temporary file behind (not even when interrupted), gives a new file the
-// mode the user's umask asks for, keeps an existing file's mode under
-// --force, and works on file systems without chmod or hard links.
+// Writing files and standard output. cairn never writes over a file it
+// read (the goals file, the actuals file it names), never replaces a file
+// unless --force is given, leaves no partial or temporary file behind (not
+// even when interrupted), gives a new file the mode the user's umask asks
+// for, keeps an existing file's mode under --force, and works on file
+// systems without chmod or hard links.
 
 import (
 	"errors"
@@ -44,15 +45,23 @@ func goalsFile(c *cli.Context) string {
 	}
 }
 
+// An input is a file a command read, which it never writes over: the
+// goals file, or the actuals file it names.
+type input struct{ what, name string }
+
 // writeFileAtomic writes data to name through a temporary file in the same
 // directory moved into place, so a failure leaves no partial file. It refuses
-// to replace an existing file unless force is set, and refuses to write over
-// input (the goals file read) under any name.
-func writeFileAtomic(name string, data []byte, force bool, input string) error {
+// to replace an existing file unless force is set, to replace what is not a
+// regular file (a link that leads nowhere among them), and to write over any
+// of inputs under any name.
+func writeFileAtomic(name string, data []byte, force bool, inputs ...input) error {
 	st, err := os.Stat(name)
-	if err == nil && input != "" {
-		if in, ierr := os.Stat(input); ierr == nil && os.SameFile(st, in) {
-			return &inputError{err: fmt.Errorf("%s is the goals file %s; cairn never writes over the file it reads", name, input),
+	for _, in := range inputs {
+		if err != nil || in.name == "" {
+			continue
+		}
+		if ist, ierr := os.Stat(in.name); ierr == nil && os.SameFile(st, ist) {
+			return &inputError{err: fmt.Errorf("%s is the %s %s; cairn never writes over a file it reads", name, in.what, in.name),
 				hint: "name another file for the output"}
 		}
 	}
@@ -64,6 +73,10 @@ func writeFileAtomic(name string, data []byte, force bool, input string) error {
 	}
 	if exists && !force {
 		return errExists(name)
+	}
+	if exists && err != nil { // a link to nowhere, or a loop of links
+		return &inputError{err: fmt.Errorf("cannot write %s: it is a link that does not lead to a file (%v)", name, unwrapPath(err)),
+			hint: "remove the link, or name another file"}
 	}
 	if exists && !st.Mode().IsRegular() {
 		return &inputError{err: fmt.Errorf("cannot write %s: not a regular file", name)}
