@@ -31,11 +31,14 @@ func ParseMonth(s string) (Month, error) {
 	if m < 1 || m > 12 {
 		return 0, fmt.Errorf("invalid month %s: month out of range (want 01 to 12)", money.Quote(s))
 	}
-	if y < 1900 || y > 2999 {
-		return 0, fmt.Errorf("invalid month %s: year out of range (want 1900 to 2999)", money.Quote(s))
+	if y < firstYear || y > lastYear {
+		return 0, fmt.Errorf("invalid month %s: year out of range (want %d to %d)", money.Quote(s), firstYear, lastYear)
 	}
 	return MonthOf(y, time.Month(m)), nil
 }
+
+// The years a goals file may name.
+const firstYear, lastYear = 1900, 2999
 
 // Year returns the month's year.
 func (m Month) Year() int { return int(m) / 12 }

@@ -39,6 +39,9 @@ func Rebase(p *Plan, data []byte) ([]byte, Month, error) {
 		return nil, 0, fmt.Errorf("re-basing a plan with a household budget is not supported yet")
 	}
 	start := at + 1
+	if start.Year() > lastYear {
+		return nil, 0, fmt.Errorf("the new start %s is past the last year a goals file may name (%d)", start, lastYear)
+	}
 	for _, g := range p.Goals {
 		if g.HasBy && g.By < start {
 			return nil, 0, fmt.Errorf("goal %s: its deadline %s is before the new start %s (move or remove it first)", money.Quote(g.Name), g.By, start)
@@ -48,6 +51,7 @@ func Rebase(p *Plan, data []byte) ([]byte, Month, error) {
 	if err := decodeDocument(p.File, data, &root); err != nil {
 		return nil, 0, err
 	}
+	unshare(&root)
 	doc := resolve(root.Content[0])
 	today := 1 + p.Inflation.Over(float64(start-p.Start)/12) // "today" moves from p.Start to start
 	amount := func(a money.Amount, inToday bool) string {
@@ -155,6 +159,32 @@ func Rebase(p *Plan, data []byte) ([]byte, Month, error) {
 		return nil, 0, fmt.Errorf("the re-based file does not read back (please report this): %v", err)
 	}
 	return b.Bytes(), start, nil
+}
+
+// unshare gives every use of an anchored value (&name, used again as
+// *name) a copy of its own and drops the anchors, so that an edit to one
+// goal's value (a stream list, a rate schedule shared by two goals) is not
+// made again through another: the file read back means what it did.
+func unshare(n *yaml.Node) {
+	n.Anchor = ""
+	for i, c := range n.Content {
+		if c.Kind == yaml.AliasNode && c.Alias != nil {
+			cp := copyNode(c.Alias)
+			cp.HeadComment, cp.LineComment, cp.FootComment = c.HeadComment, c.LineComment, c.FootComment
+			n.Content[i] = cp
+		}
+		unshare(n.Content[i])
+	}
+}
+
+// copyNode returns a deep copy of n.
+func copyNode(n *yaml.Node) *yaml.Node {
+	cp := *n
+	cp.Content = make([]*yaml.Node, len(n.Content))
+	for i, c := range n.Content {
+		cp.Content[i] = copyNode(c)
+	}
+	return &cp
 }
 
 // mapValue returns the value of key in mapping m, or nil.

@@ -62,6 +62,62 @@ func TestRebase_StartsFromTheLatestActual(t *testing.T) {
 	}
 }
 
+// A value two goals share through a YAML anchor and alias (a list of
+// streams, a rate schedule) is re-based for each goal on its own: the
+// edits for one goal were made again through the other, which emptied a
+// shared stream list (the ongoing stream lost from both) or failed on a
+// shared rate schedule. Each goal's balances from the new start are its
+// re-planned plan's, to the cent (common practice, no source: the same
+// flows from the same balance).
+func TestRebase_SharedValues(t *testing.T) {
+	src := `cairn: 1
+start: 2024-07
+goals:
+  - name: A
+    balance: 100
+    rate: &r
+      - 3%
+      - from: 2025-01
+        rate: 4%
+    deposits: &d
+      - {name: old, amount: 10, every: month, until: 2025-01}
+      - {name: new, amount: 20, every: month}
+    actuals:
+      - {month: 2025-06, balance: 500}
+  - name: B
+    balance: 100
+    rate: *r
+    deposits: *d
+`
+	asOf := plan.MonthOf(2026, 1)
+	p, err := plan.Parse("a.yaml", []byte(src), asOf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, start, err := plan.Rebase(p, []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	q, err := plan.Parse("b.yaml", out, asOf)
+	if err != nil {
+		t.Fatalf("the re-based file does not parse: %v\n%s", err, out)
+	}
+	end := plan.MonthOf(2030, 12)
+	for i, g := range p.Goals {
+		if n := len(q.Goals[i].Deposits); n != 1 {
+			t.Errorf("goal %s: %d deposit streams after re-basing, want 1 (the ongoing one)\n%s", g.Name, n, out)
+		}
+		rp, rg := plan.Replan(p, g)
+		want := mustProject(t, rp, rg, end)
+		got := mustProject(t, q, q.Goals[i], end)
+		for m := start; m <= end; m++ {
+			if got.BalanceAt(m).Cmp(want.BalanceAt(m)) != 0 {
+				t.Fatalf("goal %s, balance at %s: re-based %s, re-planned %s\n%s", g.Name, m, got.BalanceAt(m), want.BalanceAt(m), out)
+			}
+		}
+	}
+}
+
 // The example with two years of actuals re-bases to a file that parses,
 // and a plan without actuals is refused.
 func TestRebase_Example(t *testing.T) {
