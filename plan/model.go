@@ -289,6 +289,10 @@ func (g *Goal) Latest() (Actual, bool) {
 // Pos returns the position of the goal in its file.
 func (g *Goal) Pos() Position { return g.pos }
 
+// DrawsDown reports whether money leaves goal g's account: a withdrawal
+// stream, or a one-time amount out. Such a goal can run out of money.
+func (g *Goal) DrawsDown() bool { return len(g.Withdrawals) > 0 || anyOut(g.Once) }
+
 // A Stream is a series of equal-period amounts into (deposits) or out of
 // (withdrawals) a goal's account.
 type Stream struct {

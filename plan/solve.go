@@ -701,10 +701,15 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 }
 
 func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
-	if len(g.Withdrawals) == 0 {
+	if !g.DrawsDown() {
 		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
 	}
 	end, _ := lastWithdrawal(p, g)
+	for _, o := range g.Once { // and the last one-time amount out
+		if o.Amount.Sign() < 0 {
+			end = max(end, o.On)
+		}
+	}
 	s := compile(p, g, end)
 	pr := s.defaultParams()
 	bal, r := s.closing(pr)

@@ -150,9 +150,7 @@ func goalStatus(p *Plan, g *Goal) GoalStatus {
 			gs.Reached = a.Month
 		}
 	}
-	if len(g.Withdrawals) > 0 {
-		gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
-	}
+	gs.lasts(p, g)
 	afterTax(p, &gs)
 	return gs
 }
@@ -225,8 +223,20 @@ func budgetStatus(p *Plan, a *Allocation, i int, gs *GoalStatus) {
 	} else {
 		gs.Reach = noSolution(g, "the target is not reached by %s with the budget's share", a.End)
 	}
-	if len(g.Withdrawals) > 0 {
-		gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
+	gs.lasts(p, g)
+}
+
+// lasts fills in whether goal g's money lasts: for a goal with withdrawals;
+// for one whose only money out is one-time amounts, only when it does not
+// (a goal saving toward a target that pays a bill now and then is not a
+// drawdown).
+func (gs *GoalStatus) lasts(p *Plan, g *Goal) {
+	if !g.DrawsDown() {
+		return
+	}
+	gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
+	if len(g.Withdrawals) == 0 && gs.LastsErr == nil && gs.Lasts.Lasts {
+		gs.Lasts = nil
 	}
 }
 

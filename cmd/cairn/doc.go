@@ -177,7 +177,7 @@ func growthJSON(s *plan.Stream) any {
 	return nil
 }
 
-func hasDrawdown(g *plan.Goal) bool { return len(g.Withdrawals) > 0 }
+func hasDrawdown(g *plan.Goal) bool { return g.DrawsDown() }
 
 func planJSON(p *plan.Plan) map[string]any {
 	m := map[string]any{

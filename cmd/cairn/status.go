@@ -274,7 +274,9 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 				jg["needed"] = jn
 			} else {
 				jg["needed_reason"] = reasonOf(gs.NeededErr)
-				d.After = append(d.After, fmt.Sprintf("%s: no deposit makes the deadline: %s.", goal.Name, reasonOf(gs.NeededErr)))
+				if !gs.OnTrack { // on track, it needs no deposit: nothing to say
+					d.After = append(d.After, fmt.Sprintf("%s: no deposit makes the deadline: %s.", goal.Name, reasonOf(gs.NeededErr)))
+				}
 			}
 		}
 		if goal.HasTarget {
@@ -291,8 +293,8 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 		if len(goal.Income) > 0 {
 			d.After = append(d.After, outsideIncomeWords(goal))
 		}
+		drawdown = drawdown || hasDrawdown(goal)
 		if gs.Lasts != nil {
-			drawdown = true
 			if gs.Lasts.Lasts {
 				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, monthAges(p, gs.Lasts.Month), amt(p, gs.Lasts.Left)))
 				jg["money_lasts"] = true
