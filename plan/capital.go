@@ -88,7 +88,7 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if err != nil {
 		return nil, err
 	}
-	s := compile(p, h, end)
+	s := compile(p, h, settledAt(p, g, end))
 	idx := capitalSource(h)
 	leave := p.LeaveAt(g, end)
 	pr := s.defaultParams()
@@ -154,7 +154,7 @@ func solveStartPaying(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}
-	s := compile(p, g, end)
+	s := compile(p, g, settledAt(p, g, end))
 	leave := p.LeaveAt(g, end)
 	pr := s.defaultParams()
 	if _, err := s.leastPaying(pr, 0, leave, "the opening balance"); err != nil {

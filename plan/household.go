@@ -511,7 +511,8 @@ func shareLasts(p *Plan, g *Goal, i int, full bool) (*Answer, error) {
 	if len(g.Withdrawals) == 0 {
 		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
 	}
-	end, _ := lastWithdrawal(p, g)
+	last, _ := lastWithdrawal(p, g)
+	end := settledAt(p, g, last)
 	al, err := allocateThrough(p, end)
 	if err != nil {
 		return nil, err
@@ -529,7 +530,7 @@ func shareLasts(p *Plan, g *Goal, i int, full bool) (*Answer, error) {
 			return a, nil
 		}
 	}
-	paidAll(p, g, a, l.BalanceAt(end), end)
+	paidAll(p, g, a, l.BalanceAt(end), last)
 	if full {
 		a.Equation = s.equation(pr, l)
 	}

@@ -57,7 +57,11 @@ func SolveStartSim(p *Plan, g *Goal, level float64, opts SimOptions) (*SimStart,
 		}
 		end = g.By
 	}
-	s := compile(p, g, end)
+	horizon := end
+	if lasts {
+		horizon = settledAt(p, g, end)
+	}
+	s := compile(p, g, horizon)
 	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {
 		return nil, err
 	}

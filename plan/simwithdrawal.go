@@ -53,7 +53,7 @@ func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts Sim
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}
-	s := compile(p, g, end)
+	s := compile(p, g, settledAt(p, g, end))
 	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {
 		return nil, err
 	}

@@ -668,7 +668,7 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}
-	s := compile(p, g, end)
+	s := compile(p, g, settledAt(p, g, end))
 	idx := s.sourceIndex(st)
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
@@ -692,7 +692,8 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	guess := max(int64((b0-leave.Float())/per*scale), 0)
 	c, _ := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), false)
 	set(c)
-	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true, Paid: true}
+	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true, Paid: true,
+		Note: settledNote(p, g, end)}
 	a.Balance, _ = s.closing(pr)
 	a.Left, a.Target = a.Balance, leave
 	a.FirstAmount = s.firstAmount(pr, idx)
@@ -710,7 +711,7 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 			end = max(end, o.On)
 		}
 	}
-	s := compile(p, g, end)
+	s := compile(p, g, settledAt(p, g, end))
 	pr := s.defaultParams()
 	bal, r := s.closing(pr)
 	a := &Answer{Goal: g, For: ForLasts, Periods: math.NaN()}
@@ -728,6 +729,9 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	paidAll(p, g, a, bal, end)
 	s.prove(a, pr, full)
+	if a.Lasts {
+		a.Note = settledNote(p, g, end)
+	}
 	if a.Lasts && end == horizonEnd(p) {
 		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
 	}

@@ -1,6 +1,10 @@
 package plan
 
-import "cairn/money"
+import (
+	"fmt"
+
+	"cairn/money"
+)
 
 // OverCap reports whether goal g's account receives more than its yearly
 // cap in a year from the plan's start, as the ledger posts it (deposits,
@@ -90,4 +94,28 @@ func (l *Ledger) Moved() money.Amount {
 		}
 	}
 	return sum
+}
+
+// settledAt returns the month at whose end a drawdown of goal g whose last
+// withdrawal is in end is settled: end, or for a goal taxed as it grows,
+// the end of the year from the plan's start that holds it, when the tax on
+// that year's interest is paid from the account — a drawdown that pays
+// every withdrawal but leaves that tax unpaid has not lasted. Never past
+// the horizon.
+func settledAt(p *Plan, g *Goal, end Month) Month {
+	if g.Tax != AsItGrows || g.TaxRate == 0 {
+		return end
+	}
+	k := int(end - p.Start)
+	return min(end+Month(11-k%12), horizonEnd(p))
+}
+
+// settledNote says when what a drawdown of goal g leaves after its last
+// withdrawal in end is counted, when that is after the year's tax; "" when
+// it is counted at end.
+func settledNote(p *Plan, g *Goal, end Month) string {
+	if at := settledAt(p, g, end); at != end {
+		return fmt.Sprintf("what is left is counted after the tax on the year's interest, paid at the end of %s", at)
+	}
+	return ""
 }

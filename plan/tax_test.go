@@ -420,3 +420,49 @@ goals:
 		}
 	}
 }
+
+// A drawdown taxed as it grows pays the tax on its last year's interest
+// too: the tax falls at the year's end after the last withdrawal, and a
+// withdrawal that empties the account before then leaves it unpaid — the
+// money has not lasted. The largest withdrawal leaves enough for it: the
+// ledger through that year's end posts the tax in full, a quarter of the
+// year's interest credited, rounded to the cent (the documented rule,
+// checked on the ledger's own postings), and one cent more leaves part of
+// it short. (Before, the tax was cut silently to what was left: 59,818.51
+// a month "lasted" with 3,058.42 of tax unpaid.)
+func TestTax_DrawdownPaysItsLastYearsTax(t *testing.T) {
+	src := goalFile("balance: 1,000,000", "rate: 12% compounded monthly", "tax: as-it-grows", "tax_rate: 25%",
+		"withdrawals:", "  - {amount: 50000, every: month, for: 18 months}")
+	p := mustParse(t, "last-year-tax", src)
+	a := mustSolve(t, p, plan.ForWithdrawal)
+	yearEnd := plan.MonthOf(2028, 12)
+	for _, d := range []int64{0, 1} {
+		w := money.Minor(cents(a.Amount)+d, 2)
+		q := mustParse(t, "last-year-tax", goalFile("balance: 1,000,000", "rate: 12% compounded monthly", "tax: as-it-grows",
+			"tax_rate: 25%", "withdrawals:", "  - {amount: "+w.Plain(2)+", every: month, for: 18 months}"))
+		l := mustProject(t, q, q.Goals[0], yearEnd)
+		var interest, tax, short money.Amount
+		for _, e := range l.Entries() {
+			if e.Month.Year() != 2028 {
+				continue
+			}
+			switch e.Kind {
+			case plan.Interest:
+				interest = interest.Add(e.Amount)
+			case plan.Tax:
+				tax, short = e.Amount.Abs(), e.Short
+			}
+		}
+		due := interest.MulFloat(0.25).Round(2, money.HalfEven)
+		if got := tax.Add(short); got.Cmp(due) != 0 {
+			t.Errorf("withdrawal %s: the 2028 tax is %s paid and %s short, want %s due (25%% of %s)", w, tax, short, due, interest)
+		}
+		if paid := short.IsZero(); paid != (d == 0) {
+			t.Errorf("withdrawal %s: the 2028 tax paid in full %v (short %s), want %v", w, paid, short, d == 0)
+		}
+		l2 := mustSolve(t, q, plan.ForLasts)
+		if l2.Lasts != (d == 0) {
+			t.Errorf("withdrawal %s: lasts %v, want %v", w, l2.Lasts, d == 0)
+		}
+	}
+}

@@ -25,7 +25,8 @@ an example to edit, and ` + "`cairn check FILE`" + ` to see what cairn understoo
 
 ` + keySections() + `ORDER AT ONE INSTANT
   At one moment: the interest credit for the period ending (and the month's
-  credit of daily or weekly interest), then the month's fee, then amounts due
+  credit of daily or weekly interest), then at a year's end the tax on the
+  year's interest (tax: as-it-grows), then the month's fee, then amounts due
   at the end of a period - money in (deposits, one-time amounts in) before
   money out (withdrawals, one-time amounts out) - then the month-end balance,
   then amounts due at the start of a period, again in before out. So money

@@ -106,6 +106,9 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 		if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
 			s += " (" + fy + ".)"
 		}
+		if a.Note != "" {
+			s += " (" + a.Note + ".)"
+		}
 		return s
 	case plan.ForLasts:
 		if a.Lasts {

@@ -651,15 +651,20 @@ events:
 				dv.base -= dx
 				dv.low = dv.bal + dv.accrued
 			}
+			var unpaid float64 // what the account could not pay of it
 			if exact {
 				if q, sure := money.RoundFast(x); sure {
 					x = q
 				} else {
 					x = roundPosting(t, in.TaxM, 0, in.Rounding)
 				}
-				x = min(x, max(bal, 0)) // what the account holds; no debt is modelled
-				if x == 0 {
-					continue
+				// the account pays what it holds (no debt is modelled); the
+				// rest is short, as a withdrawal's would be
+				if held := max(bal, 0); x > held {
+					unpaid, x = x-held, held
+					if !res.Short {
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
+					}
 				}
 			}
 			bal -= x
@@ -667,8 +672,8 @@ events:
 			if none {
 				low = bal + accrued
 			}
-			if logged {
-				o.Log.post(e.Tick, e.begins(), PostTax, 0, -x, 0, 0)
+			if logged && (x != 0 || unpaid != 0) {
+				o.Log.post(e.Tick, e.begins(), PostTax, 0, -x, unpaid, 0)
 			}
 		case Fee:
 			if alone {

@@ -148,15 +148,20 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				if x <= 0 {
 					continue
 				}
+				var unpaid float64
+				_ = unpaid
 				{
 					if q, sure := money.RoundFast(x); sure {
 						x = q
 					} else {
 						x = roundPosting(t, in.TaxM, 0, in.Rounding)
 					}
-					x = min(x, max(bal[l], 0))
-					if x == 0 {
-						continue
+
+					if held := max(bal[l], 0); x > held {
+						unpaid, x = x-held, held
+						if !res[l].Short {
+							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month()
+						}
 					}
 				}
 				bal[l] -= x
