@@ -1,8 +1,10 @@
 package plan
 
 // Horizon returns the last month a projection of goal g shows: the later of
-// its deadline, the last month of its bounded streams and one-time amounts;
-// for a goal with none of these, 30 years from the start.
+// its deadline, the last month of its bounded streams and one-time amounts
+// (for a drawdown taxed as it grows, the year's end after its last
+// withdrawal, when that year's tax is paid: see [settledAt]); for a goal
+// with none of these, 30 years from the start.
 func Horizon(p *Plan, g *Goal) Month {
 	var m Month
 	if g.HasBy {
@@ -16,8 +18,10 @@ func Horizon(p *Plan, g *Goal) Month {
 	for _, o := range g.Once {
 		m = max(m, o.On)
 	}
-	if _, finite := lastWithdrawal(p, g); !finite && len(g.Withdrawals) > 0 {
+	if last, finite := lastWithdrawal(p, g); !finite && len(g.Withdrawals) > 0 {
 		m = horizonEnd(p)
+	} else if finite {
+		m = max(m, settledAt(p, g, last))
 	}
 	if m == 0 {
 		m = p.Start.Add(30*12 - 1)

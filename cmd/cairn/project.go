@@ -196,7 +196,11 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	}
 	if m, ok := l.FirstShort(); ok {
 		tot := rows[len(rows)-1]
-		d.After = append(d.After, fmt.Sprintf("The money runs out in %s: %s of withdrawals could not be paid.", m, amt(p, tot.Short)))
+		what := "withdrawals"
+		if g.Tax == plan.AsItGrows {
+			what = "withdrawals and tax" // a year's tax the account cannot pay is short too
+		}
+		d.After = append(d.After, fmt.Sprintf("The money runs out in %s: %s of %s could not be paid.", m, amt(p, tot.Short), what))
 		d.Data["runs_out"] = m.String()
 	}
 	return d
