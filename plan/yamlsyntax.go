@@ -411,6 +411,15 @@ func (s *scan) value(n int, text string, off int) {
 // inline reads quoted values and [ ] { } collections, which may span lines,
 // from off to the end of the line.
 func (s *scan) inline(n int, text string, off int) {
+	// col returns the column of byte i, counted on from the last one asked
+	// for: a line of many brackets or quotes is read in one pass, not one
+	// count from its start each
+	at, runes := 0, 0
+	col := func(i int) int {
+		runes += utf8.RuneCountInString(text[at:i])
+		at = i
+		return runes + 1
+	}
 	for i := off; i < len(text); i++ {
 		c := text[i]
 		if s.quote != nil {
@@ -433,13 +442,11 @@ func (s *scan) inline(n int, text string, off int) {
 		} else {
 			switch c {
 			case '"', '\'':
-				s.quote, s.dquote = &slip{line: n, col: utf8.RuneCountInString(text[:i]) + 1}, c == '"'
-			case '[', '{':
-				what := "a list written on one line needs its ']'"
-				if c == '{' {
-					what = "a mapping written on one line needs its '}'"
-				}
-				s.flow = append(s.flow, slip{n, utf8.RuneCountInString(text[:i]) + 1, fmt.Sprintf("this '%c' is never closed (%s)", c, what)})
+				s.quote, s.dquote = &slip{line: n, col: col(i)}, c == '"'
+			case '[':
+				s.flow = append(s.flow, slip{n, col(i), "this '[' is never closed (a list written on one line needs its ']')"})
+			case '{':
+				s.flow = append(s.flow, slip{n, col(i), "this '{' is never closed (a mapping written on one line needs its '}')"})
 			case ']', '}':
 				if len(s.flow) == 0 {
 					s.slipf(n, i, text, "this '%c' closes nothing", c)

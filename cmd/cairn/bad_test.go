@@ -27,13 +27,24 @@ func TestBadInputs(t *testing.T) {
 	if len(files) < 60 {
 		t.Fatalf("testdata/bad has %d files, want at least 60", len(files))
 	}
-	// Two inputs too large to commit, made here.
+	// Inputs too large to commit, made here: a long line, a large file, and
+	// lines of hundreds of thousands of brackets or quotes (each once took a
+	// count of the line's columns from its start, a minute for a file
+	// within the size limit).
 	dir := t.TempDir()
-	long := filepath.Join(dir, "long-line.yaml")
-	writeBig(t, long, "cairn: 1\nstart: 2027-01\ngoals:\n  - name: "+strings.Repeat("x", 900_000)+"\n")
-	huge := filepath.Join(dir, "fifty-megabytes.yaml")
-	writeBig(t, huge, "cairn: 1\nstart: 2027-01\ngoals:\n"+strings.Repeat("  - name: goal\n", 50<<20/15))
-	files = append(files, long, huge)
+	gen := map[string]bool{}
+	made := func(name, text string) {
+		f := filepath.Join(dir, name+".yaml")
+		writeBig(t, f, text)
+		files = append(files, f)
+		gen[f] = true
+	}
+	head := "cairn: 1\nstart: 2027-01\ngoals:\n  - name: a\n    x: "
+	made("long-line", "cairn: 1\nstart: 2027-01\ngoals:\n  - name: "+strings.Repeat("x", 900_000)+"\n")
+	made("fifty-megabytes", "cairn: 1\nstart: 2027-01\ngoals:\n"+strings.Repeat("  - name: goal\n", 50<<20/15))
+	made("many-brackets", head+strings.Repeat("[", 500_000)+strings.Repeat("]", 500_000)+"\n")
+	made("many-braces", head+strings.Repeat("{a: ", 200_000)+"\n")
+	made("many-quotes", head+"["+strings.Repeat(`"a",`, 200_000)+"\n")
 	for _, f := range files {
 		name := strings.TrimSuffix(filepath.Base(f), ".yaml")
 		t.Run(name, func(t *testing.T) {
@@ -63,7 +74,7 @@ func TestBadInputs(t *testing.T) {
 			got = strings.ReplaceAll(got, dir+string(filepath.Separator), "")
 			got = strings.ReplaceAll(got, "../../testdata/bad/", "")
 			golden := filepath.Join("../../testdata/bad", name+".golden")
-			if f == long || f == huge {
+			if gen[f] {
 				golden = filepath.Join("testdata/bad-generated", name+".golden")
 			}
 			if *update {
