@@ -75,13 +75,14 @@ func statusAnswer(c *cli.Context, cases []plan.Case) (*render.Doc, error) {
 	if _, err := parseFormat(c); err != nil {
 		return nil, err
 	}
-	switch len(cases) {
-	case 1:
+	switch {
+	case len(cases) == 1:
 		return statusDoc(p, plan.StatusOf(p)), nil
-	case 2:
+	case len(cases) == 2 && !c.Bool("scenarios"): // one --scenario NAME: that scenario alone
 		p = cases[1].Plan
 		return statusDoc(p, plan.StatusOf(p)), nil
 	}
+	// --scenarios, or several named: side by side with the plan as written
 	return casesDoc(cases), nil
 }
 
