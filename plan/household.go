@@ -2,7 +2,9 @@ package plan
 
 import (
 	"errors"
+	"fmt"
 	"math"
+	"slices"
 	"strings"
 	"time"
 
@@ -335,22 +337,27 @@ type BudgetAnswer struct {
 
 // SmallestBudget solves for the smallest budget amount a period, in
 // whole minor units, that makes the deadlines of the first top goals in
-// priority order (all of them when top is 0 or more than their number),
-// under the budget's rule, frequency, dates and growth. Each goal needs a
-// deadline. When no amount up to the limit makes them, it returns a
-// [*SolveError].
+// priority order (when top is 0, those before the first goal without a
+// deadline, which takes all that is left to it: every goal when each has
+// one), under the budget's rule, frequency, dates and growth. Each of them
+// needs a deadline. When no amount up to the limit makes them, it returns
+// a [*SolveError].
 func SmallestBudget(p *Plan, top int) (*BudgetAnswer, error) {
 	gs := p.BudgetGoals()
 	if p.Budget == nil || len(gs) == 0 {
 		return nil, ErrNoBudget
 	}
-	if top <= 0 || top > len(gs) {
+	if top <= 0 {
 		top = len(gs)
+		if i := slices.IndexFunc(gs, func(g *Goal) bool { return !g.HasBy }); i > 0 {
+			top = i
+		}
 	}
+	top = min(top, len(gs))
 	var end Month
 	for _, g := range gs[:top] {
 		if !g.HasBy {
-			return nil, &SolveError{Goal: g.Name, Reason: "the goal has no deadline to make (add by: YYYY-MM)"}
+			return nil, &SolveError{Goal: g.Name, Reason: fmt.Sprintf("goal %s has no deadline to make (add by: YYYY-MM)", money.Quote(g.Name))}
 		}
 		end = max(end, g.By)
 	}

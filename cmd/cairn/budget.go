@@ -161,8 +161,8 @@ func shareSentence(p *plan.Plan, a *plan.Allocation, s *plan.Share) string {
 
 // missWords says how a goal misses its deadline.
 func missWords(s *plan.Share) string {
-	if !s.Reached {
-		return fmt.Sprintf("%s is not reached", s.Goal.Name)
+	if !s.Reached { // within the months the smallest budget is measured over, which end at the last deadline
+		return fmt.Sprintf("%s misses its deadline %s", s.Goal.Name, s.Goal.By)
 	}
 	return fmt.Sprintf("%s is reached in %s, after its deadline %s", s.Goal.Name, s.Month, s.Goal.By)
 }
