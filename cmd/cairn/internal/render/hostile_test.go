@@ -80,3 +80,32 @@ func TestWrite_NotFinite(t *testing.T) {
 		t.Errorf("a large finite rate: %v", err)
 	}
 }
+
+// TestMarkdown_MarkupInText checks that text written into Markdown (a
+// goal's name in a cell, a remark, a title) is shown as its characters and
+// not run as markup by whatever renders the Markdown: <, > and & become
+// entities, and | in a cell is escaped. Source: the CommonMark spec, its
+// sections "Raw HTML" (tags pass through a renderer as HTML) and "Entity
+// and numeric character references" (section names from memory).
+func TestMarkdown_MarkupInText(t *testing.T) {
+	name := `</title><script>alert(1)</script> & | co`
+	d := &Doc{Lead: []string{"Lead " + name}, After: []string{"After " + name},
+		Blocks: []Block{&Table{Title: name, Cols: []Column{{Head: "goal", Key: "goal"}}, Rows: [][]Cell{{Text(name)}}}}}
+	var out, errs bytes.Buffer
+	if err := d.Write(&out, &errs, FormatMarkdown); err != nil {
+		t.Fatal(err)
+	}
+	got := out.String()
+	if strings.Contains(got, "<") || strings.Contains(got, ">") {
+		t.Errorf("markup left in the Markdown:\n%s", got)
+	}
+	for _, want := range []string{
+		"Lead &lt;/title&gt;&lt;script&gt;alert(1)&lt;/script&gt; &amp; | co",
+		"After &lt;/title&gt;",
+		`&lt;/script&gt; &amp; \| co`, // the cell and the title
+	} {
+		if !strings.Contains(got, want) {
+			t.Errorf("Markdown lacks %q:\n%s", want, got)
+		}
+	}
+}

@@ -86,7 +86,7 @@ func (d *Doc) writeText(w io.Writer) error {
 func (d *Doc) writeMarkdown(w io.Writer) error {
 	var b bytes.Buffer
 	for _, l := range d.Lead {
-		fmt.Fprintf(&b, "%s\n\n", l)
+		fmt.Fprintf(&b, "%s\n\n", mdText(l))
 	}
 	for _, blk := range d.Blocks {
 		t := gridOf(blk)
@@ -102,13 +102,13 @@ func (d *Doc) writeMarkdown(w io.Writer) error {
 		b.WriteString("\n")
 	}
 	for _, l := range d.After {
-		fmt.Fprintf(&b, "%s\n\n", l)
+		fmt.Fprintf(&b, "%s\n\n", mdText(l))
 	}
 	for i, n := range d.Notices {
 		if i > 0 {
 			b.WriteString("\n")
 		}
-		fmt.Fprintf(&b, "*%s: %s*\n", n.Label(), n.Text)
+		fmt.Fprintf(&b, "*%s: %s*\n", n.Label(), mdText(n.Text))
 	}
 	_, err := w.Write(b.Bytes())
 	return err
@@ -313,7 +313,11 @@ func (t *Table) writeBelow(w io.Writer, r []Cell) {
 	}
 }
 
-func mdEscape(s string) string { return strings.ReplaceAll(s, "|", `\|`) }
+func mdEscape(s string) string { return strings.ReplaceAll(mdText(s), "|", `\|`) }
+
+// mdText is text s as Markdown shows it, not as markup a renderer runs:
+// a goal's name such as "<script>" is written as its characters.
+var mdText = strings.NewReplacer("&", "&amp;", "<", "&lt;", ">", "&gt;").Replace
 
 // Wrap breaks text into lines of at most width characters, each ended by a
 // newline.
