@@ -46,6 +46,9 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 			return nil, fmt.Errorf("what-if grid of more than %d cells", MaxCells)
 		}
 	}
+	if err := checkGridWork(p, g, total, q.For); err != nil {
+		return nil, err
+	}
 	gr.Base.Answer, gr.Base.Err = solve(p, g, q, false)
 	gr.Cells = make([]Cell, total)
 	errs := make([]error, total)

@@ -426,3 +426,33 @@ func TestStatusOf_Example(t *testing.T) {
 		}
 	}
 }
+
+// A what-if grid is refused before it is solved when its cells times its
+// goal's events times the walks a cell takes pass the grid budget — 100 ×
+// 100 cells of a goal of 50 daily streams took 42 seconds and 100,000 cells
+// would take minutes — and a grid of the same size on a 40-year monthly
+// goal is solved. Counted, not timed.
+func TestCompare_WorkBudget(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("cairn: 1\nstart: 2027-01\ngoals:\n  - name: A\n    balance: 1000\n    rate: 4% compounded daily\n    target: 900M\n    deposits:\n")
+	for k := range 50 {
+		fmt.Fprintf(&b, "      - {name: s%d, amount: 1, every: day}\n", k)
+	}
+	axes := func(n int) []plan.Vary {
+		r, d := plan.Vary{Key: "rate"}, plan.Vary{Key: "deposit"}
+		for i := range n {
+			r.Values = append(r.Values, fmt.Sprintf("%.2f%%", 3+0.05*float64(i)))
+			d.Values = append(d.Values, fmt.Sprint(100+i))
+		}
+		return []plan.Vary{r, d}
+	}
+	heavy := mustParse(t, "heavy", b.String())
+	_, err := plan.Compare(heavy, "A", "s0", axes(100), plan.Question{For: plan.ForTime, Stream: "s0"})
+	if err == nil || !strings.Contains(err.Error(), "more than the 5,000,000,000 one grid may") {
+		t.Errorf("a 100 × 100 grid of 50 daily streams: err %v, want it refused over the grid budget", err)
+	}
+	light := mustParse(t, "light", goalFile("balance: 10,000", "rate: 6%", "target: 900k", "by: 2066-12", "deposits:", "  - {amount: 500, every: month}"))
+	if _, err := plan.Compare(light, "g", "", axes(100), plan.Question{For: plan.ForTime}); err != nil {
+		t.Errorf("a 100 × 100 grid of a 40-year monthly goal: %v", err)
+	}
+}

@@ -38,6 +38,11 @@ const (
 	// together (see [Work]): a goal past it is shown without its band, so
 	// that a report of many volatile goals still prints in a few seconds.
 	MaxReportSimulationSteps = 150_000_000
+	// MaxGridSteps is the most cells × events × walks a what-if grid may
+	// take (see checkGridWork): at about 6 ns a step, some 30 seconds of
+	// one core, a few seconds on several. A 100 × 100 grid of a 40-year
+	// monthly goal solved for time takes about 60 million.
+	MaxGridSteps = 5_000_000_000
 	// simDepositPasses is what [SolveDeposit] is counted as: its first
 	// guess takes two passes over every path, and its search of whole
 	// minor units from the guess usually three more (the example file's
@@ -138,4 +143,22 @@ func checkSimulation(s *schedule, paths, passes int, w *Work) error {
 // group writes n with its thousands grouped: 2,700,000.
 func group(n int64) string {
 	return money.Units(n).Format(money.Currency{Places: 0}, false)
+}
+
+// gridWalks is about how many walks one cell of a what-if grid takes, by
+// the quantity solved (the walk budgets TestWalkBudget holds, and the
+// searches of whole minor units for a withdrawal or a capital).
+var gridWalks = map[Quantity]int64{ForTime: 2, ForLasts: 2, ForDeposit: 4, ForStart: 4, ForRate: 10, ForWithdrawal: 16, ForCapital: 16}
+
+// checkGridWork reports an error if a what-if grid of cells cells solving
+// goal g for q would pass [MaxGridSteps]: the events of g's schedule
+// through its horizon, times the walks a cell takes, times the cells.
+// Counted, not timed.
+func checkGridWork(p *Plan, g *Goal, cells int, q Quantity) error {
+	walks := max(gridWalks[q], 2)
+	if n := int64(cells) * eventsOf(p, g, Horizon(p, g)) * walks; n > MaxGridSteps {
+		return fmt.Errorf("grid of %d cells: solving goal %s for %s in each walks about %s events, more than the %s one grid may; vary fewer values, or compare a goal of fewer amounts",
+			cells, money.Quote(g.Name), q, group(n), group(MaxGridSteps))
+	}
+	return nil
 }
