@@ -2,6 +2,7 @@ package plan
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"gopkg.in/yaml.v3"
@@ -193,12 +194,18 @@ func ParseVary(s string) (Vary, error) {
 		return Vary{}, fmt.Errorf("ambiguous list %s: a comma between digits may group thousands (1,000) or separate values (want values separated by ;, such as %s=1,000;1,500, or amounts without commas, such as %s=1000,1500)",
 			money.Quote(o.Value), o.Key, o.Key)
 	}
-	var vals []string
-	for _, v := range strings.Split(o.Value, sep) {
-		if v = strings.TrimSpace(v); v != "" {
-			vals = append(vals, v)
-		}
+	parts := strings.Split(o.Value, sep)
+	if len(parts) > 1 && strings.TrimSpace(parts[len(parts)-1]) == "" {
+		parts = parts[:len(parts)-1] // a separator after the last value
 	}
+	var vals []string
+	for _, v := range parts {
+		vals = append(vals, strings.TrimSpace(v))
+	}
+	if slices.Contains(vals, "") && slices.ContainsFunc(vals, func(v string) bool { return v != "" }) {
+		return Vary{}, fmt.Errorf("invalid vary %s: an empty value in the list (want KEY=V1%sV2%s…)", money.Quote(s), sep, sep)
+	}
+	vals = slices.DeleteFunc(vals, func(v string) bool { return v == "" })
 	if len(vals) == 0 {
 		return Vary{}, fmt.Errorf("invalid vary %s (want KEY=V1,V2,…)", money.Quote(s))
 	}

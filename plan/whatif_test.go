@@ -85,6 +85,9 @@ func TestParseVary_Errors(t *testing.T) {
 	}{
 		{"rate=", `invalid vary "rate=" (want KEY=V1,V2,…)`},
 		{"rate= , ,", `invalid vary "rate= , ,"`},
+		// an empty value between two others is a slip, not a value to skip
+		{"rate=5%,,6%", `invalid vary "rate=5%,,6%": an empty value in the list`},
+		{"deposit=100; ;200", `an empty value in the list (want KEY=V1;V2;…)`},
 		{"rate", `invalid override "rate"`},
 		{"rat=3%,4%", `unknown override key "rat" (did you mean "rate"?)`},
 		// a comma that may group thousands is never split (issue 13 item 12)

@@ -6,6 +6,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"github.com/urfave/cli/v2"
@@ -330,6 +331,9 @@ func overrides(c *cli.Context) ([]plan.Override, error) {
 		o, err := plan.ParseOverride(s)
 		if err != nil {
 			return nil, usagef("--set takes KEY=VALUE with KEY one of "+strings.Join(plan.OverrideKeys, ", "), "--set: %v", err)
+		}
+		if slices.ContainsFunc(out, func(p plan.Override) bool { return p.Key == o.Key }) {
+			return nil, usagef("give each key once", "--set %s is given more than once", o.Key)
 		}
 		out = append(out, o)
 	}
