@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 	"time"
 	"unicode"
@@ -247,8 +248,31 @@ func newApp(e *env) *cli.App {
 			return usagef(hint, "%s", flagMessage(err.Error()))
 		}
 		c.HideHelpCommand = true // `cairn help COMMAND` is the help command's
+		c.Before = noEmptyValues
 	}
 	return app
+}
+
+// noEmptyValues refuses a flag given with an empty value (--format "",
+// --as-of ""), which would otherwise read as the flag not given at all.
+func noEmptyValues(c *cli.Context) error {
+	for _, f := range c.Command.Flags {
+		name := f.Names()[0]
+		if !c.IsSet(name) {
+			continue
+		}
+		empty := false
+		switch f.(type) {
+		case *cli.StringFlag:
+			empty = strings.TrimSpace(c.String(name)) == ""
+		case *cli.StringSliceFlag:
+			empty = slices.ContainsFunc(c.StringSlice(name), func(v string) bool { return strings.TrimSpace(v) == "" })
+		}
+		if empty {
+			return usagef("run `cairn "+c.Command.Name+" --help` for its values", "--%s is given with no value", name)
+		}
+	}
+	return nil
 }
 
 // reorder moves each command's flags before its positional arguments, since

@@ -568,7 +568,7 @@ func TestReport_Writes(t *testing.T) {
 		err  string
 	}{
 		{"unknown goal", []string{"--goal", "Boat", "--out", "-"}, 2, `no goal named "Boat"`},
-		{"empty out", []string{"--out", ""}, 2, "--out needs a file name"},
+		{"empty out", []string{"--out", ""}, 2, "--out is given with no value"},
 		{"bad as-of", []string{"--as-of", "2026-13", "--out", "-"}, 2, "--as-of"},
 		{"two files", []string{hh, "--out", "-"}, 2, "too many arguments"},
 		{"bad flag", []string{"--format", "json"}, 2, "unknown option --format"},
