@@ -126,13 +126,20 @@ func (p *Plan) with(goal, stream string, ovs []Override) (*Goal, error) {
 		return nil, by.refuse(pr.msg)
 	}
 	if _, err := p.checkFileWork(); err != nil {
-		return nil, err
+		return nil, outOfBounds{err}
 	}
 	if err := p.checkBounds(g); err != nil {
-		return nil, err
+		return nil, outOfBounds{err}
 	}
 	return g, nil
 }
+
+// outOfBounds is a change refused because the plan it makes passes a limit
+// (the work budget, the largest balance), not because a value is wrong: in
+// a what-if grid, that cell's answer, not the grid's refusal.
+type outOfBounds struct{ error }
+
+func (e outOfBounds) Unwrap() error { return e.error }
 
 // apply parses one override's value as its key of the goals file and
 // stores it in goal g (or its stream, or the plan).

@@ -1,7 +1,9 @@
 package plan
 
 import (
+	"errors"
 	"fmt"
+	"strings"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -70,7 +72,11 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 			ovs[i] = Override{Key: axes[i].Key, Value: v}
 		}
 		q2, g2, err := cached.With(goal, stream, ovs)
-		if err != nil {
+		if ob := (outOfBounds{}); errors.As(err, &ob) {
+			cell.Err = &SolveError{Goal: g.Name, Reason: strings.TrimPrefix(ob.Error(), "goal "+money.Quote(g.Name)+": ")}
+			gr.Cells[c] = cell
+			return
+		} else if err != nil {
 			errs[c] = err
 			return
 		}

@@ -459,3 +459,24 @@ func TestCompare_WorkBudget(t *testing.T) {
 		t.Errorf("a 100 × 100 grid of a 40-year monthly goal: %v", err)
 	}
 }
+
+// A cell whose values take the plan past a limit (here the largest
+// balance, at 100% a year for 40 years) is that cell's answer, not the
+// grid's refusal: the other cells are answered.
+func TestCompare_CellOutOfBounds(t *testing.T) {
+	p := mustParse(t, "bounds", goalFile("balance: 10,000", "rate: 6%", "target: 900k", "by: 2066-12",
+		"deposits:", "  - {amount: 500000, every: month}"))
+	gr, err := plan.Compare(p, "g", "", []plan.Vary{{Key: "rate", Values: []string{"5%", "100%"}}}, plan.Question{For: plan.ForTime})
+	if err != nil {
+		t.Fatalf("the grid is refused: %v", err)
+	}
+	if c := gr.Cells[0]; c.Err != nil || c.Answer == nil {
+		t.Errorf("5%%: %v, want an answer", c.Err)
+	}
+	if c := gr.Cells[1]; c.Err == nil || !strings.Contains(c.Err.Error(), "passes the limit") {
+		t.Errorf("100%%: %v, want the limit as the cell's answer", c.Err)
+	}
+	if _, err := plan.Compare(p, "g", "", []plan.Vary{{Key: "rate", Values: []string{"5%", "abc"}}}, plan.Question{For: plan.ForTime}); err == nil {
+		t.Error("a value that does not read is answered in its cell, want the grid refused")
+	}
+}
