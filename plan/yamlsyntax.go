@@ -119,11 +119,15 @@ func emptyDocument(n *yaml.Node) bool {
 }
 
 // checkNodes refuses control and invisible characters written as escapes
-// ("\e", "\u202e"), merge keys and numbers split by a comma in a flow
+// ("\e", "\u202e"), merge keys, tags (!!binary, !anything: a goals file's
+// values are read as written) and numbers split by a comma in a flow
 // collection ({amount: 1,000} reads as amount 1 and a key 000).
 func checkNodes(file string, n *yaml.Node) *Error {
 	if n == nil {
 		return nil
+	}
+	if n.Style&yaml.TaggedStyle != 0 {
+		return &Error{Pos: Position{file, n.Line, n.Column}, Msg: fmt.Sprintf("the tag %s is not part of a goals file: write the value alone", money.Quote(n.Tag))}
 	}
 	if n.Kind == yaml.ScalarNode {
 		if what, _, ok := HiddenText(n.Value); ok {

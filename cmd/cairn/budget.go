@@ -49,6 +49,9 @@ func budgetCommand(e *env) *cli.Command {
 			if err != nil {
 				return &inputError{err: err}
 			}
+			if n := len(p.BudgetGoals()); c.Int("top") > n {
+				return usagef("", "--top: %d is more than the %d %s that draw on the budget", c.Int("top"), n, plural(n, "goal", "goals"))
+			}
 			least, lerr := plan.SmallestBudget(p, c.Int("top"))
 			return out(c, e, budgetDoc(p, a, by, least, lerr))
 		},
