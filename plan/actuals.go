@@ -52,6 +52,10 @@ func (p *Plan) ReadActuals(name string, data []byte) error {
 		at(0, 0, "file is %d bytes, over the %d-byte limit for an actuals file", len(data), MaxFileSize)
 		return errs
 	}
+	if utf16Text(data) {
+		at(1, 1, "the file is in UTF-16 (want a CSV in UTF-8: save it as UTF-8)")
+		return errs
+	}
 	r := csv.NewReader(bytes.NewReader(bytes.TrimPrefix(data, []byte("\xef\xbb\xbf"))))
 	r.FieldsPerRecord = -1
 	r.TrimLeadingSpace = true

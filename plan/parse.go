@@ -33,7 +33,11 @@ func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) 
 	data = bytes.TrimPrefix(data, []byte("\xef\xbb\xbf"))
 	if !utf8.Valid(data) || bytes.IndexByte(data, 0) >= 0 {
 		line, col := firstBadByte(data)
-		d.errs = append(d.errs, &Error{Pos: Position{name, line, col}, Msg: "not a text file (want a YAML goals file in UTF-8)"})
+		msg := "not a text file (want a YAML goals file in UTF-8)"
+		if utf16Text(data) {
+			line, col, msg = 1, 1, "the file is in UTF-16 (want a YAML goals file in UTF-8: save it as UTF-8)"
+		}
+		d.errs = append(d.errs, &Error{Pos: Position{name, line, col}, Msg: msg})
 		return nil, d.errs
 	}
 	if line, col, ok := findTab(data); ok {
@@ -891,4 +895,14 @@ func firstBadByte(data []byte) (line, col int) {
 		i += size
 	}
 	return line, col
+}
+
+// utf16Text reports whether data begins with a UTF-16 byte order mark, or
+// looks like UTF-16 text without one (a NUL beside each of its first
+// characters).
+func utf16Text(data []byte) bool {
+	if bytes.HasPrefix(data, []byte{0xff, 0xfe}) || bytes.HasPrefix(data, []byte{0xfe, 0xff}) {
+		return true
+	}
+	return len(data) >= 4 && (data[0] == 0 && data[2] == 0 && data[1] != 0 || data[1] == 0 && data[3] == 0 && data[0] != 0)
 }

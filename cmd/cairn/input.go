@@ -235,6 +235,8 @@ func readActuals(p *plan.Plan, name string) error {
 	// named pipe waits for a writer
 	if st, err := os.Stat(path); err == nil && !st.Mode().IsRegular() {
 		return refuse("%q is not a regular file", p.ActualsFile)
+	} else if err == nil && st.Size() > plan.MaxFileSize {
+		return refuse("%q is %d bytes, over the %d-byte limit for an actuals file", p.ActualsFile, st.Size(), plan.MaxFileSize)
 	}
 	f, err := os.Open(path)
 	if err != nil {
