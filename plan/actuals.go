@@ -111,6 +111,9 @@ func (p *Plan) ReadActuals(name string, data []byte) error {
 		case b.Cmp(money.Units(MaxAmountUnits)) > 0:
 			at(bl, bc, "balance %s is beyond the limit of %s", money.Quote(field(2)), amountLimit)
 			continue
+		case finerThan(b, p.Currency) != "":
+			at(bl, bc, "balance %s %s", money.Quote(field(2)), finerThan(b, p.Currency))
+			continue
 		}
 		a := Actual{Month: m, Balance: b, Pos: Position{name, line, col}}
 		h := &Goal{Name: g.Name, Actuals: append(slices.Clone(g.Actuals), added[g]...)}

@@ -254,7 +254,25 @@ func (d *decoder) amount(n *yaml.Node, path string, cur money.Currency, allowTod
 		d.errorf(n, path, "amount %s is beyond the limit of %s", money.Quote(s), amountLimit)
 		return a, false, false
 	}
+	if msg := finerThan(a, cur); msg != "" {
+		d.errorf(n, path, "amount %s %s", money.Quote(s), msg)
+		return a, false, false
+	}
 	return a, today, true
+}
+
+// finerThan says how amount a is written finer than currency c's minor
+// unit (100.005 in a currency of cents): what an account never holds, and
+// would be rounded without a word; "" when it is not.
+func finerThan(a money.Amount, c money.Currency) string {
+	if a.Round(c.Places, money.HalfEven).Cmp(a) == 0 {
+		return ""
+	}
+	if c.Places == 0 {
+		return fmt.Sprintf("is finer than %s's whole units (write it in whole units)", c.Code)
+	}
+	return fmt.Sprintf("is finer than %s's %d decimal places (write it to the minor unit, such as %s)", c.Code, c.Places,
+		a.Round(c.Places, money.HalfEven).Format(c, false))
 }
 
 func (d *decoder) rate(n *yaml.Node, path string, lo, hi float64) (money.Rate, bool) {
