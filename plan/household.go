@@ -492,6 +492,8 @@ func solveShare(p *Plan, g *Goal, i int, q Question, full bool) (*Answer, error)
 		at = sh.Month
 	case p.Budget.Rule == OneAtATime:
 		return nil, noSolution(g, "under the one-at-a-time rule the goal takes everything the budget has left until it is reached, not a deposit of its own; see cairn budget for when it is")
+	case !sh.HasNeed && i == 0:
+		return nil, noSolution(g, "the whole budget does not make the deadline; see cairn budget for the budget that does")
 	case !sh.HasNeed:
 		return nil, noSolution(g, "everything the budget leaves after the goals before it does not make the deadline; see cairn budget for the budget that does")
 	}

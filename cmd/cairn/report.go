@@ -488,6 +488,9 @@ func goalFacts(p *plan.Plan, gf goalFigures) *render.Facts {
 		add("Projected at the deadline", s)
 		if sh := gf.Share; sh != nil {
 			need := fmt.Sprintf("from the budget, priority %d: everything left after the goals before it", sh.Priority)
+			if sh.Goal == p.BudgetGoals()[0] { // no goal comes before it
+				need = fmt.Sprintf("from the budget, priority %d: all of it", sh.Priority)
+			}
 			if sh.HasNeed {
 				need = fmt.Sprintf("from the budget, priority %d: %s %s", sh.Priority, amt(p, sh.Need), every(&p.Budget.Stream))
 			}
