@@ -124,10 +124,20 @@ func compareDoc(p *plan.Plan, g *plan.Goal, gr *plan.Grid) *render.Doc {
 		cols = append(cols, render.Column{Head: k, Key: k})
 	}
 	anyErr := gr.Base.Err != nil
+	// a withdrawal taxed on the way out: what each leaves to spend, beside
+	// what the account pays
+	taxedOut := func(c plan.Cell) bool { return c.Answer != nil && c.Answer.Net.Cmp(c.Answer.Amount) != 0 }
+	net := gr.For == plan.ForWithdrawal && taxedOut(gr.Base)
 	for _, c := range gr.Cells {
 		anyErr = anyErr || c.Err != nil
+		net = net || gr.For == plan.ForWithdrawal && taxedOut(c)
 	}
-	cols = append(cols, render.Column{Head: gr.For.String(), Key: "answer", Numeric: true}, render.Column{Head: "why not", Key: "reason", Hidden: !anyErr})
+	cols = append(cols, render.Column{Head: gr.For.String(), Key: "answer", Numeric: true})
+	if net {
+		d.Lead = append(d.Lead, "Each withdrawal is what the account pays; to spend is what it leaves after the tax on withdrawals.")
+		cols = append(cols, render.Column{Head: "to spend", Key: "net", Numeric: true})
+	}
+	cols = append(cols, render.Column{Head: "why not", Key: "reason", Hidden: !anyErr})
 	t := &render.Table{Cols: cols}
 	// row adds one case to the table and returns its JSON form.
 	row := func(name string, values []string, c plan.Cell) map[string]any {
@@ -141,11 +151,21 @@ func compareDoc(p *plan.Plan, g *plan.Goal, gr *plan.Grid) *render.Doc {
 		jc["values"] = vals
 		if c.Err != nil {
 			why := reasonOf(c.Err)
-			cells = append(cells, render.Label("none", ""), render.Text(why))
+			cells = append(cells, render.Label("none", ""))
+			if net {
+				cells = append(cells, render.Label("-", ""))
+				jc["net"] = nil
+			}
+			cells = append(cells, render.Text(why))
 			jc["answer"], jc["reason"] = nil, why
 		} else {
 			ans := answerValue(p, c.Answer)
-			cells = append(cells, ans, render.Text(""))
+			cells = append(cells, ans)
+			if net {
+				cells = append(cells, cash(p, c.Answer.Net))
+				jc["net"] = jamt(p, c.Answer.Net)
+			}
+			cells = append(cells, render.Text(""))
 			jc["answer"] = ans.Plain()
 		}
 		t.Add(cells...)

@@ -118,7 +118,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"goal", "string", true, "the goal's name"},
 		{"for", "string", true, "the quantity solved for"},
 		{"base", "object", true, "the answer with no change"},
-		{"cells", "array", true, "one object each combination of the --vary values, with its answer or reason"},
+		{"cells", "array", true, "one object each combination of the --vary values, with its answer or reason (and for a withdrawal taxed on the way out, net: what it leaves to spend)"},
 		{"before_fee", "string", false, "for rate: the goal's fee a year; the rates solved are before it"},
 		{"amount_is", "string", false, "\"first year\" when the answers are first-year amounts of a rising stream"},
 		{"grow", "string", false, "the stream's yearly rise, when the answers are first-year amounts"},
