@@ -65,7 +65,8 @@ type Status struct {
 	// Budget is the plan's budget split among the goals that draw on it,
 	// or nil; BudgetMonthly is its amount in the plan's first month as a
 	// monthly equivalent (zero when it starts later), and Smallest the
-	// smallest budget that makes every deadline, when SmallestErr is nil.
+	// smallest budget that makes the deadlines it says (see
+	// [SmallestBudget]), when SmallestErr is nil.
 	Budget        *Allocation
 	BudgetMonthly money.Amount
 	Smallest      *BudgetAnswer

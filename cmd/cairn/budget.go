@@ -123,11 +123,7 @@ func budgetDoc(p *plan.Plan, a *plan.Allocation, by plan.Period, least *plan.Bud
 		d.After = append(d.After, fmt.Sprintf("No budget makes the deadlines: %s.", reasonOf(lerr)))
 		return d
 	}
-	which := "every goal's deadline"
-	if least.Top < len(a.Shares) {
-		which = fmt.Sprintf("the deadlines of the first %d %s in priority order", least.Top, plural(least.Top, "goal", "goals"))
-	}
-	s := fmt.Sprintf("The smallest budget that makes %s: %s %s", which, amt(p, least.Amount), every(&b.Stream))
+	s := fmt.Sprintf("The smallest budget that makes %s: %s %s", budgetReach(p, least), amt(p, least.Amount), every(&b.Stream))
 	js := map[string]any{"amount": jamt(p, least.Amount), "top": least.Top}
 	if least.Less != nil {
 		for _, sh := range least.Less.Shares[:least.Top] {
@@ -168,4 +164,19 @@ func missWords(s *plan.Share) string {
 		return fmt.Sprintf("%s misses its deadline %s", s.Goal.Name, s.Goal.By)
 	}
 	return fmt.Sprintf("%s is reached in %s, after its deadline %s", s.Goal.Name, s.Month, s.Goal.By)
+}
+
+// budgetReach says whose deadlines the smallest budget least makes: every
+// goal's that draws on the budget, or the first ones' in priority order
+// (those before a goal without a deadline, by default).
+func budgetReach(p *plan.Plan, least *plan.BudgetAnswer) string {
+	gs := p.BudgetGoals()
+	if least.Top >= len(gs) {
+		return "every deadline of the goals that draw on it"
+	}
+	s := fmt.Sprintf("the deadlines of the first %d %s in priority order", least.Top, plural(least.Top, "goal", "goals"))
+	if !gs[least.Top].HasBy {
+		s += fmt.Sprintf(" (%s, next, has no deadline and takes what is left)", gs[least.Top].Name)
+	}
+	return s
 }

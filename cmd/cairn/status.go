@@ -496,8 +496,8 @@ func householdLine(p *plan.Plan, st *plan.Status) []string {
 	}
 	if st.Budget != nil {
 		if st.SmallestErr == nil {
-			out = append(out, fmt.Sprintf("The smallest budget that makes every deadline of the goals that draw on it: %s %s.",
-				amt(p, st.Smallest.Amount), every(&p.Budget.Stream)))
+			out = append(out, fmt.Sprintf("The smallest budget that makes %s: %s %s.",
+				budgetReach(p, st.Smallest), amt(p, st.Smallest.Amount), every(&p.Budget.Stream)))
 		} else {
 			out = append(out, fmt.Sprintf("No budget makes every deadline: %s.", reasonOf(st.SmallestErr)))
 		}
