@@ -80,7 +80,7 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if err != nil {
 		return nil, err
 	}
-	end, finite := lastWithdrawal(p, g)
+	end, finite := lastOut(p, g)
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}
@@ -98,6 +98,7 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	a := &Answer{Goal: g, For: ForCapital, Amount: pr.amounts[idx], Periods: math.NaN(), Month: at, Months: int(at-p.Start) + 1,
 		Deadline: end, Target: leave, Lasts: true, Paid: true}
+	settle(p, g, a)
 	a.Balance, _ = s.closing(pr)
 	a.Left = a.Balance
 	if full {
@@ -150,7 +151,7 @@ func paidFromStart(p *Plan, g *Goal) bool {
 // — the present value at the plan's start of what is paid out, less what
 // is paid in.
 func solveStartPaying(p *Plan, g *Goal, full bool) (*Answer, error) {
-	end, finite := lastWithdrawal(p, g)
+	end, finite := lastOut(p, g)
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}
@@ -162,8 +163,12 @@ func solveStartPaying(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	a := &Answer{Goal: g, For: ForStart, Amount: pr.amounts[0], Periods: math.NaN(), Month: end, Deadline: end, Target: leave,
 		Lasts: true, Paid: true}
+	settle(p, g, a)
 	a.Balance, _ = s.closing(pr)
 	a.Left = a.Balance
+	if pr.amounts[0].IsZero() {
+		a.Note = "the goal's own deposits pay them: no opening balance is needed"
+	}
 	s.prove(a, pr, full)
 	return a, nil
 }

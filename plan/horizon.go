@@ -18,9 +18,11 @@ func Horizon(p *Plan, g *Goal) Month {
 	for _, o := range g.Once {
 		m = max(m, o.On)
 	}
-	if last, finite := lastWithdrawal(p, g); !finite && len(g.Withdrawals) > 0 {
-		m = horizonEnd(p)
-	} else if finite {
+	if last, finite := lastOut(p, g); !finite {
+		if len(g.Withdrawals) > 0 {
+			m = horizonEnd(p)
+		}
+	} else {
 		m = max(m, settledAt(p, g, last))
 	}
 	if m == 0 {

@@ -517,10 +517,10 @@ func solveShare(p *Plan, g *Goal, i int, q Question, full bool) (*Answer, error)
 // month of the first withdrawal its ledger under the allocation cannot pay
 // in full, or, when every one is paid, what is left after the last.
 func shareLasts(p *Plan, g *Goal, i int, full bool) (*Answer, error) {
-	if len(g.Withdrawals) == 0 {
+	if !g.DrawsDown() {
 		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
 	}
-	last, _ := lastWithdrawal(p, g)
+	last, _ := lastOut(p, g)
 	end := settledAt(p, g, last)
 	al, err := allocateThrough(p, end)
 	if err != nil {

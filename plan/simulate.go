@@ -322,8 +322,12 @@ func simulate(p *Plan, g *Goal, opts SimOptions, pr *params, rawOut **simRaw) (*
 				sim.RunOut[i] = p.Start + Month(months[rank(q, len(months))])
 			}
 		}
-		for from := sim.FirstWithdrawal; from <= sim.LastWithdrawal; from += 120 {
-			to := min(from+119, sim.LastWithdrawal)
+		last := sim.LastWithdrawal // and a year's tax the account cannot pay after it
+		if len(months) > 0 {
+			last = max(last, p.Start+Month(months[len(months)-1]))
+		}
+		for from := sim.FirstWithdrawal; from <= last; from += 120 {
+			to := min(from+119, last)
 			b := RunOutBucket{From: from, To: to}
 			for _, m := range months {
 				if mm := p.Start + Month(m); mm >= from && mm <= to {

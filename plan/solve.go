@@ -98,6 +98,10 @@ type Answer struct {
 	Lasts bool
 	Paid  bool
 	Left  money.Amount
+	// Settled, when not 0, is the month at whose end Balance and Left are
+	// counted, past Deadline: a drawdown taxed as it grows is settled at
+	// the year's end after its last withdrawal (see [Plan.SettledAt]).
+	Settled Month
 
 	// ForCapital: Amount is the capital needed at the end of Month (the
 	// deadline, or the month before the first withdrawal), Deadline the
@@ -148,6 +152,22 @@ func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
 			return horizonEnd(p), false
 		}
 		m = max(m, s.Until)
+	}
+	return m, m != 0
+}
+
+// lastOut returns the last month money leaves goal g's account — its last
+// withdrawal, or a later one-time amount out — or the horizon when its
+// withdrawals are open-ended (false).
+func lastOut(p *Plan, g *Goal) (Month, bool) {
+	m, finite := lastWithdrawal(p, g)
+	if !finite && len(g.Withdrawals) > 0 {
+		return m, false
+	}
+	for _, o := range g.Once {
+		if o.Amount.Sign() < 0 {
+			m = max(m, o.On)
+		}
 	}
 	return m, m != 0
 }
@@ -692,8 +712,8 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	guess := max(int64((b0-leave.Float())/per*scale), 0)
 	c, _ := searchCents(ok, guess, int64(MaxAmountUnits)*int64(scale), false)
 	set(c)
-	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true, Paid: true,
-		Note: settledNote(p, g, end)}
+	a := &Answer{Goal: g, For: ForWithdrawal, Amount: pr.amounts[idx], Stream: st, Periods: math.NaN(), Deadline: end, Lasts: true, Paid: true}
+	settle(p, g, a)
 	a.Balance, _ = s.closing(pr)
 	a.Left, a.Target = a.Balance, leave
 	a.FirstAmount = s.firstAmount(pr, idx)
@@ -705,12 +725,7 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if !g.DrawsDown() {
 		return nil, noSolution(g, "the goal has no withdrawals, so the money never runs out (add withdrawals:)")
 	}
-	end, _ := lastWithdrawal(p, g)
-	for _, o := range g.Once { // and the last one-time amount out
-		if o.Amount.Sign() < 0 {
-			end = max(end, o.On)
-		}
-	}
+	end, _ := lastOut(p, g)
 	s := compile(p, g, settledAt(p, g, end))
 	pr := s.defaultParams()
 	bal, r := s.closing(pr)
@@ -729,9 +744,6 @@ func solveLasts(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	paidAll(p, g, a, bal, end)
 	s.prove(a, pr, full)
-	if a.Lasts {
-		a.Note = settledNote(p, g, end)
-	}
 	if a.Lasts && end == horizonEnd(p) {
 		a.Note = fmt.Sprintf("the money lasts beyond the %d-year horizon", HorizonYears)
 	}
@@ -745,9 +757,25 @@ func paidAll(p *Plan, g *Goal, a *Answer, bal money.Amount, end Month) {
 	a.Month, a.Months, a.Deadline, a.Paid = end, int(end-p.Start)+1, end, true
 	a.Balance, a.Left, a.Target = bal, bal, p.LeaveAt(g, end)
 	a.Lasts = bal.Cmp(a.Target) >= 0
+	settle(p, g, a)
+	after := "after the last one"
+	if a.Settled != 0 {
+		after = fmt.Sprintf("after the last one and the year's tax at the end of %s", a.Settled)
+	}
 	if !a.Lasts {
-		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left after the last one, short of the %s to leave by %s",
-			bal.Format(p.Currency, false), a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
+		a.Note = fmt.Sprintf("every withdrawal is paid, but %s is left %s, short of the %s to leave by %s",
+			bal.Format(p.Currency, false), after, a.Target.Format(p.Currency, false), a.Target.Sub(bal).Format(p.Currency, false))
+	}
+}
+
+// settle sets answer a's Settled month, and its note that what is left is
+// counted then, when goal g's drawdown is settled after its Deadline.
+func settle(p *Plan, g *Goal, a *Answer) {
+	if at := settledAt(p, g, a.Deadline); at != a.Deadline {
+		a.Settled = at
+		if a.Note == "" {
+			a.Note = settledNote(p, g, a.Deadline)
+		}
 	}
 }
 

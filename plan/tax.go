@@ -110,6 +110,11 @@ func settledAt(p *Plan, g *Goal, end Month) Month {
 	return min(end+Month(11-k%12), horizonEnd(p))
 }
 
+// SettledAt returns the month at whose end a drawdown of goal g whose last
+// money out is in end is settled: end, or for a goal taxed as it grows the
+// year's end after it (see [Answer.Settled]).
+func (p *Plan) SettledAt(g *Goal, end Month) Month { return settledAt(p, g, end) }
+
 // settledNote says when what a drawdown of goal g leaves after its last
 // withdrawal in end is counted, when that is after the year's tax; "" when
 // it is counted at end.

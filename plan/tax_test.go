@@ -466,3 +466,40 @@ func TestTax_DrawdownPaysItsLastYearsTax(t *testing.T) {
 		}
 	}
 }
+
+// Every answer about a drawdown taxed as it grows counts what is left at
+// the same month, the year's end after its last withdrawal, and says so:
+// how long it lasts (Settled, Left) and the ledger agree there.
+func TestTax_DrawdownSettledAlike(t *testing.T) {
+	src := goalFile("balance: 95,500", "rate: 6%", "tax: as-it-grows", "tax_rate: 60%", "leave: 50,000",
+		"withdrawals:", "  - {name: Income, amount: 1000, every: month, until: 2031-06}")
+	p := mustParse(t, "settled", src)
+	a := mustSolve(t, p, plan.ForLasts)
+	settled := plan.MonthOf(2031, 12)
+	if a.Settled != settled || a.Deadline != plan.MonthOf(2031, 6) {
+		t.Fatalf("settled %s, deadline %s; want 2031-12 and 2031-06", a.Settled, a.Deadline)
+	}
+	l := mustProject(t, p, p.Goals[0], plan.Horizon(p, p.Goals[0]))
+	if plan.Horizon(p, p.Goals[0]) != settled {
+		t.Errorf("the projection ends %s, want 2031-12", plan.Horizon(p, p.Goals[0]))
+	}
+	if got := l.BalanceAt(settled); got.Cmp(a.Left) != 0 || a.Lasts != (got.Cmp(a.Target) >= 0) {
+		t.Errorf("lasts %v leaving %s; the ledger holds %s at 2031-12 against %s to leave", a.Lasts, a.Left, got, a.Target)
+	}
+}
+
+// The opening balance for withdrawals from the first month pays a one-time
+// amount out after the last withdrawal too: that balance lasts, one cent
+// less does not.
+func TestStartPaysALaterOneTimeAmountOut(t *testing.T) {
+	body := []string{"rate: 5%", "withdrawals:", "  - {name: Income, amount: 1000, every: month, until: 2030-12}",
+		"once:", "  - {name: roof, amount: -10000, on: 2032-06}"}
+	a := mustSolve(t, mustParse(t, "start", goalFile(body...)), plan.ForStart)
+	for _, d := range []int64{0, -1} {
+		b := money.Minor(cents(a.Amount)+d, 2)
+		q := mustParse(t, "start", goalFile(append([]string{"balance: " + b.Plain(2)}, body...)...))
+		if l := mustSolve(t, q, plan.ForLasts); l.Lasts != (d == 0) {
+			t.Errorf("opening balance %s: lasts %v, want %v", b, l.Lasts, d == 0)
+		}
+	}
+}

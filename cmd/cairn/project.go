@@ -182,15 +182,22 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	if hasIncome {
 		d.After = append(d.After, outsideIncomeWords(g))
 	}
-	if last, ok := p.LastWithdrawal(g); ok && last <= l.End {
+	if last, ok := p.LastWithdrawal(g); ok && p.SettledAt(g, last) <= l.End {
 		if _, short := l.FirstShort(); !short {
-			left, leave := l.BalanceAt(last), p.LeaveAt(g, last)
+			// what is left is counted when the drawdown is settled: after
+			// the year's tax, for a goal taxed as it grows
+			at := p.SettledAt(g, last)
+			left, leave := l.BalanceAt(at), p.LeaveAt(g, last)
+			when := "after the last one in " + last.String()
+			if at != last {
+				when += fmt.Sprintf(" and the year's tax at the end of %s", at)
+			}
 			if left.Cmp(leave) < 0 {
-				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid, but %s is left after the last one in %s, short of the %s to leave: the money does not last.",
-					amt(p, left), last, amt(p, leave)))
+				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid, but %s is left %s, short of the %s to leave: the money does not last.",
+					amt(p, left), when, amt(p, leave)))
 				d.Data["leave_short_by"] = jamt(p, leave.Sub(left))
 			} else if !leave.IsZero() {
-				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid and %s is left after the last one in %s, at least the %s to leave.", amt(p, left), last, amt(p, leave)))
+				d.After = append(d.After, fmt.Sprintf("Every withdrawal is paid and %s is left %s, at least the %s to leave.", amt(p, left), when, amt(p, leave)))
 			}
 		}
 	}

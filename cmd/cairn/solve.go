@@ -311,7 +311,11 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		add(label, cash(p, a.Target))
 		j["target"] = jamt(p, a.Target)
 	}
-	add("balance at the end of "+a.Deadline.String(), cash(p, a.Balance))
+	if a.Settled != 0 { // counted after the year's tax
+		add("balance at the end of "+a.Settled.String(), cash(p, a.Balance))
+	} else {
+		add("balance at the end of "+a.Deadline.String(), cash(p, a.Balance))
+	}
 	j["deadline"] = a.Deadline.String()
 	j["balance"] = jamt(p, a.Balance)
 	if a.Note != "" {

@@ -297,7 +297,11 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 		drawdown = drawdown || hasDrawdown(goal)
 		if gs.Lasts != nil {
 			if gs.Lasts.Lasts {
-				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, monthAges(p, gs.Lasts.Month), amt(p, gs.Lasts.Left)))
+				left := amt(p, gs.Lasts.Left)
+				if gs.Lasts.Settled != 0 {
+					left += " after the year's tax at the end of " + gs.Lasts.Settled.String()
+				}
+				d.After = append(d.After, fmt.Sprintf("%s: the money lasts through %s, leaving %s.", goal.Name, monthAges(p, gs.Lasts.Month), left))
 				jg["money_lasts"] = true
 				jg["lasts_through"] = gs.Lasts.Month.String()
 			} else if gs.Lasts.Paid {
