@@ -30,7 +30,11 @@ func capitalMonth(p *Plan, g *Goal) (Month, error) {
 		at = g.By
 	}
 	if at < p.Start {
-		return 0, noSolution(g, "withdrawals begin in %s, the plan's first month: there is no month before them to build the capital (solve for start: the opening balance that pays them)", first)
+		hint := ""
+		if paidFromStart(p, g) {
+			hint = " (solve for start: the opening balance that pays them)"
+		}
+		return 0, noSolution(g, "withdrawals begin in %s, the plan's first month: there is no month before them to build the capital%s", first, hint)
 	}
 	if at >= first {
 		return 0, noSolution(g, "the deadline %s is not before the first withdrawal in %s", at, first)

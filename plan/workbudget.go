@@ -152,13 +152,18 @@ var gridWalks = map[Quantity]int64{ForTime: 2, ForLasts: 2, ForDeposit: 4, ForSt
 
 // checkGridWork reports an error if a what-if grid of cells cells solving
 // goal g for q would pass [MaxGridSteps]: the events of g's schedule
-// through its horizon, times the walks a cell takes, times the cells.
-// Counted, not timed.
+// through its horizon (for time, through the plan's last month, as far as
+// a search for a month the target is not reached in walks), times the
+// walks a cell takes, times the cells. Counted, not timed.
 func checkGridWork(p *Plan, g *Goal, cells int, q Quantity) error {
+	end := Horizon(p, g)
+	if q == ForTime {
+		end = horizonEnd(p)
+	}
 	walks := max(gridWalks[q], 2)
-	if n := int64(cells) * eventsOf(p, g, Horizon(p, g)) * walks; n > MaxGridSteps {
-		return fmt.Errorf("grid of %d cells: solving goal %s for %s in each walks about %s events, more than the %s one grid may; vary fewer values, or compare a goal of fewer amounts",
-			cells, money.Quote(g.Name), q, group(n), group(MaxGridSteps))
+	if n := int64(cells) * eventsOf(p, g, end) * walks; n > MaxGridSteps {
+		return fmt.Errorf("grid of %s cells: solving goal %s for %s in them walks about %s events in all, more than the %s one grid may; vary fewer values, or compare a goal of fewer amounts",
+			group(int64(cells)), money.Quote(g.Name), q, group(n), group(MaxGridSteps))
 	}
 	return nil
 }
