@@ -84,7 +84,8 @@ func TestWrite_NotFinite(t *testing.T) {
 // TestMarkdown_MarkupInText checks that text written into Markdown (a
 // goal's name in a cell, a remark, a title) is shown as its characters and
 // not run as markup by whatever renders the Markdown: <, > and & become
-// entities, and | in a cell is escaped. Source: the CommonMark spec, its
+// entities, Markdown's own marks (# [ ] * _ ` ~ ! \) are escaped with a
+// backslash, and | in a cell is escaped. Source: the CommonMark spec, its
 // sections "Raw HTML" (tags pass through a renderer as HTML) and "Entity
 // and numeric character references" (section names from memory).
 func TestMarkdown_MarkupInText(t *testing.T) {
@@ -103,6 +104,21 @@ func TestMarkdown_MarkupInText(t *testing.T) {
 		"Lead &lt;/title&gt;&lt;script&gt;alert(1)&lt;/script&gt; &amp; | co",
 		"After &lt;/title&gt;",
 		`&lt;/script&gt; &amp; \| co`, // the cell and the title
+	} {
+		if !strings.Contains(got, want) {
+			t.Errorf("Markdown lacks %q:\n%s", want, got)
+		}
+	}
+	// Markdown's own marks in a name are escaped too: no heading, link,
+	// emphasis or code span
+	d = &Doc{After: []string{"# [pay](https://x.example) **bold** `code` _it_ ~~s~~ ![img](y)"}}
+	out.Reset()
+	if err := d.Write(&out, &errs, FormatMarkdown); err != nil {
+		t.Fatal(err)
+	}
+	got = out.String()
+	for _, want := range []string{
+		`\# \[pay\](https://x.example) \*\*bold\*\* \` + "`code\\`" + ` \_it\_ \~\~s\~\~ \!\[img\](y)`,
 	} {
 		if !strings.Contains(got, want) {
 			t.Errorf("Markdown lacks %q:\n%s", want, got)

@@ -316,8 +316,12 @@ func (t *Table) writeBelow(w io.Writer, r []Cell) {
 func mdEscape(s string) string { return strings.ReplaceAll(mdText(s), "|", `\|`) }
 
 // mdText is text s as Markdown shows it, not as markup a renderer runs:
-// a goal's name such as "<script>" is written as its characters.
-var mdText = strings.NewReplacer("&", "&amp;", "<", "&lt;", ">", "&gt;").Replace
+// a goal's name such as "<script>", "# [pay](https://…)" or "**x**" is
+// written as its characters — HTML's three as entities, Markdown's own
+// marks (emphasis, code, links, images, headings, strikethrough) escaped
+// with a backslash, which every Markdown reader shows as the character.
+var mdText = strings.NewReplacer("&", "&amp;", "<", "&lt;", ">", "&gt;",
+	`\`, `\\`, "`", "\\`", "*", `\*`, "_", `\_`, "[", `\[`, "]", `\]`, "#", `\#`, "!", `\!`, "~", `\~`).Replace
 
 // Wrap breaks text into lines of at most width characters, each ended by a
 // newline.
