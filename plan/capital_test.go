@@ -50,19 +50,23 @@ func capitalAt(t *testing.T, src string, at plan.Month) *plan.Answer {
 // annuity due's (P/A, i, n)(1 + i): against the printed tables (sources
 // beside each row) and money's factor functions, within the interest
 // postings' rounding (half a cent each, at most n of them).
+// levelIncomes are monthly annuities with their (P/A, i, n) as printed, the
+// source beside each.
+var levelIncomes = []struct {
+	name, rate string
+	i          float64 // per month
+	n          int
+	printedPA  float64 // 4 places
+	source     string
+}{
+	{"1% a month, 12", "12% compounded monthly", 0.01, 12, 11.2551, "Wild, Managerial Accounting 8e, Table B.3 (check-values.md 2c)"},
+	{"0.25% a month, 12", "3% compounded monthly", 0.0025, 12, 11.8073, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
+	{"0.25% a month, 20", "3% compounded monthly", 0.0025, 20, 19.4845, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
+	{"0.5% a month, 60", "6% compounded monthly", 0.005, 60, 51.725561, "derived from the NCEES factor definition (check-values.md 2e)"},
+}
+
 func TestCapitalLevelIncome(t *testing.T) {
-	for _, tc := range []struct {
-		name, rate string
-		i          float64 // per month
-		n          int
-		printedPA  float64 // 4 places
-		source     string
-	}{
-		{"1% a month, 12", "12% compounded monthly", 0.01, 12, 11.2551, "Wild, Managerial Accounting 8e, Table B.3 (check-values.md 2c)"},
-		{"0.25% a month, 12", "3% compounded monthly", 0.0025, 12, 11.8073, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
-		{"0.25% a month, 20", "3% compounded monthly", 0.0025, 20, 19.4845, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
-		{"0.5% a month, 60", "6% compounded monthly", 0.005, 60, 51.725561, "derived from the NCEES factor definition (check-values.md 2e)"},
-	} {
+	for _, tc := range levelIncomes {
 		for _, due := range []bool{false, true} {
 			t.Run(fmt.Sprintf("%s due %v", tc.name, due), func(t *testing.T) {
 				timing := "end"
@@ -102,17 +106,7 @@ func TestCapitalLevelIncome(t *testing.T) {
 // one cent less does not. (A capital is refused there: there is no month
 // before the withdrawals to measure it at.)
 func TestStartPaysWithdrawalsFromTheFirstMonth(t *testing.T) {
-	for _, tc := range []struct {
-		name, rate string
-		i          float64 // per month
-		n          int
-		printedPA  float64 // 4 places
-		source     string
-	}{
-		{"1% a month, 12", "12% compounded monthly", 0.01, 12, 11.2551, "Wild, Managerial Accounting 8e, Table B.3 (check-values.md 2c)"},
-		{"0.25% a month, 20", "3% compounded monthly", 0.0025, 20, 19.4845, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
-		{"0.5% a month, 60", "6% compounded monthly", 0.005, 60, 51.725561, "derived from the NCEES factor definition (check-values.md 2e)"},
-	} {
+	for _, tc := range levelIncomes {
 		for _, due := range []bool{false, true} {
 			t.Run(fmt.Sprintf("%s due %v", tc.name, due), func(t *testing.T) {
 				timing := "end"
