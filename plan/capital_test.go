@@ -50,52 +50,60 @@ func capitalAt(t *testing.T, src string, at plan.Month) *plan.Answer {
 // annuity due's (P/A, i, n)(1 + i): against the printed tables (sources
 // beside each row) and money's factor functions, within the interest
 // postings' rounding (half a cent each, at most n of them).
-// levelIncomes are monthly annuities with their (P/A, i, n) as printed, the
-// source beside each.
-var levelIncomes = []struct {
+// A levelIncome is a monthly annuity with its (P/A, i, n) as printed.
+type levelIncome struct {
 	name, rate string
 	i          float64 // per month
 	n          int
 	printedPA  float64 // 4 places
 	source     string
-}{
+}
+
+// levelIncomes are the annuities the capital and opening-balance tests
+// check, the source of each printed factor beside it.
+var levelIncomes = []levelIncome{
 	{"1% a month, 12", "12% compounded monthly", 0.01, 12, 11.2551, "Wild, Managerial Accounting 8e, Table B.3 (check-values.md 2c)"},
 	{"0.25% a month, 12", "3% compounded monthly", 0.0025, 12, 11.8073, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
 	{"0.25% a month, 20", "3% compounded monthly", 0.0025, 20, 19.4845, "Blank & Tarquin, Engineering Economy, Table 1 (check-values.md 2b)"},
 	{"0.5% a month, 60", "6% compounded monthly", 0.005, 60, 51.725561, "derived from the NCEES factor definition (check-values.md 2e)"},
 }
 
-func TestCapitalLevelIncome(t *testing.T) {
+// eachLevelIncome runs f for each of levelIncomes paid at the end of each
+// month and at its start (due), with the timing's word and the factor an
+// annuity due's value carries (1 + i; 1 otherwise).
+func eachLevelIncome(t *testing.T, f func(t *testing.T, tc levelIncome, due bool, timing string, k float64)) {
 	for _, tc := range levelIncomes {
 		for _, due := range []bool{false, true} {
 			t.Run(fmt.Sprintf("%s due %v", tc.name, due), func(t *testing.T) {
-				timing := "end"
+				timing, k := "end", 1.0
 				if due {
-					timing = "start"
+					timing, k = "start", 1+tc.i
 				}
-				w := fmt.Sprintf("      - { amount: 1000, every: month, timing: %s, from: 2027-02, for: %d months }\n", timing, tc.n)
-				a := capitalAnswer(t, capitalFile(tc.rate, w, "0"))
-				pa := money.PresentOfSeries(tc.i, float64(tc.n))
-				k := 1.0
-				if due {
-					k = 1 + tc.i
-				}
-				bound := 0.005*float64(tc.n) + 0.01
-				if got, want := a.Amount.Float(), 1000*pa*k; math.Abs(got-want) > bound {
-					t.Errorf("capital %s, want 1,000 × (P/A) = %.4f within %.2f", a.Amount, want, bound)
-				}
-				// the printed table, to its places (source above)
-				if got, want := a.Amount.Float(), 1000*tc.printedPA*k; math.Abs(got-want) > bound+1000*0.00005*k {
-					t.Errorf("capital %s, want %.4f from %s", a.Amount, want, tc.source)
-				}
-				// the equation of value names the factors, and they give its term
-				tm := a.Equation.Terms[0]
-				if len(tm.Factors) == 0 || tm.Factors[0].Kind != money.PA || math.Abs(tm.Product()-tm.Value.Float()) > 0.01 || (due && len(tm.Factors) != 2) {
-					t.Errorf("equation term %+v, want (P/A, i, n)%s with its product its value", tm, map[bool]string{true: " × (F/P, i, 1)"}[due])
-				}
+				f(t, tc, due, timing, k)
 			})
 		}
 	}
+}
+
+func TestCapitalLevelIncome(t *testing.T) {
+	eachLevelIncome(t, func(t *testing.T, tc levelIncome, due bool, timing string, k float64) {
+		w := fmt.Sprintf("      - { amount: 1000, every: month, timing: %s, from: 2027-02, for: %d months }\n", timing, tc.n)
+		a := capitalAnswer(t, capitalFile(tc.rate, w, "0"))
+		pa := money.PresentOfSeries(tc.i, float64(tc.n))
+		bound := 0.005*float64(tc.n) + 0.01
+		if got, want := a.Amount.Float(), 1000*pa*k; math.Abs(got-want) > bound {
+			t.Errorf("capital %s, want 1,000 × (P/A) = %.4f within %.2f", a.Amount, want, bound)
+		}
+		// the printed table, to its places (source above)
+		if got, want := a.Amount.Float(), 1000*tc.printedPA*k; math.Abs(got-want) > bound+1000*0.00005*k {
+			t.Errorf("capital %s, want %.4f from %s", a.Amount, want, tc.source)
+		}
+		// the equation of value names the factors, and they give its term
+		tm := a.Equation.Terms[0]
+		if len(tm.Factors) == 0 || tm.Factors[0].Kind != money.PA || math.Abs(tm.Product()-tm.Value.Float()) > 0.01 || (due && len(tm.Factors) != 2) {
+			t.Errorf("equation term %+v, want (P/A, i, n)%s with its product its value", tm, map[bool]string{true: " × (F/P, i, 1)"}[due])
+		}
+	})
 }
 
 // Withdrawals that begin in the plan's first month are paid by the opening
@@ -106,44 +114,32 @@ func TestCapitalLevelIncome(t *testing.T) {
 // one cent less does not. (A capital is refused there: there is no month
 // before the withdrawals to measure it at.)
 func TestStartPaysWithdrawalsFromTheFirstMonth(t *testing.T) {
-	for _, tc := range levelIncomes {
-		for _, due := range []bool{false, true} {
-			t.Run(fmt.Sprintf("%s due %v", tc.name, due), func(t *testing.T) {
-				timing := "end"
-				if due {
-					timing = "start"
-				}
-				src := capitalFile(tc.rate, fmt.Sprintf("      - { amount: 1000, every: month, timing: %s, for: %d months }\n", timing, tc.n), "0")
-				p := mustParse(t, "start", src)
-				if _, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital}); err == nil {
-					t.Errorf("a capital before the plan's start was answered")
-				}
-				a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForStart})
-				if err != nil {
-					t.Fatal(err)
-				}
-				k := 1.0
-				if due {
-					k = 1 + tc.i
-				}
-				bound := 0.005*float64(tc.n) + 0.01
-				if got, want := a.Amount.Float(), 1000*tc.printedPA*k; math.Abs(got-want) > bound+1000*0.00005*k {
-					t.Errorf("opening balance %s, want 1,000 × (P/A) = %.4f from %s", a.Amount, want, tc.source)
-				}
-				for _, d := range []int64{0, -1} {
-					c := money.Minor(cents(a.Amount)+d, 2)
-					q := mustParse(t, "start", src+"    balance: "+c.Plain(2)+"\n")
-					l, err := plan.Solve(q, q.Goals[0], plan.Question{For: plan.ForLasts})
-					if err != nil {
-						t.Fatal(err)
-					}
-					if l.Lasts != (d == 0) {
-						t.Errorf("opening balance %s: lasts %v (left %s), want %v", c, l.Lasts, l.Left, d == 0)
-					}
-				}
-			})
+	eachLevelIncome(t, func(t *testing.T, tc levelIncome, _ bool, timing string, k float64) {
+		src := capitalFile(tc.rate, fmt.Sprintf("      - { amount: 1000, every: month, timing: %s, for: %d months }\n", timing, tc.n), "0")
+		p := mustParse(t, "start", src)
+		if _, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital}); err == nil {
+			t.Errorf("a capital before the plan's start was answered")
 		}
-	}
+		a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForStart})
+		if err != nil {
+			t.Fatal(err)
+		}
+		bound := 0.005*float64(tc.n) + 0.01
+		if got, want := a.Amount.Float(), 1000*tc.printedPA*k; math.Abs(got-want) > bound+1000*0.00005*k {
+			t.Errorf("opening balance %s, want 1,000 × (P/A) = %.4f from %s", a.Amount, want, tc.source)
+		}
+		for _, d := range []int64{0, -1} {
+			c := money.Minor(cents(a.Amount)+d, 2)
+			q := mustParse(t, "start", src+"    balance: "+c.Plain(2)+"\n")
+			l, err := plan.Solve(q, q.Goals[0], plan.Question{For: plan.ForLasts})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if l.Lasts != (d == 0) {
+				t.Errorf("opening balance %s: lasts %v (left %s), want %v", c, l.Lasts, l.Left, d == 0)
+			}
+		}
+	})
 }
 
 // An income raised by g once a year needs its geometric-gradient present
