@@ -44,11 +44,11 @@ func SolveStartSim(p *Plan, g *Goal, level float64, opts SimOptions) (*SimStart,
 	if err != nil {
 		return nil, err
 	}
-	lasts := len(g.Withdrawals) > 0
+	lasts := len(g.Withdrawals) > 0 || !g.HasTarget && g.DrawsDown()
 	var end Month
 	if lasts {
 		var finite bool
-		if end, finite = lastWithdrawal(p, g); !finite {
+		if end, finite = lastOut(p, g); !finite {
 			return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 		}
 	} else {

@@ -44,7 +44,7 @@ func TestSolveStartSimZeroVolatility(t *testing.T) {
 					l := mustProject(t, q, h, h.By)
 					return l.BalanceAt(h.By).Cmp(q.TargetAt(h)) >= 0
 				}
-				last, _ := q.LastWithdrawal(h)
+				last, _ := q.LastOut(h)
 				l := mustProject(t, q, h, last)
 				_, short := l.FirstShort()
 				return !short && l.BalanceAt(last).Cmp(q.LeaveAt(h, last)) >= 0

@@ -49,7 +49,7 @@ func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts Sim
 	if err := ruledStream(g, wd); err != nil {
 		return nil, err
 	}
-	end, finite := lastWithdrawal(p, g)
+	end, finite := lastOut(p, g)
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}

@@ -140,9 +140,10 @@ func firstWithdrawal(g *Goal) (Month, bool) {
 	return m, len(g.Withdrawals) > 0
 }
 
-// LastWithdrawal returns the month of goal g's last withdrawal, and false
-// when its withdrawals are open-ended (or it has none).
-func (p *Plan) LastWithdrawal(g *Goal) (Month, bool) { return lastWithdrawal(p, g) }
+// LastOut returns the last month money leaves goal g's account (its last
+// withdrawal, or a later one-time amount out), and false when its
+// withdrawals are open-ended (or nothing leaves).
+func (p *Plan) LastOut(g *Goal) (Month, bool) { return lastOut(p, g) }
 
 // lastWithdrawal returns the last month with a withdrawal, or the horizon.
 func lastWithdrawal(p *Plan, g *Goal) (Month, bool) {
@@ -684,7 +685,7 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	if err := ruledStream(g, st); err != nil {
 		return nil, err
 	}
-	end, finite := lastWithdrawal(p, g)
+	end, finite := lastOut(p, g)
 	if !finite {
 		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}

@@ -503,3 +503,34 @@ func TestStartPaysALaterOneTimeAmountOut(t *testing.T) {
 		}
 	}
 }
+
+// The largest withdrawal pays a one-time amount out after the last
+// withdrawal too, taxed as it grows or not: fed back, it lasts and one cent
+// more does not; and the projection holds, at the month the answer counts
+// what is left, what the answer says is left.
+func TestWithdrawalPaysALaterOneTimeAmountOut(t *testing.T) {
+	for _, tax := range [][]string{nil, {"tax: as-it-grows", "tax_rate: 25%"}} {
+		body := func(w string) []string {
+			return append(append([]string{"balance: 30,000", "rate: 6%", "leave: 7,000"}, tax...),
+				"withdrawals:", "  - {amount: "+w+", every: month, from: 2027-02, until: 2028-03}",
+				"once:", "  - {amount: -12000, on: 2029-02}")
+		}
+		p := mustParse(t, "later", goalFile(body("1000")...))
+		a := mustSolve(t, p, plan.ForWithdrawal)
+		for _, d := range []int64{0, 1} {
+			w := money.Minor(cents(a.Amount)+d, 2)
+			q := mustParse(t, "later", goalFile(body(w.Plain(2))...))
+			l := mustSolve(t, q, plan.ForLasts)
+			if l.Lasts != (d == 0) {
+				t.Errorf("tax %v, withdrawal %s: lasts %v (left %s), want %v", tax, w, l.Lasts, l.Left, d == 0)
+			}
+			at := l.Deadline
+			if l.Settled != 0 {
+				at = l.Settled
+			}
+			if got := mustProject(t, q, q.Goals[0], plan.Horizon(q, q.Goals[0])).BalanceAt(at); d == 0 && got.Cmp(l.Left) != 0 {
+				t.Errorf("tax %v: the projection holds %s at %s, the answer says %s is left", tax, got, at, l.Left)
+			}
+		}
+	}
+}

@@ -269,7 +269,7 @@ func noEmptyValues(c *cli.Context) error {
 			empty = slices.ContainsFunc(c.StringSlice(name), func(v string) bool { return strings.TrimSpace(v) == "" })
 		}
 		if empty {
-			return usagef("give --"+name+" a value, or leave it out for its default", "--%s is given with no value", name)
+			return usagef("give --"+name+" a value", "--%s is given with no value", name)
 		}
 	}
 	return nil

@@ -174,7 +174,10 @@ func budgetReach(p *plan.Plan, least *plan.BudgetAnswer) string {
 	if least.Top >= len(gs) {
 		return "every deadline of the goals that draw on it"
 	}
-	s := fmt.Sprintf("the deadlines of the first %d %s in priority order", least.Top, plural(least.Top, "goal", "goals"))
+	s := fmt.Sprintf("the deadlines of the first %d goals in priority order", least.Top)
+	if least.Top == 1 {
+		s = "the deadline of the first goal in priority order"
+	}
 	if !gs[least.Top].HasBy {
 		s += fmt.Sprintf(" (%s, next, has no deadline and takes what is left)", gs[least.Top].Name)
 	}

@@ -182,7 +182,7 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 	if hasIncome {
 		d.After = append(d.After, outsideIncomeWords(g))
 	}
-	if last, ok := p.LastWithdrawal(g); ok && p.SettledAt(g, last) <= l.End {
+	if last, ok := p.LastOut(g); ok && p.SettledAt(g, last) <= l.End {
 		if _, short := l.FirstShort(); !short {
 			// what is left is counted when the drawdown is settled: after
 			// the year's tax, for a goal taxed as it grows

@@ -102,7 +102,7 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 		return s
 	case plan.ForWithdrawal:
 		s := fmt.Sprintf("%s can pay %s of %s %s from %s through %s, leaving %s.", g.Name, streamLabel(a.Stream),
-			amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), a.Stream.From, a.Deadline, amt(p, a.Left))
+			amountPhrase(p, a.Stream, a.Amount, a.FirstAmount), every(a.Stream), a.Stream.From, streamEnd(a), amt(p, a.Left))
 		if fy := firstYear(p, a.Stream, a.Amount); fy != "" {
 			s += " (" + fy + ".)"
 		}
@@ -426,4 +426,13 @@ func noAnswerDoc(p *plan.Plan, g *plan.Goal, q plan.Quantity, err error) *render
 	d.Lead = []string{fmt.Sprintf("%s: no answer for %s: %s.", g.Name, q, reason)}
 	d.Data["goal"], d.Data["for"], d.Data["answer"], d.Data["reason"] = g.Name, q.String(), nil, reason
 	return d
+}
+
+// streamEnd is the last month of answer a's stream: its until, or the
+// answer's deadline (the drawdown's last money out) for one without.
+func streamEnd(a *plan.Answer) plan.Month {
+	if a.Stream.HasUntil {
+		return a.Stream.Until
+	}
+	return a.Deadline
 }
