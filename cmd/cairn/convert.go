@@ -78,6 +78,9 @@ func convertDoc(r money.Rate, forms []money.Rate, pi *money.Rate) *render.Doc {
 	d.Data["forms"] = js
 	if pi != nil {
 		real := money.Real(r, *pi)
+		// a row of the table too, so that CSV, which writes the table
+		// alone, has it
+		t.Add(render.Text("real after inflation, effective"), render.ExactRate(real.Effective()))
 		d.After = append(d.After, fmt.Sprintf("Real rate under %s inflation: %s a year effective, by the Fisher relation (1 + r)/(1 + inflation) - 1.", pi, pct(real.Effective())))
 		d.Data["inflation"] = jsonRate(pi.Effective())
 		d.Data["real"] = jsonRate(real.Effective())

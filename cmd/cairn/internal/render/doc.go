@@ -12,6 +12,7 @@ package render
 import (
 	"math"
 	"strconv"
+	"strings"
 
 	"cairn/money"
 	"cairn/plan"
@@ -241,7 +242,18 @@ func RatePlain(x float64) string {
 	if x != 0 && math.Abs(x) < 0.01 {
 		places = 6
 	}
-	return strconv.FormatFloat(x*100, 'f', places, 64)
+	return fixed(x*100, places)
+}
+
+// fixed is x with places decimals, and no minus sign on a figure that
+// rounds to zero (a rate of −0.00000001% is written 0.000000, not
+// −0.000000).
+func fixed(x float64, places int) string {
+	s := strconv.FormatFloat(x, 'f', places, 64)
+	if strings.Trim(s, "-0.") == "" {
+		return strings.TrimPrefix(s, "-")
+	}
+	return s
 }
 
 // String is c as text shows it, amounts with every place.
@@ -262,7 +274,7 @@ func (c Cell) text(whole bool) string {
 	case rateCell:
 		s = money.RateText(c.x)
 	case shareCell:
-		s = strconv.FormatFloat(c.x*100, 'f', c.places, 64) + "%"
+		s = fixed(c.x*100, c.places) + "%"
 	case exactRateCell:
 		s = money.Percent(c.x, 6)
 	case monthCell:
@@ -290,9 +302,9 @@ func (c Cell) Plain() string {
 	case rateCell:
 		return RatePlain(c.x)
 	case shareCell:
-		return strconv.FormatFloat(c.x*100, 'f', 4, 64)
+		return fixed(c.x*100, 4)
 	case exactRateCell:
-		return strconv.FormatFloat(c.x*100, 'f', 6, 64)
+		return fixed(c.x*100, 6)
 	case countCell, intCell:
 		return strconv.Itoa(c.n)
 	case monthCell:

@@ -125,3 +125,20 @@ func TestMarkdown_MarkupInText(t *testing.T) {
 		}
 	}
 }
+
+// TestRate_NoNegativeZero checks that a rate that rounds to zero is written
+// without a minus sign in every form a cell takes (issue 13 item 11: no
+// negative zero in any output). Common practice, no source.
+func TestRate_NoNegativeZero(t *testing.T) {
+	for _, c := range []Cell{Rate(-1e-12), ExactRate(-1e-11), Share(-1e-9, 2)} {
+		if s := c.Plain(); strings.HasPrefix(s, "-") {
+			t.Errorf("Plain of a rate that rounds to zero = %q", s)
+		}
+		if s := c.String(); strings.HasPrefix(s, "-") {
+			t.Errorf("String of a rate that rounds to zero = %q", s)
+		}
+	}
+	if s := ExactRate(-0.00001).Plain(); s != "-0.001000" {
+		t.Errorf("a small negative rate = %q, want -0.001000", s)
+	}
+}
