@@ -543,4 +543,6 @@ func plural(n int, one, many string) string {
 }
 
 // pct is fraction x as a percentage, with no more digits than it needs.
-func pct(x float64) string { return strconv.FormatFloat(x*100, 'f', -1, 64) + "%" }
+// pct is rate x as text writes rates (money.RateText): 7%, not the float's
+// 7.000000000000001%.
+func pct(x float64) string { return money.RateText(x) }
