@@ -531,6 +531,10 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 			var who Person
 			if given := d.keys(resolve(pn), pp, InPerson, &target{p: p, who: &who}); given != nil &&
 				given["name"] != nil && given["born"] != nil && !d.bad[pp+".name"] && !d.bad[pp+".born"] {
+				if strings.TrimSpace(who.Name) == "" {
+					d.errorf(given["name"], join(pp, "name"), "empty name (want the name ages are written by, such as earner)")
+					continue
+				}
 				if p.Person(who.Name) != nil {
 					d.errorf(pn, join(pp, "name"), "duplicate person %s", money.Quote(who.Name))
 					continue

@@ -107,13 +107,15 @@ func progress(d *render.Doc, p *plan.Plan, goals []map[string]any) bool {
 						g.Name, pct(x), earnedFrom(p, e), e.To.Month, last, equationText(p, e)))
 				}
 				if len(e.Rates) > 0 {
-					var rs []string
+					var rs, texts []string
 					for _, r := range e.Rates {
 						rs = append(rs, jsonRate(r.Effective()))
+						texts = append(texts, pct(r.Effective()))
 					}
 					jx["other_rates"] = rs
 					if whole {
-						d.After = append(d.After, fmt.Sprintf("%s: other rates also solve it, the flows changing sign more than once.", g.Name))
+						d.After = append(d.After, fmt.Sprintf("%s: %s also %s it, the flows changing sign more than once.", g.Name,
+							strings.Join(texts, ", "), map[bool]string{true: "solves", false: "solve"}[len(texts) == 1]))
 					}
 				}
 			}

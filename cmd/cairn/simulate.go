@@ -38,7 +38,7 @@ func simulateCommand(e *env) *cli.Command {
 			&cli.StringFlag{Name: "volatility", Usage: "volatility of returns a year, such as `15%` (default: the goal's volatility:, else 0%)"},
 			&cli.StringFlag{Name: "inflation-volatility", Usage: "volatility of inflation a year, such as `1%` (default: the file's inflation_volatility:, else 0%)"},
 			&cli.StringFlag{Name: "for", Usage: "solve for `QUANTITY`: deposit, withdrawal or start (with --success)"},
-			&cli.StringFlag{Name: "success", Usage: "with --for deposit, the share of paths that must meet the target, such as `90%`"},
+			&cli.StringFlag{Name: "success", Usage: "with --for deposit, withdrawal or start, the share of paths that must succeed, such as `90%`"},
 			&cli.StringFlag{Name: "stream", Usage: "the deposit or withdrawal stream to solve for, by `NAME` (default: the first)"},
 		),
 		Action: func(c *cli.Context) error {
@@ -157,7 +157,7 @@ func simQuestion(c *cli.Context) (q string, level float64, solve bool, err error
 	case q == "" && !c.IsSet("success"):
 		return q, 0, false, nil
 	case q == "":
-		return q, 0, false, usagef("for example --for deposit --success 90%", "--success needs --for deposit")
+		return q, 0, false, usagef("for example --for deposit --success 90%", "--success needs --for deposit, withdrawal or start")
 	case q != "deposit" && q != "withdrawal" && q != "start":
 		return q, 0, false, usagef("for example --for deposit --success 90%", "--for: simulate solves only for deposit, withdrawal or start, not %q", c.String("for"))
 	case !c.IsSet("success") && q == "start":
