@@ -151,21 +151,47 @@ func EarnedBetween(p *Plan, g *Goal, a, b Actual) *Earned {
 		}
 		return v
 	}
-	// the roots, by a scan for sign changes refined by Brent's method
+	// df is its slope, by δ
+	df := func(delta float64) float64 {
+		v := a.Balance.Float() * e.Years * math.Exp(delta*e.Years)
+		for _, fl := range e.Flows {
+			v += fl.Amount.Float() * fl.Years * math.Exp(delta*fl.Years)
+		}
+		return v
+	}
+	// a value of f this near zero is zero: a minor unit's part in a
+	// billion of the sums it is made of
+	scale := math.Abs(a.Balance.Float()) + math.Abs(b.Balance.Float())
+	for _, fl := range e.Flows {
+		scale += math.Abs(fl.Amount.Float())
+	}
+	zero := 1e-9 * scale
+	// the roots, by a scan for sign changes refined by Brent's method; a
+	// step whose ends have one sign but whose slope turns inside it holds
+	// two roots close together (or one the curve only touches) when the
+	// curve crosses zero at its turn
 	const steps = 400
 	lo, hi := math.Log1p(earnedLow), math.Log1p(earnedHigh)
 	var roots []float64
-	x0, f0 := lo, f(lo)
+	x0, f0, d0 := lo, f(lo), df(lo)
 	for k := 1; k <= steps; k++ {
 		x1 := lo + (hi-lo)*float64(k)/steps
-		f1 := f(x1)
+		f1, d1 := f(x1), df(x1)
 		switch {
 		case f0 == 0:
 			roots = append(roots, x0)
 		case f1 != 0 && (f0 < 0) != (f1 < 0):
 			roots = append(roots, brent(f, x0, x1, f0, f1))
+		case f1 != 0 && d0 != 0 && d1 != 0 && (d0 < 0) != (d1 < 0):
+			xm := brent(df, x0, x1, d0, d1)
+			switch fm := f(xm); {
+			case math.Abs(fm) <= zero:
+				roots = append(roots, xm)
+			case (fm < 0) != (f0 < 0):
+				roots = append(roots, brent(f, x0, xm, f0, fm), brent(f, xm, x1, fm, f1))
+			}
 		}
-		x0, f0 = x1, f1
+		x0, f0, d0 = x1, f1, d1
 	}
 	if f0 == 0 {
 		roots = append(roots, x0)

@@ -156,6 +156,42 @@ func TestEarnedBetween_WorkedByHand(t *testing.T) {
 	}
 }
 
+// Two rates close together both solve the equation, and so does one the
+// curve only touches. Worked by hand, with x = 1 + i: 100 at the end of
+// 2027-12, 221 out a year on and 132.10 in two years on, 10 at the end:
+// 100x² − 221x + 132.10 = 10, that is 100(x − 1.10)(x − 1.11) = 0, so 10%
+// and 11%; with 220 out and 131 in, 100(x − 1.1)² = 0, 10% alone. (The scan
+// for sign changes saw neither: both roots fall in one of its steps.)
+func TestEarnedBetween_CloseRoots(t *testing.T) {
+	for _, c := range []struct {
+		out, in string
+		want    []float64
+	}{
+		{"-221", "132.10", []float64{0.10, 0.11}},
+		{"-220", "131.00", []float64{0.10}},
+	} {
+		p := mustParse(t, "e.yaml", goalFile("balance: 1000", "rate: 5%",
+			"once: [{amount: "+c.out+", on: 2028-12}, {amount: "+c.in+", on: 2029-12}]"))
+		g := p.Goals[0]
+		e := plan.EarnedBetween(p, g, plan.Actual{Month: start.Add(11), Balance: amt(t, "100")}, plan.Actual{Month: start.Add(35), Balance: amt(t, "10")})
+		if e.Err != nil {
+			t.Errorf("%s, %s: %v, want %v", c.out, c.in, e.Err, c.want)
+			continue
+		}
+		got := []float64{e.Rate.Effective()}
+		for _, r := range e.Rates {
+			got = append(got, r.Effective())
+		}
+		ok := len(got) == len(c.want)
+		for i := range got {
+			ok = ok && i < len(c.want) && math.Abs(got[i]-c.want[i]) < 1e-6
+		}
+		if !ok {
+			t.Errorf("%s, %s: rates %v, want %v worked by hand", c.out, c.in, got, c.want)
+		}
+	}
+}
+
 // Actual balances from the goals file and from a CSV, and the refusals,
 // positioned.
 func TestActuals_ParseAndCSV(t *testing.T) {
