@@ -71,6 +71,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer, now func() ti
 	app := newApp(e)
 	err := plainArgs(args)
 	if err == nil {
+		err = decimalArgs(app, args)
+	}
+	if err == nil {
 		args, err = reorder(app, args)
 	}
 	if err == nil {
@@ -251,6 +254,42 @@ func newApp(e *env) *cli.App {
 		c.Before = noEmptyValues
 	}
 	return app
+}
+
+// decimalArgs refuses a whole-number flag's value written other than in
+// plain decimal digits: the flag library reads 0150 as octal (104) and
+// 0x64 as hexadecimal, which a person typing a count of paths or a seed
+// does not mean.
+func decimalArgs(app *cli.App, args []string) error {
+	whole := map[string]bool{}
+	for _, c := range app.Commands {
+		for _, f := range c.Flags {
+			switch f.(type) {
+			case *cli.IntFlag, *cli.Int64Flag, *cli.UintFlag, *cli.Uint64Flag:
+				for _, n := range f.Names() {
+					whole[n] = true
+				}
+			}
+		}
+	}
+	for i := 1; i < len(args); i++ {
+		name, value, hasValue := strings.Cut(strings.TrimLeft(args[i], "-"), "=")
+		if !strings.HasPrefix(args[i], "-") || !whole[name] {
+			continue
+		}
+		if !hasValue {
+			if i+1 >= len(args) {
+				continue // the flag library says the value is missing
+			}
+			i++
+			value = args[i]
+		}
+		digits := strings.TrimPrefix(value, "-")
+		if digits == "" || strings.Trim(digits, "0123456789") != "" || len(digits) > 1 && digits[0] == '0' {
+			return usagef("write it in decimal digits, such as --"+name+" 150", "--%s %q is not a whole number in decimal", name, value)
+		}
+	}
+	return nil
 }
 
 // noEmptyValues refuses a flag given with an empty value (--format "",
