@@ -62,15 +62,21 @@ func (p *Plan) Person(name string) *Person {
 }
 
 // AgeList gives the household's people's ages in month m, in file order,
-// "earner/partner" and "66/63": a name and an age for each person born by then;
-// both "" when the file names no one.
-func (p *Plan) AgeList(m Month) (names, ages string) {
+// "earner/partner" and "66/63": a name and an age for each person born by
+// month end (the last of a table's rows), "-" for one not yet born in m, so
+// that every row's ages line up with the names; both "" when the file names
+// no one born by then.
+func (p *Plan) AgeList(m, end Month) (names, ages string) {
 	var ns, as []string
 	for _, q := range p.People {
-		if m < q.Born {
-			continue
+		if end < q.Born {
+			continue // not born by the end: not a column at all
 		}
-		ns, as = append(ns, q.Name), append(as, fmt.Sprint(int(m-q.Born)/12))
+		age := "-" // not born yet at m
+		if m >= q.Born {
+			age = fmt.Sprint(int(m-q.Born) / 12)
+		}
+		ns, as = append(ns, q.Name), append(as, age)
 	}
 	return strings.Join(ns, "/"), strings.Join(as, "/")
 }

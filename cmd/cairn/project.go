@@ -112,7 +112,7 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 		t.Cols = slices.Insert(t.Cols, 2, render.Column{Head: "budget", Long: "share of the household budget", Key: "budget_share", Numeric: true})
 	}
 	// the household's ages at the end of each row, where the file names people
-	names, _ := p.AgeList(l.End)
+	names, _ := p.AgeList(l.End, l.End)
 	if names != "" {
 		t.Cols = slices.Insert(t.Cols, 1, render.Column{Head: "ages", Long: "ages at the period's end (" + names + ")", Key: "ages"})
 		d.Lead = append(d.Lead, fmt.Sprintf("Ages are %s's at the end of each %s.", names, period))
@@ -134,7 +134,7 @@ func projectDoc(p *plan.Plan, g *plan.Goal, l *plan.Ledger, by plan.Period) *ren
 			cells = slices.Insert(cells, 2, cash(p, r.Budget))
 		}
 		if names != "" {
-			_, ages := p.AgeList(r.To)
+			_, ages := p.AgeList(r.To, l.End)
 			if k == len(rows)-1 {
 				ages = ""
 			}
