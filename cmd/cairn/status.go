@@ -1,6 +1,8 @@
 package main
 
 import (
+	"bytes"
+	"encoding/json"
 	"errors"
 	"fmt"
 	"slices"
@@ -29,8 +31,9 @@ func statusCommand(e *env) *cli.Command {
 			"than once) each goal's key figures are shown under the plan as written and each scenario,\n" +
 			"side by side, one row a goal and case.\n\n" +
 			"Several files are answered in turn, each under its file's name (in CSV one table with a file\n" +
-			"column), as for a folder of households: cairn status clients/*.yaml. A file with a problem is\n" +
-			"reported and the others are still answered; the exit code is the worst of them.",
+			"column, in JSON one array of the files' documents), as for a folder of households: cairn\n" +
+			"status clients/*.yaml. A file with a problem is reported (in JSON also as {file, error}) and\n" +
+			"the others are still answered; the exit code is the worst of them.",
 		Flags: append(fileFlags(true), scenariosFlag,
 			&cli.StringFlag{Name: "goal", Aliases: []string{"g"}, Usage: "the goal that --set changes, by `NAME` (every goal is still shown)"},
 			&cli.StringFlag{Name: "stream", Usage: "the stream that --set changes, by `NAME` (the goal's first when not given)"},
@@ -88,9 +91,9 @@ func statusAnswer(c *cli.Context, cases []plan.Case) (*render.Doc, error) {
 
 // statusFiles answers status for each of several goals files in turn (an
 // adviser's folder of households), each under its file's name: in text a
-// line naming the file, in Markdown a heading, in JSON one document a file
-// (each names its file), in CSV one table with the file in its first
-// column. A file that cannot be answered is reported as it would be alone,
+// line naming the file, in Markdown a heading, in JSON one array of the
+// files' documents (each names its file; one that cannot be answered is
+// {file, error}), in CSV one table with the file in its first column. A file that cannot be answered is reported as it would be alone,
 // named, and the others are still answered; the exit code is the worst of
 // them. The files share one schedule cache, so a shape several households
 // share is compiled once.
@@ -107,10 +110,24 @@ func statusFiles(c *cli.Context, e *env) error {
 	worst, written := exitOK, 0
 	var rows *render.Table
 	drawdown := false
+	var docs []json.RawMessage // in JSON, one array of the files' documents
 	for _, name := range c.Args().Slice() {
 		d, err := statusFile(c, e, name, asOf, cache)
 		if err != nil {
-			worst = max(worst, report(e.stderr, inFile(name, err)))
+			err = inFile(name, err)
+			worst = max(worst, report(e.stderr, err))
+			if f == render.FormatJSON {
+				rec, _ := json.Marshal(map[string]any{"file": name, "error": strings.TrimSpace(err.Error())})
+				docs = append(docs, rec)
+			}
+			continue
+		}
+		if f == render.FormatJSON {
+			var b bytes.Buffer
+			if err := d.Write(&b, e.stderr, f); err != nil {
+				return err
+			}
+			docs = append(docs, json.RawMessage(bytes.TrimSpace(b.Bytes())))
 			continue
 		}
 		if f == render.FormatCSV {
@@ -137,6 +154,15 @@ func statusFiles(c *cli.Context, e *env) error {
 		d.Blocks = []render.Block{rows}
 		if err := out(c, e, d); err != nil {
 			return err
+		}
+	}
+	if f == render.FormatJSON {
+		b, err := json.MarshalIndent(docs, "", "  ")
+		if err != nil {
+			return err
+		}
+		if _, err := e.stdout.Write(append(b, '\n')); err != nil {
+			return outputError(err)
 		}
 	}
 	if worst != exitOK {
