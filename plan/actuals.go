@@ -136,5 +136,28 @@ func (p *Plan) ReadActuals(name string, data []byte) error {
 		g.Actuals = append(g.Actuals, added[g]...)
 		sortActuals(g)
 	}
+	if errs := p.replanBounds(); len(errs) > 0 {
+		return errs
+	}
 	return nil
+}
+
+// replanBounds checks that each goal re-planned from its latest actual
+// (see [Replan]) stays within the limits a goal in the file keeps (the
+// largest balance, the work budget): an actual balance too large to plan
+// from is refused where it is written, as a balance in the file is.
+func (p *Plan) replanBounds() ErrorList {
+	var errs ErrorList
+	for _, g := range p.Goals {
+		a, ok := g.Latest()
+		if !ok {
+			continue
+		}
+		q, h := Replan(p, g)
+		if err := q.checkBounds(h); err != nil {
+			errs = append(errs, &Error{Pos: a.Pos, Msg: fmt.Sprintf("actual balance %s at %s: re-planned from it, %s",
+				a.Balance.Format(p.Currency, false), a.Month, strings.TrimPrefix(err.Error(), "goal "+money.Quote(g.Name)+": "))})
+		}
+	}
+	return errs
 }

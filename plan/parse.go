@@ -74,6 +74,11 @@ func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) 
 			}
 		}
 		if len(d.errs) == 0 {
+			for _, e := range p.replanBounds() {
+				d.errs = append(d.errs, e)
+			}
+		}
+		if len(d.errs) == 0 {
 			d.checkScenarios(p)
 		}
 		if len(d.errs) == 0 {
