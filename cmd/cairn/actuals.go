@@ -64,7 +64,11 @@ func progress(d *render.Doc, p *plan.Plan, goals []map[string]any) bool {
 			} else {
 				reached = render.Label("not reached", "")
 				jp["reached"] = nil
-				says = append(says, "at the deposits as planned the target is not reached: "+reasonOf(now.Reach))
+				why := reasonOf(now.Reach)
+				if !strings.HasPrefix(why, "the target is not reached") { // said once
+					why = "the target is not reached: " + why
+				}
+				says = append(says, "at the deposits as planned "+why)
 			}
 		}
 		if now.Lasts != nil {

@@ -314,7 +314,11 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 				reached = render.Label("not reached", "")
 				jg["reached"] = nil
 				jg["not_reached_reason"] = reasonOf(gs.Reach)
-				d.After = append(d.After, fmt.Sprintf("%s: the target is not reached: %s.", goal.Name, reasonOf(gs.Reach)))
+				why := reasonOf(gs.Reach)
+				if !strings.HasPrefix(why, "the target is not reached") { // said once
+					why = "the target is not reached: " + why
+				}
+				d.After = append(d.After, fmt.Sprintf("%s: %s.", goal.Name, why))
 			}
 		}
 		if len(goal.Income) > 0 {
