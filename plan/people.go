@@ -48,8 +48,14 @@ func (p *Plan) MonthOf(s string) (Month, error) {
 		return 0, fmt.Errorf("no person named %s (the people are %s)", money.Quote(sub[1]), strings.Join(names, ", "))
 	}
 	age, _ := strconv.Atoi(sub[2])
+	if age > maxAge {
+		return 0, fmt.Errorf("age %d of %s is past %d (want an age a person reaches)", age, who.Name, maxAge)
+	}
 	return who.Born.Add(12 * age), nil
 }
+
+// maxAge is the oldest age a month may be written by.
+const maxAge = 120
 
 // Person returns the person with the given name (case-insensitive), or nil.
 func (p *Plan) Person(name string) *Person {

@@ -160,6 +160,9 @@ func helpCommand(e *env) *cli.Command {
 			&cli.StringFlag{Name: "format", Aliases: []string{"f"}, Value: "text", Usage: "`FORMAT`: text; schema (of the goals file or a command's JSON); man (the manual)"},
 		},
 		Action: func(c *cli.Context) error {
+			if c.NArg() > 1 {
+				return usagef("for example: cairn help file", "help takes one topic, not %d", c.NArg())
+			}
 			topic := c.Args().First()
 			format := c.String("format")
 			switch {

@@ -106,6 +106,9 @@ func statusFiles(c *cli.Context, e *env) error {
 	if err != nil {
 		return err
 	}
+	if n := slices.Index(c.Args().Slice(), "-"); n >= 0 && slices.Index(c.Args().Slice()[n+1:], "-") >= 0 {
+		return usagef("standard input can be read once", "- (standard input) is given more than once")
+	}
 	cache := new(plan.Cache)
 	worst, written := exitOK, 0
 	var rows *render.Table
