@@ -156,7 +156,7 @@ func (p *Plan) replanBounds() ErrorList {
 		q, h := Replan(p, g)
 		if err := q.checkBounds(h); err != nil {
 			errs = append(errs, &Error{Pos: a.Pos, Msg: fmt.Sprintf("actual balance %s at %s: re-planned from it, %s",
-				a.Balance.Format(p.Currency, false), a.Month, strings.TrimPrefix(err.Error(), "goal "+money.Quote(g.Name)+": "))})
+				a.Balance.Format(p.Currency, false), a.Month, boundsReason(g, err))})
 		}
 	}
 	return errs

@@ -84,15 +84,15 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if err != nil {
 		return nil, err
 	}
-	end, finite := lastOut(p, g)
-	if !finite {
-		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	end, settled, err := drawdownEnd(p, g)
+	if err != nil {
+		return nil, err
 	}
 	h, err := drawdownGoal(g, at)
 	if err != nil {
 		return nil, err
 	}
-	s := compile(p, h, settledAt(p, g, end))
+	s := compile(p, h, settled)
 	idx := capitalSource(h)
 	leave := p.LeaveAt(g, end)
 	pr := s.defaultParams()
@@ -155,11 +155,11 @@ func paidFromStart(p *Plan, g *Goal) bool {
 // — the present value at the plan's start of what is paid out, less what
 // is paid in.
 func solveStartPaying(p *Plan, g *Goal, full bool) (*Answer, error) {
-	end, finite := lastOut(p, g)
-	if !finite {
-		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	end, settled, err := drawdownEnd(p, g)
+	if err != nil {
+		return nil, err
 	}
-	s := compile(p, g, settledAt(p, g, end))
+	s := compile(p, g, settled)
 	leave := p.LeaveAt(g, end)
 	pr := s.defaultParams()
 	if _, err := s.leastPaying(pr, 0, leave, "the opening balance"); err != nil {

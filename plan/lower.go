@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -309,6 +310,12 @@ func (c *Cache) Reset() { c.c.Reset() }
 // ResetCache empties the plan's schedule cache (shared with its what-if
 // clones), as if it had just been read: what a cold benchmark starts from.
 func (p *Plan) ResetCache() { p.cache.Reset() }
+
+// boundsReason is checkBounds's error for goal g without the goal's name
+// before it, for a message that names the goal already.
+func boundsReason(g *Goal, err error) string {
+	return strings.TrimPrefix(err.Error(), "goal "+money.Quote(g.Name)+": ")
+}
 
 // checkBounds reports an error if goal g's target or projected balance
 // would pass [MaxBalanceUnits], beyond which cairn does not promise cents.

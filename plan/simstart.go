@@ -45,21 +45,13 @@ func SolveStartSim(p *Plan, g *Goal, level float64, opts SimOptions) (*SimStart,
 		return nil, err
 	}
 	lasts := len(g.Withdrawals) > 0 || !g.HasTarget && g.DrawsDown()
-	var end Month
+	end, horizon := g.By, g.By
 	if lasts {
-		var finite bool
-		if end, finite = lastOut(p, g); !finite {
-			return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
-		}
-	} else {
-		if err := needTarget(g, true); err != nil {
+		if end, horizon, err = drawdownEnd(p, g); err != nil {
 			return nil, err
 		}
-		end = g.By
-	}
-	horizon := end
-	if lasts {
-		horizon = settledAt(p, g, end)
+	} else if err := needTarget(g, true); err != nil {
+		return nil, err
 	}
 	s := compile(p, g, horizon)
 	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {

@@ -49,11 +49,11 @@ func SolveWithdrawalSim(p *Plan, g *Goal, stream string, level float64, opts Sim
 	if err := ruledStream(g, wd); err != nil {
 		return nil, err
 	}
-	end, finite := lastOut(p, g)
-	if !finite {
-		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	end, settled, err := drawdownEnd(p, g)
+	if err != nil {
+		return nil, err
 	}
-	s := compile(p, g, settledAt(p, g, end))
+	s := compile(p, g, settled)
 	if err := checkSimulation(s, st.paths, simDepositPasses, opts.Work); err != nil {
 		return nil, err
 	}

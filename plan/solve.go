@@ -685,11 +685,11 @@ func solveWithdrawal(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	if err := ruledStream(g, st); err != nil {
 		return nil, err
 	}
-	end, finite := lastOut(p, g)
-	if !finite {
-		return nil, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
+	end, settled, err := drawdownEnd(p, g)
+	if err != nil {
+		return nil, err
 	}
-	s := compile(p, g, settledAt(p, g, end))
+	s := compile(p, g, settled)
 	idx := s.sourceIndex(st)
 	pr := s.defaultParams()
 	set := s.setter(pr, idx)
@@ -775,7 +775,7 @@ func settle(p *Plan, g *Goal, a *Answer) {
 	if at := settledAt(p, g, a.Deadline); at != a.Deadline {
 		a.Settled = at
 		if a.Note == "" {
-			a.Note = settledNote(p, g, a.Deadline)
+			a.Note = fmt.Sprintf("what is left is counted after the tax on the year's interest, paid at the end of %s", at)
 		}
 	}
 }

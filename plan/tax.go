@@ -1,10 +1,6 @@
 package plan
 
-import (
-	"fmt"
-
-	"cairn/money"
-)
+import "cairn/money"
 
 // OverCap reports whether goal g's account receives more than its yearly
 // cap in a year from the plan's start, as the ledger posts it (deposits,
@@ -115,12 +111,13 @@ func settledAt(p *Plan, g *Goal, end Month) Month {
 // year's end after it (see [Answer.Settled]).
 func (p *Plan) SettledAt(g *Goal, end Month) Month { return settledAt(p, g, end) }
 
-// settledNote says when what a drawdown of goal g leaves after its last
-// withdrawal in end is counted, when that is after the year's tax; "" when
-// it is counted at end.
-func settledNote(p *Plan, g *Goal, end Month) string {
-	if at := settledAt(p, g, end); at != end {
-		return fmt.Sprintf("what is left is counted after the tax on the year's interest, paid at the end of %s", at)
+// drawdownEnd returns the last month money leaves goal g's account
+// ([lastOut]) and the month its drawdown is settled at ([settledAt]), or
+// the answer that there is no last month: withdrawals without an end.
+func drawdownEnd(p *Plan, g *Goal) (last, settled Month, err error) {
+	last, finite := lastOut(p, g)
+	if !finite {
+		return 0, 0, noSolution(g, "withdrawals are open-ended; give the stream until: or for: so there is a last withdrawal")
 	}
-	return ""
+	return last, settledAt(p, g, last), nil
 }

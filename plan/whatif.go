@@ -3,7 +3,6 @@ package plan
 import (
 	"errors"
 	"fmt"
-	"strings"
 
 	"cairn/money"
 	"cairn/plan/internal/engine"
@@ -73,7 +72,7 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 		}
 		q2, g2, err := cached.With(goal, stream, ovs)
 		if ob := (outOfBounds{}); errors.As(err, &ob) {
-			cell.Err = &SolveError{Goal: g.Name, Reason: strings.TrimPrefix(ob.Error(), "goal "+money.Quote(g.Name)+": ")}
+			cell.Err = &SolveError{Goal: g.Name, Reason: boundsReason(g, ob)}
 			gr.Cells[c] = cell
 			return
 		} else if err != nil {

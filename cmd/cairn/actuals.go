@@ -64,11 +64,7 @@ func progress(d *render.Doc, p *plan.Plan, goals []map[string]any) bool {
 			} else {
 				reached = render.Label("not reached", "")
 				jp["reached"] = nil
-				why := reasonOf(now.Reach)
-				if !strings.HasPrefix(why, "the target is not reached") { // said once
-					why = "the target is not reached: " + why
-				}
-				says = append(says, "at the deposits as planned "+why)
+				says = append(says, "at the deposits as planned "+notReachedWords(now.Reach))
 			}
 		}
 		if now.Lasts != nil {

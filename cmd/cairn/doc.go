@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"slices"
+	"strings"
 
 	"github.com/urfave/cli/v2"
 
@@ -197,4 +198,15 @@ func reasonOf(err error) string {
 		return se.Reason
 	}
 	return err.Error()
+}
+
+// notReachedWords says that a target is not reached and why (err), the
+// words "the target is not reached" once, whether or not the reason begins
+// with them.
+func notReachedWords(err error) string {
+	why := reasonOf(err)
+	if strings.HasPrefix(why, "the target is not reached") {
+		return why
+	}
+	return "the target is not reached: " + why
 }

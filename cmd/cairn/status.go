@@ -93,9 +93,9 @@ func statusAnswer(c *cli.Context, cases []plan.Case) (*render.Doc, error) {
 // adviser's folder of households), each under its file's name: in text a
 // line naming the file, in Markdown a heading, in JSON one array of the
 // files' documents (each names its file; one that cannot be answered is
-// {file, error}), in CSV one table with the file in its first column. A file that cannot be answered is reported as it would be alone,
-// named, and the others are still answered; the exit code is the worst of
-// them. The files share one schedule cache, so a shape several households
+// {file, error}), in CSV one table with the file in its first column. A
+// file that cannot be answered is reported as it would be alone, named,
+// and the others are still answered; the exit code is the worst of them. The files share one schedule cache, so a shape several households
 // share is compiled once.
 func statusFiles(c *cli.Context, e *env) error {
 	f, err := parseFormat(c)
@@ -317,11 +317,7 @@ func statusDocTax(p *plan.Plan, st *plan.Status, withTax bool) *render.Doc {
 				reached = render.Label("not reached", "")
 				jg["reached"] = nil
 				jg["not_reached_reason"] = reasonOf(gs.Reach)
-				why := reasonOf(gs.Reach)
-				if !strings.HasPrefix(why, "the target is not reached") { // said once
-					why = "the target is not reached: " + why
-				}
-				d.After = append(d.After, fmt.Sprintf("%s: %s.", goal.Name, why))
+				d.After = append(d.After, fmt.Sprintf("%s: %s.", goal.Name, notReachedWords(gs.Reach)))
 			}
 		}
 		if len(goal.Income) > 0 {
