@@ -231,20 +231,27 @@ func readActuals(p *plan.Plan, name string) error {
 		return &inputError{err: plan.ErrorList{{Pos: p.ActualsFilePos(), Msg: "actuals_file: " + fmt.Sprintf(format, args...)}},
 			hint: "an actuals file is a CSV of month,goal,balance lines, named relative to the goals file"}
 	}
-	// what is not a regular file is refused before it is opened: opening a
-	// named pipe waits for a writer
-	if st, err := os.Stat(path); err == nil && !st.Mode().IsRegular() {
-		return refuse("%q is not a regular file", p.ActualsFile)
-	} else if err == nil && st.Size() > plan.MaxFileSize {
-		return refuse("%q is %d bytes, over the %d-byte limit for an actuals file", p.ActualsFile, st.Size(), plan.MaxFileSize)
+	// checked as the goals file is, before it is opened (opening a named
+	// pipe waits for a writer) and again once open
+	check := func(f *os.File) error {
+		switch fault, size := checkInput(path, f); fault {
+		case inputDir, inputSpecial:
+			return refuse("%q is not a regular file", p.ActualsFile)
+		case inputTooLarge:
+			return refuse("%q is %d bytes, over the %d-byte limit for an actuals file", p.ActualsFile, size, plan.MaxFileSize)
+		}
+		return nil
+	}
+	if err := check(nil); err != nil {
+		return err
 	}
 	f, err := os.Open(path)
 	if err != nil {
 		return refuse("cannot read %q: %s", p.ActualsFile, strings.TrimPrefix(err.Error(), "open "+path+": "))
 	}
 	defer f.Close()
-	if st, err := f.Stat(); err == nil && !st.Mode().IsRegular() {
-		return refuse("%q is not a regular file", p.ActualsFile)
+	if err := check(f); err != nil {
+		return err
 	}
 	data, err := io.ReadAll(io.LimitReader(f, plan.MaxFileSize+1))
 	if err != nil {

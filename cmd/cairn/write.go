@@ -232,24 +232,50 @@ func lostOutput(err error, out *outWriter) error {
 	return err
 }
 
-// checkGoalsFile refuses a goals file that is not a regular file of at most
-// plan.MaxFileSize bytes — a directory, a device such as /dev/zero, a pipe
-// that might never be written (opening it would wait), a huge sparse file —
-// before reading it, and again on the opened file f.
-func checkGoalsFile(name string, f *os.File) error {
-	st, err := os.Stat(name)
+// An inputFault is why a file cannot be read as one of cairn's inputs (a
+// goals file, an actuals file).
+type inputFault int
+
+const (
+	inputOK       inputFault = iota
+	inputDir                 // a directory
+	inputSpecial             // a device, pipe or socket
+	inputTooLarge            // over plan.MaxFileSize bytes
+)
+
+// checkInput checks the file at path — or f, once it is open — as an input
+// of at most plan.MaxFileSize bytes, before it is read: a directory, a
+// device such as /dev/zero, a pipe that might never be written (opening it
+// would wait), a huge sparse file. It returns the fault and the file's
+// size; a file that cannot be looked at is left for opening to report.
+func checkInput(path string, f *os.File) (inputFault, int64) {
+	st, err := os.Stat(path)
 	if f != nil {
 		st, err = f.Stat()
 	}
 	switch {
 	case err != nil:
-		return nil // opening it reports the problem
+		return inputOK, 0
 	case st.IsDir():
-		return fmt.Errorf("%s is a directory, not a goals file", name)
+		return inputDir, 0
 	case !st.Mode().IsRegular():
-		return fmt.Errorf("%s is not a regular file (a device, pipe or socket), not a goals file; to read standard input, give -", name)
+		return inputSpecial, 0
 	case st.Size() > plan.MaxFileSize:
-		return plan.ErrorList{{Pos: plan.Position{File: name}, Msg: fmt.Sprintf("file is %d bytes, over the %d-byte limit for a goals file", st.Size(), plan.MaxFileSize)}}
+		return inputTooLarge, st.Size()
+	}
+	return inputOK, st.Size()
+}
+
+// checkGoalsFile refuses a goals file that checkInput refuses, before
+// reading it, and again on the opened file f.
+func checkGoalsFile(name string, f *os.File) error {
+	switch fault, size := checkInput(name, f); fault {
+	case inputDir:
+		return fmt.Errorf("%s is a directory, not a goals file", name)
+	case inputSpecial:
+		return fmt.Errorf("%s is not a regular file (a device, pipe or socket), not a goals file; to read standard input, give -", name)
+	case inputTooLarge:
+		return plan.ErrorList{{Pos: plan.Position{File: name}, Msg: fmt.Sprintf("file is %d bytes, over the %d-byte limit for a goals file", size, plan.MaxFileSize)}}
 	}
 	return nil
 }
