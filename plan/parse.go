@@ -74,9 +74,7 @@ func ParseCached(name string, data []byte, asOf Month, c *Cache) (*Plan, error) 
 			}
 		}
 		if len(d.errs) == 0 {
-			for _, e := range p.replanBounds() {
-				d.errs = append(d.errs, e)
-			}
+			d.errs = append(d.errs, p.replanBounds()...)
 		}
 		if len(d.errs) == 0 {
 			d.checkScenarios(p)

@@ -41,7 +41,8 @@ const (
 	// MaxGridSteps is the most cells × events × walks a what-if grid may
 	// take (see checkGridWork): at about 6 ns a step, some 30 seconds of
 	// one core, a few seconds on several. A 100 × 100 grid of a 40-year
-	// monthly goal solved for time takes about 60 million.
+	// monthly goal solved for time counts about 216 million (its events
+	// through the plan's 150 years).
 	MaxGridSteps = 5_000_000_000
 	// simDepositPasses is what [SolveDeposit] is counted as: its first
 	// guess takes two passes over every path, and its search of whole
