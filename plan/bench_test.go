@@ -35,12 +35,20 @@ func benchParse(b *testing.B, src string) *plan.Plan {
 	return p
 }
 
-func BenchmarkSolveRate(b *testing.B) {
+// BenchmarkSolveRate is what `cairn solve --for rate` does after reading
+// its file: the search, and the answer's shown rates;
+// BenchmarkSolveRateExplained adds the ledger and the equation of value
+// that --explain shows.
+func BenchmarkSolveRate(b *testing.B) { benchSolveRate(b, false) }
+
+func BenchmarkSolveRateExplained(b *testing.B) { benchSolveRate(b, true) }
+
+func benchSolveRate(b *testing.B, explain bool) {
 	p := benchParse(b, benchPlan)
 	g := p.Goals[0]
 	b.ReportAllocs()
 	for b.Loop() {
-		if _, err := plan.Solve(p, g, plan.Question{For: plan.ForRate}); err != nil {
+		if _, err := plan.Solve(p, g, plan.Question{For: plan.ForRate, Explain: explain}); err != nil {
 			b.Fatal(err)
 		}
 	}

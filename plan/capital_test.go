@@ -25,7 +25,7 @@ func capitalAnswer(t *testing.T, src string) *plan.Answer { return capitalAt(t, 
 func capitalAt(t *testing.T, src string, at plan.Month) *plan.Answer {
 	t.Helper()
 	p := mustParse(t, "capital", src)
-	a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital})
+	a, err := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: plan.ForCapital})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -35,7 +35,7 @@ func capitalAt(t *testing.T, src string, at plan.Month) *plan.Answer {
 	for _, d := range []int64{0, -1} {
 		c := money.Minor(cents(a.Amount)+d, 2)
 		q := mustParse(t, "capital", src+"    once:\n      - { amount: "+c.Plain(2)+", on: "+at.String()+" }\n")
-		l, err := plan.Solve(q, q.Goals[0], plan.Question{For: plan.ForLasts})
+		l, err := plan.Solve(q, q.Goals[0], plan.Question{Explain: true, For: plan.ForLasts})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -117,10 +117,10 @@ func TestStartPaysWithdrawalsFromTheFirstMonth(t *testing.T) {
 	eachLevelIncome(t, func(t *testing.T, tc levelIncome, _ bool, timing string, k float64) {
 		src := capitalFile(tc.rate, fmt.Sprintf("      - { amount: 1000, every: month, timing: %s, for: %d months }\n", timing, tc.n), "0")
 		p := mustParse(t, "start", src)
-		if _, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital}); err == nil {
+		if _, err := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: plan.ForCapital}); err == nil {
 			t.Errorf("a capital before the plan's start was answered")
 		}
-		a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForStart})
+		a, err := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: plan.ForStart})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -131,7 +131,7 @@ func TestStartPaysWithdrawalsFromTheFirstMonth(t *testing.T) {
 		for _, d := range []int64{0, -1} {
 			c := money.Minor(cents(a.Amount)+d, 2)
 			q := mustParse(t, "start", src+"    balance: "+c.Plain(2)+"\n")
-			l, err := plan.Solve(q, q.Goals[0], plan.Question{For: plan.ForLasts})
+			l, err := plan.Solve(q, q.Goals[0], plan.Question{Explain: true, For: plan.ForLasts})
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -198,7 +198,7 @@ func TestCapitalGrowingIncome(t *testing.T) {
 func TestLastsClosedForm(t *testing.T) {
 	p := mustParse(t, "lasts", goalFile("balance: 100,000", "rate: 6% compounded monthly",
 		"withdrawals:", "  - { amount: 1000, every: month }"))
-	a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForLasts})
+	a, err := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: plan.ForLasts})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -226,8 +226,8 @@ func TestCapitalStandsAsTarget(t *testing.T) {
 	}
 	q := mustParse(t, "target", goalFile(append([]string{"target: " + c.Plain(2)}, body...)...))
 	for _, f := range []plan.Quantity{plan.ForDeposit, plan.ForStart} {
-		a1, err1 := plan.Solve(p, p.Goals[0], plan.Question{For: f})
-		a2, err2 := plan.Solve(q, q.Goals[0], plan.Question{For: f})
+		a1, err1 := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: f})
+		a2, err2 := plan.Solve(q, q.Goals[0], plan.Question{Explain: true, For: f})
 		if err1 != nil || err2 != nil || a1.Amount.Cmp(a2.Amount) != 0 || a1.Target.Cmp(c) != 0 {
 			t.Errorf("%s: without a target %v (%v), with the capital as target %v (%v)", f, a1, err1, a2, err2)
 		}
@@ -239,7 +239,7 @@ func TestCapitalStandsAsTarget(t *testing.T) {
 
 func mustSolve(t *testing.T, p *plan.Plan, f plan.Quantity) *plan.Answer {
 	t.Helper()
-	a, err := plan.Solve(p, p.Goals[0], plan.Question{For: f})
+	a, err := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: f})
 	if err != nil {
 		t.Fatal(err)
 	}

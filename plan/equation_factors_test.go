@@ -113,7 +113,7 @@ func TestCapitalEquationWhy(t *testing.T) {
 			}
 			src := "cairn: 1\nstart: 2027-01\ngoals:\n  - name: g\n    rate: " + rate + "\n" + c.extra + "    withdrawals:\n" + w
 			p := mustParse(t, c.name, src)
-			a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital})
+			a, err := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: plan.ForCapital})
 			if err != nil {
 				t.Fatal(err)
 			}

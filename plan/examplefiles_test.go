@@ -40,7 +40,7 @@ func TestExamples_SolveEveryGoal(t *testing.T) {
 								t.Fatalf("Solve(%s, %s) panicked: %v", g.Name, q, r)
 							}
 						}()
-						a, err := plan.Solve(p, g, plan.Question{For: q})
+						a, err := plan.Solve(p, g, plan.Question{Explain: true, For: q})
 						switch {
 						case err != nil && !plan.IsNoSolution(err):
 							t.Errorf("Solve(%s, %s) error = %v, want an answer or a SolveError", g.Name, q, err)

@@ -93,7 +93,7 @@ goals:
 		}
 		g := p.Goals[0]
 		for q := plan.ForTime; q <= plan.ForLasts; q++ {
-			a, err := plan.Solve(p, g, plan.Question{For: q})
+			a, err := plan.Solve(p, g, plan.Question{Explain: true, For: q})
 			if err != nil {
 				if !plan.IsNoSolution(err) {
 					t.Fatalf("Solve %s: %v\n%s", q, err, src)

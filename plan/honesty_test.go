@@ -58,7 +58,7 @@ func TestSolverHonesty(t *testing.T) {
 					t.Fatalf("randomPlan wrote an invalid plan: %v\n%s", err, src)
 				}
 				g := p.Goals[0]
-				a, err := plan.Solve(p, g, plan.Question{For: q})
+				a, err := plan.Solve(p, g, plan.Question{Explain: true, For: q})
 				if err != nil {
 					if !plan.IsNoSolution(err) {
 						t.Fatalf("Solve(%s): %v\n%s", q, err, src)

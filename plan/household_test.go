@@ -99,7 +99,7 @@ func TestAllocate_ByPriorityReproducesSeparateAnswers(t *testing.T) {
 	var solved []*plan.Answer
 	for _, g := range goals {
 		p := mustParse(t, "one.yaml", "cairn: 1\nstart: 2027-01\ngoals:\n  - {"+g+", deposits: [{amount: 0, every: 2 weeks}]}\n")
-		ans, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForDeposit})
+		ans, err := plan.Solve(p, p.Goals[0], plan.Question{Explain: true, For: plan.ForDeposit})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -284,11 +284,11 @@ goals:
 `
 	open := mustParse(t, "open.yaml", fmt.Sprintf(body, ""))
 	stop := mustParse(t, "stop.yaml", fmt.Sprintf(body, ", until: reached"))
-	a, err := plan.Solve(open, open.Goals[0], plan.Question{For: plan.ForTime})
+	a, err := plan.Solve(open, open.Goals[0], plan.Question{Explain: true, For: plan.ForTime})
 	if err != nil {
 		t.Fatal(err)
 	}
-	b, err := plan.Solve(stop, stop.Goals[0], plan.Question{For: plan.ForTime})
+	b, err := plan.Solve(stop, stop.Goals[0], plan.Question{Explain: true, For: plan.ForTime})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -169,7 +169,7 @@ func TestSolve_DepositProperty(t *testing.T) {
 	rapid.Check(t, func(t *rapid.T) {
 		s := savings(t, true)
 		p, g := s.parse(t)
-		a, err := plan.Solve(p, g, plan.Question{For: plan.ForDeposit})
+		a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForDeposit})
 		if err != nil {
 			t.Fatalf("Solve(deposit) of\n%s error = %v, want an answer", s.file(), err)
 		}
@@ -198,7 +198,7 @@ func TestSolve_TimeProperty(t *testing.T) {
 	rapid.Check(t, func(t *rapid.T) {
 		s := savings(t, false)
 		p, g := s.parse(t)
-		a, err := plan.Solve(p, g, plan.Question{For: plan.ForTime})
+		a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForTime})
 		if err != nil {
 			if !plan.IsNoSolution(err) {
 				t.Fatalf("Solve(time) error = %v, want an answer or a SolveError", err)
@@ -233,8 +233,8 @@ func TestSolve_TimeMoreDepositNeverLater(t *testing.T) {
 		more.deposits[0].amount = s.deposits[0].amount.Add(drawCents(t, "more", 1, 100_000))
 		p1, g1 := s.parse(t)
 		p2, g2 := more.parse(t)
-		a1, err1 := plan.Solve(p1, g1, plan.Question{For: plan.ForTime})
-		a2, err2 := plan.Solve(p2, g2, plan.Question{For: plan.ForTime})
+		a1, err1 := plan.Solve(p1, g1, plan.Question{Explain: true, For: plan.ForTime})
+		a2, err2 := plan.Solve(p2, g2, plan.Question{Explain: true, For: plan.ForTime})
 		if err1 != nil {
 			return
 		}
@@ -249,7 +249,7 @@ func TestSolve_RateRoundTrip(t *testing.T) {
 		rapid.Check(t, func(t *rapid.T) {
 			s := savings(t, true)
 			p, g := s.parse(t)
-			a, err := plan.Solve(p, g, plan.Question{For: plan.ForRate})
+			a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForRate})
 			if err != nil {
 				if !plan.IsNoSolution(err) || !strings.Contains(err.Error(), "even at") && !strings.Contains(err.Error(), "every rate meets the target") {
 					t.Fatalf("Solve(rate) error = %v, want an answer, \"even at …\" or \"every rate meets the target\"", err)
@@ -297,7 +297,7 @@ func TestSolve_RateRoundTrip(t *testing.T) {
 			l, _ := plan.Project(p, g, start.Add(s.by))
 			s.target, s.hasTarget = l.BalanceAt(start.Add(s.by)), true
 			p, g = s.parse(t)
-			a, err := plan.Solve(p, g, plan.Question{For: plan.ForRate})
+			a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForRate})
 			want := g.Rates[0].Rate.Effective()
 			// 1e-6, widened by the plateaus of rounding: each interest posting
 			// round(B·j) stays the same while j moves by less than 0.01/B,
@@ -418,7 +418,7 @@ func TestSolve_WithdrawalProperty(t *testing.T) {
 		s.outs = []streamSpec{w}
 		s.leave = drawCents(t, "leave", 0, 2_000_000)
 		p, g := s.parse(t)
-		a, err := plan.Solve(p, g, plan.Question{For: plan.ForWithdrawal})
+		a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForWithdrawal})
 		project := func(amount money.Amount) *plan.Ledger {
 			q, h, err := p.With("g", "", []plan.Override{{Key: "withdrawal", Value: amount.String()}})
 			if err != nil {
@@ -470,7 +470,7 @@ func TestSolve_LastsProperty(t *testing.T) {
 		}
 		s.outs = []streamSpec{w}
 		p, g := s.parse(t)
-		a, err := plan.Solve(p, g, plan.Question{For: plan.ForLasts})
+		a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForLasts})
 		if err != nil {
 			t.Fatalf("Solve(lasts) error = %v, want an answer", err)
 		}

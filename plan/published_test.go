@@ -65,7 +65,7 @@ func pubProject(t *testing.T, src string, end plan.Month) money.Amount {
 func pubSolve(t *testing.T, src string, q plan.Quantity) *plan.Answer {
 	t.Helper()
 	p, g := pubParse(t, src)
-	a, err := plan.Solve(p, g, plan.Question{For: q})
+	a, err := plan.Solve(p, g, plan.Question{Explain: true, For: q})
 	if err != nil {
 		t.Fatalf("Solve(%s) error: %v\n%s", q, err, src)
 	}
@@ -348,7 +348,7 @@ func TestPublished_PresentOfWithdrawals(t *testing.T) {
 		t.Run(tt.rate, func(t *testing.T) {
 			src := pubFile("rate: "+tt.rate, "target: 0", "by: 2036-12", "withdrawals:", "  - amount: 1,000,000", "    every: year", "    until: 2036-12")
 			p, g := pubParse(t, src)
-			a, err := plan.Solve(p, g, plan.Question{For: plan.ForStart})
+			a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForStart})
 			if err != nil {
 				t.Fatalf("Solve(start, withdrawals 1,000,000 a year at %s to 2036-12, target 0) error: %v; want 1,000,000 × %s (%s)", tt.rate, err, tt.want, tt.source)
 			}

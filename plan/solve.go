@@ -43,10 +43,13 @@ func ParseQuantity(s string) (Quantity, error) {
 
 // A Question asks a solver for one quantity of one goal. Stream names the
 // deposit (ForDeposit) or withdrawal (ForWithdrawal) stream to solve for; ""
-// means the first.
+// means the first. Explain asks for the answer's proof as well: its
+// Ledger and Equation, two more walks that an answer without them (what
+// a plain solve shows) does not make.
 type Question struct {
-	For    Quantity
-	Stream string
+	For     Quantity
+	Stream  string
+	Explain bool
 }
 
 // An Answer is a solver's answer with the ledger that proves it and the
@@ -112,8 +115,8 @@ type Answer struct {
 	Deadline Month        // the month the answer is measured at
 	Target   money.Amount // the target in money of that month
 	Balance  money.Amount // the ledger's balance then
-	Ledger   *Ledger      // the ledger under the answer
-	Equation *Equation    // the equation of value at Deadline (ForCapital: at Month) under the answer
+	Ledger   *Ledger      // the ledger under the answer (Question.Explain; else nil)
+	Equation *Equation    // the equation of value at Deadline (ForCapital: at Month) under the answer (Question.Explain; else nil)
 	Note     string       // a remark on the answer, in plain words
 
 	// What the answer means after tax, for a goal with a tax treatment
@@ -179,10 +182,11 @@ func lastOut(p *Plan, g *Goal) (Month, bool) {
 // deposit, the level share it needs a budget date (ByPriority); other
 // quantities have no answer for it. When the question has
 // no answer it returns a [*SolveError] saying why.
-func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q, true) }
+func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q, q.Explain) }
 
 // solve answers q; with full unset it leaves out the answer's Ledger and
-// Equation, which what-if grids and the household status do not show.
+// Equation, which what-if grids and the household status do not show (nor
+// a solve not asked to explain).
 func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
 	var a *Answer
 	var err error

@@ -13,6 +13,7 @@ import (
 func solveFile(t *testing.T, src string, q plan.Question) (*plan.Plan, *plan.Answer, error) {
 	t.Helper()
 	p := mustParse(t, "t.yaml", src)
+	q.Explain = true // the tests check the answer's proof as well
 	a, err := plan.Solve(p, p.Goals[0], q)
 	if err != nil && !plan.IsNoSolution(err) {
 		t.Fatalf("Solve(%v) error = %v, want an answer or a SolveError", q.For, err)

@@ -332,7 +332,7 @@ func TestTax_SolversRoundTrip(t *testing.T) {
 			"\n    target: 100000\n    by: 2046-12\n    deposits:\n      - {amount: 200, every: month}\n"
 		p := mustParse(t, "rt.yaml", src)
 		g := p.Goals[0]
-		a, err := plan.Solve(p, g, plan.Question{For: plan.ForRate})
+		a, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForRate})
 		if err != nil {
 			t.Fatalf("%s: Solve(rate): %v", keys, err)
 		}
@@ -344,7 +344,7 @@ func TestTax_SolversRoundTrip(t *testing.T) {
 		if l.Closing.Cmp(money.Units(100000)) < 0 {
 			t.Errorf("%s: at the solved rate %.6f%% the balance is %s, short of the target", keys, a.ShownEffective*100, l.Closing)
 		}
-		tm, err := plan.Solve(p, g, plan.Question{For: plan.ForTime})
+		tm, err := plan.Solve(p, g, plan.Question{Explain: true, For: plan.ForTime})
 		if err != nil {
 			t.Fatalf("%s: Solve(time): %v", keys, err)
 		}

@@ -44,7 +44,7 @@ func solveCommand(e *env) *cli.Command {
 			if _, err := parseFormat(c); err != nil {
 				return err
 			}
-			a, err := plan.Solve(p, g, plan.Question{For: q, Stream: c.String("stream")})
+			a, err := plan.Solve(p, g, plan.Question{For: q, Stream: c.String("stream"), Explain: c.Bool("explain")})
 			if err != nil {
 				if plan.IsNoSolution(err) {
 					if werr := out(c, e, noAnswerDoc(p, g, q, err)); werr != nil {
