@@ -139,7 +139,7 @@ func eachExampleGoal(t *testing.T, check func(t *testing.T, file string, p *Plan
 func roundings(s *schedule) int {
 	n := 1
 	for _, e := range s.events {
-		switch e.Kind {
+		switch e.Kind() {
 		case engine.Interest:
 			n += int(e.Count)
 		case engine.Mark:
@@ -211,10 +211,10 @@ func linearUnderNone(s *schedule) bool {
 	in, out := map[int32]bool{}, map[int32]bool{}
 	for i := range s.events {
 		e := &s.events[i]
-		if e.Kind == engine.Interest || e.Kind == engine.Credit || e.Kind == engine.Mark || e.Kind == engine.Tax || s.eng.Tau(e) == 1 {
+		if k := e.Kind(); k == engine.Interest || k == engine.Credit || k == engine.Mark || k == engine.Tax || s.eng.Tau(e) == 1 {
 			continue
 		}
-		if e.Kind == engine.Fee {
+		if e.Kind() == engine.Fee {
 			return false
 		}
 		k := s.eng.Period(e)

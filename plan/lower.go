@@ -411,5 +411,6 @@ func monthEnds(p *Plan, g *Goal, end Month) []float64 {
 // flowOf reports whether e is an amount of source src (income included),
 // src of any integer type its callers count sources in.
 func flowOf[S int | int16 | int32](e *engine.Event, src S) bool {
-	return (e.Kind == engine.FlowEnd || e.Kind == engine.FlowBegin || e.Kind == engine.Income) && int32(e.Src) == int32(src)
+	k := e.Kind()
+	return (k == engine.FlowEnd || k == engine.FlowBegin || k == engine.Income) && int32(e.Src) == int32(src)
 }

@@ -76,7 +76,7 @@ func TestUnitsOfUnusualShapes(t *testing.T) {
 		}
 		for i := range got.events {
 			e := &got.events[i]
-			if e.Kind != FlowEnd && e.Kind != FlowBegin {
+			if k := e.Kind(); k != FlowEnd && k != FlowBegin {
 				continue
 			}
 			u := 1.0

@@ -35,14 +35,20 @@ const (
 	Tax                   // a year's end from the start: the interest credited in the year is taxed
 	Fee                   // the month's fee
 	FlowEnd               // an amount at the end of its period
-	Mark                  // the month end
+	Mark                  // a month end that no other event of its month carries (see [Event.Ends])
 	Income                // income from outside the account, at the start of the month it is paid in
 	FlowBegin             // an amount at the start of its period
 )
 
+// ends is the bit of an event's kind byte that says its month ends with
+// it (see [Event.Ends]).
+const ends Kind = 1 << 7
+
 // An Event is one thing that happens to the balance, on the tick grid:
 // an amount (a flow), a fee, a run of interest dates, a credit, a tax or a
-// month end.
+// month end. A month's end is carried by the last event of the month
+// ([Event.Ends]), so that it takes no event of its own but in a month with
+// no other event (a [Mark]).
 //
 // It holds only what cannot be had cheaply from its tick or a table of its
 // schedule, so that an event takes 16 bytes (a schedule is most of what a
@@ -59,8 +65,15 @@ type Event struct {
 	Step  uint8  // the rate step in force for the interest period the event is in (at most 256 steps)
 	Count uint8  // interest: how many interest dates in a row, one period apart (at least 1; a run never passes a month end, so at most 31)
 	Year  uint8  // flows: whole years of growth of the source's amount (at most 255)
-	Kind  Kind
+	kind  Kind   // its Kind, with the bit ends when its month ends with it
 }
+
+// Kind returns the event's kind.
+func (e *Event) Kind() Kind { return e.kind &^ ends }
+
+// Ends reports whether the event's month ends with it: after it, a walk
+// does what a month end does (see [Mark]), in its month, [Event.Month].
+func (e *Event) Ends() bool { return e.kind&ends != 0 }
 
 // Unit returns flow e's amount per unit of its source's amount: its years
 // of growth (and a first year's indexing to today's money); 1 for a
@@ -81,7 +94,7 @@ func (e *Event) Month() int32 {
 // begins reports whether the event is shown in the month it starts (an
 // amount at the start of its period, income), not in the month it ends
 // (everything else).
-func (e *Event) begins() bool { return e.Kind >= Income }
+func (e *Event) begins() bool { return e.Kind() >= Income }
 
 // Tau returns the fraction of the interest period left until its credit
 // at flow or fee e.
@@ -91,7 +104,7 @@ func (s *Schedule) Tau(e *Event) float64 { return s.taus[e.Ti] }
 // interest run, that of the first period ending.
 func (s *Schedule) Period(e *Event) int32 {
 	p := int32(e.Tick / s.period)
-	if e.Kind == Interest {
+	if e.Kind() == Interest {
 		p--
 	}
 	return p
@@ -322,7 +335,7 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 		if on > f.end || on < m0 {
 			continue
 		}
-		e := Event{Tick: int64(on+1) * TicksPerMonth, Kind: FlowEnd, Src: int16(1 + len(sh.Streams) + k)}
+		e := Event{Tick: int64(on+1) * TicksPerMonth, kind: FlowEnd, Src: int16(1 + len(sh.Streams) + k)}
 		f.once = append(f.once, onceFlow{e, orderKey(&e, sh.OnceOut[k])})
 	}
 	slices.SortFunc(f.once, func(a, b onceFlow) int { return cmp.Compare(a.key, b.key) }) // one-time amounts may be written in any order
@@ -331,25 +344,32 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	// the regular events, interest dates and month ends, in order, with the
 	// amounts merged in as they come
 	n := s.endTick / s.period
-	// room for: a mark, a credit and a fee a month, the amounts, and the
-	// runs of interest dates (at most one a date, and one after each other
-	// event or start of a rate step)
-	perMonth := int64(1)
-	if sh.Tax {
-		perMonth++
-	}
+	// room for: a credit and a fee a month, a tax a year, a mark a month
+	// where a month may have no other event (interest less often than
+	// monthly and no fee), the amounts, and the runs of interest dates (at
+	// most one a date, and one a month and after each other event or
+	// start of a rate step)
+	months := int64(sh.Months - m0)
+	perMonth := int64(0)
 	if s.accrue {
 		perMonth++
 	}
 	if sh.Fee {
 		perMonth++
 	}
-	nRuns := min(n-t0/s.period, int64(sh.Months-m0)*perMonth+nFlows+int64(len(sh.StepFrom))+1)
+	if sh.PerYear < 12 && !sh.Fee {
+		perMonth++
+	}
+	other := months*perMonth + nFlows
+	if sh.Tax {
+		other += months/12 + 1
+	}
+	nRuns := min(n-t0/s.period, months+other+int64(len(sh.StepFrom))+1)
 	c := compiler{s: s, n: n, f: &f, stepEnd: make([]int64, len(sh.StepFrom))}
 	for i, from := range sh.StepFrom {
 		c.stepEnd[i] = (int64(from)*TicksPerMonth + s.period - 1) / s.period
 	}
-	room := int64(sh.Months-m0)*perMonth + nFlows + nRuns
+	room := other + nRuns
 	if old == nil {
 		c.ev = make([]Event, 0, room)
 		// Ti 0 is a whole period (Tau 1), so that the walk tells one by
@@ -364,6 +384,7 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 			s.posts, s.amounts = countPosts(old.events, old.accrue)
 		}
 		c.done = t0 / s.period
+		c.ended = len(old.events)
 	}
 	c.nextTick = (c.done + 1) * s.period
 	c.sorted = slices.IsSorted(sh.StepFrom)
@@ -384,10 +405,10 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 		}
 		// at a month end come, in order: the amounts before it, its
 		// interest, the credit, the tax, the fee, the amounts at the end
-		// of their periods, and the mark (see [Kind]); an amount has no
-		// kind of those between
+		// of their periods, and the month's end (see [Kind]); an amount has
+		// no kind of those between
 		t := int64(m+1) * TicksPerMonth
-		c.flowsBefore(orderKey(&Event{Tick: t, Kind: Credit}, false))
+		c.flowsBefore(orderKey(&Event{Tick: t, kind: Credit}, false))
 		c.interestTo(t)
 		if s.accrue {
 			c.lay(t, Credit)
@@ -402,8 +423,8 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 		if sh.Fee {
 			c.put(t, Fee, 0, 0)
 		}
-		c.flowsBefore(orderKey(&Event{Tick: t, Kind: Mark}, false))
-		c.lay(t, Mark)
+		c.flowsBefore(orderKey(&Event{Tick: t, kind: Mark}, false))
+		c.endMonth(t)
 	}
 	c.flowsBefore(math.MaxUint64)
 	c.interestTo(s.endTick)
@@ -514,6 +535,7 @@ func (c *compiler) copyYear(last, cur yearStart) {
 	}
 	s.posts += cur.posts - last.posts
 	s.amounts += cur.amounts - last.amounts
+	c.ended = len(c.ev) // the year's last month ended with its last event, as the one before
 	c.done += TicksPerYear / s.period
 	c.nextTick = (c.done + 1) * s.period
 	// a stream with a period all through the years has its next amount a
@@ -570,6 +592,8 @@ type compiler struct {
 	// period's start
 	sorted     bool
 	runs, puts stepCursor
+	// ended is how many events were laid down when the last month ended
+	ended int
 }
 
 // A stepCursor is the rate step in force at a tick, kept as the ticks
@@ -620,7 +644,7 @@ func (c *compiler) flowsBefore(k uint64) {
 		if f.oi < len(f.once) && f.once[f.oi].key == f.key { // order keys are unique
 			e := &f.once[f.oi].e
 			c.interestTo(e.Tick)
-			c.put(e.Tick, e.Kind, e.Src, e.Year)
+			c.put(e.Tick, e.kind, e.Src, e.Year)
 			f.oi++
 		} else {
 			g := &f.gens[f.h[0]]
@@ -645,8 +669,20 @@ func (c *compiler) flowsBefore(k uint64) {
 func (c *compiler) lay(t int64, kd Kind) *Event {
 	c.ev = append(c.ev, Event{})
 	e := &c.ev[len(c.ev)-1]
-	e.Tick, e.Kind = t, kd
+	e.Tick, e.kind = t, kd
 	return e
+}
+
+// endMonth ends the month ending at tick t: the last event laid down
+// carries it when it is of the month (laid after the month before ended),
+// else a mark does.
+func (c *compiler) endMonth(t int64) {
+	if n := len(c.ev); n > c.ended {
+		c.ev[n-1].kind |= ends
+	} else {
+		c.lay(t, Mark|ends)
+	}
+	c.ended = len(c.ev)
 }
 
 // interestTo lays down the interest dates up to tick t (which come before
@@ -778,7 +814,7 @@ func (g *flowGen) advance() bool {
 		}
 		g.k++
 		g.t, g.kind, g.year = t, kd, uint8(g.years)
-		g.key = orderKey(&Event{Tick: t, Kind: kd, Src: g.src}, st.Out)
+		g.key = orderKey(&Event{Tick: t, kind: kd, Src: g.src}, st.Out)
 		return true
 	}
 	return false
@@ -837,7 +873,7 @@ func (f *flows) down(i int) {
 
 // Prefix returns the schedule through the end of month months−1 (counted
 // from 0), which a schedule compiled through a later month holds: the same
-// events up to that month end's mark, sharing s's storage. The events of a
+// events up to the one that ends that month, sharing s's storage. The events of a
 // shape do not depend on how far it is compiled: a run of interest dates
 // never passes a month end, and every amount, fee and credit at a tick is
 // laid down the same whatever follows.
@@ -849,7 +885,7 @@ func (s *Schedule) Prefix(months int32) *Schedule {
 	p.months = months
 	p.endTick = int64(months) * TicksPerMonth
 	n, _ := slices.BinarySearchFunc(s.events, p.endTick, func(e Event, end int64) int {
-		if e.Tick < end || e.Tick == end && e.Kind <= Mark {
+		if e.Tick < end || e.Tick == end && e.Kind() <= Mark {
 			return -1
 		}
 		return 1
@@ -873,7 +909,7 @@ type onceFlow struct {
 // total. They are packed (ticks are fewer than 2⁴⁰ over the longest plan,
 // sources fewer than 2¹⁵).
 func orderKey(e *Event, out bool) uint64 {
-	k := uint64(e.Tick)<<24 | uint64(e.Kind)<<20 | uint64(e.Src)
+	k := uint64(e.Tick)<<24 | uint64(e.Kind())<<20 | uint64(e.Src)
 	if out {
 		k |= 1 << 19
 	}

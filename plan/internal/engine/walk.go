@@ -453,8 +453,9 @@ func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 // made constants. Every per-walk decision is read from a flag declared at
 // the top of the body, one a line, which is what the generator replaces;
 // the lane form also needs the walk's state declared before its loop of
-// events, with its type, and the loop to be one switch on the event's kind
-// (the generator says so when they are not).
+// events, with its type, and the loop to be one switch on the event's kind,
+// which a case leaves by break, then the month's end, an if (the generator
+// says so when they are not).
 func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 	exact := fixed[F](f.exact, flExact)
 	paths := fixed[F](f.paths, flPaths)
@@ -539,7 +540,7 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 events:
 	for i := range evs {
 		e := &evs[i]
-		switch e.Kind {
+		switch e.Kind() {
 		case Interest:
 			var p0 int32 // the period the run's first date ends (Options.Paths)
 			if paths {
@@ -644,7 +645,7 @@ events:
 				dx, dv.taxable = dv.taxable*in.Tax, 0
 			}
 			if x <= 0 {
-				continue
+				break
 			}
 			if slope {
 				dv.bal -= dx
@@ -682,7 +683,7 @@ events:
 			f := bal * in.Fee
 			if exact {
 				if bal <= 0 {
-					continue
+					break
 				}
 				if q, sure := money.RoundFast(f); sure {
 					f = q
@@ -690,7 +691,7 @@ events:
 					f = roundPosting(bal, in.FeeM, 0, in.Rounding)
 				}
 				if f == 0 {
-					continue
+					break
 				}
 			}
 			bal -= f
@@ -720,47 +721,12 @@ events:
 			if logged {
 				o.Log.post(e.Tick, e.begins(), PostFee, 0, -f, 0, 0)
 			}
-		case Mark:
-			// its month, markMonth(e), is found only where it is read
-			pool = 0 // income its month's withdrawals did not need is not deposited
-			if alone {
-				ea.endMonth()
-			}
-			if !paths { // a simulated path reports no peak (Result.Peak)
-				peak = max(peak, bal)
-			}
-			if logged {
-				o.Log.MonthEnd[markMonth(e)] = int64(bal)
-			}
-			if o.MonthEnds != nil {
-				o.MonthEnds[markMonth(e)] = bal / scale
-			}
-			var row []float64 // the month's row of Options.Rows, when it has one
-			if o.Rows != nil {
-				row = o.Rows[markMonth(e)]
-			}
-			if row != nil {
-				row[o.Path] = bal
-			}
-			if o.HasDeadline && markMonth(e) == o.Deadline {
-				res.AtDeadline = bal
-			}
-			if ruled { // the balance at each ruled source's anniversary, the month starting now
-				for k := range annivBal {
-					if m := markMonth(e) + 1 - s.index[k].from; m >= 0 && m%12 == 0 {
-						annivBal[k] = bal
-					}
-				}
-			}
-			if reach && o.Reach(markMonth(e), bal/scale) {
-				res.Reached, res.ReachMonth = true, markMonth(e)
-				break events
-			}
+		case Mark: // a month end alone: its work follows
 		case FlowEnd, FlowBegin, Income:
-			if alone && e.Kind != Income && in.Out[e.Src] {
+			if alone && e.Kind() != Income && in.Out[e.Src] {
 				ea.payIncome(w[(int(e.Step)*nt+int(e.Ti))*2], s.taus[e.Ti], none)
 			}
-			if pool != 0 && !exact && e.Kind != Income && in.Out[e.Src] {
+			if pool != 0 && !exact && e.Kind() != Income && in.Out[e.Src] {
 				// the month's income, unclamped, as money in at its first
 				// withdrawal: linear in every amount, so that income is
 				// valued alone like any other source
@@ -786,7 +752,7 @@ events:
 				}
 			}
 			if one && int32(e.Src) != o.Source {
-				continue
+				break
 			}
 			a := in.Amounts[e.Src] * scale
 			if set && int32(e.Src) == in.SetSrc {
@@ -829,18 +795,18 @@ events:
 				if in.Out[e.Src] {
 					y, wi = -math.Abs(x), wi+1
 				}
-				if e.Kind == Income {
+				if e.Kind() == Income {
 					ea[e.Src].pool += y
 				} else {
 					ea[e.Src].flow(y, w[wi], s.taus[e.Ti], none)
 				}
 			}
-			if e.Kind == Income { // not deposited: it waits for the month's withdrawals
+			if e.Kind() == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
 					o.Log.post(e.Tick, e.begins(), PostIncome, e.Src, x, 0, 0)
 				}
-				continue
+				break
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
@@ -896,7 +862,7 @@ events:
 				if logged {
 					o.Log.post(e.Tick, e.begins(), PostFlow, e.Src, x, short, covered)
 				}
-				continue
+				break
 			}
 			bal += emp // the employer's part arrives with the deposit
 			if slope {
@@ -935,6 +901,42 @@ events:
 				}
 			}
 		}
+		if e.Ends() { // the month ends: its work; its month, e.Month(), is found only where it is read
+			pool = 0 // income its month's withdrawals did not need is not deposited
+			if alone {
+				ea.endMonth()
+			}
+			if !paths { // a simulated path reports no peak (Result.Peak)
+				peak = max(peak, bal)
+			}
+			if logged {
+				o.Log.MonthEnd[e.Month()] = int64(bal)
+			}
+			if o.MonthEnds != nil {
+				o.MonthEnds[e.Month()] = bal / scale
+			}
+			var row []float64 // the month's row of Options.Rows, when it has one
+			if o.Rows != nil {
+				row = o.Rows[e.Month()]
+			}
+			if row != nil {
+				row[o.Path] = bal
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
+				res.AtDeadline = bal
+			}
+			if ruled { // the balance at each ruled source's anniversary, the month starting now
+				for k := range annivBal {
+					if m := e.Month() + 1 - s.index[k].from; m >= 0 && m%12 == 0 {
+						annivBal[k] = bal
+					}
+				}
+			}
+			if reach && o.Reach(e.Month(), bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()
+				break events
+			}
+		}
 	}
 	if alone {
 		ea.balances(o.Each)
@@ -945,10 +947,6 @@ events:
 	}
 	return res
 }
-
-// markMonth returns the month of month end e: [Event.Month] of a Mark,
-// whose tick is never 0, without a branch.
-func markMonth(e *Event) int32 { return int32(e.Tick/TicksPerMonth) - 1 }
 
 // lowest returns the lowest balance of an interest period, low before and
 // bal after a flow or fee with a fraction tau of the period left: at the
@@ -973,7 +971,7 @@ func (s *Schedule) Weights(p *Paths, in *Inputs) {
 			k = e.Tick / s.period
 			end = (k + 1) * s.period
 		}
-		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], s.taus[e.Ti], e.Kind == Fee || in.Out[e.Src])
+		p.W[i] = Accrual(in.Between, p.J[k], p.L[k], s.taus[e.Ti], e.Kind() == Fee || in.Out[e.Src])
 	}
 }
 
@@ -1022,7 +1020,7 @@ func (s *Schedule) MaxPosts() int {
 // how many of them are amounts into or out of the account (not income).
 func countPosts(events []Event, accrue bool) (posts, amounts int) {
 	for i := range events {
-		switch e := &events[i]; e.Kind {
+		switch e := &events[i]; e.Kind() {
 		case Mark: // a month end posts nothing
 		case Interest: // a run of interest dates posts once a date at most, or at the credits
 			if !accrue {

@@ -95,7 +95,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	}
 	for i := range evs {
 		e := &evs[i]
-		switch e.Kind {
+		switch e.Kind() {
 		case Interest:
 			var p0 int32
 			_ = p0
@@ -194,30 +194,6 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				}
 			}
 		case Mark:
-			for l := range Lanes {
-				pool[l] = 0
-			}
-			if o.MonthEnds != nil {
-				for l := range Lanes {
-					o.MonthEnds[markMonth(e)] = bal[l] / scale
-				}
-			}
-			var row []float64
-			_ = row
-			if o.Rows != nil {
-				row = o.Rows[markMonth(e)]
-			}
-			for l := range Lanes {
-				row := row
-				if row != nil {
-					row[at[l]] = bal[l]
-				}
-			}
-			if o.HasDeadline && markMonth(e) == o.Deadline {
-				for l := range Lanes {
-					res[l].AtDeadline = bal[l]
-				}
-			}
 		case FlowEnd, FlowBegin, Income:
 			a := in.Amounts[e.Src] * scale
 			_ = a
@@ -230,11 +206,11 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					x = roundAmount(a, s.unitOf(e), in.Rounding)
 				}
 			}
-			if e.Kind == Income {
+			if e.Kind() == Income {
 				for l := range Lanes {
 					pool[l] += x
 				}
-				continue
+				break
 			}
 			var short, covered, emp, over float64
 			_ = covered
@@ -278,6 +254,32 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					acc[l] += in * w[l][i]
 				} else {
 					acc[l] += in * ps[l].W[i]
+				}
+			}
+		}
+		if e.Ends() {
+			for l := range Lanes {
+				pool[l] = 0
+			}
+			if o.MonthEnds != nil {
+				for l := range Lanes {
+					o.MonthEnds[e.Month()] = bal[l] / scale
+				}
+			}
+			var row []float64
+			_ = row
+			if o.Rows != nil {
+				row = o.Rows[e.Month()]
+			}
+			for l := range Lanes {
+				row := row
+				if row != nil {
+					row[at[l]] = bal[l]
+				}
+			}
+			if o.HasDeadline && e.Month() == o.Deadline {
+				for l := range Lanes {
+					res[l].AtDeadline = bal[l]
 				}
 			}
 		}

@@ -114,8 +114,9 @@ func fixFlags(t *testing.T, fn string, f flags) string {
 // its statements that read no lane's state once, and the rest in loops
 // over the lanes: a loop ends where no later statement needs its
 // variables, and an if whose condition reads no lane's state holds its
-// own loop; from a statement that may continue on to the next event, the
-// case is one loop, whose continue goes on to the next lane.
+// own loop; from a statement that may leave the case (a break of the
+// switch), the case is one loop, whose break becomes a continue, on to the
+// next lane.
 func lanesOf(t *testing.T, fn, name string, f flags) string {
 	fs := token.NewFileSet()
 	file, err := parser.ParseFile(fs, "", "package engine\n\n"+fn, 0)
@@ -142,9 +143,14 @@ func lanesOf(t *testing.T, fn, name string, f flags) string {
 	}
 	loop := body.List[k].(*ast.LabeledStmt)
 	rs := loop.Stmt.(*ast.RangeStmt)
-	sw, ok := rs.Body.List[len(rs.Body.List)-1].(*ast.SwitchStmt)
-	if len(rs.Body.List) != 2 || !ok || text(t, fs, rs.Body.List[0]) != "e := &evs[i]" {
-		t.Fatal("walk.go: the events' loop is not e := &evs[i] and a switch")
+	var sw *ast.SwitchStmt
+	var end *ast.IfStmt // the month's end, after the switch
+	if len(rs.Body.List) == 3 {
+		sw, _ = rs.Body.List[1].(*ast.SwitchStmt)
+		end, _ = rs.Body.List[2].(*ast.IfStmt)
+	}
+	if sw == nil || end == nil || end.Init != nil || end.Else != nil || text(t, fs, rs.Body.List[0]) != "e := &evs[i]" {
+		t.Fatal("walk.go: the events' loop is not e := &evs[i], a switch and an if without else (the month's end)")
 	}
 	ret, ok := body.List[len(body.List)-1].(*ast.ReturnStmt)
 	if !ok || len(ret.Results) != 1 {
@@ -173,7 +179,7 @@ func lanesOf(t *testing.T, fn, name string, f flags) string {
 	}
 	// (the loop's e := &evs[i] reads the events: what it takes the
 	// address of is never written)
-	for _, st := range append(append([]ast.Stmt{sw}, post...), ret) {
+	for _, st := range append(append([]ast.Stmt{sw, end}, post...), ret) {
 		for o := range assigned(st) {
 			if declared[o] {
 				state[o] = true
@@ -275,6 +281,15 @@ func lanesOf(t *testing.T, fn, name string, f flags) string {
 		fmt.Fprintf(&b, "case %s:\n", strings.Join(list, ", "))
 		caseLanes(&b, t, fs, cc.Body, state)
 	}
+	b.WriteString("}\n")
+	if lanes(end.Cond, state) {
+		t.Fatal("walk.go: the month's end is told by a lane's state")
+	}
+	if breaks(end.Body) {
+		t.Fatal("walk.go: the month's end breaks the events' loop without its label")
+	}
+	fmt.Fprintf(&b, "if %s {\n", text(t, fs, end.Cond))
+	caseLanes(&b, t, fs, end.Body.List, state)
 	b.WriteString("}\n}\n")
 	laneLoop(&b, t, fs, append(post, &ast.ExprStmt{X: ast.NewIdent("r[l] = " + text(t, fs, ret.Results[0]))}))
 	b.WriteString("return r\n}\n")
@@ -300,7 +315,7 @@ func caseLanes(b *strings.Builder, t *testing.T, fs *token.FileSet, list []ast.S
 		slices.Sort(c)
 		return c
 	}
-	goesOn := false // the lane loop being gathered may continue
+	goesOn := false // the lane loop being gathered may leave the case
 	flush := func() {
 		if len(group) > 0 {
 			laneLoop(b, t, fs, group, copies(group)...)
@@ -330,20 +345,19 @@ func caseLanes(b *strings.Builder, t *testing.T, fs *token.FileSet, list []ast.S
 				once[o] = true
 			}
 			continue
-		case lanesIf && !continues(is):
+		case lanesIf && !breaks(is):
 			// an if every lane takes alike, around its own lane loop
 			flush()
 			fmt.Fprintf(b, "if %s {\n", text(t, fs, is.Cond))
 			laneLoop(b, t, fs, is.Body.List)
 			b.WriteString("}\n")
 			continue
-		case lanesIf && len(is.Body.List) > 0 && isContinue(is.Body.List[len(is.Body.List)-1]) && !continues(&ast.BlockStmt{List: is.Body.List[:len(is.Body.List)-1]}):
-			// the same, when it ends by going on to the next event: every
-			// lane does
+		case lanesIf && len(is.Body.List) > 0 && isBreak(is.Body.List[len(is.Body.List)-1]) && !breaks(&ast.BlockStmt{List: is.Body.List[:len(is.Body.List)-1]}):
+			// the same, when it ends by leaving the case: every lane does
 			flush()
 			fmt.Fprintf(b, "if %s {\n", text(t, fs, is.Cond))
 			laneLoop(b, t, fs, is.Body.List[:len(is.Body.List)-1])
-			b.WriteString("continue\n}\n")
+			b.WriteString("break\n}\n")
 			continue
 		default:
 			group = append(group, st)
@@ -357,7 +371,7 @@ func caseLanes(b *strings.Builder, t *testing.T, fs *token.FileSet, list []ast.S
 				laneVars[o] = true
 			}
 		}
-		goesOn = goesOn || continues(st)
+		goesOn = goesOn || breaks(st)
 	}
 	flush()
 }
@@ -372,15 +386,19 @@ func readLater(list []ast.Stmt, vars map[*ast.Object]bool) bool {
 	return false
 }
 
-// isContinue reports whether st is a continue of the events' loop.
-func isContinue(st ast.Stmt) bool {
+// isBreak reports whether st is a break of the events' switch.
+func isBreak(st ast.Stmt) bool {
 	br, ok := st.(*ast.BranchStmt)
-	return ok && br.Tok == token.CONTINUE && br.Label == nil
+	return ok && br.Tok == token.BREAK && br.Label == nil
 }
 
 // laneLoop writes list in a loop over the lanes, each of copies (a
-// variable of the case that every lane starts from alike) the lane's own.
+// variable of the case that every lane starts from alike) the lane's own;
+// a break of the events' switch in list goes on to the next lane.
 func laneLoop(b *strings.Builder, t *testing.T, fs *token.FileSet, list []ast.Stmt, copies ...string) {
+	for _, st := range list {
+		eachBreak(st, func(br *ast.BranchStmt) { br.Tok = token.CONTINUE })
+	}
 	b.WriteString("for l := range Lanes {\n")
 	for _, c := range copies {
 		b.WriteString(c + " := " + c + "\n")
@@ -530,20 +548,27 @@ func lanes(n ast.Node, state map[*ast.Object]bool) bool {
 	return found
 }
 
-// continues reports whether n continues the events' loop (a continue
-// not inside a loop of its own).
-func continues(n ast.Node) bool {
+// breaks reports whether n breaks the events' switch (a break not inside
+// a loop, switch or select of its own).
+func breaks(n ast.Node) bool {
 	found := false
+	eachBreak(n, func(*ast.BranchStmt) { found = true })
+	return found
+}
+
+// eachBreak calls f with each break of the events' switch in n.
+func eachBreak(n ast.Node, f func(*ast.BranchStmt)) {
 	ast.Inspect(n, func(n ast.Node) bool {
 		switch n := n.(type) {
-		case *ast.ForStmt, *ast.RangeStmt, *ast.FuncLit:
+		case *ast.ForStmt, *ast.RangeStmt, *ast.SwitchStmt, *ast.TypeSwitchStmt, *ast.SelectStmt, *ast.FuncLit:
 			return false
 		case *ast.BranchStmt:
-			found = found || n.Tok == token.CONTINUE && n.Label == nil
+			if n.Tok == token.BREAK && n.Label == nil {
+				f(n)
+			}
 		}
-		return !found
+		return true
 	})
-	return found
 }
 
 // fold drops what the constants rule out: the branch of an if whose
