@@ -202,6 +202,13 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 			rate = st.Rate
 		}
 	}
+	// Every source valued alone, in one smooth walk that shares each
+	// year's tax among them by their interest (a withdrawal walked alone
+	// would earn negative interest and pay no tax), so that with the
+	// capital's own value they sum to the whole walk's balance.
+	in := s.inputs(pr)
+	alone := make([]float64, len(s.sources))
+	all := engine.Walk(s.eng, &in, &engine.Options{Mode: engine.Smooth, Each: alone}).Closing
 	var sumV float64 // the other terms' values, unrounded
 	ruled := -1      // where in the terms the ruled withdrawals go
 	for i, src := range s.sources {
@@ -229,7 +236,7 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 		if count == 0 {
 			continue
 		}
-		v := -s.smooth(pr, true, int32(i)) / grow
+		v := -alone[i] / grow
 		sumV += v
 		amt := pr.amounts[i].Abs()
 		if !src.out {
@@ -256,7 +263,7 @@ func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capit
 		// A rule decides its amounts from the whole balance, so no flow
 		// valued alone shows them: they are what the walk of every source
 		// spends beyond the other terms.
-		v := -(s.smooth(pr, false, 0)-capital.Float()*grow)/grow - sumV
+		v := -(all-alone[idx])/grow - sumV
 		t := Term{Label: "withdrawals decided by their rule", Kind: Withdrawal, Value: money.FromFloat(v).Round(s.places, s.rounding),
 			Why: "each amount is decided by its rule from the whole balance"}
 		eq.Terms = slices.Insert(eq.Terms, ruled, t)
