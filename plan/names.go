@@ -11,6 +11,8 @@ import (
 	"strings"
 	"unicode"
 	"unicode/utf8"
+
+	"cairn/money"
 )
 
 // sameName reports whether a and b name the same goal or stream: equal
@@ -114,18 +116,24 @@ func describeRune(r rune) string {
 }
 
 // named is the names given so far in one list (the goals of a file, the
-// streams of a goal), each as nameKey has it, with the path that gave it.
-type named []struct{ key, path string }
+// streams of a goal), each as written and as nameKey has it, with the path
+// that gave it.
+type named []struct{ name, key, path string }
 
-// add records name, given at path. If an earlier one is the same name, it
-// returns that one's path and true.
+// add records name, given at path. If an earlier one is the same name (see
+// sameName), it returns words for that one — its path, and the name as it
+// was written there when that is written otherwise — and true.
 func (ns *named) add(name, path string) (string, bool) {
 	k := nameKey(name)
 	for _, n := range *ns {
-		if strings.EqualFold(n.key, k) {
-			return n.path, true
+		if !strings.EqualFold(n.key, k) {
+			continue
 		}
+		if n.name == name {
+			return n.path + " has it too", true
+		}
+		return fmt.Sprintf("%s has %s, the same name: case, spacing and invisible characters do not tell names apart", n.path, money.Quote(n.name)), true
 	}
-	*ns = append(*ns, struct{ key, path string }{k, path})
+	*ns = append(*ns, struct{ name, key, path string }{name, k, path})
 	return "", false
 }

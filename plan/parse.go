@@ -579,7 +579,7 @@ func (d *decoder) plan(n *yaml.Node, asOf Month) *Plan {
 			continue
 		}
 		if j, dup := names.add(g.Name, path); dup {
-			d.errorf(gn, join(path, "name"), "duplicate goal name %s (%s has it too)", money.Quote(g.Name), j)
+			d.errorf(gn, join(path, "name"), "duplicate goal name %s (%s)", money.Quote(g.Name), j)
 		}
 		p.Goals = append(p.Goals, g)
 	}
@@ -612,7 +612,7 @@ func (d *decoder) goal(p *Plan, n *yaml.Node, path string) *Goal {
 			sp := fmt.Sprintf("%s[%d]", kp, i)
 			if s := d.stream(p, g, resolve(sn), sp, out, key == "income"); s != nil {
 				if j, dup := streams.add(s.Name, sp); dup && s.Name != "" {
-					d.errorf(sn, join(sp, "name"), "duplicate stream name %s in this goal (%s has it too)", money.Quote(s.Name), j)
+					d.errorf(sn, join(sp, "name"), "duplicate stream name %s in this goal (%s)", money.Quote(s.Name), j)
 				}
 				switch key {
 				case "withdrawals":

@@ -179,7 +179,7 @@ func (d *decoder) scenarios(p *Plan, v *yaml.Node) {
 			continue
 		}
 		if j, dup := names.add(sc.Name, path); dup {
-			d.errorf(given["name"], join(path, "name"), "duplicate scenario name %s (%s has it too)", money.Quote(sc.Name), j)
+			d.errorf(given["name"], join(path, "name"), "duplicate scenario name %s (%s)", money.Quote(sc.Name), j)
 			continue
 		}
 		cp := join(path, "changes")
