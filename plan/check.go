@@ -94,7 +94,7 @@ func (p *Plan) problems() []problem {
 		}
 		if g.HasMatchUpTo && g.Salary.IsZero() {
 			out = append(out, problem{goal: g, at: "match_up_to", key: "match_up_to", involves: []string{"match_up_to", "salary"},
-				msg: "a match up to a share of the salary needs the salary (want salary: the pay a year)"})
+				msg: "a match up to a share of the salary needs the salary, above 0 (want salary: the pay a year; for no match, match: 0)"})
 		}
 		if g.Tax == Untaxed && (g.TaxRate != 0 || g.HasTaxLater) {
 			out = append(out, problem{goal: g, at: "tax_rate", key: "tax_rate", involves: []string{"tax", "tax_rate", "tax_later"},

@@ -317,7 +317,7 @@ goals:
 	if got := st.Goals[0].EmployerMonthly.String(); got != "150.00" {
 		t.Errorf("status: employer %s a month, want 150.00 (1,800.00 ÷ 12)", got)
 	}
-	if _, err := plan.Parse("m.yaml", []byte(strings.Replace(src, "    salary: 60,000\n", "", 1)), 0); err == nil || !strings.Contains(err.Error(), "needs the salary") {
+	if _, err := plan.Parse("m.yaml", []byte(strings.Replace(src, "    salary: 60,000\n", "", 1)), 0); err == nil || !strings.Contains(err.Error(), "needs the salary, above 0") {
 		t.Errorf("match_up_to without a salary: %v, want a refusal", err)
 	}
 }
