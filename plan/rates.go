@@ -48,3 +48,35 @@ func rateHint(s string) string {
 	}
 	return ""
 }
+
+// ShownForms returns rates each stated to the six decimals of a percent
+// that `cairn convert` shows: the nearest, or the next toward zero where
+// the nearest would read back outside lo% to hi% a year effective, as a
+// form of a rate at an end of that range can (−99% is −457.624049%
+// compounded daily to nearest, which reads back below −99%): so that every
+// form shown reads back as a rate the goals file takes.
+func ShownForms(forms []money.Rate, lo, hi float64) []money.Rate {
+	out := make([]money.Rate, len(forms))
+	for i, f := range forms {
+		s, _ := strconv.ParseFloat(strconv.FormatFloat(f.Stated()*100, 'f', 6, 64), 64)
+		g := restated(f, s/100)
+		if e := g.Effective() * 100; !(e >= lo && e <= hi) && s != 0 {
+			s -= math.Copysign(1e-6, s)
+			s, _ = strconv.ParseFloat(strconv.FormatFloat(s, 'f', 6, 64), 64)
+			g = restated(f, s/100)
+		}
+		out[i] = g
+	}
+	return out
+}
+
+// restated returns the rate stated x in r's form.
+func restated(r money.Rate, x float64) money.Rate {
+	switch r.Form() {
+	case money.Nominal:
+		return money.NominalRate(x, r.Freq())
+	case money.Periodic:
+		return money.PeriodicRate(x, r.Freq())
+	}
+	return money.EffectiveRate(x)
+}

@@ -1,8 +1,11 @@
 package plan_test
 
 import (
+	"math"
 	"math/rand/v2"
 	"regexp"
+	"strconv"
+	"strings"
 	"testing"
 
 	"cairn/money"
@@ -59,4 +62,33 @@ func TestShownRateMeetsTargetWithoutOutflows(t *testing.T) {
 		t.Errorf("only %d of %d plans answered", answered, honestyPlans)
 	}
 	t.Logf("%d of %d plans answered", answered, honestyPlans)
+}
+
+// Every form `cairn convert` shows reads back as a rate the goals file
+// takes, at the ends of the range too: to six decimals, the nearest, or
+// one step toward zero where the nearest would read back outside it
+// (-99% is -457.62404873...% compounded daily, -457.624049% to nearest,
+// which reads back below -99%; common practice, no source: a figure
+// shown is one the user may type back).
+func TestShownFormsReadBack(t *testing.T) {
+	for _, in := range []string{"-99%", "100%", "-99% compounded daily", "69.314718% compounded continuously", "5.9% per year", "-50%", "0%", "4.1% apy", "3.9% compounded monthly", "-98.999999%", "99.999999%"} {
+		r, err := plan.ParseRateIn(in, plan.MinRatePercent, plan.MaxRatePercent)
+		if err != nil {
+			t.Fatalf("%s: %v", in, err)
+		}
+		forms := r.Forms()
+		for i, f := range plan.ShownForms(forms, plan.MinRatePercent, plan.MaxRatePercent) {
+			s := strconv.FormatFloat(f.Stated()*100, 'f', 6, 64)
+			if d := math.Abs(f.Stated() - forms[i].Stated()); d > 1.0000001e-8 {
+				t.Errorf("%s: %s%% shown for %v, off by more than one step of the sixth decimal", in, s, forms[i])
+			}
+			written := s + "%"
+			if f.Form() != money.Effective {
+				written += " " + strings.TrimPrefix(f.String(), money.Percent(f.Stated(), 6)+" ")
+			}
+			if _, err := plan.ParseRateIn(written, plan.MinRatePercent, plan.MaxRatePercent); err != nil {
+				t.Errorf("%s: shown as %q, which does not read back: %v", in, written, err)
+			}
+		}
+	}
 }

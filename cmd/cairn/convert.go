@@ -52,7 +52,7 @@ func convertCommand(e *env) *cli.Command {
 			if _, err := parseFormat(c); err != nil {
 				return err
 			}
-			return out(c, e, convertDoc(r, forms, pi))
+			return out(c, e, convertDoc(r, plan.ShownForms(forms, plan.MinRatePercent, plan.MaxRatePercent), pi))
 		},
 	}
 }
