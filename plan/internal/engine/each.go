@@ -88,14 +88,19 @@ func (ea each) endMonth() {
 }
 
 // tax takes fraction rate of each balance's interest since the last tax, at
-// a year's end (an interest date: the next period's base). Each source's
+// a year's end (an interest date: the next period's base), when the whole
+// walk pays a tax (paid: its year's interest is positive). Each source's
 // share is taken whatever its sign, so that the shares sum to the whole
-// walk's tax when that is positive.
-func (ea each) tax(rate float64) {
+// walk's tax; a year the whole walk pays none, no source pays or is
+// refunded any.
+func (ea each) tax(rate float64, paid bool) {
 	for k := range ea {
 		a := &ea[k]
 		x := a.taxable * rate
 		a.taxable = 0
+		if !paid {
+			continue
+		}
 		a.bal -= x
 		a.base -= x
 		a.low = a.bal + a.accrued

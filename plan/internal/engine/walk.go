@@ -630,9 +630,6 @@ events:
 				o.Log.post(e.Tick, e.begins(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
-			if alone {
-				ea.tax(in.Tax)
-			}
 			// The tax on the year's interest, paid from the account at an
 			// interest date (Tau 1): it leaves the next period's base. A
 			// year whose interest is not positive pays none (no refund or
@@ -640,6 +637,9 @@ events:
 			t := taxable
 			x := t * in.Tax
 			taxable = 0
+			if alone {
+				ea.tax(in.Tax, x > 0)
+			}
 			var dx float64 // its derivative (Options.DRates)
 			if slope {
 				dx, dv.taxable = dv.taxable*in.Tax, 0
