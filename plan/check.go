@@ -92,9 +92,9 @@ func (p *Plan) problems() []problem {
 				msg: fmt.Sprintf("%s goes into the account in the year from %s, over the yearly cap of %s (want at most the cap)",
 					in.Format(p.Currency, false), from, g.Cap.Format(p.Currency, false))})
 		}
-		if g.HasMatchUpTo && g.Salary.IsZero() {
-			out = append(out, problem{goal: g, at: "match_up_to", key: "match_up_to", involves: []string{"match_up_to", "salary"},
-				msg: "a match up to a share of the salary needs the salary, above 0 (want salary: the pay a year; for no match, match: 0)"})
+		if g.HasMatchUpTo && g.Salary.IsZero() && g.Match != 0 {
+			out = append(out, problem{goal: g, at: "match_up_to", key: "match_up_to", involves: []string{"match_up_to", "salary", "match"},
+				msg: "a match up to a share of the salary needs a salary above 0 (want salary: the pay a year; with no pay, match: 0%)"})
 		}
 		if g.Tax == Untaxed && (g.TaxRate != 0 || g.HasTaxLater) {
 			out = append(out, problem{goal: g, at: "tax_rate", key: "tax_rate", involves: []string{"tax", "tax_rate", "tax_later"},

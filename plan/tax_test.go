@@ -317,8 +317,13 @@ goals:
 	if got := st.Goals[0].EmployerMonthly.String(); got != "150.00" {
 		t.Errorf("status: employer %s a month, want 150.00 (1,800.00 ÷ 12)", got)
 	}
-	if _, err := plan.Parse("m.yaml", []byte(strings.Replace(src, "    salary: 60,000\n", "", 1)), 0); err == nil || !strings.Contains(err.Error(), "needs the salary, above 0") {
+	if _, err := plan.Parse("m.yaml", []byte(strings.Replace(src, "    salary: 60,000\n", "", 1)), 0); err == nil || !strings.Contains(err.Error(), "needs a salary above 0") {
 		t.Errorf("match_up_to without a salary: %v, want a refusal", err)
+	}
+	// no pay and no match (a scenario's year out of work): nothing to refuse
+	noPay := strings.NewReplacer("    salary: 60,000\n", "    salary: 0\n", "match: 50%", "match: 0%").Replace(src)
+	if _, err := plan.Parse("m.yaml", []byte(noPay), 0); err != nil {
+		t.Errorf("match: 0%% with salary 0: %v, want it taken", err)
 	}
 }
 
