@@ -52,8 +52,9 @@ type Question struct {
 	Explain bool
 }
 
-// An Answer is a solver's answer with the ledger that proves it and the
-// equation of value behind it.
+// An Answer is a solver's answer and, when the question asks it to explain
+// (Question.Explain), the ledger that proves it and the equation of value
+// behind it.
 type Answer struct {
 	Goal *Goal
 	For  Quantity

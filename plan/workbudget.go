@@ -8,8 +8,8 @@ import (
 )
 
 // The work budget. A command's work grows with the events of the schedules
-// it walks: each amount of each stream, each month end, and the interest
-// dates between them. The limits on a goals file (see limits.go) bound the
+// it walks: each amount of each stream, the interest dates between them,
+// and a month's end where no other event of the month carries it. The limits on a goals file (see limits.go) bound the
 // file, not how its streams multiply: 50 daily streams over 150 years are
 // 2.7 million amounts. So before a goal is compiled, the events of its
 // schedule through the plan's last month (the longest any command compiles)
