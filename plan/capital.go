@@ -108,6 +108,7 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	if full {
 		a.Ledger = s.ledger(pr)
 		a.Equation = s.capitalEquation(pr, idx, at, leave, a.Amount, grow)
+		a.Equation.IncomeUnused = incomeUnused(a.Ledger)
 	}
 	return a, nil
 }

@@ -61,6 +61,23 @@ type Equation struct {
 	// effective annual rate the balance grows at after that tax,
 	// r(1 − TaxOnGrowth) for the first rate's effective annual rate r.
 	TaxOnGrowth, AfterTax float64
+	// IncomeUnused is the income its months' withdrawals did not need: the
+	// ledger does not deposit it, and the terms, each valued alone, count
+	// it in full, so that they differ from Balance by more than rounding.
+	IncomeUnused money.Amount
+}
+
+// incomeUnused returns the income of ledger l that its months'
+// withdrawals did not need (see [Equation.IncomeUnused]).
+func incomeUnused(l *Ledger) money.Amount {
+	var in, used money.Amount
+	for _, e := range l.Entries() {
+		if e.Kind == Income {
+			in = in.Add(e.Amount)
+		}
+		used = used.Add(e.FromIncome)
+	}
+	return in.Sub(used)
 }
 
 // EquationOf returns the equation of value of goal g at the end of month at.
@@ -78,7 +95,7 @@ func equation(p *Plan, g *Goal, at Month, pr *params) *Equation {
 // every flow's value then; l is the ledger of s under pr.
 func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	g, at := s.goal, s.end
-	eq := &Equation{At: at, Balance: l.Closing, TaxOnGrowth: g.RateOnGrowth()}
+	eq := &Equation{At: at, Balance: l.Closing, TaxOnGrowth: g.RateOnGrowth(), IncomeUnused: incomeUnused(l)}
 	counts := make([]int, len(s.sources))
 	units := make([]float64, len(s.sources)) // each source's first unit
 	years := make([]int32, len(s.sources))   // and the yearly rises before it

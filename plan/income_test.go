@@ -1,6 +1,8 @@
 package plan_test
 
 import (
+	"math"
+	"strings"
 	"testing"
 
 	"cairn/plan"
@@ -79,5 +81,44 @@ func TestCapitalNetOfIncome(t *testing.T) {
 	}
 	if !income {
 		t.Errorf("equation %+v has no income term of −12,000.00", a.Equation.Terms)
+	}
+}
+
+// Income larger than its month's withdrawals is not deposited: the ledger
+// drops what they did not need, which the equation's terms, each source
+// valued alone, cannot show, so the equation says how much (worked by
+// hand: 1,400 of income a month for the 180 months from 2035-01 against
+// 1,000 of withdrawals leaves 400 a month, 72,000.00 in all).
+func TestEquationSaysIncomeNotDeposited(t *testing.T) {
+	src := `cairn: 1
+start: 2027-01
+goals:
+  - name: g
+    rate: 6%
+    by: 2029-12
+    withdrawals:
+      - {amount: 1000, every: month, from: 2030-01, until: 2049-12}
+    income:
+      - {amount: 1400, every: month, from: 2035-01}
+`
+	p := mustParse(t, "income.yaml", src)
+	a, err := plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital, Explain: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := a.Equation.IncomeUnused.String(); got != "72000.00" {
+		t.Errorf("income not deposited %s, want 72000.00", got)
+	}
+	// income below the withdrawals is all used
+	p = mustParse(t, "income.yaml", strings.Replace(src, "amount: 1400", "amount: 600", 1))
+	a, err = plan.Solve(p, p.Goals[0], plan.Question{For: plan.ForCapital, Explain: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !a.Equation.IncomeUnused.IsZero() {
+		t.Errorf("income not deposited %s, want none", a.Equation.IncomeUnused)
+	}
+	if d := math.Abs(a.Equation.Sum.Float() - a.Amount.Float()); d > 0.10 {
+		t.Errorf("terms sum to %s, capital %s", a.Equation.Sum, a.Amount)
 	}
 }

@@ -101,6 +101,7 @@ var jsonOutputs = map[string][]jsonField{
 		{"after_tax_rate", "string", false, "with the equation, where interest is taxed as it grows: the effective annual rate after that tax"},
 		{"equation", "array", false, "with --explain: the equation of value, one term a flow"},
 		{"equation_sum", "string", false, "with --explain: the sum of the terms"},
+		{"income_not_deposited", "string", false, "with --explain, where income is larger than its months' withdrawals: the income they did not need, which the ledger does not deposit and the income's term counts in full"},
 	},
 	"project": {
 		{"goal", "string", true, "the goal's name"},

@@ -335,8 +335,12 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 		if a.For == plan.ForCapital {
 			what = "the capital the ledger needs"
 		}
-		d.After = append(d.After, fmt.Sprintf("The terms sum to %s; %s is %s (each interest credit, fee and grown amount is posted rounded to the cent).",
-			amt(p, a.Equation.Sum), what, amt(p, a.Equation.Balance)))
+		why := "each interest credit, fee and grown amount is posted rounded to the cent"
+		if u := a.Equation.IncomeUnused; u.Sign() > 0 {
+			why = fmt.Sprintf("income of %s in all that its months' withdrawals did not need is not deposited, which the income's term counts in full; and each posting is rounded to the cent", amt(p, u))
+			j["income_not_deposited"] = jamt(p, u)
+		}
+		d.After = append(d.After, fmt.Sprintf("The terms sum to %s; %s is %s (%s).", amt(p, a.Equation.Sum), what, amt(p, a.Equation.Balance), why))
 		if eq := a.Equation; eq.TaxOnGrowth > 0 {
 			d.After = append(d.After, fmt.Sprintf("After the tax of %s on each year's interest, paid at each year's end, money held for whole years grows at %s a year effective (%s less the tax); the terms are valued with the tax.",
 				pct(eq.TaxOnGrowth), pct(eq.AfterTax), pct(g.Rates[0].Rate.Effective())))
