@@ -162,6 +162,9 @@ func capitalLine(p *plan.Plan, a *plan.Answer) string {
 		}
 		b.WriteString(t.Label + " " + x)
 	}
+	if u := a.Equation.IncomeUnused; u.Sign() > 0 {
+		b.WriteString(fmt.Sprintf(", but for %s of income in all that its months' withdrawals do not need, which is not deposited", amt(p, u)))
+	}
 	return fmt.Sprintf("%s: the capital needed at the end of %s is %s, the value then of what it pays: %s.",
 		a.Goal.Name, a.Month, amt(p, a.Amount), strings.TrimSpace(b.String()))
 }
