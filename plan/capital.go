@@ -105,6 +105,9 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	settle(p, g, a)
 	a.Balance, _ = s.closing(pr)
 	a.Left = a.Balance
+	if a.Amount.IsZero() {
+		a.Note = "what comes in pays every withdrawal: no capital is needed"
+	}
 	if full {
 		a.Ledger = s.ledger(pr)
 		a.Equation = s.capitalEquation(pr, idx, at, leave, a.Amount, grow)

@@ -127,7 +127,11 @@ func sentence(p *plan.Plan, a *plan.Answer) string {
 		if !a.Target.IsZero() {
 			s += " and leave " + amt(p, a.Target)
 		}
-		return s + "."
+		s += "."
+		if a.Note != "" {
+			s += " (" + a.Note + ".)"
+		}
+		return s
 	}
 	return ""
 }
@@ -164,6 +168,9 @@ func capitalLine(p *plan.Plan, a *plan.Answer) string {
 	}
 	if u := a.Equation.IncomeUnused; u.Sign() > 0 {
 		b.WriteString(fmt.Sprintf(", but for %s of income in all that its months' withdrawals do not need, which is not deposited", amt(p, u)))
+	}
+	if a.Amount.IsZero() && a.Equation.Sum.Sign() < 0 {
+		b.WriteString(", which comes to less than nothing: no capital is needed")
 	}
 	return fmt.Sprintf("%s: the capital needed at the end of %s is %s, the value then of what it pays: %s.",
 		a.Goal.Name, a.Month, amt(p, a.Amount), strings.TrimSpace(b.String()))
@@ -339,6 +346,9 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 			what = "the capital the ledger needs"
 		}
 		why := "each interest credit, fee and grown amount is posted rounded to the cent"
+		if a.For == plan.ForCapital && a.Amount.IsZero() && a.Equation.Sum.Sign() < 0 {
+			why = "a capital is never less than 0.00: what comes in is worth more than what goes out"
+		}
 		if u := a.Equation.IncomeUnused; u.Sign() > 0 {
 			why = fmt.Sprintf("income of %s in all that its months' withdrawals did not need is not deposited, which the income's term counts in full; and each posting is rounded to the cent", amt(p, u))
 			j["income_not_deposited"] = jamt(p, u)
