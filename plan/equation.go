@@ -68,16 +68,19 @@ type Equation struct {
 }
 
 // incomeUnused returns the income of ledger l that its months'
-// withdrawals did not need (see [Equation.IncomeUnused]).
+// withdrawals did not need (see [Equation.IncomeUnused]), from its postings
+// in minor units.
 func incomeUnused(l *Ledger) money.Amount {
-	var in, used money.Amount
-	for _, e := range l.Entries() {
-		if e.Kind == Income {
-			in = in.Add(e.Amount)
+	var unused int64
+	for _, r := range l.log.Posts {
+		if r.Kind == engine.PostIncome {
+			unused += r.Amount
 		}
-		used = used.Add(e.FromIncome)
 	}
-	return in.Sub(used)
+	for _, pt := range l.log.Parts {
+		unused -= pt.Covered
+	}
+	return money.Minor(unused, l.places)
 }
 
 // EquationOf returns the equation of value of goal g at the end of month at.
