@@ -115,7 +115,7 @@ func TestRateSearchFamily(t *testing.T) {
 		}
 		g := p.Goals[0]
 		n := engine.Walks()
-		a, err := solve(p, g, Question{For: ForRate}, false)
+		a, err := Solve(p, g, Question{For: ForRate})
 		w := engine.Walks() - n
 		if err != nil {
 			t.Errorf("plan %d: %v\n%s", i, err, src)

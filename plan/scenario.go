@@ -138,13 +138,14 @@ func CompareCases(cases []Case, goal string, q Question) (*Grid, error) {
 		return nil, errors.New("no cases to compare")
 	}
 	gr := &Grid{For: q.For, Keys: []string{"scenario"}}
+	q.Explain = false // a grid shows no proofs
 	for i, c := range cases {
 		g := c.Plan.Goal(goal)
 		if g == nil {
 			return nil, fmt.Errorf("no goal named %s", money.Quote(goal))
 		}
 		cell := Cell{Values: []string{c.Name}}
-		cell.Answer, cell.Err = solve(c.Plan, g, q, false)
+		cell.Answer, cell.Err = Solve(c.Plan, g, q)
 		if i == 0 {
 			gr.Goal, gr.Base = g.Name, cell
 			continue

@@ -182,13 +182,11 @@ func lastOut(p *Plan, g *Goal) (Month, bool) {
 // [Allocate]): for time, the month its shares reach the target; for
 // deposit, the level share it needs a budget date (ByPriority); other
 // quantities have no answer for it. When the question has
-// no answer it returns a [*SolveError] saying why.
-func Solve(p *Plan, g *Goal, q Question) (*Answer, error) { return solve(p, g, q, q.Explain) }
-
-// solve answers q; with full unset it leaves out the answer's Ledger and
-// Equation, which what-if grids and the household status do not show (nor
-// a solve not asked to explain).
-func solve(p *Plan, g *Goal, q Question, full bool) (*Answer, error) {
+// no answer it returns a [*SolveError] saying why. Without q.Explain the
+// answer has no Ledger or Equation, which what-if grids, the household
+// status and a plain solve do not show.
+func Solve(p *Plan, g *Goal, q Question) (*Answer, error) {
+	full := q.Explain
 	var a *Answer
 	var err error
 	if i, ok := budgetIndex(p, g); ok { // its share of the budget as allocated

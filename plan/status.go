@@ -135,13 +135,13 @@ func goalStatus(p *Plan, g *Goal) GoalStatus {
 	} else if first, ok := firstWithdrawal(g); ok && first > p.Start {
 		// no target: the capital the withdrawals need is the goal's
 		// (a drawdown under way from the start has its answer in Lasts)
-		gs.Capital, gs.CapitalErr = solve(p, g, Question{For: ForCapital}, true)
+		gs.Capital, gs.CapitalErr = Solve(p, g, Question{For: ForCapital, Explain: true})
 		if gs.CapitalErr == nil {
 			gs.against(p, g, gs.Capital.Month, gs.Capital.Amount)
 		}
 	}
 	if g.HasTarget {
-		if a, err := solve(p, g, Question{For: ForTime}, false); err != nil {
+		if a, err := Solve(p, g, Question{For: ForTime}); err != nil {
 			gs.Reach = err
 		} else if g.HasBy && !gs.OnTrack && a.Month <= g.By {
 			// reached, then fallen below by the deadline: a row never
@@ -235,7 +235,7 @@ func (gs *GoalStatus) lasts(p *Plan, g *Goal) {
 	if !g.DrawsDown() {
 		return
 	}
-	gs.Lasts, gs.LastsErr = solve(p, g, Question{For: ForLasts}, false)
+	gs.Lasts, gs.LastsErr = Solve(p, g, Question{For: ForLasts})
 	if len(g.Withdrawals) == 0 && gs.LastsErr == nil && gs.Lasts.Lasts {
 		gs.Lasts = nil
 	}
@@ -262,7 +262,7 @@ func (gs *GoalStatus) against(p *Plan, g *Goal, at Month, target money.Amount) {
 	if !gs.OnTrack {
 		gs.Short = target.Sub(gs.Projected)
 	}
-	gs.Needed, gs.NeededErr = solve(p, g, Question{For: ForDeposit}, false)
+	gs.Needed, gs.NeededErr = Solve(p, g, Question{For: ForDeposit})
 	if gs.NeededErr == nil {
 		gs.MonthlyNeeded = monthlyDeposits(p, g, gs.Needed.Stream, gs.Needed.Amount)
 	}

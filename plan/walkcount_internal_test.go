@@ -65,7 +65,7 @@ func TestWalkBudget(t *testing.T) {
 	for _, tt := range tests {
 		for _, full := range []bool{false, true} {
 			n := engine.Walks()
-			if _, err := solve(p, g, Question{For: tt.q}, full); err != nil {
+			if _, err := Solve(p, g, Question{For: tt.q, Explain: full}); err != nil {
 				t.Fatalf("%v: %v", tt.q, err)
 			}
 			got, want := engine.Walks()-n, tt.search
@@ -101,7 +101,7 @@ func TestCommonWalksAreCompiled(t *testing.T) {
 	n, all := engine.SlowWalks(), engine.Walks()
 	g := p.Goals[0]
 	for _, q := range []Quantity{ForRate, ForDeposit, ForTime} {
-		if _, err := solve(p, g, Question{For: q}, true); err != nil {
+		if _, err := Solve(p, g, Question{For: q, Explain: true}); err != nil {
 			t.Fatalf("%v: %v", q, err)
 		}
 	}

@@ -50,7 +50,8 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 	if err := checkGridWork(p, g, total, q.For); err != nil {
 		return nil, err
 	}
-	gr.Base.Answer, gr.Base.Err = solve(p, g, q, false)
+	q.Explain = false // a grid shows no proofs
+	gr.Base.Answer, gr.Base.Err = Solve(p, g, q)
 	gr.Cells = make([]Cell, total)
 	errs := make([]error, total)
 	// Cells are independent: solve them on every core, each worker taking
@@ -79,7 +80,7 @@ func Compare(p *Plan, goal, stream string, axes []Vary, q Question) (*Grid, erro
 			errs[c] = err
 			return
 		}
-		cell.Answer, cell.Err = solve(q2, g2, q, false)
+		cell.Answer, cell.Err = Solve(q2, g2, q)
 		gr.Cells[c] = cell
 	})
 	for _, err := range errs {
