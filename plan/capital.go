@@ -110,8 +110,7 @@ func solveCapital(p *Plan, g *Goal, full bool) (*Answer, error) {
 	}
 	if full {
 		a.Ledger = s.ledger(pr)
-		a.Equation = s.capitalEquation(pr, idx, at, leave, a.Amount, grow)
-		a.Equation.IncomeUnused = incomeUnused(a.Ledger)
+		a.Equation = s.capitalEquation(pr, a.Ledger, idx, at, leave, a.Amount, grow)
 	}
 	return a, nil
 }
@@ -189,10 +188,11 @@ func solveStartPaying(p *Plan, g *Goal, full bool) (*Answer, error) {
 // standard factors — (P/A, i, n) for a level income, times (F/P, i, 1) when
 // it is paid at the start of each period, and for an income raised once a
 // year by g the geometric-gradient present worth of its years. Withdrawals
-// count positive (they need capital), money in negative.
-func (s *schedule) capitalEquation(pr *params, idx int32, at Month, leave, capital money.Amount, grow float64) *Equation {
+// count positive (they need capital), money in negative. l is the ledger
+// of s under pr.
+func (s *schedule) capitalEquation(pr *params, l *Ledger, idx int32, at Month, leave, capital money.Amount, grow float64) *Equation {
 	p, h := s.plan, s.goal
-	eq := &Equation{At: at, Balance: capital}
+	eq := &Equation{At: at, Balance: capital, IncomeUnused: incomeUnused(l)}
 	atTick := monthTick(p, at+1)
 	plain := h.Fee == 0 && untouched(p, h)
 	for _, st := range h.Rates[1:] {

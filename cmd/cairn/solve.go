@@ -169,12 +169,17 @@ func capitalLine(p *plan.Plan, a *plan.Answer) string {
 	if u := a.Equation.IncomeUnused; u.Sign() > 0 {
 		b.WriteString(fmt.Sprintf(", but for %s of income in all that its months' withdrawals do not need, which is not deposited", amt(p, u)))
 	}
-	if a.Amount.IsZero() && a.Equation.Sum.Sign() < 0 {
+	if noCapital(a) {
 		b.WriteString(", which comes to less than nothing: no capital is needed")
 	}
 	return fmt.Sprintf("%s: the capital needed at the end of %s is %s, the value then of what it pays: %s.",
 		a.Goal.Name, a.Month, amt(p, a.Amount), strings.TrimSpace(b.String()))
 }
+
+// noCapital reports whether capital answer a needs none because what
+// comes in is worth more than what goes out: its equation's terms sum
+// below 0, and a capital is never less than 0.00.
+func noCapital(a *plan.Answer) bool { return a.Amount.IsZero() && a.Equation.Sum.Sign() < 0 }
 
 // span says how long the plan runs until the month of answer a, counting
 // the way a reader counts: "530 months (44 years 2 months), 2027-01 through
@@ -346,7 +351,7 @@ func solveDoc(p *plan.Plan, a *plan.Answer, explain bool) *render.Doc {
 			what = "the capital the ledger needs"
 		}
 		why := "each interest credit, fee and grown amount is posted rounded to the cent"
-		if a.For == plan.ForCapital && a.Amount.IsZero() && a.Equation.Sum.Sign() < 0 {
+		if a.For == plan.ForCapital && noCapital(a) {
 			why = "a capital is never less than 0.00: what comes in is worth more than what goes out"
 		}
 		if u := a.Equation.IncomeUnused; u.Sign() > 0 {
