@@ -339,10 +339,59 @@ func rateOf(in *Inputs, k uint8, j float64) money.Multiplier {
 // unitOf returns the exact form of flow event e's unit: a whole number of
 // years' growth at the source's decimal rate, when it is one.
 func (s *Schedule) unitOf(e *Event) money.Multiplier {
-	if g := s.grow[e.Src]; !math.IsNaN(g) {
-		return money.GrowthMultiplier(s.Unit(e), g, int(e.Year))
+	return s.unitAt(int(e.Src), int(e.Year), s.Unit(e))
+}
+
+// unitAt returns the exact form of unit u of source src in its year y of
+// growth (see unitOf).
+func (s *Schedule) unitAt(src, y int, u float64) money.Multiplier {
+	if g := s.grow[src]; !math.IsNaN(g) {
+		return money.GrowthMultiplier(u, g, y)
 	}
-	return money.FloatMultiplier(s.Unit(e))
+	return money.FloatMultiplier(u)
+}
+
+// An amountTable is what a flow of each source moves in each year of its
+// growth (see [Schedule.flowAmounts]). A walk computes it once from its
+// inputs, and every lane of a lane walk reads the one table.
+type amountTable []float64
+
+// amountRoom is room for an amountTable on a walk's stack: the table of
+// most plans, a few sources over some decades.
+type amountRoom [256]float64
+
+// flowAmounts returns what a flow of each source moves in each year of its
+// growth, in the order of Schedule.units: the source's amount times the
+// unit, in the walk's units, rounded to the minor unit as a flow's amount
+// is when exact (scale is then minor units per currency unit, else 1). A
+// walk reads a flow's amount there, computed once a walk instead of once a
+// flow, but for a source whose amounts are decided as it goes (Inputs.Set,
+// Rules, an index drawn at random). It is in buf's storage when that has
+// room; nil when the table would be longer than the events, and so cost
+// more than it saves.
+func (s *Schedule) flowAmounts(buf []float64, in *Inputs, scale float64, exact bool) amountTable {
+	if len(s.units) > len(s.events) {
+		return nil
+	}
+	xs := slices.Grow(buf[:0], len(s.units))[:len(s.units)]
+	top := s.base / s.stride
+	for i, u := range s.units {
+		src, y := i%s.stride, top-i/s.stride
+		if i >= s.base+s.stride { // a one-time amount
+			src, y = i-s.base, 0
+		}
+		a := in.Amounts[src] * scale
+		x := a * u
+		if exact {
+			if q, sure := money.RoundFast(x); sure {
+				x = q
+			} else {
+				x = roundAmount(a, s.unitAt(src, y, u), in.Rounding)
+			}
+		}
+		xs[i] = x
+	}
+	return xs
 }
 
 // roundMinor is [money.RoundMinor] in a form the compiler inlines, so that
@@ -496,6 +545,9 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 	if !paths {
 		w = s.weights(wbuf[:], in.Rates, in.Between)
 	}
+	var xbuf amountRoom // room for xs
+	var xs amountTable  // each source's amount by year
+	xs = s.flowAmounts(xbuf[:], in, scale, exact)
 	var dv *deriv // the derivatives (Options.DRates)
 	if slope {
 		dv = &deriv{dw: s.dweights(in.Rates, o.DRates, in.Between)}
@@ -754,40 +806,45 @@ events:
 			if one && int32(e.Src) != o.Source {
 				break
 			}
-			a := in.Amounts[e.Src] * scale
-			if set && int32(e.Src) == in.SetSrc {
-				a = in.Set[i] * scale
-			}
-			if ruled && in.Rules[e.Src].Kind != RuleFixed {
-				if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
-					u := s.Unit(e)
-					if infl && s.indexed(e) {
-						ia, ib := s.IndexOf(e)
-						u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
-					}
-					first := ruleYear[e.Src] < 0
-					if first {
-						ruledAmt[e.Src] = in.Amounts[e.Src]
-					}
-					// from the balance at the anniversary, which an amount paid
-					// at a period's end comes a period after
-					ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], annivBal[e.Src]/scale, u)
-					ruleYear[e.Src] = int32(e.Year)
+			var x float64 // what the flow moves
+			if xs != nil && !(set && int32(e.Src) == in.SetSrc) && !(ruled && in.Rules[e.Src].Kind != RuleFixed) && !(infl && s.indexed(e)) {
+				x = xs[s.base+int(e.Src)-s.stride*int(e.Year)]
+			} else {
+				a := in.Amounts[e.Src] * scale
+				if set && int32(e.Src) == in.SetSrc {
+					a = in.Set[i] * scale
 				}
-				a = ruledAmt[e.Src] * scale
-			}
-			x := a * s.Unit(e)
-			if infl && s.indexed(e) {
-				ia, ib := s.IndexOf(e)
-				x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
-				if exact {
-					x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
+				if ruled && in.Rules[e.Src].Kind != RuleFixed {
+					if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
+						u := s.Unit(e)
+						if infl && s.indexed(e) {
+							ia, ib := s.IndexOf(e)
+							u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
+						}
+						first := ruleYear[e.Src] < 0
+						if first {
+							ruledAmt[e.Src] = in.Amounts[e.Src]
+						}
+						// from the balance at the anniversary, which an amount paid
+						// at a period's end comes a period after
+						ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], annivBal[e.Src]/scale, u)
+						ruleYear[e.Src] = int32(e.Year)
+					}
+					a = ruledAmt[e.Src] * scale
 				}
-			} else if exact {
-				if q, sure := money.RoundFast(x); sure {
-					x = q
-				} else {
-					x = roundAmount(a, s.unitOf(e), in.Rounding)
+				x = a * s.Unit(e)
+				if infl && s.indexed(e) {
+					ia, ib := s.IndexOf(e)
+					x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
+					if exact {
+						x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
+					}
+				} else if exact {
+					if q, sure := money.RoundFast(x); sure {
+						x = q
+					} else {
+						x = roundAmount(a, s.unitOf(e), in.Rounding)
+					}
 				}
 			}
 			if alone {

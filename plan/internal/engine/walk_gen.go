@@ -65,6 +65,11 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = wbuf
 	var w [Lanes][]float64
 	_ = w
+	var xbuf amountRoom
+	_ = xbuf
+	var xs amountTable
+	_ = xs
+	xs = s.flowAmounts(xbuf[:], in, scale, exact)
 	var dv [Lanes]*deriv
 	_ = dv
 	var ea each
@@ -195,15 +200,21 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			}
 		case Mark:
 		case FlowEnd, FlowBegin, Income:
-			a := in.Amounts[e.Src] * scale
-			_ = a
-			x := a * s.Unit(e)
+			var x float64
 			_ = x
-			{
-				if q, sure := money.RoundFast(x); sure {
-					x = q
-				} else {
-					x = roundAmount(a, s.unitOf(e), in.Rounding)
+			if xs != nil && !(set && int32(e.Src) == in.SetSrc) && !(ruled && in.Rules[e.Src].Kind != RuleFixed) && !(infl && s.indexed(e)) {
+				x = xs[s.base+int(e.Src)-s.stride*int(e.Year)]
+			} else {
+				a := in.Amounts[e.Src] * scale
+
+				x = a * s.Unit(e)
+
+				{
+					if q, sure := money.RoundFast(x); sure {
+						x = q
+					} else {
+						x = roundAmount(a, s.unitOf(e), in.Rounding)
+					}
 				}
 			}
 			if e.Kind() == Income {

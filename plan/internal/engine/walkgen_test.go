@@ -168,9 +168,11 @@ func lanesOf(t *testing.T, fn, name string, f flags) string {
 			// a variable of no named type (a slice, a pointer) may be
 			// changed through: one a lane; but for evs, the schedule's
 			// events the loop ranges over, which every lane reads. (A
-			// variable of a named slice type, each, is kept one for all
-			// lanes: only a walk with Options.Each uses it, and the lane
-			// forms are made for walks without; the generator would
+			// variable of a named type is kept one for all lanes: an
+			// amountTable and its amountRoom, which a walk fills from
+			// its inputs before the loop and then only reads; and each,
+			// which only a walk with Options.Each uses, and the lane
+			// forms are made for walks without: the generator would
 			// need it one a lane to make a lane form of such a walk.)
 			if _, named := typeOf(o).(*ast.Ident); !named && o.Name != "evs" {
 				state[o] = true
