@@ -519,15 +519,16 @@ func (c *compiler) repeats(sh *Shape, m int32, last yearStart) bool {
 func (c *compiler) copyYear(last, cur yearStart) {
 	s, f := c.s, c.f
 	n := cur.ev - last.ev
-	c.ev = slices.Grow(c.ev, n)[:cur.ev+n]
-	src := c.ev[last.ev:cur.ev]
-	dst := c.ev[cur.ev:][:len(src)]
-	for i, e := range src { // each event copied once, changed on the way
+	c.ev = slices.Grow(c.ev, n)
+	c.ev = c.ev[:cur.ev+n]
+	dst := c.ev[cur.ev:]
+	copy(dst, c.ev[last.ev:cur.ev])
+	for i := range dst {
+		e := &dst[i]
 		e.Tick += TicksPerYear
 		if e.Src != 0 { // a stream's amount: there is no one-time amount in the year
 			e.Year++
 		}
-		dst[i] = e
 	}
 	for _, p := range s.partial[last.partial:cur.partial] {
 		s.partial = append(s.partial, p+int32(n))
