@@ -228,8 +228,8 @@ func (s *schedule) capitalEquation(pr *params, l *Ledger, idx int32, at Month, l
 		var count int
 		var first, last int64 = -1, 0
 		var units []float64
-		for k := range s.events {
-			if e := &s.events[k]; flowOf(e, int32(i)) {
+		for k := range s.events() {
+			if e := &s.events()[k]; flowOf(e, int32(i)) {
 				if first < 0 {
 					first = e.Tick
 				}
@@ -326,8 +326,8 @@ func (s *schedule) capitalWhy(st *Stream, plain bool, at Month, i int) string {
 // onCredits reports whether every flow of source src lies on an interest
 // date.
 func (s *schedule) onCredits(src int32) bool {
-	for k := range s.events {
-		if e := &s.events[k]; flowOf(e, src) && e.Tick%s.period != 0 {
+	for k := range s.events() {
+		if e := &s.events()[k]; flowOf(e, src) && e.Tick%s.period != 0 {
 			return false
 		}
 	}

@@ -35,7 +35,7 @@ func Describe(p *Plan, g *Goal) GoalView {
 	s := compile(p, g, v.Horizon)
 	// one pass over the events for every stream's count, first and last
 	views := make([]StreamView, len(s.sources))
-	for _, e := range s.events {
+	for _, e := range s.events() {
 		if i := int(e.Src); flowOf(&e, e.Src) && i < len(views) {
 			sv := &views[i]
 			if sv.Count == 0 {

@@ -138,7 +138,7 @@ func eachExampleGoal(t *testing.T, check func(t *testing.T, file string, p *Plan
 // (or monthly credit), fee and amount, and the opening balance.
 func roundings(s *schedule) int {
 	n := 1
-	for _, e := range s.events {
+	for _, e := range s.events() {
 		switch e.Kind() {
 		case engine.Interest:
 			n += int(e.Count)
@@ -209,8 +209,8 @@ func TestOneSourceValuesSumToSmoothBalance(t *testing.T) {
 // withdrawal's negative balance is raised by its fee, the rest lowered.)
 func linearUnderNone(s *schedule) bool {
 	in, out := map[int32]bool{}, map[int32]bool{}
-	for i := range s.events {
-		e := &s.events[i]
+	for i := range s.events() {
+		e := &s.events()[i]
 		if k := e.Kind(); k == engine.Interest || k == engine.Credit || k == engine.Mark || k == engine.Tax || s.eng.Tau(e) == 1 {
 			continue
 		}

@@ -102,8 +102,8 @@ func (s *schedule) equation(pr *params, l *Ledger) *Equation {
 	counts := make([]int, len(s.sources))
 	units := make([]float64, len(s.sources)) // each source's first unit
 	years := make([]int32, len(s.sources))   // and the yearly rises before it
-	for i := range s.events {
-		if e := &s.events[i]; flowOf(e, e.Src) {
+	for i := range s.events() {
+		if e := &s.events()[i]; flowOf(e, e.Src) {
 			if counts[e.Src] == 0 {
 				units[e.Src], years[e.Src] = s.eng.Unit(e), int32(e.Year)
 			}
@@ -381,8 +381,8 @@ func (s *schedule) formOn(i int, rate money.Rate, to int64, own bool) (terms []T
 		}
 	}()
 	var flows []*engine.Event
-	for k := range s.events {
-		if e := &s.events[k]; flowOf(e, int32(i)) {
+	for k := range s.events() {
+		if e := &s.events()[k]; flowOf(e, int32(i)) {
 			flows = append(flows, e)
 		}
 	}

@@ -114,8 +114,8 @@ func newHousehold(p *Plan, end Month) (*household, error) {
 	// the budget's own dates and growth, as the one stream of a goal
 	bg := &Goal{Rates: gs[0].Rates, Deposits: []*Stream{&p.Budget.Stream}}
 	bs := compile(p, bg, end)
-	for i := range bs.events {
-		if e := &bs.events[i]; flowOf(e, 1) {
+	for i := range bs.events() {
+		if e := &bs.events()[i]; flowOf(e, 1) {
 			h.ticks = append(h.ticks, e.Tick)
 			h.month = append(h.month, p.Start+Month(e.Month()))
 			h.unit = append(h.unit, bs.eng.Unit(e))
@@ -129,11 +129,11 @@ func newHousehold(p *Plan, end Month) (*household, error) {
 		m := &member{g: g, share: sg}
 		m.s = compile(p, sg, end)
 		m.pr = m.s.defaultParams()
-		m.pr.set, m.pr.setSrc = make([]float64, len(m.s.events)), 1
+		m.pr.set, m.pr.setSrc = make([]float64, m.s.eng.Len()), 1
 		m.ev = make([]int32, len(h.ticks))
 		k := 0
-		for i := range m.s.events {
-			if e := &m.s.events[i]; flowOf(e, 1) {
+		for i := range m.s.events() {
+			if e := &m.s.events()[i]; flowOf(e, 1) {
 				for k < len(h.ticks) && h.ticks[k] < e.Tick {
 					m.ev[k] = -1
 					k++
@@ -417,10 +417,10 @@ func (a *Allocation) schedule(i int, end Month) (*schedule, *params) {
 	sh := a.Shares[i] // a deposit of its own that stops at the target stops when the shares reach it
 	s := compileStop(h.p, m.share, max(min(end, a.End), h.p.Start), sh.Month, sh.Reached)
 	pr := s.defaultParams()
-	pr.set, pr.setSrc = make([]float64, len(s.events)), 1
+	pr.set, pr.setSrc = make([]float64, s.eng.Len()), 1
 	k := 0
-	for idx := range s.events {
-		if e := &s.events[idx]; flowOf(e, 1) {
+	for idx := range s.events() {
+		if e := &s.events()[idx]; flowOf(e, 1) {
 			for k < len(h.ticks) && h.ticks[k] < e.Tick {
 				k++
 			}

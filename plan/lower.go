@@ -43,7 +43,6 @@ type schedule struct {
 	goal     *Goal
 	end      Month // last month, inclusive
 	eng      *engine.Schedule
-	events   []engine.Event // in order (engine.Schedule.Events)
 	endTick  int64
 	period   int64           // ticks per compounding period
 	comp     money.Frequency // compounding frequency
@@ -129,10 +128,15 @@ func reachedStop(p *Plan, g *Goal, end Month) (Month, bool) {
 
 // compileStop is compile with the month the streams that stop at the
 // target stop after, when hasStop is set.
+// events returns the schedule's events in order, every plan year laid out
+// (engine.Schedule.Events): laid out when first asked for, which a walk
+// does not need.
+func (s *schedule) events() []engine.Event { return s.eng.Events() }
+
 func compileStop(p *Plan, g *Goal, end, stop Month, hasStop bool) *schedule {
 	sh := shapeOf(p, g, end, stop, hasStop)
 	es := p.cache.Compile(&sh)
-	s := &schedule{plan: p, goal: g, end: end, eng: es, events: es.Events(), endTick: es.EndTick(), period: es.PeriodTicks(),
+	s := &schedule{plan: p, goal: g, end: end, eng: es, endTick: es.EndTick(), period: es.PeriodTicks(),
 		comp: g.Rates[0].Rate.Compounding(), places: p.Currency.Places, rounding: p.Rounding}
 	for _, st := range g.Rates {
 		s.steps = append(s.steps, st.Rate)

@@ -133,7 +133,7 @@ func SolveDeposit(p *Plan, g *Goal, stream string, level float64, opts SimOption
 		ans.BelowSuccess = float64(ans.BelowPaths) / float64(st.paths)
 	}
 	ans.FirstAmount = ans.Amount
-	for _, e := range s.events {
+	for _, e := range s.events() {
 		if flowOf(&e, idx) {
 			ans.FirstAmount = ans.Amount.MulFloat(s.eng.Unit(&e)).Round(s.places, s.rounding)
 			break

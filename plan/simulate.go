@@ -483,8 +483,8 @@ func newSimProgram(s *schedule, st simSetup, rows bool) *simProgram {
 			}
 		}
 	}
-	for i := range s.events {
-		if e := &s.events[i]; flowOf(e, e.Src) && s.out[e.Src] {
+	for i := range s.events() {
+		if e := &s.events()[i]; flowOf(e, e.Src) && s.out[e.Src] {
 			if pg.firstOut < 0 {
 				pg.firstOut = e.Month()
 			}
@@ -518,7 +518,7 @@ func (pg *simProgram) newWorker() *simWorker {
 		for i := range w.e[l] {
 			w.e[l][i] = 1 // no inflation noise unless draw sets it
 		}
-		w.paths[l] = engine.Paths{J: w.j[l], L: w.l[l], W: make([]float64, len(pg.s.events))}
+		w.paths[l] = engine.Paths{J: w.j[l], L: w.l[l], W: make([]float64, pg.s.eng.Len())}
 		if !pg.noInfl {
 			w.paths[l].Infl = w.e[l]
 		}

@@ -635,7 +635,7 @@ func (s *schedule) setter(pr *params, idx int32) func(c int64) {
 
 // firstAmount is source idx's first amount under pr, in money of its date.
 func (s *schedule) firstAmount(pr *params, idx int32) money.Amount {
-	for _, e := range s.events {
+	for _, e := range s.events() {
 		if flowOf(&e, idx) {
 			return pr.amounts[idx].MulFloat(s.eng.Unit(&e)).Round(s.places, s.rounding).Abs()
 		}
@@ -1261,7 +1261,7 @@ func (s *schedule) annuityRoot(target money.Amount) (delta float64, ok bool) {
 	}
 	P := TicksPerYear / int64(st.Every.PerYear())
 	count, last := 0, int64(0)
-	for _, e := range s.events {
+	for _, e := range s.events() {
 		if flowOf(&e, 1) {
 			count, last = count+1, e.Tick
 		}

@@ -126,8 +126,8 @@ func NewWork(steps int64) *Work { return &Work{limit: min(steps, MaxSimulationSt
 // all, or what w has left of it; otherwise it takes the steps from w (nil:
 // a command's only simulation).
 func checkSimulation(s *schedule, paths, passes int, w *Work) error {
-	steps := int64(paths) * int64(len(s.events)) * int64(passes)
-	what := fmt.Sprintf("simulating %s paths over %s events%s is %s steps", group(int64(paths)), group(int64(len(s.events))),
+	steps := int64(paths) * int64(s.eng.Len()) * int64(passes)
+	what := fmt.Sprintf("simulating %s paths over %s events%s is %s steps", group(int64(paths)), group(int64(s.eng.Len())),
 		map[bool]string{true: fmt.Sprintf(" %d times over", passes), false: ""}[passes > 1], group(steps))
 	switch {
 	case w == nil && steps > MaxSimulationSteps:

@@ -46,7 +46,7 @@ func TestEventsOfBoundsTheSchedule(t *testing.T) {
 		}
 		for _, g := range p.Goals {
 			s := compile(p, g, horizonEnd(p))
-			if n, bound := int64(len(s.events)), eventsOf(p, g, horizonEnd(p)); n > bound {
+			if n, bound := int64(s.eng.Len()), eventsOf(p, g, horizonEnd(p)); n > bound {
 				t.Errorf("%s, goal %s: %d events compiled, over the %d counted", name, g.Name, n, bound)
 			}
 		}

@@ -16,7 +16,7 @@ import (
 type Cache struct {
 	mu     sync.Mutex
 	m      map[string]*Schedule
-	events int // events held by the schedules in m
+	events int // events of the schedules in m laid out (Schedule.Len): the most they hold
 }
 
 // MaxCachedEvents bounds a cache by the events it holds (an event is 24
@@ -87,13 +87,13 @@ func (c *Cache) Compile(sh *Shape) *Schedule {
 		if old.months >= s.months { // another goroutine compiled a longer one meanwhile
 			return old.Prefix(sh.Months)
 		}
-		c.events -= len(old.events)
+		c.events -= old.Len()
 	}
-	if c.m == nil || c.events+len(s.events) > MaxCachedEvents {
+	if c.m == nil || c.events+s.Len() > MaxCachedEvents {
 		c.m, c.events = map[string]*Schedule{}, 0
 	}
 	c.m[key] = s
-	c.events += len(s.events)
+	c.events += s.Len()
 	return s
 }
 

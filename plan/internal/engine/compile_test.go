@@ -41,14 +41,17 @@ func randomShape(r *rand.Rand) Shape {
 
 // sameSchedule reports how a differs from b, or "" when it does not.
 func sameSchedule(a, b *Schedule) string {
+	ae, be := a.Events(), b.Events()
 	switch {
-	case !slices.Equal(a.events, b.events):
-		for i := range min(len(a.events), len(b.events)) {
-			if a.events[i] != b.events[i] {
+	case a.Len() != len(ae) || b.Len() != len(be):
+		return "length laid out"
+	case !slices.Equal(ae, be):
+		for i := range min(len(ae), len(be)) {
+			if ae[i] != be[i] {
 				return "events from index " + strconv.Itoa(i)
 			}
 		}
-		return "event count " + strconv.Itoa(len(a.events)) + " against " + strconv.Itoa(len(b.events))
+		return "event count " + strconv.Itoa(len(ae)) + " against " + strconv.Itoa(len(be))
 	case !reflect.DeepEqual(a.units, b.units):
 		return "units"
 	case !reflect.DeepEqual(a.taus, b.taus), !reflect.DeepEqual(a.left, b.left):

@@ -16,11 +16,12 @@ import (
 // end was carried.
 func withMarks(s *Schedule) *Schedule {
 	x := *s
-	x.events = nil
+	x.events, x.flat = nil, nil
 	x.partial = nil
 	pi := 0
-	for i := range s.events {
-		e := s.events[i]
+	ev := s.Events()
+	for i := range ev {
+		e := ev[i]
 		if pi < len(s.partial) && int(s.partial[pi]) == i {
 			x.partial = append(x.partial, int32(len(x.events)))
 			pi++
@@ -34,7 +35,7 @@ func withMarks(s *Schedule) *Schedule {
 		}
 		x.events = append(x.events, e)
 	}
-	x.posts = -1
+	x.posts, x.n = -1, len(x.events)
 	return &x
 }
 
@@ -52,8 +53,9 @@ func TestCarriedEndIsAMark(t *testing.T) {
 		s := Compile(&sh)
 		// one end per month, in order, the last event ends the last month
 		month := int32(0)
-		for i := range s.events {
-			e := &s.events[i]
+		ev := s.Events()
+		for i := range ev {
+			e := &ev[i]
 			if e.Ends() {
 				if e.Month() != month {
 					t.Fatalf("shape %d: end of month %d carried by event of month %d", n, month, e.Month())
@@ -61,8 +63,8 @@ func TestCarriedEndIsAMark(t *testing.T) {
 				month++
 			}
 		}
-		if month != sh.Months || !s.events[len(s.events)-1].Ends() {
-			t.Fatalf("shape %d: %d ends for %d months; last ends %v", n, month, sh.Months, s.events[len(s.events)-1].Ends())
+		if month != sh.Months || !ev[len(ev)-1].Ends() {
+			t.Fatalf("shape %d: %d ends for %d months; last ends %v", n, month, sh.Months, ev[len(ev)-1].Ends())
 		}
 		x := withMarks(s)
 		in := randomInputs(r, &sh, s)
@@ -162,10 +164,10 @@ func TestFlowAmountsTable(t *testing.T) {
 		sh := randomShape(r)
 		s := Compile(&sh)
 		x := *s
-		x.units = append(slices.Clone(s.units), make([]float64, len(s.events)+1)...)
+		x.units = append(slices.Clone(s.units), make([]float64, s.Len()+1)...)
 		in := randomInputs(r, &sh, s)
 		if x.flowAmounts(nil, &in, 100, true) != nil {
-			t.Fatalf("shape %d: a table of %d units over %d events", n, len(x.units), len(x.events))
+			t.Fatalf("shape %d: a table of %d units over %d events", n, len(x.units), x.Len())
 		}
 		if s.flowAmounts(nil, &in, 100, true) == nil { // a short schedule has none either
 			continue

@@ -33,15 +33,16 @@ func TestEventDerivedFields(t *testing.T) {
 			t.Errorf("taus %v: want a whole period first, and only there", s.taus)
 		}
 		month, marks := int32(0), 0 // the month of the events being read: months ended before them
-		for i := range s.events {
-			e := &s.events[i]
+		ev := s.Events()
+		for i := range ev {
+			e := &ev[i]
 			if e.Month() != month {
 				t.Errorf("%v at tick %d: Month() = %d, want %d", e.Kind(), e.Tick, e.Month(), month)
 			}
 			switch e.Kind() {
 			case Mark:
 				marks++
-				if i > 0 && !s.events[i-1].Ends() {
+				if i > 0 && !ev[i-1].Ends() {
 					t.Errorf("a mark at tick %d, after an event of its month that could carry its end", e.Tick)
 				}
 				if !e.Ends() {

@@ -79,14 +79,14 @@ func TestExtendIsTheLongerCompile(t *testing.T) {
 		short.Months = 1 + r.Int32N(sh.Months)
 		want, got := Compile(&sh), compileFrom(&sh, Compile(&short))
 		if d := sameSchedule(got, want); d != "" {
-			t.Fatalf("%+v from %d months: the extended schedule (%d events) differs from the compiled one (%d) in its %s", sh, short.Months, len(got.events), len(want.events), d)
+			t.Fatalf("%+v from %d months: the extended schedule (%d events) differs from the compiled one (%d) in its %s", sh, short.Months, got.Len(), want.Len(), d)
 		}
 		// the counts laid down with the events are the events' own, however
 		// the schedule was made (from a prefix, too, which counts its own)
-		posts, amounts := countPosts(want.events, want.accrue)
+		posts, amounts := countPosts(want.Events(), want.accrue)
 		fromPrefix := compileFrom(&sh, want.Prefix(short.Months))
 		for _, s := range []*Schedule{want, got, fromPrefix, want.Prefix(short.Months)} {
-			p, a := countPosts(s.events, s.accrue)
+			p, a := countPosts(s.Events(), s.accrue)
 			if s.MaxPosts() != p || s.MaxMatchPosts() != a {
 				t.Fatalf("%+v: MaxPosts, MaxMatchPosts = %d, %d; its events give %d, %d", sh, s.MaxPosts(), s.MaxMatchPosts(), p, a)
 			}

@@ -22,7 +22,7 @@ func TestRepeatedYearIsTheLaidYear(t *testing.T) {
 		want, _ := compileYears(&sh, nil, false)
 		got, n := compileYears(&sh, nil, true)
 		if d := sameSchedule(got, want); d != "" {
-			t.Fatalf("%+v: the schedule with years copied (%d events) differs from the one laid down (%d) in its %s", sh, len(got.events), len(want.events), d)
+			t.Fatalf("%+v: the schedule with years copied (%d events) differs from the one laid down (%d) in its %s", sh, got.Len(), want.Len(), d)
 		}
 		short := sh
 		short.Months = 1 + r.Int32N(sh.Months)
@@ -46,11 +46,17 @@ func TestRepeatedYearIsTheLaidYear(t *testing.T) {
 }
 
 // The 40-year monthly plan's schedule copies every year but its first,
-// which has no year before it (derived: 40 years less that one).
+// which has no year before it (derived: 40 years less that one), and holds
+// them once: the first year's 24 events (an interest date and a deposit a
+// month) and one Repeat, 960 events laid out (derived: 40 × 24).
 func TestSteadyPlanCopiesItsYears(t *testing.T) {
 	sh := Shape{Months: 480, PerYear: 12, StepFrom: []int32{0}, Streams: []StreamShape{{PerYear: 12, First: 1}}}
-	if _, n := compileYears(&sh, nil, true); n != 39 {
+	s, n := compileYears(&sh, nil, true)
+	if n != 39 {
 		t.Errorf("copied %d years, want 39", n)
+	}
+	if len(s.events) != 25 || s.Len() != 960 || len(s.Events()) != 960 {
+		t.Errorf("%d events held, %d laid out (Len %d); want 25 and 960", len(s.events), len(s.Events()), s.Len())
 	}
 }
 
@@ -74,8 +80,9 @@ func TestUnitsOfUnusualShapes(t *testing.T) {
 		if d := sameSchedule(got, want); d != "" {
 			t.Errorf("%s: the schedule with years copied differs in its %s", name, d)
 		}
-		for i := range got.events {
-			e := &got.events[i]
+		ev := got.Events()
+		for i := range ev {
+			e := &ev[i]
 			if k := e.Kind(); k != FlowEnd && k != FlowBegin {
 				continue
 			}

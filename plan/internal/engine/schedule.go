@@ -13,6 +13,7 @@ import (
 	"math"
 	"slices"
 	"sort"
+	"sync"
 )
 
 // TicksPerYear is the number of ticks in a year of the time grid: the least
@@ -38,6 +39,13 @@ const (
 	Mark                  // a month end that no other event of its month carries (see [Event.Ends])
 	Income                // income from outside the account, at the start of the month it is paid in
 	FlowBegin             // an amount at the start of its period
+	// Repeat is no event of the account: the events from index Tick to it
+	// (the plan year before it) happen again Count more times, each a year
+	// later than the last (ticks a year on, months 12, a flow's growth a
+	// year older), and then the events after it, at their own ticks. A
+	// compiled schedule holds a plan year that repeats the one before
+	// this way, once; Events lays every year out (see [Schedule.Events]).
+	Repeat
 )
 
 // ends is the bit of an event's kind byte that says its month ends with
@@ -78,8 +86,12 @@ func (e *Event) Ends() bool { return e.kind&ends != 0 }
 // Unit returns flow e's amount per unit of its source's amount: its years
 // of growth (and a first year's indexing to today's money); 1 for a
 // one-time amount and for the opening balance (source 0).
-func (s *Schedule) Unit(e *Event) float64 {
-	return s.units[s.base+int(e.Src)-s.stride*int(e.Year)]
+func (s *Schedule) Unit(e *Event) float64 { return s.unitIn(e.Src, int(e.Year)) }
+
+// unitIn returns the unit of source src's amounts in their year y of
+// growth (see [Schedule.Unit]).
+func (s *Schedule) unitIn(src int16, y int) float64 {
+	return s.units[s.base+int(src)-s.stride*y]
 }
 
 // Month returns the month the event is shown in, counted from the start
@@ -110,20 +122,21 @@ func (s *Schedule) Period(e *Event) int32 {
 	return p
 }
 
-// indexed reports whether flow e is in money indexed to inflation with
-// indexes other than the start's (see [Schedule.IndexOf]).
-func (s *Schedule) indexed(e *Event) bool {
-	ia, ib := s.IndexOf(e)
+// indexed reports whether an amount of source src in its year y of growth
+// is in money indexed to inflation with indexes other than the start's
+// (see [Schedule.IndexOf]).
+func (s *Schedule) indexed(src int16, y int) bool {
+	ia, ib := s.IndexOf(src, y)
 	return ia != 0 || ib != 0
 }
 
-// IndexOf returns the months of the inflation indexes of flow e: its
-// amount is multiplied by the inflation index at the start of month ia
+// IndexOf returns the months of the inflation indexes of an amount of
+// source src in its year y of growth: the amount is multiplied by the inflation index at the start of month ia
 // over that at month ib, both 1 at fixed inflation. A random-inflation
 // walk reads them.
-func (s *Schedule) IndexOf(e *Event) (ia, ib int32) {
-	x := s.index[e.Src]
-	anniv := x.from + 12*int32(e.Year)
+func (s *Schedule) IndexOf(src int16, y int) (ia, ib int32) {
+	x := s.index[src]
+	anniv := x.from + 12*int32(y)
 	switch {
 	case x.grow && x.today:
 		ia = anniv
@@ -188,7 +201,9 @@ type Schedule struct {
 	period   int64 // ticks per interest period
 	accrue   bool  // interest accrues at each compounding and is credited at month ends
 	stepFrom []int32
-	events   []Event // every event, in order
+	events   []Event // every event, in order, a repeated plan year held once (see Repeat)
+	n        int     // the events with every repeated year laid out: Len
+	flat     *flat   // Events, laid out when first asked; nil when events holds no Repeat
 	taus     []float64
 	sources  int
 	// grow is, per source, the yearly growth of its amounts when each
@@ -218,9 +233,53 @@ type Schedule struct {
 	posts, amounts int
 }
 
-// Events returns the schedule's events in order; the caller must not
-// change them.
-func (s *Schedule) Events() []Event { return s.events }
+// Events returns the schedule's events in order, every plan year laid
+// out (no Repeat among them); the caller must not change them. A walk
+// reads a repeated year where it is held once; the events are laid out
+// when first asked for, once.
+func (s *Schedule) Events() []Event {
+	if s.flat == nil {
+		return s.events
+	}
+	s.flat.once.Do(func() { s.flat.ev = s.layOut() })
+	return s.flat.ev
+}
+
+// Len returns the number of events, every plan year laid out: the
+// length of Events, without laying them out.
+func (s *Schedule) Len() int { return s.n }
+
+// flat is a schedule's events laid out (see [Schedule.Events]).
+type flat struct {
+	once sync.Once
+	ev   []Event
+}
+
+// layOut returns s's events with every repeated plan year laid out: each
+// copy's ticks a year on from the one before and its flows' growth a year
+// older.
+func (s *Schedule) layOut() []Event {
+	out := make([]Event, 0, s.n)
+	for i := 0; i < len(s.events); i++ {
+		e := s.events[i]
+		if e.Kind() != Repeat {
+			out = append(out, e)
+			continue
+		}
+		year := out[len(out)-(i-int(e.Tick)):]
+		for range e.Count {
+			for _, x := range year {
+				x.Tick += TicksPerYear
+				if x.Src != 0 {
+					x.Year++
+				}
+				out = append(out, x)
+			}
+			year = out[len(out)-len(year):]
+		}
+	}
+	return out
+}
 
 // PeriodTicks returns the length of an interest period in ticks.
 func (s *Schedule) PeriodTicks() int64 { return s.period }
@@ -371,30 +430,37 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	}
 	room := other + nRuns
 	if old == nil {
-		c.ev = make([]Event, 0, room)
+		// room for the first year and a month: a year that repeats the
+		// one before is held once (Repeat), so a plan whose years repeat
+		// needs little more; the rest of the room is made when a later
+		// year is laid down event by event (below)
+		c.ev = make([]Event, 0, min(room, room*13/max(months, 1)+16))
 		// Ti 0 is a whole period (Tau 1), so that the walk tells one by
 		// its index, without looking its fraction up
 		c.left, s.taus = []int64{s.period}, []float64{1}
 	} else {
-		c.ev = make([]Event, len(old.events), int64(len(old.events))+room)
-		copy(c.ev, old.events)
+		oev := old.Events() // laid out: the months after are laid after them
+		c.ev = make([]Event, len(oev), int64(len(oev))+room)
+		copy(c.ev, oev)
 		s.taus, c.left, s.partial = slices.Clone(old.taus), slices.Clone(old.left), slices.Clone(old.partial)
 		s.posts, s.amounts = old.posts, old.amounts
 		if old.posts < 0 {
-			s.posts, s.amounts = countPosts(old.events, old.accrue)
+			s.posts, s.amounts = countPosts(oev, old.accrue)
 		}
 		c.done = t0 / s.period
-		c.ended = len(old.events)
+		c.ended = len(oev)
 	}
 	c.nextTick = (c.done + 1) * s.period
 	c.sorted = slices.IsSorted(sh.StepFrom)
 	c.runs.at, c.puts.at = -1, -1
 	copied := 0
+	grown := old != nil          // room made for the years after the first (see above)
 	last := yearStart{month: -1} // where the last plan year laid down here began
+	c.rep = -1
 	for m := m0; m < sh.Months; m++ {
 		if m%12 == 0 {
 			cur := c.yearStart(m)
-			if repeat && last.month == m-12 && c.repeats(sh, m, last) {
+			if repeat && last.month == m-12 && c.canRepeat() && c.repeats(sh, m, last) {
 				c.copyYear(last, cur)
 				last = cur
 				copied++
@@ -402,6 +468,10 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 				continue
 			}
 			last = cur
+			if m > m0 && !grown { // a year that does not repeat: room for the years left, once
+				grown = true
+				c.ev = slices.Grow(c.ev, int(room*int64(sh.Months-m)/max(months, 1))+16)
+			}
 		}
 		// at a month end come, in order: the amounts before it, its
 		// interest, the credit, the tax, the fee, the amounts at the end
@@ -429,6 +499,10 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	c.flowsBefore(math.MaxUint64)
 	c.interestTo(s.endTick)
 	s.events, s.left = c.ev, c.left
+	s.n = len(c.ev) + c.shift
+	if c.rep >= 0 {
+		s.flat = new(flat)
+	}
 	// every year of growth an amount of the schedule can have: one made
 	// before the last year's end, of a stream from its first month (which
 	// may be before the plan's start)
@@ -451,15 +525,15 @@ func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 }
 
 // A yearStart is where a plan year's events begin in a schedule being laid
-// down: the index of its first event, the lengths and counts then, and its
-// first month.
+// down: the index of its first event (every year laid out), the lengths
+// and counts then, and its first month.
 type yearStart struct {
 	ev, partial, posts, amounts, once int
 	month                             int32
 }
 
 func (c *compiler) yearStart(m int32) yearStart {
-	return yearStart{ev: len(c.ev), partial: len(c.s.partial), posts: c.s.posts, amounts: c.s.amounts, once: c.f.oi, month: m}
+	return yearStart{ev: len(c.ev) + c.shift, partial: len(c.s.partial), posts: c.s.posts, amounts: c.s.amounts, once: c.f.oi, month: m}
 }
 
 // repeats reports whether the plan year of months m to m+11, the last
@@ -514,28 +588,26 @@ func (c *compiler) repeats(sh *Shape, m int32, last yearStart) bool {
 }
 
 // copyYear lays down the plan year beginning at cur as a copy of the one
-// beginning at last, a year later (see [compiler.repeats]), and moves the
-// streams' generators a year on.
+// beginning at last, a year later (see [compiler.repeats]): a Repeat
+// after that year's events, or one more copy of the Repeat that ends them
+// (see [compiler.canRepeat]); and moves the streams' generators a year on.
 func (c *compiler) copyYear(last, cur yearStart) {
 	s, f := c.s, c.f
-	n := cur.ev - last.ev
-	c.ev = slices.Grow(c.ev, n)
-	c.ev = c.ev[:cur.ev+n]
-	dst := c.ev[cur.ev:]
-	copy(dst, c.ev[last.ev:cur.ev])
-	for i := range dst {
-		e := &dst[i]
-		e.Tick += TicksPerYear
-		if e.Src != 0 { // a stream's amount: there is no one-time amount in the year
-			e.Year++
-		}
+	n := cur.ev - last.ev // the year's events
+	if c.inRun() {
+		c.ev[c.rep].Count++
+	} else {
+		c.ev = append(c.ev, Event{Tick: int64(len(c.ev) - n), kind: Repeat, Count: 1})
+		c.rep = len(c.ev) - 1
+		c.shift-- // a Repeat is no event of the schedule laid out
 	}
+	c.shift += n
 	for _, p := range s.partial[last.partial:cur.partial] {
 		s.partial = append(s.partial, p+int32(n))
 	}
 	s.posts += cur.posts - last.posts
 	s.amounts += cur.amounts - last.amounts
-	c.ended = len(c.ev) // the year's last month ended with its last event, as the one before
+	c.ended = len(c.ev) // the year's last month ended with its last event, as the one before (the Repeat carries none)
 	c.done += TicksPerYear / s.period
 	c.nextTick = (c.done + 1) * s.period
 	// a stream with a period all through the years has its next amount a
@@ -561,6 +633,17 @@ func (c *compiler) copyYear(last, cur yearStart) {
 	f.h = h
 	f.init()
 }
+
+// canRepeat reports whether the next plan year may be laid down as a copy
+// of the last (see copyYear): the last was laid down event by event, or is
+// a copy whose Repeat can count one more.
+func (c *compiler) canRepeat() bool {
+	return !c.inRun() || c.ev[c.rep].Count < math.MaxUint8
+}
+
+// inRun reports whether the last plan year laid down is a copy: the last
+// event laid down is a Repeat.
+func (c *compiler) inRun() bool { return c.rep >= 0 && c.rep == len(c.ev)-1 }
 
 // unit returns the unit of the stream's amounts in their year y of growth
 // (as advance finds it).
@@ -594,6 +677,10 @@ type compiler struct {
 	runs, puts stepCursor
 	// ended is how many events were laid down when the last month ended
 	ended int
+	// rep is the index of the last Repeat laid down (-1: none), and shift
+	// how many more events the schedule laid out has than c.ev before its
+	// end: an event's index laid out is its index in c.ev plus shift
+	rep, shift int
 }
 
 // A stepCursor is the rate step in force at a tick, kept as the ticks
@@ -741,7 +828,7 @@ func (c *compiler) put(t int64, kd Kind, src int16, year uint8) {
 		}
 	}
 	if s.taus[c.k] < 1 {
-		s.partial = append(s.partial, int32(len(c.ev)))
+		s.partial = append(s.partial, int32(len(c.ev)+c.shift))
 	}
 	step := c.stepAt(&c.puts, next-s.period)
 	e := c.lay(t, kd)
@@ -873,7 +960,8 @@ func (f *flows) down(i int) {
 
 // Prefix returns the schedule through the end of month months−1 (counted
 // from 0), which a schedule compiled through a later month holds: the same
-// events up to the one that ends that month, sharing s's storage. The events of a
+// events up to the one that ends that month, sharing s's storage (laid
+// out, see [Schedule.Events]). The events of a
 // shape do not depend on how far it is compiled: a run of interest dates
 // never passes a month end, and every amount, fee and credit at a tick is
 // laid down the same whatever follows.
@@ -884,13 +972,14 @@ func (s *Schedule) Prefix(months int32) *Schedule {
 	p := *s
 	p.months = months
 	p.endTick = int64(months) * TicksPerMonth
-	n, _ := slices.BinarySearchFunc(s.events, p.endTick, func(e Event, end int64) int {
+	ev := s.Events()
+	n, _ := slices.BinarySearchFunc(ev, p.endTick, func(e Event, end int64) int {
 		if e.Tick < end || e.Tick == end && e.Kind() <= Mark {
 			return -1
 		}
 		return 1
 	})
-	p.events = s.events[:n:n]
+	p.events, p.n, p.flat = ev[:n:n], n, nil
 	p.posts, p.amounts = -1, -1
 	k, _ := slices.BinarySearch(s.partial, int32(n))
 	p.partial = s.partial[:k:k]

@@ -336,14 +336,9 @@ func rateOf(in *Inputs, k uint8, j float64) money.Multiplier {
 	return money.FloatMultiplier(j)
 }
 
-// unitOf returns the exact form of flow event e's unit: a whole number of
-// years' growth at the source's decimal rate, when it is one.
-func (s *Schedule) unitOf(e *Event) money.Multiplier {
-	return s.unitAt(int(e.Src), int(e.Year), s.Unit(e))
-}
-
 // unitAt returns the exact form of unit u of source src in its year y of
-// growth (see unitOf).
+// growth: a whole number of years' growth at the source's decimal rate,
+// when it is one.
 func (s *Schedule) unitAt(src, y int, u float64) money.Multiplier {
 	if g := s.grow[src]; !math.IsNaN(g) {
 		return money.GrowthMultiplier(u, g, y)
@@ -370,7 +365,7 @@ type amountRoom [256]float64
 // room; nil when the table would be longer than the events, and so cost
 // more than it saves.
 func (s *Schedule) flowAmounts(buf []float64, in *Inputs, scale float64, exact bool) amountTable {
-	if len(s.units) > len(s.events) {
+	if len(s.units) > s.n {
 		return nil
 	}
 	xs := slices.Grow(buf[:0], len(s.units))[:len(s.units)]
@@ -589,6 +584,7 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 	}
 	evs := s.events
 	nt := len(s.taus)
+	rp := repeating{left: -1, year0: s.base} // where the walk is in a plan year held once (Repeat)
 events:
 	for i := range evs {
 		e := &evs[i]
@@ -596,7 +592,7 @@ events:
 		case Interest:
 			var p0 int32 // the period the run's first date ends (Options.Paths)
 			if paths {
-				p0 = s.Period(e)
+				p0 = s.Period(e) + rp.periods
 			}
 			for c := range int32(e.Count) { // each interest date of the run
 				var j float64 // the period's rate
@@ -656,7 +652,7 @@ events:
 					low = base
 				}
 				if logged && x != 0 {
-					t := e.Tick + int64(c)*s.period
+					t := e.Tick + rp.dt + int64(c)*s.period
 					o.Log.post(t, false, PostInterest, 0, x, 0, 0)
 				}
 			}
@@ -679,7 +675,7 @@ events:
 				taxable += x
 			}
 			if logged && x != 0 {
-				o.Log.post(e.Tick, e.begins(), PostInterest, 0, x, 0, 0)
+				o.Log.post(e.Tick+rp.dt, e.begins(), PostInterest, 0, x, 0, 0)
 			}
 		case Tax:
 			// The tax on the year's interest, paid from the account at an
@@ -716,7 +712,7 @@ events:
 				if held := max(bal, 0); x > held {
 					unpaid, x = x-held, held
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick+rp.dt, e.Month()+rp.dm
 					}
 				}
 			}
@@ -726,7 +722,7 @@ events:
 				low = bal + accrued
 			}
 			if logged && (x != 0 || unpaid != 0) {
-				o.Log.post(e.Tick, e.begins(), PostTax, 0, -x, unpaid, 0)
+				o.Log.post(e.Tick+rp.dt, e.begins(), PostTax, 0, -x, unpaid, 0)
 			}
 		case Fee:
 			if alone {
@@ -768,12 +764,15 @@ events:
 			} else if !paths {
 				acc -= f * w[(int(e.Step)*nt+int(e.Ti))*2+1]
 			} else {
-				acc -= f * o.Paths.W[i]
+				acc -= f * o.Paths.W[rp.v0+i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.begins(), PostFee, 0, -f, 0, 0)
+				o.Log.post(e.Tick+rp.dt, e.begins(), PostFee, 0, -f, 0, 0)
 			}
 		case Mark: // a month end alone: its work follows
+		case Repeat: // the year before once more, a year on, or on past it
+			evs = s.events[rp.again(e, i, s):]
+			goto events
 		case FlowEnd, FlowBegin, Income:
 			if alone && e.Kind() != Income && in.Out[e.Src] {
 				ea.payIncome(w[(int(e.Step)*nt+int(e.Ti))*2], s.taus[e.Ti], none)
@@ -795,7 +794,7 @@ events:
 				} else if !paths {
 					acc += pool * w[(int(e.Step)*nt+int(e.Ti))*2]
 				} else {
-					acc += pool * o.Paths.W[i]
+					acc += pool * o.Paths.W[rp.v0+i]
 				}
 				bal += pool
 				pool = 0
@@ -807,18 +806,19 @@ events:
 				break
 			}
 			var x float64 // what the flow moves
-			if xs != nil && !(set && int32(e.Src) == in.SetSrc) && !(ruled && in.Rules[e.Src].Kind != RuleFixed) && !(infl && s.indexed(e)) {
-				x = xs[s.base+int(e.Src)-s.stride*int(e.Year)]
+			if xs != nil && !(set && int32(e.Src) == in.SetSrc) && !(ruled && in.Rules[e.Src].Kind != RuleFixed) && !(infl && s.indexed(e.Src, int(e.Year)+rp.dy)) {
+				x = xs[rp.year0+int(e.Src)-s.stride*int(e.Year)]
 			} else {
+				y := int(e.Year) + rp.dy // the flow's years of growth
 				a := in.Amounts[e.Src] * scale
 				if set && int32(e.Src) == in.SetSrc {
-					a = in.Set[i] * scale
+					a = in.Set[rp.v0+i] * scale
 				}
 				if ruled && in.Rules[e.Src].Kind != RuleFixed {
-					if ruleYear[e.Src] != int32(e.Year) { // an anniversary: decide the year's amount
-						u := s.Unit(e)
-						if infl && s.indexed(e) {
-							ia, ib := s.IndexOf(e)
+					if ruleYear[e.Src] != int32(y) { // an anniversary: decide the year's amount
+						u := s.unitIn(e.Src, y)
+						if infl && s.indexed(e.Src, y) {
+							ia, ib := s.IndexOf(e.Src, y)
 							u = u * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 						}
 						first := ruleYear[e.Src] < 0
@@ -828,13 +828,13 @@ events:
 						// from the balance at the anniversary, which an amount paid
 						// at a period's end comes a period after
 						ruledAmt[e.Src] = in.Rules[e.Src].decide(first, ruledAmt[e.Src], annivBal[e.Src]/scale, u)
-						ruleYear[e.Src] = int32(e.Year)
+						ruleYear[e.Src] = int32(y)
 					}
 					a = ruledAmt[e.Src] * scale
 				}
-				x = a * s.Unit(e)
-				if infl && s.indexed(e) {
-					ia, ib := s.IndexOf(e)
+				x = a * s.unitIn(e.Src, y)
+				if infl && s.indexed(e.Src, y) {
+					ia, ib := s.IndexOf(e.Src, y)
 					x = x * o.Paths.Infl[ia] / o.Paths.Infl[ib]
 					if exact {
 						x = roundMinor(x, in.Rounding) // an index drawn at random: no exact form
@@ -843,7 +843,7 @@ events:
 					if q, sure := money.RoundFast(x); sure {
 						x = q
 					} else {
-						x = roundAmount(a, s.unitOf(e), in.Rounding)
+						x = roundAmount(a, s.unitAt(int(e.Src), y, s.unitIn(e.Src, y)), in.Rounding)
 					}
 				}
 			}
@@ -861,13 +861,13 @@ events:
 			if e.Kind() == Income { // not deposited: it waits for the month's withdrawals
 				pool += x
 				if logged {
-					o.Log.post(e.Tick, e.begins(), PostIncome, e.Src, x, 0, 0)
+					o.Log.post(e.Tick+rp.dt, e.begins(), PostIncome, e.Src, x, 0, 0)
 				}
 				break
 			}
 			var short, covered, emp, over float64
 			if capping && in.Capped[e.Src] && x > 0 {
-				if y := e.Month() / 12; y != capYear {
+				if y := (e.Month() + rp.dm) / 12; y != capYear {
 					capYear, capped = y, 0
 				}
 				over = max(x-max(in.Cap*scale-capped, 0), 0)
@@ -875,12 +875,12 @@ events:
 				capped += x
 			}
 			if matching && in.Matched[e.Src] && x > 0 {
-				if y := e.Month() / 12; y != matchYear {
+				if y := (e.Month() + rp.dm) / 12; y != matchYear {
 					matchYear, matched = y, 0
 				}
 				m := x
 				if in.MatchLimit != nil {
-					m = min(m, max(in.MatchLimit[e.Month()/12]*scale-matched, 0))
+					m = min(m, max(in.MatchLimit[(e.Month()+rp.dm)/12]*scale-matched, 0))
 				}
 				matched += m
 				emp = m * in.Match
@@ -901,7 +901,7 @@ events:
 				}
 				if exact && -x > bal {
 					if !res.Short {
-						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick, e.Month()
+						res.Short, res.ShortTick, res.ShortMonth = true, e.Tick+rp.dt, e.Month()+rp.dm
 					}
 					paid := max(bal, 0)
 					short, x = -x-paid, -paid
@@ -917,7 +917,7 @@ events:
 					low = 0
 				}
 				if logged {
-					o.Log.post(e.Tick, e.begins(), PostFlow, e.Src, x, short, covered)
+					o.Log.post(e.Tick+rp.dt, e.begins(), PostFlow, e.Src, x, short, covered)
 				}
 				break
 			}
@@ -946,15 +946,15 @@ events:
 				}
 				acc += in * w[i]
 			} else {
-				acc += in * o.Paths.W[i]
+				acc += in * o.Paths.W[rp.v0+i]
 			}
 			if logged {
-				o.Log.post(e.Tick, e.begins(), PostFlow, e.Src, x, short, covered)
+				o.Log.post(e.Tick+rp.dt, e.begins(), PostFlow, e.Src, x, short, covered)
 				if emp != 0 {
-					o.Log.post(e.Tick, e.begins(), PostMatch, e.Src, emp, 0, 0)
+					o.Log.post(e.Tick+rp.dt, e.begins(), PostMatch, e.Src, emp, 0, 0)
 				}
 				if over != 0 {
-					o.Log.post(e.Tick, e.begins(), PostOver, e.Src, over, 0, 0)
+					o.Log.post(e.Tick+rp.dt, e.begins(), PostOver, e.Src, over, 0, 0)
 				}
 			}
 		}
@@ -967,30 +967,30 @@ events:
 				peak = max(peak, bal)
 			}
 			if logged {
-				o.Log.MonthEnd[e.Month()] = int64(bal)
+				o.Log.MonthEnd[e.Month()+rp.dm] = int64(bal)
 			}
 			if o.MonthEnds != nil {
-				o.MonthEnds[e.Month()] = bal / scale
+				o.MonthEnds[e.Month()+rp.dm] = bal / scale
 			}
 			var row []float64 // the month's row of Options.Rows, when it has one
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[e.Month()+rp.dm]
 			}
 			if row != nil {
 				row[o.Path] = bal
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && e.Month()+rp.dm == o.Deadline {
 				res.AtDeadline = bal
 			}
 			if ruled { // the balance at each ruled source's anniversary, the month starting now
 				for k := range annivBal {
-					if m := e.Month() + 1 - s.index[k].from; m >= 0 && m%12 == 0 {
+					if m := e.Month() + rp.dm + 1 - s.index[k].from; m >= 0 && m%12 == 0 {
 						annivBal[k] = bal
 					}
 				}
 			}
-			if reach && o.Reach(e.Month(), bal/scale) {
-				res.Reached, res.ReachMonth = true, e.Month()
+			if reach && o.Reach(e.Month()+rp.dm, bal/scale) {
+				res.Reached, res.ReachMonth = true, e.Month()+rp.dm
 				break events
 			}
 		}
@@ -1003,6 +1003,45 @@ events:
 		res.DClosing = dv.bal
 	}
 	return res
+}
+
+// repeating is where a walk is among the copies of a plan year held once
+// (see [Repeat]): how much later than their own the events walked now
+// are, in ticks, interest periods, months and years of growth; and where
+// the events the walk ranges over begin, in Schedule.events (off) and in
+// the schedule laid out (v0: Paths.W's and Inputs.Set's index).
+type repeating struct {
+	left    int // copies still to walk after the one under way; -1 before the first
+	dt      int64
+	periods int32
+	dm      int32
+	dy      int
+	year0   int // Schedule.base less dy rows: a flow's entry of the units' table is year0 + Src − stride·Year
+	off, v0 int
+}
+
+// again moves the walk on at Repeat e, the i-th event walked from off: it
+// returns the index in s.events to go on from, the year before's first
+// (e.Tick) while copies are left, each a year on, else the event after e,
+// at its own ticks.
+func (r *repeating) again(e *Event, i int, s *Schedule) int {
+	at, v := r.off+i, r.v0+i // e is no event laid out: the next one takes its place
+	if r.left < 0 {
+		r.left = int(e.Count)
+	}
+	r.off, r.v0 = at+1, v
+	if r.left > 0 {
+		r.left--
+		r.dt += TicksPerYear
+		r.periods = int32(r.dt / s.period)
+		r.dm += 12
+		r.dy++
+		r.year0 -= s.stride
+		r.off = int(e.Tick)
+		return r.off
+	}
+	r.left, r.dt, r.periods, r.dm, r.dy, r.year0 = -1, 0, 0, 0, 0, s.base
+	return r.off
 }
 
 // lowest returns the lowest balance of an interest period, low before and
@@ -1022,8 +1061,9 @@ func lowest(low, bal, tau float64) float64 {
 // base instead, and the walk reads no weight for it.
 func (s *Schedule) Weights(p *Paths, in *Inputs) {
 	k, end := int64(0), s.period // the period of the events found so far, and its end
+	ev := s.Events()
 	for _, i := range s.partial {
-		e := &s.events[i]
+		e := &ev[i]
 		if e.Tick >= end { // in tick order: the period is found without a division
 			k = e.Tick / s.period
 			end = (k + 1) * s.period

@@ -84,6 +84,8 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = evs
 	nt := len(s.taus)
 	_ = nt
+	rp := repeating{left: -1, year0: s.base}
+	_ = rp
 	for l := range Lanes {
 		res[l] = Result{ShortTick: -1}
 		{
@@ -98,6 +100,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			base[l] = bal[l]
 		}
 	}
+events:
 	for i := range evs {
 		e := &evs[i]
 		switch e.Kind() {
@@ -105,7 +108,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			var p0 int32
 			_ = p0
 			{
-				p0 = s.Period(e)
+				p0 = s.Period(e) + rp.periods
 			}
 			for l := range Lanes {
 				for c := range int32(e.Count) {
@@ -165,7 +168,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					if held := max(bal[l], 0); x > held {
 						unpaid, x = x-held, held
 						if !res[l].Short {
-							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month()
+							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick+rp.dt, e.Month()+rp.dm
 						}
 					}
 				}
@@ -195,25 +198,29 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 				} else if !paths {
 					acc[l] -= f * w[l][(int(e.Step)*nt+int(e.Ti))*2+1]
 				} else {
-					acc[l] -= f * ps[l].W[i]
+					acc[l] -= f * ps[l].W[rp.v0+i]
 				}
 			}
 		case Mark:
+		case Repeat:
+			evs = s.events[rp.again(e, i, s):]
+			goto events
 		case FlowEnd, FlowBegin, Income:
 			var x float64
 			_ = x
-			if xs != nil && !(set && int32(e.Src) == in.SetSrc) && !(ruled && in.Rules[e.Src].Kind != RuleFixed) && !(infl && s.indexed(e)) {
-				x = xs[s.base+int(e.Src)-s.stride*int(e.Year)]
+			if xs != nil && !(set && int32(e.Src) == in.SetSrc) && !(ruled && in.Rules[e.Src].Kind != RuleFixed) && !(infl && s.indexed(e.Src, int(e.Year)+rp.dy)) {
+				x = xs[rp.year0+int(e.Src)-s.stride*int(e.Year)]
 			} else {
+				y := int(e.Year) + rp.dy
 				a := in.Amounts[e.Src] * scale
 
-				x = a * s.Unit(e)
+				x = a * s.unitIn(e.Src, y)
 
 				{
 					if q, sure := money.RoundFast(x); sure {
 						x = q
 					} else {
-						x = roundAmount(a, s.unitOf(e), in.Rounding)
+						x = roundAmount(a, s.unitAt(int(e.Src), y, s.unitIn(e.Src, y)), in.Rounding)
 					}
 				}
 			}
@@ -241,7 +248,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					}
 					if exact && -x > bal[l] {
 						if !res[l].Short {
-							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick, e.Month()
+							res[l].Short, res[l].ShortTick, res[l].ShortMonth = true, e.Tick+rp.dt, e.Month()+rp.dm
 						}
 						paid := max(bal[l], 0)
 						short, x = -x-paid, -paid
@@ -264,7 +271,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					}
 					acc[l] += in * w[l][i]
 				} else {
-					acc[l] += in * ps[l].W[i]
+					acc[l] += in * ps[l].W[rp.v0+i]
 				}
 			}
 		}
@@ -274,13 +281,13 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 			}
 			if o.MonthEnds != nil {
 				for l := range Lanes {
-					o.MonthEnds[e.Month()] = bal[l] / scale
+					o.MonthEnds[e.Month()+rp.dm] = bal[l] / scale
 				}
 			}
 			var row []float64
 			_ = row
 			if o.Rows != nil {
-				row = o.Rows[e.Month()]
+				row = o.Rows[e.Month()+rp.dm]
 			}
 			for l := range Lanes {
 				row := row
@@ -288,7 +295,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 					row[at[l]] = bal[l]
 				}
 			}
-			if o.HasDeadline && e.Month() == o.Deadline {
+			if o.HasDeadline && e.Month()+rp.dm == o.Deadline {
 				for l := range Lanes {
 					res[l].AtDeadline = bal[l]
 				}
