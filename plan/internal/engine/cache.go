@@ -19,8 +19,9 @@ type Cache struct {
 	events int // events of the schedules in m laid out (Schedule.Len): the most they hold
 }
 
-// MaxCachedEvents bounds a cache by the events it holds (an event is 24
-// bytes, so about 100 MB): past it, the cache starts afresh. It holds the
+// MaxCachedEvents bounds a cache by the events it may hold, every plan year
+// laid out (an event is 16 bytes, so about 64 MB): past it, the cache
+// starts afresh. It holds the
 // largest schedule a goal may have (plan's work budget, 6,000,000 events
 // counted from above: about 2.8 million compiled).
 const MaxCachedEvents = 1 << 22

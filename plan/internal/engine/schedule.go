@@ -333,8 +333,9 @@ func compileFrom(sh *Shape, old *Schedule) *Schedule {
 // of the schedule (a shape's events do not depend on how far it is
 // compiled, see [Schedule.Prefix]), and only the months after it are laid
 // down. With repeat, a plan year whose events are the year before's a year
-// later (see [compiler.repeats]) is copied from it, not laid down event by
-// event; it returns the years copied.
+// later (see [compiler.repeats]) is held once, a Repeat after it (see
+// [compiler.copyYear]), not laid down event by event; it returns the years
+// copied so.
 func compileYears(sh *Shape, old *Schedule, repeat bool) (*Schedule, int) {
 	s := &Schedule{months: sh.Months, stepFrom: slices.Clone(sh.StepFrom)}
 	var m0 int32 // the first month laid down
