@@ -14,6 +14,7 @@ import (
 	"slices"
 	"sort"
 	"sync"
+	"sync/atomic"
 )
 
 // TicksPerYear is the number of ticks in a year of the time grid: the least
@@ -241,8 +242,23 @@ func (s *Schedule) Events() []Event {
 	if s.flat == nil {
 		return s.events
 	}
-	s.flat.once.Do(func() { s.flat.ev = s.layOut() })
-	return s.flat.ev
+	s.flat.once.Do(func() {
+		ev := s.layOut()
+		s.flat.ev.Store(&ev)
+	})
+	return *s.flat.ev.Load()
+}
+
+// walked returns the events a walk goes through: laid out, once Events
+// has laid them out, which a walk goes through with no Repeat to take it
+// back; else as held.
+func (s *Schedule) walked() []Event {
+	if s.flat != nil {
+		if ev := s.flat.ev.Load(); ev != nil {
+			return *ev
+		}
+	}
+	return s.events
 }
 
 // Len returns the number of events, every plan year laid out: the
@@ -252,7 +268,7 @@ func (s *Schedule) Len() int { return s.n }
 // flat is a schedule's events laid out (see [Schedule.Events]).
 type flat struct {
 	once sync.Once
-	ev   []Event
+	ev   atomic.Pointer[[]Event]
 }
 
 // layOut returns s's events with every repeated plan year laid out: each

@@ -582,7 +582,7 @@ func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 			ruleYear[k], annivBal[k] = -1, bal
 		}
 	}
-	evs := s.events
+	evs := s.walked()
 	nt := len(s.taus)
 	rp := repeating{left: -1, year0: s.base} // where the walk is in a plan year held once (Repeat)
 events:

@@ -80,7 +80,7 @@ func walkPathsLanes(s *Schedule, in *Inputs, o *Options, ps *[Lanes]*Paths, at *
 	_ = ruleYear
 	var annivBal [Lanes][]float64
 	_ = annivBal
-	evs := s.events
+	evs := s.walked()
 	_ = evs
 	nt := len(s.taus)
 	_ = nt

@@ -139,7 +139,7 @@ func lanesOf(t *testing.T, fn, name string, f flags) string {
 		}
 	}
 	if k < 0 {
-		t.Fatal("walk.go: walk has no loop events: for i := range evs (evs := s.events)")
+		t.Fatal("walk.go: walk has no loop events: for i := range evs (evs := s.walked())")
 	}
 	loop := body.List[k].(*ast.LabeledStmt)
 	rs := loop.Stmt.(*ast.RangeStmt)
