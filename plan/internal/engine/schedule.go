@@ -195,7 +195,8 @@ type StreamShape struct {
 }
 
 // A Schedule is a shape compiled onto the tick grid: its events in order.
-// It is never changed after [Compile] returns it.
+// It is never changed after [Compile] returns it, but for laying its
+// repeated years out, once, when first asked (see [Schedule.Events]).
 type Schedule struct {
 	months   int32
 	endTick  int64

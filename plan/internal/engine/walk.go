@@ -498,7 +498,8 @@ func flagsOf(s *Schedule, in *Inputs, o *Options) flags {
 // the top of the body, one a line, which is what the generator replaces;
 // the lane form also needs the walk's state declared before its loop of
 // events, with its type, and the loop to be one switch on the event's kind,
-// which a case leaves by break, then the month's end, an if (the generator
+// which a case leaves by break (a Repeat by goto, to range over the year it
+// walks again), then the month's end, an if (the generator
 // says so when they are not).
 func walk[F flagSet](s *Schedule, in *Inputs, o *Options, f flags) Result {
 	exact := fixed[F](f.exact, flExact)
