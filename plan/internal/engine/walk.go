@@ -1077,7 +1077,7 @@ func (s *Schedule) Weights(p *Paths, in *Inputs) {
 // post: one for each amount.
 func (s *Schedule) MaxMatchPosts() int {
 	if s.posts < 0 { // a prefix
-		_, n := countPosts(s.events, s.accrue)
+		_, n := countPosts(s.Events(), s.accrue)
 		return n
 	}
 	return s.amounts
@@ -1108,7 +1108,7 @@ func (g *Log) post(tick int64, begin bool, kind PostKind, src int16, x, short, c
 // them as it lays the events down; a prefix counts its own.
 func (s *Schedule) MaxPosts() int {
 	if s.posts < 0 {
-		n, _ := countPosts(s.events, s.accrue)
+		n, _ := countPosts(s.Events(), s.accrue)
 		return n
 	}
 	return s.posts
