@@ -180,6 +180,10 @@ func TestFlowAmountsTable(t *testing.T) {
 			t.Fatalf("shape %d %+v: with the table %s without", n, sh, err)
 		}
 	}
+	// counted on this seed, no outside source: 996 of the 1,000 shapes have
+	// a table; the bound sits far below that, so that a change to
+	// randomShape does not trip it, and far above a walk that seldom has one
+	t.Logf("%d shapes of 1000 walked with a table", tabled)
 	if tabled < 500 {
 		t.Fatalf("%d shapes of 1000 walked with a table", tabled)
 	}
